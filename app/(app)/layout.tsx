@@ -1,0 +1,24 @@
+import { AppHeader } from "@/components/layout/app-header";
+import { getDb } from "@/db/client";
+import { requirePageActor } from "@/lib/auth/session";
+import { listTeamsOfUser } from "@/lib/authz/actor";
+
+export const dynamic = "force-dynamic";
+
+export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
+  const actor = await requirePageActor();
+  const teams = await listTeamsOfUser(getDb(), actor.userId);
+  return (
+    <>
+      <AppHeader
+        userName={actor.name ?? actor.email}
+        userEmail={actor.email}
+        teamId={actor.teamId}
+        teamName={actor.teamName}
+        role={actor.role}
+        teams={teams}
+      />
+      <main className="mx-auto max-w-6xl px-4 py-6">{children}</main>
+    </>
+  );
+}

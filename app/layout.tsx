@@ -1,0 +1,27 @@
+import type { Metadata } from "next";
+import localFont from "next/font/local";
+import { GeistMono } from "geist/font/mono";
+import { Providers } from "@/components/layout/providers";
+import "./globals.css";
+
+const sans = localFont({
+  src: "../node_modules/@fontsource-variable/inter/files/inter-latin-wght-normal.woff2",
+  weight: "100 900",
+  variable: "--font-sans",
+  display: "swap",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Seriatim", template: "%s · Seriatim" },
+  description: "Reactor train design: sweep, rank and approve CSTR and PFR trains.",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${sans.variable} ${GeistMono.variable}`} style={{ ["--font-mono" as string]: "var(--font-geist-mono)" }}>
+      <body>
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

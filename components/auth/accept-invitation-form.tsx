@@ -1,0 +1,62 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { Field, FormMessage } from "@/components/ui/field";
+import { applyServerFieldErrors } from "@/components/ui/server-errors";
+import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { invitationAcceptSchema } from "@/lib/schemas/foundation";
+import { signInWithPassword } from "./auth-client";
+
+export function AcceptInvitationForm({ token, email }: { token: string; email: string }) {
+  const [formError, setFormError] = useState<string>();
+  const [existing, setExisting] = useState(false);
+  const form = useForm<z.input<typeof invitationAcceptSchema>, unknown, z.output<typeof invitationAcceptSchema>>({
+    resolver: zodResolver(invitationAcceptSchema),
+    defaultValues: { token, name: "", password: "" },
+  });
+  const { errors, isSubmitting } = form.formState;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setFormError(undefined);
+    try {
+      const result = await fetchJson<{ createdAccount: boolean }>("/api/invitations/accept", { method: "POST", json: values });
+      if (!result.createdAccount) {
+        setExisting(true);
+        return;
+      }
+      const outcome = await signInWithPassword(email, values.password);
+      window.location.assign(outcome.ok ? outcome.url : "/signin");
+    } catch (err) {
+      if (err instanceof ApiError) {
+        const rest = applyServerFieldErrors(err.fields, form.setError, ["name", "password"]);
+        setFormError(rest.length ? err.message : undefined);
+      } else setFormError("Could not reach the server. Try again.");
+    }
+  });
+
+  if (existing) {
+    return (
+      <FormMessage kind="info">
+        You already had an account with this address; the team is added to it. <a href="/signin" className="underline">Sign in</a> as usual.
+      </FormMessage>
+    );
+  }
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Accept invitation">
+      <input type="hidden" {...form.register("token")} />
+      <Field id="name" label="Your name" error={errors.name?.message}>
+        <input id="name" className="input" autoComplete="name" aria-invalid={!!errors.name} {...form.register("name")} />
+      </Field>
+      <Field id="new-password" label="Password" error={errors.password?.message} hint="At least 10 characters.">
+        <input id="new-password" type="password" autoComplete="new-password" className="input" aria-invalid={!!errors.password} {...form.register("password")} />
+      </Field>
+      {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
+      <button type="submit" className="btn-primary w-full justify-center" disabled={isSubmitting}>
+        {isSubmitting ? "Creating account…" : "Create account and sign in"}
+      </button>
+    </form>
+  );
+}

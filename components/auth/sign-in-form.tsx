@@ -1,0 +1,112 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { Field, FormMessage } from "@/components/ui/field";
+import { applyServerFieldErrors } from "@/components/ui/server-errors";
+import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/foundation";
+import { requestSignInLink, signInWithPassword } from "./auth-client";
+
+type Method = "password" | "link";
+
+export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
+  const [method, setMethod] = useState<Method>("password");
+  return (
+    <div className="card w-full max-w-sm p-6">
+      <div className="mb-5 flex rounded border border-line p-0.5 text-sm" role="tablist" aria-label="Sign-in method">
+        {(["password", "link"] as const).map((m) => (
+          <button
+            key={m}
+            type="button"
+            role="tab"
+            aria-selected={method === m}
+            onClick={() => setMethod(m)}
+            className={`flex-1 rounded px-3 py-1.5 ${method === m ? "bg-accent-600 text-white" : "text-ink-soft hover:text-ink"}`}
+          >
+            {m === "password" ? "Password" : "E-mail link"}
+          </button>
+        ))}
+      </div>
+      {initialError ? (
+        <div className="mb-4">
+          <FormMessage kind="error">{initialError}</FormMessage>
+        </div>
+      ) : null}
+      {method === "password" ? <PasswordForm callbackUrl={callbackUrl} /> : <LinkForm callbackUrl={callbackUrl} />}
+    </div>
+  );
+}
+
+function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
+  const [formError, setFormError] = useState<string>();
+  const form = useForm<z.input<typeof passwordSignInSchema>, unknown, z.output<typeof passwordSignInSchema>>({
+    resolver: zodResolver(passwordSignInSchema),
+  });
+  const { errors, isSubmitting } = form.formState;
+
+  const onSubmit = form.handleSubmit(async ({ email, password }) => {
+    setFormError(undefined);
+    const outcome = await signInWithPassword(email, password, callbackUrl);
+    if (outcome.ok) {
+      window.location.assign(outcome.url);
+      return;
+    }
+    const rest = applyServerFieldErrors(outcome.fields, form.setError, ["email", "password"]);
+    setFormError(rest.length ? rest.join(" ") : outcome.message);
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in with password">
+      <Field id="email" label="E-mail" error={errors.email?.message}>
+        <input id="email" type="email" autoComplete="username" className="input" aria-invalid={!!errors.email} {...form.register("email")} />
+      </Field>
+      <Field id="password" label="Password" error={errors.password?.message}>
+        <input id="password" type="password" autoComplete="current-password" className="input" aria-invalid={!!errors.password} {...form.register("password")} />
+      </Field>
+      {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
+      <button type="submit" className="btn-primary w-full justify-center" disabled={isSubmitting}>
+        {isSubmitting ? "Signing in…" : "Sign in"}
+      </button>
+    </form>
+  );
+}
+
+function LinkForm({ callbackUrl }: { callbackUrl: string }) {
+  const [sentTo, setSentTo] = useState<string>();
+  const [formError, setFormError] = useState<string>();
+  const form = useForm<z.input<typeof linkSignInSchema>, unknown, z.output<typeof linkSignInSchema>>({
+    resolver: zodResolver(linkSignInSchema),
+  });
+  const { errors, isSubmitting } = form.formState;
+
+  const onSubmit = form.handleSubmit(async ({ email }) => {
+    setFormError(undefined);
+    const outcome = await requestSignInLink(email, callbackUrl);
+    if (outcome.ok) setSentTo(email);
+    else {
+      const rest = applyServerFieldErrors(outcome.fields, form.setError, ["email"]);
+      setFormError(rest.length ? rest.join(" ") : outcome.message);
+    }
+  });
+
+  if (sentTo) {
+    return (
+      <FormMessage kind="info">
+        If <b>{sentTo}</b> has a Seriatim account, a sign-in link is on its way. It works once, for 15 minutes.
+      </FormMessage>
+    );
+  }
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in with an e-mail link">
+      <Field id="link-email" label="E-mail" error={errors.email?.message} hint="We send a one-time link; no password needed.">
+        <input id="link-email" type="email" autoComplete="username" className="input" aria-invalid={!!errors.email} {...form.register("email")} />
+      </Field>
+      {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
+      <button type="submit" className="btn-primary w-full justify-center" disabled={isSubmitting}>
+        {isSubmitting ? "Sending…" : "Send sign-in link"}
+      </button>
+    </form>
+  );
+}

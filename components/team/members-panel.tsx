@@ -1,0 +1,177 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import type { Role } from "@/db/schema";
+import { Field, FormMessage } from "@/components/ui/field";
+import { applyServerFieldErrors } from "@/components/ui/server-errors";
+import { ROLES } from "@/lib/authz/policy";
+import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { invitationCreateSchema } from "@/lib/schemas/foundation";
+
+interface Member {
+  userId: string;
+  name: string | null;
+  email: string;
+  role: Role;
+  joinedAt: string;
+}
+interface Invitation {
+  id: string;
+  email: string;
+  role: Role;
+  expiresAt: string;
+}
+
+const day = new Intl.DateTimeFormat("en-GB", { day: "2-digit", month: "short", year: "numeric" });
+const message = (err: unknown) => (err instanceof ApiError ? err.message : "Could not reach the server.");
+
+export function MembersPanel({ selfId }: { selfId: string }) {
+  const qc = useQueryClient();
+  const members = useQuery({ queryKey: ["members"], queryFn: () => fetchJson<{ members: Member[] }>("/api/team/members").then((r) => r.members) });
+  const invitations = useQuery({
+    queryKey: ["invitations"],
+    queryFn: () => fetchJson<{ invitations: Invitation[] }>("/api/team/invitations").then((r) => r.invitations),
+  });
+  const [error, setError] = useState<string>();
+  const refresh = () => Promise.all([qc.invalidateQueries({ queryKey: ["members"] }), qc.invalidateQueries({ queryKey: ["invitations"] })]);
+
+  const changeRole = useMutation({
+    mutationFn: ({ userId, role }: { userId: string; role: Role }) => fetchJson(`/api/team/members/${userId}`, { method: "PATCH", json: { role } }),
+    onSuccess: () => (setError(undefined), refresh()),
+    onError: (e) => setError(message(e)),
+  });
+  const revoke = useMutation({
+    mutationFn: (id: string) => fetchJson(`/api/team/invitations/${id}`, { method: "DELETE" }),
+    onSuccess: () => (setError(undefined), refresh()),
+    onError: (e) => setError(message(e)),
+  });
+
+  return (
+    <div className="space-y-5">
+      {error ? <FormMessage kind="error">{error}</FormMessage> : null}
+      <section className="card overflow-hidden">
+        <h2 className="border-b border-line px-3 py-2">Members</h2>
+        <table className="table-dense" data-testid="members-table">
+          <thead>
+            <tr>
+              <th>Name</th>
+              <th>E-mail</th>
+              <th>Joined</th>
+              <th className="w-40">Role</th>
+            </tr>
+          </thead>
+          <tbody>
+            {(members.data ?? []).map((m) => (
+              <tr key={m.userId}>
+                <td>{m.name}</td>
+                <td className="text-ink-soft">{m.email}</td>
+                <td className="num">{day.format(new Date(m.joinedAt))}</td>
+                <td>
+                  <select
+                    aria-label={`Role of ${m.email}`}
+                    className="input py-1"
+                    value={m.role}
+                    disabled={changeRole.isPending || m.userId === selfId}
+                    onChange={(e) => changeRole.mutate({ userId: m.userId, role: e.target.value as Role })}
+                  >
+                    {ROLES.map((r) => (
+                      <option key={r} value={r}>
+                        {r}
+                      </option>
+                    ))}
+                  </select>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+      <InviteForm onInvited={refresh} />
+      <section className="card overflow-hidden">
+        <h2 className="border-b border-line px-3 py-2">Open invitations</h2>
+        {(invitations.data ?? []).length === 0 ? (
+          <p className="px-3 py-4 text-ink-soft">No open invitations.</p>
+        ) : (
+          <table className="table-dense" data-testid="invitations-table">
+            <thead>
+              <tr>
+                <th>E-mail</th>
+                <th>Role</th>
+                <th>Expires</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {(invitations.data ?? []).map((i) => (
+                <tr key={i.id}>
+                  <td>{i.email}</td>
+                  <td>{i.role}</td>
+                  <td className="num">{day.format(new Date(i.expiresAt))}</td>
+                  <td className="text-right">
+                    <button type="button" className="btn-danger py-1" onClick={() => revoke.mutate(i.id)} disabled={revoke.isPending}>
+                      Revoke
+                    </button>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
+    </div>
+  );
+}
+
+function InviteForm({ onInvited }: { onInvited: () => void }) {
+  const [notice, setNotice] = useState<{ kind: "error" | "info"; text: string }>();
+  const form = useForm<z.input<typeof invitationCreateSchema>, unknown, z.output<typeof invitationCreateSchema>>({
+    resolver: zodResolver(invitationCreateSchema),
+    defaultValues: { email: "", role: "engineer" },
+  });
+  const { errors, isSubmitting } = form.formState;
+  const onSubmit = form.handleSubmit(async (values) => {
+    setNotice(undefined);
+    try {
+      const { invitation } = await fetchJson<{ invitation: { email: string; mailed: boolean } }>("/api/team/invitations", { method: "POST", json: values });
+      setNotice({
+        kind: invitation.mailed ? "info" : "error",
+        text: invitation.mailed ? `Invitation sent to ${invitation.email}.` : `Invitation recorded, but the mail to ${invitation.email} could not be sent.`,
+      });
+      form.reset({ email: "", role: values.role });
+      onInvited();
+    } catch (err) {
+      const rest = err instanceof ApiError ? applyServerFieldErrors(err.fields, form.setError, ["email", "role"]) : [];
+      if (!(err instanceof ApiError) || rest.length || !err.fields) setNotice({ kind: "error", text: message(err) });
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="card grid gap-3 p-4 md:grid-cols-[2fr_1fr_auto] md:items-start" aria-label="Invite a member">
+      <Field id="invite-email" label="Invite by e-mail" error={errors.email?.message}>
+        <input id="invite-email" type="email" className="input" placeholder="name@company.example" aria-invalid={!!errors.email} {...form.register("email")} />
+      </Field>
+      <Field id="invite-role" label="Role" error={errors.role?.message}>
+        <select id="invite-role" className="input" {...form.register("role")}>
+          {ROLES.map((r) => (
+            <option key={r} value={r}>
+              {r}
+            </option>
+          ))}
+        </select>
+      </Field>
+      <div className="md:pt-5">
+        <button type="submit" className="btn-primary" disabled={isSubmitting}>
+          Send invitation
+        </button>
+      </div>
+      {notice ? (
+        <div className="md:col-span-3">
+          <FormMessage kind={notice.kind}>{notice.text}</FormMessage>
+        </div>
+      ) : null}
+    </form>
+  );
+}

@@ -1,0 +1,34 @@
+import { asc, eq } from "drizzle-orm";
+import type { Executor } from "@/db/client";
+import { memberships, teams, users } from "@/db/schema";
+import type { Actor } from "./policy";
+
+export interface TeamChoice {
+  teamId: string;
+  teamName: string;
+  role: Actor["role"];
+}
+
+/** Every team the user belongs to, oldest membership first. */
+export async function listTeamsOfUser(db: Executor, userId: string): Promise<TeamChoice[]> {
+  return db
+    .select({ teamId: teams.id, teamName: teams.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(teams, eq(teams.id, memberships.teamId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(memberships.createdAt), asc(teams.name));
+}
+
+/**
+ * The actor for a signed-in user, read fresh from the database on every request so a
+ * changed or removed membership takes effect at once. `preferredTeamId` (from the team
+ * switcher) is honoured only when the user really is a member of that team.
+ */
+export async function loadActor(db: Executor, userId: string, preferredTeamId?: string): Promise<Actor | null> {
+  const [user] = await db.select().from(users).where(eq(users.id, userId));
+  if (!user) return null;
+  const choices = await listTeamsOfUser(db, userId);
+  const chosen = choices.find((c) => c.teamId === preferredTeamId) ?? choices[0];
+  if (!chosen) return null;
+  return { userId: user.id, email: user.email, name: user.name, teamId: chosen.teamId, teamName: chosen.teamName, role: chosen.role };
+}

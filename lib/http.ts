@@ -1,0 +1,43 @@
+import { NextResponse } from "next/server";
+import type { z } from "zod";
+import { AppError, validationError } from "./errors";
+
+/** Wraps a route handler so every failure leaves as a JSON error with the right status. */
+export function route<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
+  return async (req: Request, ctx: C): Promise<Response> => {
+    try {
+      return await fn(req, ctx);
+    } catch (err) {
+      return toResponse(err);
+    }
+  };
+}
+
+export function toResponse(err: unknown): Response {
+  if (err instanceof AppError) {
+    const headers: Record<string, string> = {};
+    if (err.retryAfterSeconds) headers["Retry-After"] = String(err.retryAfterSeconds);
+    return NextResponse.json(err.toJSON(), { status: err.status, headers });
+  }
+  console.error("unhandled error in route handler", err);
+  return NextResponse.json({ error: { code: "internal", message: "Something went wrong on our side; nothing was saved." } }, { status: 500 });
+}
+
+/** Reads and validates a JSON body: 400 naming each bad field, never a 500. */
+export async function readJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.output<S>> {
+  let body: unknown;
+  try {
+    body = await req.json();
+  } catch {
+    throw new AppError("bad_request", "The body must be JSON", { fields: { "(body)": ["Malformed JSON"] } });
+  }
+  return parseWith(schema, body);
+}
+
+export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
+  const parsed = schema.safeParse(value);
+  if (!parsed.success) throw validationError(parsed.error);
+  return parsed.data;
+}
+
+export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });

@@ -1,0 +1,56 @@
+import { z } from "zod";
+import { ROLES } from "@/lib/authz/policy";
+
+/** Shared by the server (route handlers, actions) and the client forms. */
+export const emailSchema = z
+  .string({ error: "E-mail is required" })
+  .trim()
+  .toLowerCase()
+  .pipe(z.email({ error: "Enter a valid e-mail address" }));
+
+export const passwordSignInSchema = z.object({
+  email: emailSchema,
+  password: z.string({ error: "Password is required" }).min(1, "Password is required").max(200),
+});
+export type PasswordSignIn = z.infer<typeof passwordSignInSchema>;
+
+export const linkSignInSchema = z.object({ email: emailSchema });
+
+export const newPasswordSchema = z
+  .string({ error: "Password is required" })
+  .min(10, "Use at least 10 characters")
+  .max(200, "Use at most 200 characters");
+
+export const projectCreateSchema = z.object({
+  name: z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters"),
+  description: z.string().trim().max(2000, "Use at most 2000 characters").default(""),
+});
+export type ProjectCreate = z.infer<typeof projectCreateSchema>;
+
+export const projectUpdateSchema = z
+  .object({
+    name: projectCreateSchema.shape.name.optional(),
+    description: projectCreateSchema.shape.description.optional(),
+    archived: z.boolean({ error: "archived must be true or false" }).optional(),
+  })
+  .strict()
+  .refine((v) => v.name !== undefined || v.description !== undefined || v.archived !== undefined, {
+    message: "Give at least one of name, description, archived",
+  });
+export type ProjectUpdate = z.infer<typeof projectUpdateSchema>;
+
+export const roleSchema = z.enum(ROLES, { error: `Role must be one of ${ROLES.join(", ")}` });
+
+export const invitationCreateSchema = z.object({ email: emailSchema, role: roleSchema });
+export type InvitationCreate = z.infer<typeof invitationCreateSchema>;
+
+export const memberUpdateSchema = z.object({ role: roleSchema }).strict();
+
+export const invitationAcceptSchema = z.object({
+  token: z.string({ error: "The invitation token is missing" }).min(20, "The invitation token is malformed").max(200),
+  name: z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120),
+  password: newPasswordSchema,
+});
+export type InvitationAccept = z.infer<typeof invitationAcceptSchema>;
+
+export const uuidSchema = z.uuid({ error: "Not a valid id" });

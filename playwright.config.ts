@@ -1,0 +1,53 @@
+import { defineConfig } from "@playwright/test";
+
+// scripts/test.ts provisions the database and picks free ports; these defaults serve
+// `npm run test:e2e` by hand against a database you already migrated and seeded.
+const port = Number(process.env.E2E_PORT ?? 3100);
+const smtpPort = Number(process.env.MAIL_FAKE_SMTP_PORT ?? 2625);
+const mailHttpPort = Number(process.env.MAIL_FAKE_HTTP_PORT ?? 2680);
+const baseURL = `http://127.0.0.1:${port}`;
+const env = {
+  ...(process.env as Record<string, string>),
+  APP_URL: baseURL,
+  AUTH_URL: `${baseURL}/api/auth`,
+  AUTH_SECRET: process.env.AUTH_SECRET ?? "e2e-only-secret-0123456789abcdef",
+  SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+  MAIL_FAKE_SMTP_PORT: String(smtpPort),
+  MAIL_FAKE_HTTP_PORT: String(mailHttpPort),
+  NEXT_TELEMETRY_DISABLED: "1",
+};
+
+export default defineConfig({
+  testDir: "tests/e2e",
+  testMatch: "**/*.spec.ts",
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 60_000,
+  reporter: [["list"], ["json", { outputFile: process.env.E2E_JSON_REPORT ?? "test-results/e2e.json" }]],
+  use: {
+    baseURL,
+    trace: "retain-on-failure",
+    launchOptions: {
+      executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+      args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    },
+  },
+  metadata: { mailApi: `http://127.0.0.1:${mailHttpPort}/api/messages` },
+  webServer: [
+    {
+      command: "node --import tsx scripts/mail-fake.ts",
+      url: `http://127.0.0.1:${mailHttpPort}/api/messages`,
+      env,
+      reuseExistingServer: false,
+      timeout: 30_000,
+    },
+    {
+      command: `node_modules/.bin/next start -H 127.0.0.1 -p ${port}`,
+      url: `${baseURL}/api/health`,
+      env: { ...env, NODE_ENV: "production" },
+      reuseExistingServer: false,
+      timeout: 60_000,
+    },
+  ],
+});

@@ -1,0 +1,141 @@
+/**
+ * `npm test`: the whole suite on a throwaway PostgreSQL cluster, removed afterwards
+ * even when a step fails. typecheck → lint → unit → integration → build → browser.
+ */
+import { execFileSync, spawnSync } from "node:child_process";
+import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { drizzle } from "drizzle-orm/node-postgres";
+import pg from "pg";
+import * as schema from "../db/schema";
+import { runMigrations } from "../db/migrate";
+import { seedDemoData } from "../db/seed";
+import { createDatabase, ensurePostgresBinaries, freePort, startThrowawayCluster, type Cluster } from "./lib/postgres";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+const results = path.join(root, "test-results");
+const bin = (name: string) => path.join(root, "node_modules", ".bin", name);
+const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+
+interface StepResult {
+  name: string;
+  ok: boolean;
+  seconds: number;
+  note?: string;
+}
+
+function ensureChromium(): void {
+  if (existsSync(CHROMIUM)) return;
+  if (process.getuid?.() !== 0) {
+    throw new Error(`Chromium is missing at ${CHROMIUM}. Install it with:\n  sudo apt-get update && sudo apt-get install -y chromium`);
+  }
+  console.log("› installing Debian's chromium for the browser tests (first run only)…");
+  const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
+  execFileSync("apt-get", ["update", "-qq"], { stdio: "inherit", env });
+  execFileSync("apt-get", ["install", "-y", "-qq", "chromium"], { stdio: "inherit", env });
+}
+
+function run(name: string, cmd: string, args: string[], env: Record<string, string> = {}): StepResult {
+  console.log(`\n━━ ${name} ━━  ${path.basename(cmd)} ${args.join(" ")}`);
+  const t = Date.now();
+  const r = spawnSync(cmd, args, { cwd: root, stdio: "inherit", env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", ...env } });
+  return { name, ok: r.status === 0, seconds: (Date.now() - t) / 1000 };
+}
+
+function readJson<T>(file: string): T | undefined {
+  try {
+    return JSON.parse(readFileSync(file, "utf8")) as T;
+  } catch {
+    return undefined;
+  }
+}
+
+function countTests(): { passed: number; failed: number } {
+  let passed = 0;
+  let failed = 0;
+  for (const f of ["unit.json", "integration.json"]) {
+    const r = readJson<{ numPassedTests: number; numFailedTests: number }>(path.join(results, f));
+    passed += r?.numPassedTests ?? 0;
+    failed += r?.numFailedTests ?? 0;
+  }
+  const e2e = readJson<{ stats: { expected: number; unexpected: number; flaky: number } }>(path.join(results, "e2e.json"));
+  passed += e2e?.stats.expected ?? 0;
+  failed += (e2e?.stats.unexpected ?? 0) + (e2e?.stats.flaky ?? 0);
+  return { passed, failed };
+}
+
+async function main(): Promise<number> {
+  const t0 = Date.now();
+  rmSync(results, { recursive: true, force: true });
+  mkdirSync(results, { recursive: true });
+  ensurePostgresBinaries();
+  ensureChromium();
+
+  let cluster: Cluster | undefined;
+  const cleanup = () => {
+    cluster?.stop();
+    cluster = undefined;
+  };
+  process.on("SIGINT", () => (cleanup(), process.exit(130)));
+  process.on("SIGTERM", () => (cleanup(), process.exit(143)));
+
+  const steps: StepResult[] = [];
+  try {
+    console.log("› starting a throwaway PostgreSQL cluster");
+    cluster = await startThrowawayCluster();
+    console.log(`  on 127.0.0.1:${cluster.port}, data in ${cluster.dataDir}`);
+    const templateUrl = await createDatabase(cluster.serverUrl, "seriatim_template");
+
+    const vitestJson = (f: string) => ["--reporter=default", "--reporter=json", `--outputFile.json=${path.join(results, f)}`];
+    steps.push(run("typecheck", bin("tsc"), ["--noEmit", "-p", "."]));
+    steps.push(run("lint", bin("eslint"), ["--max-warnings=0", "."]));
+    steps.push(run("unit", bin("vitest"), ["run", "--project", "unit", ...vitestJson("unit.json")]));
+    steps.push(
+      run("integration", bin("vitest"), ["run", "--project", "integration", ...vitestJson("integration.json")], {
+        DATABASE_URL: templateUrl,
+        TEST_PG_SERVER_URL: cluster.serverUrl,
+      }),
+    );
+    const build = run("build", bin("next"), ["build"], { NODE_ENV: "production" });
+    steps.push(build);
+
+    if (build.ok) {
+      const e2eUrl = await createDatabase(cluster.serverUrl, "seriatim_e2e");
+      await runMigrations(e2eUrl);
+      const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });
+      await seedDemoData(drizzle(pool, { schema }));
+      await pool.end();
+      steps.push(
+        run("e2e", bin("playwright"), ["test"], {
+          DATABASE_URL: e2eUrl,
+          E2E_PORT: String(await freePort()),
+          MAIL_FAKE_SMTP_PORT: String(await freePort()),
+          MAIL_FAKE_HTTP_PORT: String(await freePort()),
+          E2E_JSON_REPORT: path.join(results, "e2e.json"),
+          CHROMIUM_PATH: CHROMIUM,
+        }),
+      );
+    } else {
+      steps.push({ name: "e2e", ok: false, seconds: 0, note: "not run: the build failed" });
+    }
+  } finally {
+    cleanup();
+  }
+
+  console.log("\n━━ summary ━━");
+  for (const s of steps) console.log(`  ${s.ok ? "ok  " : "FAIL"}  ${s.name.padEnd(12)} ${s.seconds.toFixed(1).padStart(6)} s${s.note ? `  (${s.note})` : ""}`);
+  const { passed, failed } = countTests();
+  const failedSteps = steps.filter((s) => !s.ok).length;
+  console.log(`  total ${((Date.now() - t0) / 1000).toFixed(1)} s; throwaway cluster removed`);
+  console.log(`tests: ${passed} passed, ${failed} failed`);
+  return failedSteps === 0 && failed === 0 && passed > 0 ? 0 : 1;
+}
+
+main().then(
+  (code) => process.exit(code),
+  (err: Error) => {
+    console.error(`npm test failed: ${err.message}`);
+    process.exit(1);
+  },
+);

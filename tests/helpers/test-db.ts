@@ -1,0 +1,46 @@
+import { randomUUID } from "node:crypto";
+import { drizzle } from "drizzle-orm/node-postgres";
+import pg from "pg";
+import * as schema from "@/db/schema";
+import type { Database } from "@/db/client";
+
+export interface TestDatabase {
+  db: Database;
+  url: string;
+  pool: pg.Pool;
+  drop(): Promise<void>;
+}
+
+function serverUrl(): string {
+  const url = process.env.TEST_PG_SERVER_URL;
+  if (!url) throw new Error("TEST_PG_SERVER_URL is not set; run integration tests through `npm test`");
+  return url;
+}
+
+async function admin<T>(fn: (c: pg.Client) => Promise<T>): Promise<T> {
+  const client = new pg.Client({ connectionString: `${serverUrl()}postgres` });
+  await client.connect();
+  try {
+    return await fn(client);
+  } finally {
+    await client.end();
+  }
+}
+
+/** A fresh database for one test file: a clone of the migrated template, or empty. */
+export async function createTestDatabase(opts: { empty?: boolean } = {}): Promise<TestDatabase> {
+  const name = `t_${randomUUID().replace(/-/g, "").slice(0, 12)}`;
+  const template = new URL(process.env.DATABASE_URL ?? "").pathname.slice(1);
+  await admin((c) => c.query(opts.empty ? `create database ${name}` : `create database ${name} template "${template}"`));
+  const url = `${serverUrl()}${name}`;
+  const pool = new pg.Pool({ connectionString: url, max: 4 });
+  return {
+    db: drizzle(pool, { schema }),
+    url,
+    pool,
+    async drop() {
+      await pool.end();
+      await admin((c) => c.query(`drop database if exists ${name} with (force)`));
+    },
+  };
+}

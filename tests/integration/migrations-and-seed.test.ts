@@ -1,0 +1,79 @@
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { runMigrations } from "@/db/migrate";
+import { DEMO_USERS, seedDemoData } from "@/db/seed";
+import { auditEntries } from "@/db/schema";
+import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+
+const journal = JSON.parse(readFileSync("drizzle/meta/_journal.json", "utf8")) as { entries: { tag: string }[] };
+const TABLES = ["users", "accounts", "sessions", "verification_tokens", "teams", "memberships", "projects", "invitations", "audit_entries", "sign_in_attempts"];
+
+describe("migrations on an empty database", () => {
+  let t: TestDatabase;
+  beforeAll(async () => {
+    t = await createTestDatabase({ empty: true });
+  });
+  afterAll(() => t.drop());
+
+  it("apply every migration in drizzle/ and create every table", async () => {
+    await runMigrations(t.url);
+    const applied = await t.pool.query("select count(*)::int as n from drizzle.__drizzle_migrations");
+    expect(applied.rows[0].n).toBe(journal.entries.length);
+    const tables = await t.pool.query("select table_name from information_schema.tables where table_schema = 'public'");
+    expect(tables.rows.map((r) => r.table_name).sort()).toEqual([...TABLES].sort());
+  });
+
+  it("are idempotent: a second run applies nothing", async () => {
+    await runMigrations(t.url);
+    const applied = await t.pool.query("select count(*)::int as n from drizzle.__drizzle_migrations");
+    expect(applied.rows[0].n).toBe(journal.entries.length);
+  });
+});
+
+describe("demo seed", () => {
+  let t: TestDatabase;
+  beforeAll(async () => {
+    t = await createTestDatabase();
+  });
+  afterAll(() => t.drop());
+
+  async function snapshot(): Promise<Record<string, unknown[]>> {
+    const out: Record<string, unknown[]> = {};
+    for (const table of TABLES) {
+      const r = await t.pool.query(`select * from ${table} order by 1, 2`);
+      out[table] = r.rows;
+    }
+    return out;
+  }
+
+  it("creates one user per role and a second team", async () => {
+    await seedDemoData(t.db);
+    const roles = await t.pool.query("select role::text, count(*)::int as n from memberships group by role order by role");
+    expect(Object.fromEntries(roles.rows.map((r) => [r.role, r.n]))).toEqual({ admin: 2, manager: 1, engineer: 1, viewer: 1 });
+    const users = await t.pool.query("select email from users order by email");
+    expect(users.rows.map((r) => r.email)).toEqual(DEMO_USERS.map((u) => u.email).sort());
+  });
+
+  it("changes nothing when run a second time", async () => {
+    const before = await snapshot();
+    await seedDemoData(t.db);
+    expect(await snapshot()).toEqual(before);
+  });
+});
+
+describe("audit log", () => {
+  let t: TestDatabase;
+  beforeAll(async () => {
+    t = await createTestDatabase();
+  });
+  afterAll(() => t.drop());
+
+  it("accepts inserts and refuses updates and deletes", async () => {
+    await t.db.insert(auditEntries).values({ action: "test.recorded", entityType: "test", entityId: "1" });
+    await expect(t.pool.query("update audit_entries set action = 'tampered'")).rejects.toThrow(/append-only/);
+    await expect(t.pool.query("delete from audit_entries")).rejects.toThrow(/append-only/);
+    await expect(t.pool.query("truncate audit_entries")).rejects.toThrow(/append-only/);
+    const rows = await t.pool.query("select action from audit_entries");
+    expect(rows.rows).toEqual([{ action: "test.recorded" }]);
+  });
+});

@@ -1,0 +1,25 @@
+import { startWorker } from "./boot";
+
+const url = process.env.DATABASE_URL;
+if (!url) {
+  console.error("worker: DATABASE_URL is not set");
+  process.exit(1);
+}
+
+try {
+  const boss = await startWorker(url, (msg, extra) => console.error(`worker: ${msg}`, extra ?? ""));
+  console.log(`worker ${process.pid}: listening for jobs`);
+  let stopping = false;
+  const stop = async () => {
+    if (stopping) return;
+    stopping = true;
+    // graceful: lets the job in hand finish (or releases it) before closing connections
+    await boss.stop({ graceful: true, timeout: 20_000 });
+    process.exit(0);
+  };
+  process.on("SIGINT", stop);
+  process.on("SIGTERM", stop);
+} catch (err) {
+  console.error("worker: failed to start", err);
+  process.exit(1);
+}
