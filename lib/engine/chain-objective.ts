@@ -1,0 +1,50 @@
+import { purchase, type CostModel, type Purchase } from "./cost";
+import type { ReactorModel } from "./model";
+import type { ChainObjective } from "./refine";
+import { stageVolume, stageVolumeGradient, type StagePlace } from "./stages";
+
+/** Total volume as a chain objective. */
+export function volumeObjective(model: ReactorModel, places: readonly StagePlace[]): ChainObjective {
+  return {
+    stages: places.length,
+    value: (k, a, b) => stageVolume(model, places[k], a, b),
+    gradient: (k, a, b) => stageVolumeGradient(model, places[k], a, b),
+  };
+}
+
+function samePiece(p: Purchase, q: Purchase): boolean {
+  return p.count === q.count && p.sizeIndex === q.sizeIndex;
+}
+
+/**
+ * Vessel cost as a chain objective, each stage held to the piece of the cost function (parallel count and
+ * standard size) it has at the grid optimum. Within a piece the cost is smooth; with standard sizes it is
+ * constant, so the least total volume is sought instead.
+ */
+export function costObjective(
+  model: ReactorModel,
+  cm: CostModel,
+  places: readonly StagePlace[],
+  pieces: readonly Purchase[],
+): ChainObjective {
+  const vessel = (k: number) => cm.vessels[places[k].type];
+  return {
+    stages: places.length,
+    value: (k, a, b) => {
+      const v = stageVolume(model, places[k], a, b);
+      if (!Number.isFinite(v)) return Infinity;
+      const p = purchase(cm, places[k].type, v);
+      if (!samePiece(p, pieces[k])) return Infinity;
+      return cm.sizes ? v : p.cost;
+    },
+    gradient: (k, a, b) => {
+      const g = stageVolumeGradient(model, places[k], a, b);
+      if (cm.sizes) return g;
+      const v = stageVolume(model, places[k], a, b);
+      const { b: coef, n } = vessel(k);
+      const count = pieces[k].count;
+      const slope = v > 0 ? coef * n * Math.pow(v / count, n - 1) : 0;
+      return [slope * g[0], slope * g[1]];
+    },
+  };
+}

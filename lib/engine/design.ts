@@ -1,0 +1,161 @@
+import { costObjective, volumeObjective } from "./chain-objective";
+import { purchase, resolveCostModel, stageObjective, type CostModel } from "./cost";
+import { CAUTIONS } from "./cautions";
+import { optimiseOnGrid } from "./dynamic-programme";
+import { equalVolumeBoundaries } from "./equal-volume";
+import { EngineError } from "./errors";
+import { checkTarget, equilibriumConversion } from "./feasibility";
+import { buildGridTables } from "./grid-tables";
+import { stagePlot } from "./levenspiel";
+import { sharedPath, stageTemperature, type ReactorModel } from "./model";
+import { equalisePfrRuns } from "./pfr-runs";
+import { refineChain } from "./refine";
+import { resolveModel } from "./resolve-model";
+import { enumerateSequences } from "./sequences";
+import { cstrVolume, pfrVolume, stageVolume, type StagePlace } from "./stages";
+import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType } from "./types";
+
+/** Options of the design search. */
+export interface DesignOptions {
+  /** Points of the conversion grid of the dynamic programme. @default 128 */
+  gridPoints?: number;
+}
+
+interface Evaluated {
+  readonly sequence: StageType[];
+  readonly boundaries: number[] | null;
+  readonly objective: number;
+  readonly totalVolume: number;
+  readonly stages: StageResult[];
+}
+
+function placesOf(sequence: readonly StageType[]): StagePlace[] {
+  return sequence.map((type, k) => ({ type, first: k === 0 }));
+}
+
+function totalObjective(model: ReactorModel, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): number {
+  return places.reduce((s, p, k) => s + stageObjective(cm, p.type, stageVolume(model, p, x[k], x[k + 1])), 0);
+}
+
+function refine(model: ReactorModel, cm: CostModel, places: StagePlace[], x: number[]): number[] {
+  const closed = places.map((_, k) => x[k + 1] === x[k]);
+  if (cm.kind === "volume") {
+    const refined = refineChain(volumeObjective(model, places), x, closed);
+    return sharedPath(model) ? equalisePfrRuns(model, places, refined) : refined;
+  }
+  const pieces = places.map((p, k) => purchase(cm, p.type, stageVolume(model, p, x[k], x[k + 1])));
+  return refineChain(costObjective(model, cm, places, pieces), x, closed);
+}
+
+function stageResults(model: ReactorModel, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): StageResult[] {
+  return places.map((p, k) => {
+    const a = x[k];
+    const b = x[k + 1];
+    const volume = stageVolume(model, p, a, b);
+    const bought = purchase(cm, p.type, volume);
+    return {
+      type: p.type,
+      conversionIn: a,
+      conversionOut: b,
+      temperatureIn: stageTemperature(model, p.first, a, a),
+      temperatureOut: stageTemperature(model, p.first, a, b),
+      volume,
+      residenceTime: volume / model.v0,
+      vessels: { count: bought.count, sizeEach: bought.sizeEach },
+      cost: cm.kind === "cost" ? bought.cost : null,
+      levenspiel: stagePlot(model, p.type, p.first, a, b),
+    };
+  });
+}
+
+function evaluate(model: ReactorModel, cm: CostModel, sequence: StageType[], x: number[] | null): Evaluated {
+  if (!x) return { sequence, boundaries: null, objective: Infinity, totalVolume: Infinity, stages: [] };
+  const places = placesOf(sequence);
+  const stages = stageResults(model, cm, places, x);
+  const totalVolume = stages.reduce((s, st) => s + st.volume, 0);
+  const objective = cm.kind === "volume" ? totalVolume : stages.reduce((s, st) => s + (st.cost ?? 0), 0);
+  return { sequence, boundaries: x, objective, totalVolume, stages };
+}
+
+function infeasibleReason(model: ReactorModel, n: number, target: number): string {
+  const what = n === 1 ? "a single stage" : `${n} stages`;
+  if (Number.isFinite(model.maxTemperature)) {
+    return `${what} cannot reach conversion ${target} without exceeding the maximum temperature ${model.maxTemperature} K`;
+  }
+  if (model.reversible) return `${what} cannot reach conversion ${target}: each stage stops at its own equilibrium`;
+  return `${what} cannot reach conversion ${target} with a positive rate throughout`;
+}
+
+/** Orders two objective values, treating values within 1e-9 relative as equal (round-off, not a difference). */
+function compareClose(p: number, q: number): number {
+  if (p === q) return 0;
+  if (Number.isFinite(p) && Number.isFinite(q) && Math.abs(p - q) <= 1e-9 * Math.max(Math.abs(p), Math.abs(q))) return 0;
+  return p < q ? -1 : 1;
+}
+
+function rank(evaluated: Evaluated[], model: ReactorModel, target: number, cm: CostModel): CandidateResult[] {
+  const order = evaluated
+    .map((e, i) => ({ e, i }))
+    .sort((p, q) => compareClose(p.e.objective, q.e.objective) || compareClose(p.e.totalVolume, q.e.totalVolume) || p.e.sequence.length - q.e.sequence.length || p.i - q.i);
+  return order.map(({ e }, idx) => {
+    const feasible = Number.isFinite(e.objective);
+    return {
+      rank: idx + 1,
+      sequence: e.sequence,
+      feasible,
+      totalVolume: feasible ? e.totalVolume : null,
+      totalCost: feasible && cm.kind === "cost" ? e.objective : null,
+      reason: feasible ? null : infeasibleReason(model, e.sequence.length, target),
+      stages: e.stages,
+    };
+  });
+}
+
+function finite(v: number): number | null {
+  return Number.isFinite(v) ? v : null;
+}
+
+/**
+ * Designs every requested train: for each sequence of stage types the intermediate conversions that
+ * minimise total volume or vessel cost, found globally on a conversion grid and refined by Newton's method.
+ * @throws EngineError for an invalid spec, or when no sequence can reach the target.
+ */
+export function designTrains(spec: DesignSpec, options: DesignOptions = {}): DesignResult {
+  const { model, rateRange } = resolveModel(spec.feed, spec.reaction);
+  const target = spec.target.conversion;
+  const ratePath = spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate";
+  checkTarget(model, target, rateRange, ratePath);
+  const sequences = enumerateSequences(spec.train);
+  const cm = resolveCostModel(spec.objective, [...new Set(sequences.flat())]);
+  let evaluated: Evaluated[];
+  if (spec.train.equalVolume) {
+    evaluated = sequences.map((s) => evaluate(model, cm, s, equalVolumeBoundaries(model, placesOf(s), target)));
+  } else {
+    const tables = buildGridTables(model, cm, target, options.gridPoints ?? 128);
+    const grid = optimiseOnGrid(tables, sequences);
+    evaluated = sequences.map((s, i) => {
+      const g = grid[i];
+      if (!Number.isFinite(g.value)) return evaluate(model, cm, s, null);
+      const places = placesOf(s);
+      const start = g.boundaries.map((j) => tables.x[j]);
+      const refined = refine(model, cm, places, start);
+      // The refined design is kept unless it is clearly worse than the grid design (a safeguard only).
+      const before = totalObjective(model, cm, places, start);
+      const better = totalObjective(model, cm, places, refined) <= before * (1 + 1e-9) ? refined : start;
+      return evaluate(model, cm, s, better);
+    });
+  }
+  const candidates = rank(evaluated, model, target, cm);
+  if (!candidates.some((c) => c.feasible)) {
+    throw new EngineError("infeasible", `no sequence can reach the target conversion ${target}: ${candidates[0].reason}`, "target.conversion");
+  }
+  const eq = equilibriumConversion(model);
+  return {
+    candidates,
+    reference: { singleCSTR: finite(cstrVolume(model, true, 0, target)), singlePFR: finite(pfrVolume(model, true, 0, target)) },
+    ...(eq !== null ? { equilibriumConversion: eq } : {}),
+    feedVolumetricFlow: model.v0,
+    objective: cm.kind,
+    cautions: [...CAUTIONS],
+  };
+}

@@ -1,0 +1,93 @@
+import { EngineError, ensure } from "./errors";
+import { sharedPath, type ReactorModel } from "./model";
+import { brentRoot } from "./root-finding";
+
+const SCAN = 512;
+
+/** First conversion in [lo, hi] where f stops being positive (refined by Brent), or null if it stays positive. */
+export function firstNonPositive(f: (x: number) => number, lo: number, hi: number, n = SCAN): number | null {
+  let prev = lo;
+  if (!(f(lo) > 0)) return lo;
+  for (let i = 1; i <= n; i++) {
+    const x = lo + ((hi - lo) * i) / n;
+    const v = f(x);
+    if (!(v > 0)) {
+      if (Number.isNaN(v)) return x;
+      return brentRoot(f, prev, x);
+    }
+    prev = x;
+  }
+  return null;
+}
+
+/** Rate along the first stage's path (feed temperature plus the adiabatic rise). */
+function feedPathRate(model: ReactorModel): (x: number) => number {
+  return (x) => model.rate(x, model.t0 + model.rise * x);
+}
+
+/**
+ * Equilibrium conversion along the first stage's temperature path, or null without a reverse term
+ * (or when the rate stays positive up to the stoichiometric limit).
+ */
+export function equilibriumConversion(model: ReactorModel): number | null {
+  if (!model.reversible) return null;
+  return firstNonPositive(feedPathRate(model), 0, model.upper * (1 - 1e-12), 4 * SCAN);
+}
+
+function fmt(x: number): string {
+  return Number(x.toPrecision(6)).toString();
+}
+
+function rateProblem(model: ReactorModel, x: number, target: number, reset: boolean, path: string): EngineError {
+  if (model.reversible) {
+    const limit = reset && model.interstage !== null ? Math.max(x, firstNonPositive((v) => model.rate(v, model.interstage as number), 0, model.upper * (1 - 1e-12), 4 * SCAN) ?? 1) : x;
+    if (target >= limit) {
+      return new EngineError(
+        "equilibrium",
+        `the target conversion ${fmt(target)} is at or beyond the equilibrium conversion ${fmt(limit)}; no train can pass it`,
+        "target.conversion",
+      );
+    }
+  }
+  const r = model.rate(x, model.t0 + model.rise * x);
+  const what = Number.isNaN(r) ? "not a number" : "zero or negative";
+  return new EngineError("infeasible", `the rate is ${what} at conversion ${fmt(x)}, before the target ${fmt(target)}`, path);
+}
+
+/**
+ * Checks that the target can be approached at all: range, stoichiometry, rate table, temperature limit
+ * and a positive rate up to the target (or the equilibrium conversion when the rate has a reverse term).
+ * @throws EngineError with the path of the field at fault.
+ */
+export function checkTarget(model: ReactorModel, target: number, rateRange: readonly [number, number], ratePath: string): void {
+  const T = "target.conversion";
+  ensure(Number.isFinite(target) && target > 0 && target < 1, "the target conversion must be within (0, 1)", T);
+  ensure(
+    target < model.maxConversion,
+    `the target conversion ${fmt(target)} needs more of a co-reactant than the feed holds; the stoichiometric limit is ${fmt(model.maxConversion)}`,
+    T,
+  );
+  ensure(target <= rateRange[1], `the target conversion ${fmt(target)} is outside the rate table's range [${fmt(rateRange[0])}, ${fmt(rateRange[1])}]`, T);
+  const shared = sharedPath(model);
+  if (shared) {
+    const tOut = model.t0 + model.rise * target;
+    if (tOut > model.maxTemperature) {
+      throw new EngineError(
+        "infeasible",
+        `reaching conversion ${fmt(target)} adiabatically takes the stream to ${fmt(tOut)} K, above the maximum temperature ${fmt(model.maxTemperature)} K, so no stage can keep it; add an interstage temperature`,
+        "reaction.thermal.maxTemperature",
+      );
+    }
+    ensure(tOut > 0, `the adiabatic path falls to ${fmt(tOut)} K before the target`, "reaction.thermal.adiabaticRise");
+  }
+  const f = feedPathRate(model);
+  const bad = firstNonPositive(f, 0, shared ? target : Math.min(target, 1e-9));
+  if (bad !== null) throw rateProblem(model, bad, target, !shared, ratePath);
+  if (!shared && model.reversible) {
+    const x = equilibriumConversion(model);
+    if (x !== null) {
+      const err = rateProblem(model, x, target, true, ratePath);
+      if (err.code === "equilibrium") throw err;
+    }
+  }
+}

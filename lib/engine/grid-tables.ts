@@ -1,0 +1,83 @@
+import { stageObjective, type CostModel } from "./cost";
+import { sharedPath, type ReactorModel } from "./model";
+import { gauss5 } from "./quadrature";
+import { levenspielHeight, temperatureFeasible } from "./stages";
+import type { StageType } from "./types";
+
+/**
+ * Objective of every stage between two points of a conversion grid, computed once and shared by all
+ * sequences: first[type][j] for a first stage 0 -> x_j, later[type][i*m + j] for a later stage x_i -> x_j.
+ */
+export interface GridTables {
+  readonly m: number;
+  readonly x: Float64Array;
+  readonly first: Readonly<Record<StageType, Float64Array>>;
+  readonly later: Readonly<Record<StageType, Float64Array>>;
+}
+
+function uniformGrid(target: number, m: number): Float64Array {
+  const x = new Float64Array(m);
+  for (let j = 0; j < m; j++) x[j] = (target * j) / (m - 1);
+  x[m - 1] = target;
+  return x;
+}
+
+/** Heights FA0/(-rA) and cumulative PFR volumes along the path of a stage that starts at x[i]. */
+function pathFrom(model: ReactorModel, first: boolean, x: Float64Array, i: number) {
+  const m = x.length;
+  const a = x[i];
+  const height = new Float64Array(m).fill(Infinity);
+  const cumulative = new Float64Array(m).fill(Infinity);
+  height[i] = levenspielHeight(model, first, a, a);
+  cumulative[i] = 0;
+  for (let j = i + 1; j < m; j++) {
+    if (!temperatureFeasible(model, first, a, x[j])) break;
+    height[j] = levenspielHeight(model, first, a, x[j]);
+    if (!Number.isFinite(height[j])) break;
+    cumulative[j] = cumulative[j - 1] + gauss5((v) => levenspielHeight(model, first, a, v), x[j - 1], x[j]);
+  }
+  return { height, cumulative };
+}
+
+function fillRow(
+  out: Record<StageType, Float64Array>,
+  offset: number,
+  x: Float64Array,
+  i: number,
+  path: ReturnType<typeof pathFrom>,
+  baseVolume: number,
+  cm: CostModel,
+): void {
+  const m = x.length;
+  for (let j = 0; j < m; j++) {
+    const k = offset + j;
+    if (j < i) {
+      out.CSTR[k] = Infinity;
+      out.PFR[k] = Infinity;
+      continue;
+    }
+    const cstr = j === i ? 0 : (x[j] - x[i]) * path.height[j];
+    const pfr = path.cumulative[j] - baseVolume;
+    out.CSTR[k] = stageObjective(cm, "CSTR", cstr);
+    out.PFR[k] = stageObjective(cm, "PFR", pfr);
+  }
+}
+
+/** Builds the grid tables (m points from 0 to the target). */
+export function buildGridTables(model: ReactorModel, cm: CostModel, target: number, m: number): GridTables {
+  const x = uniformGrid(target, m);
+  const first = { CSTR: new Float64Array(m), PFR: new Float64Array(m) };
+  const later = { CSTR: new Float64Array(m * m), PFR: new Float64Array(m * m) };
+  const feedPath = pathFrom(model, true, x, 0);
+  fillRow(first, 0, x, 0, feedPath, 0, cm);
+  if (sharedPath(model)) {
+    // One path serves every stage: a later stage's volume is a difference of cumulative values.
+    for (let i = 0; i < m; i++) {
+      const shifted = { height: feedPath.height, cumulative: feedPath.cumulative };
+      fillRow(later, i * m, x, i, shifted, feedPath.cumulative[i], cm);
+    }
+  } else {
+    for (let i = 0; i < m; i++) fillRow(later, i * m, x, i, pathFrom(model, false, x, i), 0, cm);
+  }
+  return { m, x, first, later };
+}

@@ -1,0 +1,10 @@
+/**
+ * Seriatim's computational engine: kinetics, ideal stages and globally optimal reactor trains.
+ * Pure functions only; this file is the engine's only public entry.
+ */
+export { designTrains, type DesignOptions } from "./design";
+export { rateTrain } from "./rate-train";
+export { EngineError, type EngineErrorCode } from "./errors";
+export { GAS_CONSTANT } from "./arrhenius";
+export { MAX_STAGES } from "./sequences";
+export type * from "./types";

@@ -1,0 +1,50 @@
+/** -rA in mol/(m3 s) at conversion x and temperature T (K). */
+export type RateFunction = (x: number, temperature: number) => number;
+
+/**
+ * The resolved, validated problem in SI numbers: everything a stage calculation needs.
+ * Internal to the engine; built by resolveModel from a spec.
+ */
+export interface ReactorModel {
+  /** FA0, mol/s. */
+  readonly fa0: number;
+  /** CA0, mol/m3. */
+  readonly ca0: number;
+  /** v0 = FA0/CA0, m3/s. */
+  readonly v0: number;
+  /** Feed temperature, K. */
+  readonly t0: number;
+  /** -rA(x, T). */
+  readonly rate: RateFunction;
+  /** Whether the rate depends on temperature at all (skips derivative work when false). */
+  readonly temperatureDependent: boolean;
+  /** Whether the rate law has a reverse term. */
+  readonly reversible: boolean;
+  /** Adiabatic rise, K (0 when isothermal). */
+  readonly rise: number;
+  /** Inlet temperature of every stage after the first, K, or null to carry the previous outlet. */
+  readonly interstage: number | null;
+  /** Highest temperature allowed, K (Infinity when none). */
+  readonly maxTemperature: number;
+  /** Largest conversion the stoichiometry allows (a limiting co-reactant), <= 1. */
+  readonly maxConversion: number;
+  /** Largest conversion where the rate is defined: maxConversion, or a rate table's last point. */
+  readonly upper: number;
+}
+
+/** Inlet temperature of a stage starting at conversion a. */
+export function inletTemperature(model: ReactorModel, first: boolean, a: number): number {
+  if (first) return model.t0;
+  if (model.interstage !== null) return model.interstage;
+  return model.t0 + model.rise * a;
+}
+
+/** Temperature at conversion x inside a stage that starts at a. */
+export function stageTemperature(model: ReactorModel, first: boolean, a: number, x: number): number {
+  return inletTemperature(model, first, a) + model.rise * (x - a);
+}
+
+/** True when a stage's temperature path does not depend on where it starts (no interstage reset). */
+export function sharedPath(model: ReactorModel): boolean {
+  return model.interstage === null || model.rise === 0 && model.interstage === model.t0;
+}

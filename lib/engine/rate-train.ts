@@ -1,0 +1,44 @@
+import { CAUTIONS } from "./cautions";
+import { ensure } from "./errors";
+import { inletTemperature } from "./model";
+import { cstrSteadyStates, pfrOutlet } from "./rating";
+import { resolveModel } from "./resolve-model";
+import { stageTemperature } from "./model";
+import type { RatedStage, RatingResult, RatingSpec } from "./types";
+import { DIM, toSI } from "./units";
+
+/**
+ * Rates a given train: the outlet conversion of each stage from its volume. A CSTR reports every steady
+ * state; the train continues from the one of lowest conversion.
+ * @throws EngineError for an invalid spec.
+ */
+export function rateTrain(spec: RatingSpec): RatingResult {
+  const { model } = resolveModel(spec.feed, spec.reaction);
+  ensure(spec.stages.length >= 1 && spec.stages.length <= 8, "give 1..8 stages", "stages");
+  let a = 0;
+  const stages: RatedStage[] = spec.stages.map((s, k) => {
+    const volume = toSI(s.volume, DIM.volume, `stages.${k}.volume`);
+    ensure(volume >= 0, "a stage volume must be >= 0", `stages.${k}.volume`);
+    const first = k === 0;
+    const states =
+      s.type === "CSTR"
+        ? cstrSteadyStates(model, first, a, volume)
+        : [{ conversionOut: pfrOutlet(model, first, a, volume), temperatureOut: 0 }].map((st) => ({
+            ...st,
+            temperatureOut: stageTemperature(model, first, a, st.conversionOut),
+          }));
+    const stage: RatedStage = {
+      type: s.type,
+      volume,
+      conversionIn: a,
+      temperatureIn: inletTemperature(model, first, a),
+      steadyStates: states,
+      multiple: states.length > 1,
+      conversionOut: states[0].conversionOut,
+      temperatureOut: states[0].temperatureOut,
+    };
+    a = stage.conversionOut;
+    return stage;
+  });
+  return { stages, conversionOut: a, cautions: [...CAUTIONS] };
+}

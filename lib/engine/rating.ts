@@ -1,0 +1,62 @@
+import { stageTemperature, type ReactorModel } from "./model";
+import { allRoots, brentRoot } from "./root-finding";
+import { levenspielHeight, pfrVolume, temperatureFeasible } from "./stages";
+import type { StageType, SteadyState } from "./types";
+
+/** Highest conversion a stage from a can approach: where the rate stops being positive or T leaves its limits. */
+export function reachLimit(model: ReactorModel, first: boolean, a: number): number {
+  const top = model.upper * (1 - 1e-12);
+  const ok = (x: number): boolean =>
+    temperatureFeasible(model, first, a, x) && model.rate(x, stageTemperature(model, first, a, x)) > 0;
+  if (ok(top)) {
+    // A positive rate at the top does not rule out a dip in between; scan coarsely.
+    let fine = true;
+    for (let i = 1; i < 256 && fine; i++) fine = ok(a + ((top - a) * i) / 256);
+    if (fine) return top;
+  }
+  let lo = a;
+  let hi = top;
+  for (let i = 1; i <= 256; i++) {
+    const x = a + ((top - a) * i) / 256;
+    if (!ok(x)) {
+      hi = x;
+      break;
+    }
+    lo = x;
+  }
+  for (let i = 0; i < 80 && hi - lo > 1e-15; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (ok(mid)) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** PFR rating: outlet conversion of a PFR of volume V (m3) fed at conversion a. */
+export function pfrOutlet(model: ReactorModel, first: boolean, a: number, volume: number): number {
+  if (volume <= 0) return a;
+  const hi = reachLimit(model, first, a);
+  if (pfrVolume(model, first, a, hi) <= volume) return hi;
+  return brentRoot((x) => pfrVolume(model, first, a, x) - volume, a, hi, 1e-15);
+}
+
+/**
+ * CSTR rating: every steady state of FA0 (X - a) = V (-rA(X, T(X))), found by a scan of 2000 brackets and
+ * Brent's method in each sign change (an adiabatic CSTR may have several).
+ */
+export function cstrSteadyStates(model: ReactorModel, first: boolean, a: number, volume: number): SteadyState[] {
+  if (volume <= 0) return [{ conversionOut: a, temperatureOut: stageTemperature(model, first, a, a) }];
+  const hi = reachLimit(model, first, a);
+  const f = (x: number): number => (x - a) * model.fa0 - volume * model.rate(x, stageTemperature(model, first, a, x));
+  const roots = allRoots(f, a, hi, model.rise === 0 ? 200 : 2000).filter((x) => x > a);
+  const xs = roots.length > 0 ? roots : [hi];
+  return xs.map((x) => ({ conversionOut: x, temperatureOut: stageTemperature(model, first, a, x) }));
+}
+
+/** Outlet of a stage by volume; for several CSTR steady states the lowest (reached from a cold start). */
+export function stageOutlet(model: ReactorModel, type: StageType, first: boolean, a: number, volume: number): number {
+  return type === "PFR" ? pfrOutlet(model, first, a, volume) : cstrSteadyStates(model, first, a, volume)[0].conversionOut;
+}
+
+/** The height of the Levenspiel curve, re-exported for rating reports. */
+export { levenspielHeight };

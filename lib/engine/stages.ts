@@ -1,0 +1,112 @@
+import { inletTemperature, sharedPath, stageTemperature, type ReactorModel } from "./model";
+import { integrate } from "./quadrature";
+import type { StageType } from "./types";
+
+/** Where a stage sits: the first stage starts from the feed temperature; later ones may be reset. */
+export interface StagePlace {
+  readonly type: StageType;
+  readonly first: boolean;
+}
+
+/** Whether a stage from a to b keeps within the temperature limit and above 0 K. */
+export function temperatureFeasible(model: ReactorModel, first: boolean, a: number, b: number): boolean {
+  const tIn = inletTemperature(model, first, a);
+  const tOut = tIn + model.rise * (b - a);
+  return Math.max(tIn, tOut) <= model.maxTemperature * (1 + 1e-12) && Math.min(tIn, tOut) > 0;
+}
+
+/** FA0/(-rA) along a stage's temperature path (Infinity where the rate is not positive). */
+export function levenspielHeight(model: ReactorModel, first: boolean, a: number, x: number): number {
+  const r = model.rate(x, stageTemperature(model, first, a, x));
+  return r > 0 ? model.fa0 / r : Infinity;
+}
+
+/** CSTR design equation V = FA0 (b - a) / (-rA at outlet conditions), m3; Infinity when infeasible. */
+export function cstrVolume(model: ReactorModel, first: boolean, a: number, b: number): number {
+  if (b === a) return 0;
+  if (!temperatureFeasible(model, first, a, b)) return Infinity;
+  return (b - a) * levenspielHeight(model, first, a, b);
+}
+
+const CELL = 1 / 256;
+const feedPathTables = new WeakMap<ReactorModel, number[]>();
+
+/**
+ * Integral of FA0/(-rA) from 0 to x along the feed path (T0 + rise X), from cumulative cell integrals
+ * memoised per model: cell j's integral is computed once, adaptively, and reused by every later query.
+ */
+function feedPathIntegral(model: ReactorModel, x: number): number {
+  let table = feedPathTables.get(model);
+  if (!table) {
+    table = [0];
+    feedPathTables.set(model, table);
+  }
+  const h = (v: number): number => levenspielHeight(model, true, 0, v);
+  const i = Math.floor(x / CELL);
+  while (table.length <= i) {
+    const j = table.length - 1;
+    table.push(table[j] + integrate(h, j * CELL, (j + 1) * CELL).value);
+  }
+  return table[i] + integrate(h, i * CELL, x).value;
+}
+
+/** PFR design equation V = FA0 * integral of dX/(-rA) from a to b, m3; Infinity when infeasible. */
+export function pfrVolume(model: ReactorModel, first: boolean, a: number, b: number, relTol = 1e-12): number {
+  if (b === a) return 0;
+  if (!temperatureFeasible(model, first, a, b)) return Infinity;
+  const onFeedPath = first || sharedPath(model);
+  const v =
+    onFeedPath && b - a > 2 * CELL
+      ? feedPathIntegral(model, b) - feedPathIntegral(model, a)
+      : integrate((x) => levenspielHeight(model, first, a, x), a, b, relTol).value;
+  return Number.isFinite(v) && v >= 0 ? v : Infinity;
+}
+
+/** Volume of a stage of either type, m3. */
+export function stageVolume(model: ReactorModel, place: StagePlace, a: number, b: number): number {
+  return place.type === "CSTR" ? cstrVolume(model, place.first, a, b) : pfrVolume(model, place.first, a, b);
+}
+
+function rateDerivatives(model: ReactorModel, x: number, t: number): { rx: number; rt: number } {
+  const h = 1e-6;
+  let rx: number;
+  if (x - h < 0) rx = (-3 * model.rate(x, t) + 4 * model.rate(x + h, t) - model.rate(x + 2 * h, t)) / (2 * h);
+  else if (x + h > model.upper) rx = (3 * model.rate(x, t) - 4 * model.rate(x - h, t) + model.rate(x - 2 * h, t)) / (2 * h);
+  else rx = (model.rate(x + h, t) - model.rate(x - h, t)) / (2 * h);
+  if (!model.temperatureDependent || model.rise === 0) return { rx, rt: 0 };
+  const ht = 1e-5 * t;
+  return { rx, rt: (model.rate(x, t + ht) - model.rate(x, t - ht)) / (2 * ht) };
+}
+
+/** dT/da at fixed X inside a stage: zero on a shared path, -rise when the inlet is reset. */
+function inletSensitivity(model: ReactorModel, first: boolean): number {
+  return first || sharedPath(model) ? 0 : -model.rise;
+}
+
+/**
+ * Partial derivatives of a stage's volume with respect to its inlet (a) and outlet (b) conversions,
+ * from the differentiated design equations (Leibniz rule for the PFR integral).
+ */
+export function stageVolumeGradient(model: ReactorModel, place: StagePlace, a: number, b: number): [number, number] {
+  const { first } = place;
+  const theta = inletSensitivity(model, first);
+  const fa0 = model.fa0;
+  if (place.type === "CSTR") {
+    const t = stageTemperature(model, first, a, b);
+    const r = model.rate(b, t);
+    const { rx, rt } = rateDerivatives(model, b, t);
+    const l = b - a;
+    return [fa0 * (-1 / r - (l * theta * rt) / (r * r)), fa0 * (1 / r - (l * (rx + model.rise * rt)) / (r * r))];
+  }
+  const db = levenspielHeight(model, first, a, b);
+  let da = -levenspielHeight(model, first, a, a);
+  if (theta !== 0 && b > a) {
+    const integrand = (x: number): number => {
+      const t = stageTemperature(model, first, a, x);
+      const r = model.rate(x, t);
+      return (theta * rateDerivatives(model, x, t).rt) / (r * r);
+    };
+    da -= fa0 * integrate(integrand, a, b, 1e-10).value;
+  }
+  return [da, db];
+}

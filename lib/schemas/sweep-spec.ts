@@ -1,0 +1,94 @@
+import { z } from "zod";
+import type { DesignSpec, RatingSpec } from "../engine/types";
+
+/** A number in SI units or a string with a unit ("2 mol/L"). */
+const quantity = z.union([z.number(), z.string().min(1)]);
+const stageType = z.enum(["CSTR", "PFR"]);
+const numberMap = z.record(z.string(), z.number());
+
+const reverse = z.strictObject({ k: quantity, orders: numberMap, activationEnergy: quantity.optional() });
+
+const rate = z.discriminatedUnion("law", [
+  z.strictObject({
+    law: z.literal("power"),
+    k: quantity,
+    orders: numberMap,
+    reverse: reverse.optional(),
+    activationEnergy: quantity.optional(),
+    referenceTemperature: quantity.optional(),
+  }),
+  z.strictObject({
+    law: z.literal("saturation"),
+    vmax: quantity,
+    km: quantity,
+    ki: quantity.optional(),
+    activationEnergy: quantity.optional(),
+    referenceTemperature: quantity.optional(),
+  }),
+  z.strictObject({ law: z.literal("expression"), expression: z.string(), parameters: z.record(z.string(), quantity).optional() }),
+  z.strictObject({ law: z.literal("table"), conversion: z.array(z.number()), rate: z.array(z.number()) }),
+]);
+
+const thermal = z.discriminatedUnion("mode", [
+  z.strictObject({ mode: z.literal("isothermal") }),
+  z.strictObject({
+    mode: z.literal("adiabatic"),
+    adiabaticRise: quantity,
+    maxTemperature: quantity.optional(),
+    interstageTemperature: quantity.optional(),
+  }),
+]);
+
+const feed = z.strictObject({ flowA: quantity, concA: quantity, temperature: quantity.optional(), ratios: numberMap.optional() });
+
+const reaction = z.strictObject({
+  stoichiometry: numberMap.optional(),
+  phase: z.enum(["liquid", "gas"]).optional(),
+  epsilon: z.number().optional(),
+  rate,
+  thermal: thermal.optional(),
+});
+
+const equalVolume = z.boolean().optional();
+
+const train = z.union([
+  z.strictObject({ maxStages: z.number(), types: z.array(stageType).optional(), equalVolume }),
+  z.strictObject({ candidates: z.array(z.array(stageType)), equalVolume }),
+  z.strictObject({ multiset: z.strictObject({ CSTR: z.number().optional(), PFR: z.number().optional() }), equalVolume }),
+]);
+
+const vessel = z.strictObject({ a: z.number(), b: z.number(), n: z.number() });
+
+const objective = z.discriminatedUnion("minimise", [
+  z.strictObject({ minimise: z.literal("volume") }),
+  z.strictObject({
+    minimise: z.literal("cost"),
+    vessels: z.strictObject({ CSTR: vessel.optional(), PFR: vessel.optional() }),
+    standardSizes: z.array(quantity).optional(),
+    maxVesselVolume: quantity.optional(),
+  }),
+]);
+
+/** The design spec read by `npm run sweep` (and by the web app): the single source of truth of its shape. */
+export const designSpecSchema = z.strictObject({
+  feed,
+  reaction,
+  target: z.strictObject({ conversion: z.number() }),
+  train,
+  objective: objective.optional(),
+}) satisfies z.ZodType<DesignSpec>;
+
+/** A rating spec: the same feed and reaction, and stages given by volume. */
+export const ratingSpecSchema = z.strictObject({
+  feed,
+  reaction,
+  stages: z.array(z.strictObject({ type: stageType, volume: quantity })),
+}) satisfies z.ZodType<RatingSpec>;
+
+type Same<A, B> = (<T>() => T extends A ? 1 : 2) extends <T>() => T extends B ? 1 : 2 ? true : false;
+type Deep<T> = T extends readonly (infer U)[] ? Deep<U>[] : T extends object ? { [K in keyof T]: Deep<T[K]> } : T;
+
+// Fails to compile when the schema and the engine's interfaces drift apart in either direction.
+const designSame: Same<Deep<z.infer<typeof designSpecSchema>>, Deep<DesignSpec>> = true;
+const ratingSame: Same<Deep<z.infer<typeof ratingSpecSchema>>, Deep<RatingSpec>> = true;
+export const schemaMatchesEngineTypes = designSame && ratingSame;
