@@ -21,7 +21,7 @@ export function resolveOrders(
   const order: number[] = [];
   for (const [name, value] of Object.entries(orders)) {
     const i = basis.species.names.indexOf(name);
-    ensure(i >= 0, `unknown species "${name}"`, `${path}.${name}`);
+    ensure(i >= 0, `unknown species "${name}": name it in reaction.stoichiometry or feed.ratios`, `${path}.${name}`);
     ensure(Number.isFinite(value) && Math.abs(value) <= 10, `order of ${name} must be a finite number within -10..10`, `${path}.${name}`);
     if (value === 0) continue;
     // A negative order is an inhibition term; it needs the species present from the feed on.

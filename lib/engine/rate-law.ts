@@ -51,11 +51,6 @@ function powerTerm(
   return { k: kValue, index, order, activationEnergy };
 }
 
-function orderNames(law: RateLawSpec): string[] {
-  if (law.law !== "power") return [];
-  return [...Object.keys(law.orders), ...Object.keys(law.reverse?.orders ?? {})];
-}
-
 function referenceTemperature(value: PowerLawSpec["referenceTemperature"], t0: number): number {
   if (value === undefined) return t0;
   const t = toSI(value, DIM.temperature, `${P}.referenceTemperature`);
@@ -79,7 +74,7 @@ function tableRate(law: TableLawSpec): { rate: RateFunction; range: [number, num
 /** Resolves and checks the rate law of a reaction for a given feed. */
 export function resolveRate(reaction: ReactionSpec, feed: FeedSpec, ca0: number, t0: number): ResolvedRate {
   const law = reaction.rate;
-  const species = buildSpecies(reaction.stoichiometry, feed.ratios, orderNames(law));
+  const species = buildSpecies(reaction.stoichiometry, feed.ratios, []);
   const basis = buildBasis(species, reaction.phase ?? "liquid", ca0, t0, reaction.epsilon);
   const gas = basis.epsilon !== 0 || (reaction.phase ?? "liquid") === "gas";
   const full: [number, number] = [0, 1];
