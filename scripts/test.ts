@@ -65,6 +65,16 @@ function countTests(): { passed: number; failed: number } {
   return { passed, failed };
 }
 
+const STEP_NAMES = ["typecheck", "lint", "unit", "integration", "build", "e2e"];
+// `npm test -- unit integration` runs only the named steps (for daily work); plain `npm test` runs all.
+const only = process.argv.slice(2);
+const unknown = only.filter((s) => !STEP_NAMES.includes(s));
+if (unknown.length) {
+  console.error(`unknown step(s): ${unknown.join(", ")}; steps are ${STEP_NAMES.join(", ")}`);
+  process.exit(2);
+}
+const wanted = (name: string) => only.length === 0 || only.includes(name);
+
 async function main(): Promise<number> {
   const t0 = Date.now();
   rmSync(results, { recursive: true, force: true });
@@ -88,19 +98,24 @@ async function main(): Promise<number> {
     const templateUrl = await createDatabase(cluster.serverUrl, "seriatim_template");
 
     const vitestJson = (f: string) => ["--reporter=default", "--reporter=json", `--outputFile.json=${path.join(results, f)}`];
-    steps.push(run("typecheck", bin("tsc"), ["--noEmit", "-p", "."]));
-    steps.push(run("lint", bin("eslint"), ["--max-warnings=0", "."]));
-    steps.push(run("unit", bin("vitest"), ["run", "--project", "unit", ...vitestJson("unit.json")]));
-    steps.push(
-      run("integration", bin("vitest"), ["run", "--project", "integration", ...vitestJson("integration.json")], {
-        DATABASE_URL: templateUrl,
-        TEST_PG_SERVER_URL: cluster.serverUrl,
-      }),
-    );
-    const build = run("build", bin("next"), ["build"], { NODE_ENV: "production" });
-    steps.push(build);
+    if (wanted("typecheck")) steps.push(run("typecheck", bin("tsc"), ["--noEmit", "-p", "."]));
+    if (wanted("lint")) steps.push(run("lint", bin("eslint"), ["--max-warnings=0", "."]));
+    if (wanted("unit")) steps.push(run("unit", bin("vitest"), ["run", "--project", "unit", ...vitestJson("unit.json")]));
+    if (wanted("integration")) {
+      steps.push(
+        run("integration", bin("vitest"), ["run", "--project", "integration", ...vitestJson("integration.json")], {
+          DATABASE_URL: templateUrl,
+          TEST_PG_SERVER_URL: cluster.serverUrl,
+        }),
+      );
+    }
+    // The browser tests need a production build; `npm test -- e2e` builds too.
+    const build = wanted("build") || wanted("e2e") ? run("build", bin("next"), ["build"], { NODE_ENV: "production" }) : undefined;
+    if (build) steps.push(build);
 
-    if (build.ok) {
+    if (!wanted("e2e")) {
+      // nothing more to do
+    } else if (build?.ok) {
       const e2eUrl = await createDatabase(cluster.serverUrl, "seriatim_e2e");
       await runMigrations(e2eUrl);
       const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });

@@ -21,16 +21,16 @@ export const newPasswordSchema = z
   .min(10, "Use at least 10 characters")
   .max(200, "Use at most 200 characters");
 
-export const projectCreateSchema = z.object({
-  name: z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters"),
-  description: z.string().trim().max(2000, "Use at most 2000 characters").default(""),
-});
+const projectName = z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
+const projectDescription = z.string({ error: "Purpose must be text" }).trim().max(2000, "Use at most 2000 characters");
+
+export const projectCreateSchema = z.object({ name: projectName, description: projectDescription.default("") });
 export type ProjectCreate = z.infer<typeof projectCreateSchema>;
 
 export const projectUpdateSchema = z
   .object({
-    name: projectCreateSchema.shape.name.optional(),
-    description: projectCreateSchema.shape.description.optional(),
+    name: projectName.optional(),
+    description: projectDescription.optional(),
     archived: z.boolean({ error: "archived must be true or false" }).optional(),
   })
   .strict()

@@ -1,0 +1,65 @@
+import { request as playwrightRequest, type APIRequestContext } from "@playwright/test";
+
+export const DEMO_PASSWORD = "seriatim-demo-2026";
+export const USERS = {
+  admin: "ada.admin@brightwater.example",
+  manager: "marta.manager@brightwater.example",
+  engineer: "eli.engineer@brightwater.example",
+  viewer: "vic.viewer@brightwater.example",
+  otherTeam: "kai.admin@kestrel.example",
+} as const;
+export type Who = keyof typeof USERS;
+
+export const baseURL = `http://127.0.0.1:${process.env.E2E_PORT ?? 3100}`;
+const mailApi = `http://127.0.0.1:${process.env.MAIL_FAKE_HTTP_PORT ?? 2680}/api/messages`;
+
+export interface CapturedMail {
+  id: number;
+  to: string[];
+  subject: string;
+  text: string;
+}
+
+/** Waits for the newest mail to `to` whose id is above `afterId`, read from the SMTP fake. */
+export async function waitForMail(to: string, afterId = 0, timeoutMs = 10_000): Promise<CapturedMail> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const res = await fetch(`${mailApi}?to=${encodeURIComponent(to)}`);
+    const list = (await res.json()) as CapturedMail[];
+    const fresh = list.filter((m) => m.id > afterId);
+    if (fresh.length) return fresh[fresh.length - 1];
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`no mail to ${to} within ${timeoutMs} ms`);
+}
+
+export async function lastMailId(): Promise<number> {
+  const list = (await (await fetch(mailApi)).json()) as CapturedMail[];
+  return list.at(-1)?.id ?? 0;
+}
+
+export function firstLink(text: string): string {
+  const m = text.match(/https?:\/\/\S+/);
+  if (!m) throw new Error(`no link in mail:\n${text}`);
+  return m[0];
+}
+
+/** Signs in over HTTP the way the sign-in form does; returns the raw response. */
+export async function postCredentials(ctx: APIRequestContext, email: string, password: string) {
+  const { csrfToken } = (await (await ctx.get("/api/auth/csrf")).json()) as { csrfToken: string };
+  return ctx.post("/api/auth/callback/credentials", {
+    form: { email, password, csrfToken, callbackUrl: "/" },
+    headers: { "X-Auth-Return-Redirect": "1" },
+  });
+}
+
+/** A request context holding a signed-in session of one demo user. */
+export async function signedInContext(who: Who | "anonymous"): Promise<APIRequestContext> {
+  const ctx = await playwrightRequest.newContext({ baseURL });
+  if (who !== "anonymous") {
+    const res = await postCredentials(ctx, USERS[who], DEMO_PASSWORD);
+    const body = (await res.json()) as { url?: string };
+    if (!res.ok() || !body.url || body.url.includes("error=")) throw new Error(`sign-in of ${who} failed: ${res.status()} ${JSON.stringify(body)}`);
+  }
+  return ctx;
+}
