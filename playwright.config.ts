@@ -20,6 +20,9 @@ const env = {
 export default defineConfig({
   testDir: "tests/e2e",
   testMatch: "**/*.spec.ts",
+  // Its own sub-folder: Playwright empties outputDir at start, and test-results/ also holds
+  // the vitest reports that `npm test` counts.
+  outputDir: "test-results/e2e-artifacts",
   fullyParallel: false,
   workers: 1,
   retries: 0,

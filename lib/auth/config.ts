@@ -29,6 +29,13 @@ export const { handlers, auth, signIn, signOut } = NextAuth(() => {
     secret: env.AUTH_SECRET,
     trustHost: true,
     session: { strategy: "jwt", maxAge: 8 * 60 * 60 },
+    logger: {
+      // A wrong password is an expected outcome, counted by the throttle; not a server error.
+      error(error) {
+        if (error.name === "CredentialsSignin") return;
+        console.error(`[auth] ${error.name}: ${error.message}`);
+      },
+    },
     adapter: DrizzleAdapter(getDb(), {
       usersTable: users,
       accountsTable: accounts,
