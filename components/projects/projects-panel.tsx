@@ -107,7 +107,7 @@ function ProjectRowView({ project, onChanged }: { project: ProjectRow; onChanged
       </td>
       <td className="text-ink-soft">{project.description}</td>
       <td>{project.createdByName}</td>
-      <td className="num">{dateFmt.format(new Date(project.updatedAt))}</td>
+      <td className="tabular-nums">{dateFmt.format(new Date(project.updatedAt))}</td>
       <td className="text-right">
         <div className="flex justify-end gap-2">
           {project.permissions.update && !archived ? (

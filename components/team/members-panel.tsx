@@ -69,7 +69,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
               <tr key={m.userId}>
                 <td>{m.name}</td>
                 <td className="text-ink-soft">{m.email}</td>
-                <td className="num">{day.format(new Date(m.joinedAt))}</td>
+                <td className="tabular-nums">{day.format(new Date(m.joinedAt))}</td>
                 <td>
                   <select
                     aria-label={`Role of ${m.email}`}
@@ -110,7 +110,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                 <tr key={i.id}>
                   <td>{i.email}</td>
                   <td>{i.role}</td>
-                  <td className="num">{day.format(new Date(i.expiresAt))}</td>
+                  <td className="tabular-nums">{day.format(new Date(i.expiresAt))}</td>
                   <td className="text-right">
                     <button type="button" className="btn-danger py-1" onClick={() => revoke.mutate(i.id)} disabled={revoke.isPending}>
                       Revoke

@@ -25,7 +25,14 @@ export default async function TeamPage() {
     <div className="space-y-4">
       <div>
         <h1>Members of {actor.teamName}</h1>
-        <p className="mt-1 text-ink-soft">{ROLE_NOTES.map(([r, n]) => `${r}: ${n}`).join(" · ")}</p>
+        <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-sm">
+          {ROLE_NOTES.map(([role, note]) => (
+            <div key={role} className="contents">
+              <dt className="font-medium">{role}</dt>
+              <dd className="text-ink-soft">{note}</dd>
+            </div>
+          ))}
+        </dl>
       </div>
       <MembersPanel selfId={actor.userId} />
     </div>
