@@ -9,6 +9,7 @@ export function volumeObjective(model: ReactorModel, places: readonly StagePlace
     stages: places.length,
     value: (k, a, b) => stageVolume(model, places[k], a, b),
     gradient: (k, a, b) => stageVolumeGradient(model, places[k], a, b),
+    roughGradient: (k, a, b) => stageVolumeGradient(model, places[k], a, b, false),
   };
 }
 

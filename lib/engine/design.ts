@@ -37,14 +37,30 @@ function totalObjective(model: ReactorModel, cm: CostModel, places: readonly Sta
   return places.reduce((s, p, k) => s + stageObjective(cm, p.type, stageVolume(model, p, x[k], x[k + 1])), 0);
 }
 
-function refine(model: ReactorModel, cm: CostModel, places: StagePlace[], x: number[]): number[] {
-  const closed = places.map((_, k) => x[k + 1] === x[k]);
-  if (cm.kind === "volume") {
-    const refined = refineChain(volumeObjective(model, places), x, closed);
-    return sharedPath(model) ? equalisePfrRuns(model, places, refined) : refined;
+/** Memo of refined reduced problems within one design call: many sequences reduce to the same one. */
+type RefineMemo = Map<string, number[]>;
+
+function refine(model: ReactorModel, cm: CostModel, places: StagePlace[], x: number[], memo: RefineMemo): number[] {
+  // Stages of zero length at the grid optimum stay closed; the rest form a reduced chain.
+  const active = places.map((_, k) => k).filter((k) => x[k + 1] !== x[k]);
+  const reducedPlaces = active.map((k) => places[k]);
+  const reducedX = [x[0], ...active.map((k) => x[k + 1])];
+  const pieces = reducedPlaces.map((p, m) => purchase(cm, p.type, stageVolume(model, p, reducedX[m], reducedX[m + 1])));
+  const key = `${reducedPlaces.map((p) => `${p.type}${p.first ? 1 : 0}`).join(",")}|${reducedX.join(",")}|${pieces.map((p) => `${p.count}:${p.sizeIndex}`).join(",")}`;
+  let refined = memo.get(key);
+  if (!refined) {
+    const objective = cm.kind === "volume" ? volumeObjective(model, reducedPlaces) : costObjective(model, cm, reducedPlaces, pieces);
+    // With standard sizes the cost is flat within a size; a few steps toward less volume are enough.
+    refined = refineChain(objective, reducedX, reducedPlaces.map(() => false), cm.sizes ? 8 : 60);
+    memo.set(key, refined);
   }
-  const pieces = places.map((p, k) => purchase(cm, p.type, stageVolume(model, p, x[k], x[k + 1])));
-  return refineChain(costObjective(model, cm, places, pieces), x, closed);
+  const full = [x[0]];
+  let m = 0;
+  for (let k = 0; k < places.length; k++) {
+    if (active.includes(k)) m++;
+    full.push(active.includes(k) ? refined[m] : full[k]);
+  }
+  return cm.kind === "volume" && sharedPath(model) ? equalisePfrRuns(model, places, full) : full;
 }
 
 function stageResults(model: ReactorModel, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): StageResult[] {
@@ -133,12 +149,13 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   } else {
     const tables = buildGridTables(model, cm, target, options.gridPoints ?? 128);
     const grid = optimiseOnGrid(tables, sequences);
+    const memo: RefineMemo = new Map();
     evaluated = sequences.map((s, i) => {
       const g = grid[i];
       if (!Number.isFinite(g.value)) return evaluate(model, cm, s, null);
       const places = placesOf(s);
       const start = g.boundaries.map((j) => tables.x[j]);
-      const refined = refine(model, cm, places, start);
+      const refined = refine(model, cm, places, start, memo);
       // The refined design is kept unless it is clearly worse than the grid design (a safeguard only).
       const before = totalObjective(model, cm, places, start);
       const better = totalObjective(model, cm, places, refined) <= before * (1 + 1e-9) ? refined : start;

@@ -26,6 +26,8 @@ function pfrConversionAt(model: ReactorModel, first: boolean, a: number, b: numb
  */
 export function equalisePfrRuns(model: ReactorModel, places: readonly StagePlace[], x: readonly number[]): number[] {
   const out = x.slice();
+  // A zero-volume CSTR inside a run of PFRs does not break it: the run still acts as one PFR.
+  const joins = (k: number) => places[k].type === "PFR" || x[k + 1] === x[k];
   let k = 0;
   while (k < places.length) {
     if (places[k].type !== "PFR") {
@@ -33,18 +35,26 @@ export function equalisePfrRuns(model: ReactorModel, places: readonly StagePlace
       continue;
     }
     let end = k;
-    while (end + 1 < places.length && places[end + 1].type === "PFR") end++;
-    const count = end - k + 1;
-    if (count > 1) {
+    while (end + 1 < places.length && joins(end + 1)) end++;
+    while (places[end].type !== "PFR") end--;
+    const members = [];
+    for (let i = k; i <= end; i++) if (places[i].type === "PFR") members.push(i);
+    if (members.length > 1) {
+      const first = places[k].first;
       const a = out[k];
-      const b = out[end + 1];
-      const total = pfrVolume(model, places[k].first, a, b);
-      // Each boundary from the previous one: short integrals, and Newton starts close to the answer.
+      const total = pfrVolume(model, first, a, out[end + 1]);
       let prev = a;
-      for (let i = 1; i < count; i++) {
-        const guess = prev + (b - prev) / (count - i + 1);
-        out[k + i] = pfrConversionAt(model, places[k].first, prev, b, total / count, guess);
-        prev = out[k + i];
+      let done = 0;
+      for (let i = k; i < end; i++) {
+        if (places[i].type !== "PFR") {
+          out[i + 1] = prev;
+          continue;
+        }
+        done++;
+        const b = out[end + 1];
+        const guess = prev + (b - prev) / (members.length - done + 1);
+        out[i + 1] = pfrConversionAt(model, first, prev, b, total / members.length, guess);
+        prev = out[i + 1];
       }
     }
     k = end + 1;

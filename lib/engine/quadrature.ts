@@ -50,6 +50,14 @@ function panel(f: (x: number) => number, a: number, b: number, out: Float64Array
   out[at + 1] = err;
 }
 
+const single = new Float64Array(2);
+
+/** One fixed 15-point Kronrod panel over [a, b]: a smooth function of a and b, for finite differences. */
+export function kronrod15(f: (x: number) => number, a: number, b: number): number {
+  panel(f, a, b, single, 0);
+  return single[0];
+}
+
 /** Result of an adaptive integration. */
 export interface Integral {
   readonly value: number;
@@ -63,9 +71,32 @@ export interface Integral {
  */
 export function integrate(f: (x: number) => number, a: number, b: number, relTol = 1e-12, absTol = 0, maxPanels = 200): Integral {
   if (a === b) return { value: 0, error: 0 };
-  // Panels stored flat as [a, b, value, error].
-  const store = new Float64Array(4 * maxPanels);
-  const tmp = new Float64Array(4);
+  // Panels stored flat as [a, b, value, error], in a buffer reused between calls (fresh if nested).
+  const store = depth === 0 && maxPanels <= MAX_SHARED ? sharedStore : new Float64Array(4 * maxPanels);
+  const tmp = depth === 0 ? sharedTmp : new Float64Array(4);
+  depth++;
+  try {
+    return adapt(f, a, b, relTol, absTol, maxPanels, store, tmp);
+  } finally {
+    depth--;
+  }
+}
+
+const MAX_SHARED = 400;
+const sharedStore = new Float64Array(4 * MAX_SHARED);
+const sharedTmp = new Float64Array(4);
+let depth = 0;
+
+function adapt(
+  f: (x: number) => number,
+  a: number,
+  b: number,
+  relTol: number,
+  absTol: number,
+  maxPanels: number,
+  store: Float64Array,
+  tmp: Float64Array,
+): Integral {
   store[0] = a;
   store[1] = b;
   panel(f, a, b, store, 2);

@@ -8,6 +8,8 @@ export interface ChainObjective {
   readonly stages: number;
   value(k: number, a: number, b: number): number;
   gradient(k: number, a: number, b: number): [number, number];
+  /** A cheaper gradient, smooth in (a, b), used only for the finite-difference Hessian. @default gradient */
+  roughGradient?(k: number, a: number, b: number): [number, number];
 }
 
 interface Reduced {
@@ -32,14 +34,15 @@ function hessianOf(obj: ChainObjective, r: Reduced, y: readonly number[]): { dia
   const diag = new Array<number>(n).fill(0);
   const cross = new Array<number>(r.active.length).fill(0);
   const count = new Array<number>(r.active.length).fill(0);
+  const grad = obj.roughGradient ?? obj.gradient;
   for (let i = 1; i <= n; i++) {
     const left = r.active[i - 1];
     const right = r.active[i];
     const h = Math.min(1e-6, 0.25 * (y[i] - y[i - 1]), 0.25 * (y[i + 1] - y[i]));
-    const lp = obj.gradient(left, y[i - 1], y[i] + h);
-    const lm = obj.gradient(left, y[i - 1], y[i] - h);
-    const rp = obj.gradient(right, y[i] + h, y[i + 1]);
-    const rm = obj.gradient(right, y[i] - h, y[i + 1]);
+    const lp = grad(left, y[i - 1], y[i] + h);
+    const lm = grad(left, y[i - 1], y[i] - h);
+    const rp = grad(right, y[i] + h, y[i + 1]);
+    const rm = grad(right, y[i] - h, y[i + 1]);
     diag[i - 1] = (lp[1] - lm[1] + rp[0] - rm[0]) / (2 * h);
     cross[i - 1] += (lp[0] - lm[0]) / (2 * h);
     count[i - 1]++;
@@ -91,16 +94,16 @@ function closeStage(y: number[], m: number): void {
 }
 
 /** Newton iterations on the reduced problem; returns the index (in active) of a stage that closed, or -1. */
-function newton(obj: ChainObjective, r: Reduced): number {
+function newton(obj: ChainObjective, r: Reduced, maxIterations: number): number {
   let j = total(obj, r, r.y);
-  for (let iter = 0; iter < 60; iter++) {
+  for (let iter = 0; iter < maxIterations; iter++) {
     const g = gradientOf(obj, r, r.y);
     const { diag, off } = hessianOf(obj, r, r.y);
     const d = newtonDirection(diag, off, g);
     const { alpha: limit, closing } = stepLimit(r.y, d);
     let alpha = limit;
     let accepted = false;
-    for (let k = 0; k < 40; k++) {
+    for (let k = 0; k < 30; k++) {
       const y = moved(r.y, d, alpha);
       if (alpha === limit && closing >= 0) closeStage(y, closing);
       const v = total(obj, r, y);
@@ -125,9 +128,10 @@ function newton(obj: ChainObjective, r: Reduced): number {
  * tridiagonal system, closing stages whose optimal length is zero (an active-set method).
  * @param x boundaries x_0..x_n (x_0 and x_n stay fixed), e.g. from the grid optimum.
  * @param closed stages fixed at zero length.
+ * @param maxIterations Newton iterations per active set.
  * @returns refined boundaries.
  */
-export function refineChain(obj: ChainObjective, x: readonly number[], closed: readonly boolean[]): number[] {
+export function refineChain(obj: ChainObjective, x: readonly number[], closed: readonly boolean[], maxIterations = 60): number[] {
   const isClosed = closed.slice();
   let current = x.slice();
   for (let round = 0; round <= obj.stages; round++) {
@@ -135,7 +139,7 @@ export function refineChain(obj: ChainObjective, x: readonly number[], closed: r
     for (let k = 0; k < obj.stages; k++) if (!isClosed[k]) active.push(k);
     if (active.length <= 1) break;
     const r: Reduced = { active, y: [current[0], ...active.map((k) => current[k + 1])] };
-    const closing = newton(obj, r);
+    const closing = newton(obj, r, maxIterations);
     const next = [current[0]];
     let m = 0;
     for (let k = 0; k < obj.stages; k++) {

@@ -1,0 +1,134 @@
+/**
+ * `npm run bench`: prints figures (never asserts): medians of the three reference cases, memory peak,
+ * time against N = 1..8, a 24-spec command-line batch, accuracy against a fine-grid run, and the
+ * whole-process comparison with the straightforward baseline in bench/baseline.ts.
+ */
+import { execFileSync, spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { designTrains, type DesignResult, type DesignSpec } from "../lib/engine/index";
+
+const root = join(import.meta.dirname, "..");
+const fixture = (name: string): DesignSpec => JSON.parse(readFileSync(join(root, "tests/fixtures/specs", name), "utf8"));
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+function timeIt(f: () => unknown, warm = 15, runs = 41): { median: number; min: number; p90: number } {
+  for (let i = 0; i < warm; i++) f();
+  const ts: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t = performance.now();
+    f();
+    ts.push(performance.now() - t);
+  }
+  const s = [...ts].sort((a, b) => a - b);
+  return { median: median(ts), min: s[0], p90: s[Math.floor(0.9 * s.length)] };
+}
+
+function ms(v: number): string {
+  return `${v.toFixed(2)} ms`;
+}
+
+function worstVolumeDifference(a: DesignResult, b: DesignResult): number {
+  let worst = 0;
+  const byKey = new Map(b.candidates.map((c) => [c.sequence.join("-"), c]));
+  for (const c of a.candidates) {
+    const ref = byKey.get(c.sequence.join("-"));
+    const total = ref?.totalVolume ?? null;
+    if (!ref || c.totalVolume === null || total === null) continue;
+    if (a.objective === "cost") {
+      // Cost with standard sizes is flat within a size: compare the costs, not the volumes.
+      worst = Math.max(worst, Math.abs((c.totalCost as number) - (ref.totalCost as number)) / (ref.totalCost as number));
+      continue;
+    }
+    worst = Math.max(worst, Math.abs(c.totalVolume - total) / total);
+    c.stages.forEach((s, i) => {
+      const r = ref.stages[i].volume;
+      worst = Math.max(worst, Math.abs(s.volume - r) / Math.max(r, 1e-6 * total));
+    });
+  }
+  return worst;
+}
+
+const cases: [string, DesignSpec][] = [
+  ["second order, 62 sequences (1..5 stages, CSTR/PFR)", fixture("second-order-five-stages.json")],
+  ["adiabatic reversible, interstage cooling, 62 sequences", fixture("adiabatic-reversible-cooling.json")],
+  ["cost objective with standard sizes, 62 sequences", fixture("cost-standard-sizes.json")],
+];
+
+console.log("Seriatim engine benchmark (one process, after warm-up)\n");
+for (const [name, spec] of cases) {
+  const t = timeIt(() => designTrains(spec));
+  const fine = designTrains(spec, { gridPoints: 1024 });
+  const diff = worstVolumeDifference(designTrains(spec), fine);
+  console.log(`${name}\n  median ${ms(t.median)}  (min ${ms(t.min)}, p90 ${ms(t.p90)}); worst relative difference (stage volumes; costs for the cost case) vs a 1024-point grid: ${diff.toExponential(2)}`);
+}
+
+const rss = process.resourceUsage().maxRSS / 1024;
+const heap = process.memoryUsage().heapUsed / 2 ** 20;
+console.log(`\nmemory: peak RSS ${rss.toFixed(1)} MiB (whole process), heap in use now ${heap.toFixed(1)} MiB`);
+
+console.log("\ntime against N (second order, all sequences of 1..N stages of both types):");
+const base = fixture("second-order-five-stages.json");
+for (let n = 1; n <= 8; n++) {
+  const spec: DesignSpec = { ...base, train: { maxStages: n, types: ["CSTR", "PFR"] } };
+  const count = 2 ** (n + 1) - 2;
+  const t = timeIt(() => designTrains(spec), n > 6 ? 3 : 8, n > 6 ? 9 : 21);
+  console.log(`  N=${n}: ${String(count).padStart(3)} sequences  median ${ms(t.median).padStart(10)}  ${(t.median / count * 1000).toFixed(1)} us/sequence`);
+}
+
+// Whole processes: the CLI bundle (as npm run sweep runs it) and the baseline, bundled the same way.
+const dir = mkdtempSync(join(tmpdir(), "seriatim-bench-"));
+const esbuild = join(root, "node_modules/.bin/esbuild");
+const bundle = (entry: string, out: string) =>
+  execFileSync(esbuild, [entry, "--bundle", "--platform=node", "--format=esm", "--minify", `--outfile=${out}`, "--log-level=error"], { cwd: root });
+const ours = join(dir, "sweep.mjs");
+const theirs = join(dir, "baseline.mjs");
+bundle("scripts/sweep.ts", ours);
+bundle("bench/baseline-cli.ts", theirs);
+
+const files: string[] = [];
+for (let i = 0; i < 24; i++) {
+  const spec: DesignSpec = { ...base, reaction: { rate: { law: "power", k: 2.5e-5 * (1 + 0.1 * i), orders: { A: 2 } } }, target: { conversion: 0.8 + 0.007 * i } };
+  const f = join(dir, `spec-${i}.json`);
+  writeFileSync(f, JSON.stringify(spec));
+  files.push(f);
+}
+const wall = (cmd: string, args: string[]) => {
+  const t = performance.now();
+  const r = spawnSync(cmd, args, { cwd: root, encoding: "utf8" });
+  return { ms: performance.now() - t, out: r.stdout };
+};
+spawnSync("npm", ["run", "--silent", "sweep", "--", files[0]], { cwd: root });
+const batchNpm = median([0, 1, 2].map(() => wall("npm", ["run", "--silent", "sweep", "--", ...files]).ms));
+const batchNode = median([0, 1, 2].map(() => wall("node", [ours, ...files]).ms));
+console.log(`\n24-spec batch through the command line (62 sequences each, start-up included):`);
+console.log(`  npm run --silent sweep: ${ms(batchNpm)}   node on the bundle alone: ${ms(batchNode)}`);
+
+const specFile = join(dir, "second-order.json");
+writeFileSync(specFile, JSON.stringify(base));
+const oursOne = median([0, 1, 2].map(() => wall("node", [ours, specFile]).ms));
+const runs = [0, 1, 2].map(() => wall("node", [theirs, specFile]));
+const theirsOne = median(runs.map((r) => r.ms));
+const baselineVolumes: number[] = JSON.parse(runs[0].out.trim()).volumes;
+const ourResult = designTrains(base);
+const ourVolumes = new Map(ourResult.candidates.map((c) => [c.sequence.join("-"), c.totalVolume as number]));
+const seqs: string[] = [];
+let level: string[][] = [[]];
+for (let n = 1; n <= 5; n++) {
+  level = level.flatMap((s) => ["CSTR", "PFR"].map((t) => [...s, t]));
+  seqs.push(...level.map((s) => s.join("-")));
+}
+const baseErr = Math.max(...seqs.map((s, i) => Math.abs(baselineVolumes[i] - (ourVolumes.get(s) as number)) / (ourVolumes.get(s) as number)));
+console.log(`\nwhole process, one 62-sequence second-order case:`);
+console.log(`  baseline (golden-section per sequence, adaptive Simpson, tightened to 1e-4): ${ms(theirsOne)}`);
+console.log(`  Seriatim (node on the CLI bundle): ${ms(oursOne)}   factor ${(theirsOne / oursOne).toFixed(1)}x`);
+const bt = timeIt(() => execFileSync("node", ["-e", "0"]), 1, 5);
+console.log(`  (bare node start-up on this machine: ${ms(bt.median)}; in-process baseline vs engine factor below)`);
+const inBase = timeIt(() => spawnSync("node", [theirs, specFile]), 0, 3).median - bt.median;
+console.log(`  baseline minus node start-up ≈ ${ms(inBase)}; engine in-process median ${ms(timeIt(() => designTrains(base)).median)}`);
+console.log(`  largest relative difference between baseline and Seriatim totals: ${baseErr.toExponential(2)}`);
