@@ -5,7 +5,7 @@ import type { RateFunction } from "./model";
 import { buildPchip, evaluatePchip } from "./pchip";
 import { powerLawRate, resolveOrders, type PowerTerm } from "./power-law";
 import { saturationRate } from "./saturation-law";
-import type { FeedSpec, PowerLawSpec, RateLawSpec, ReactionSpec, TableLawSpec } from "./types";
+import type { FeedSpec, PowerLawSpec, ReactionSpec, TableLawSpec } from "./types";
 import { anyToSI, DIM, rateConstantDimension, toSI } from "./units";
 
 const P = "reaction.rate";
