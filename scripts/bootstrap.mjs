@@ -37,3 +37,9 @@ const child = spawn(process.execPath, ["--import", "tsx", path.join(root, "scrip
 // Ctrl-C reaches the whole foreground group; the child does the orderly shutdown.
 for (const sig of ["SIGINT", "SIGTERM"]) process.on(sig, () => child.kill(sig === "SIGTERM" ? "SIGTERM" : "SIGINT"));
 child.on("exit", (code, signal) => process.exit(code ?? (signal ? 1 : 0)));
+// `npm start` runs us under `sh -c`; when npm is told to stop it ends the shell, not us.
+// Treat a vanished parent like SIGTERM so nothing is left running.
+const parent = process.ppid;
+setInterval(() => {
+  if (process.ppid !== parent) child.kill("SIGTERM");
+}, 1000).unref();
