@@ -1,9 +1,17 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import * as schema from "./schema";
+import * as foundation from "./schema";
+import * as sweepsSchema from "./schema-sweeps";
+
+const schema = { ...foundation, ...sweepsSchema };
 import { getEnv } from "@/lib/env";
 
 export type Database = NodePgDatabase<typeof schema>;
+
+/** A Drizzle handle with every table, over a pool or client the caller owns. */
+export function createDb(client: pg.Pool | pg.PoolClient): Database {
+  return drizzle(client, { schema });
+}
 
 // One pool per process; Next's dev server re-evaluates modules, so keep it on globalThis.
 const globalForDb = globalThis as unknown as { seriatimPool?: pg.Pool; seriatimDb?: Database };
@@ -14,7 +22,7 @@ export function getPool(): pg.Pool {
 }
 
 export function getDb(): Database {
-  globalForDb.seriatimDb ??= drizzle(getPool(), { schema });
+  globalForDb.seriatimDb ??= createDb(getPool());
   return globalForDb.seriatimDb;
 }
 
@@ -25,4 +33,23 @@ export async function closeDb(): Promise<void> {
   await globalForDb.seriatimPool?.end();
   globalForDb.seriatimPool = undefined;
   globalForDb.seriatimDb = undefined;
+}
+
+/**
+ * A transaction on one pooled client, handing out both a Drizzle handle and the raw client
+ * (for libraries such as pg-boss that must write inside the same transaction).
+ */
+export async function withTransaction<T>(fn: (tx: Database, client: pg.PoolClient) => Promise<T>, pool: pg.Pool = getPool()): Promise<T> {
+  const client = await pool.connect();
+  try {
+    await client.query("BEGIN");
+    const result = await fn(createDb(client), client);
+    await client.query("COMMIT");
+    return result;
+  } catch (err) {
+    await client.query("ROLLBACK").catch(() => {});
+    throw err;
+  } finally {
+    client.release();
+  }
 }

@@ -41,3 +41,15 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.out
 }
 
 export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });
+
+/** A uuid path parameter; anything else is "not found" (never a 500 from the database). */
+export async function uuidParam<K extends string>(ctx: { params: Promise<Record<K, string>> }, key: K, what: string): Promise<string> {
+  const value = (await ctx.params)[key];
+  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value)) throw new AppError("not_found", `No such ${what}`);
+  return value;
+}
+
+/** Query-string parameters validated by a schema: 400 naming each bad parameter. */
+export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.output<S> {
+  return parseWith(schema, Object.fromEntries(new URL(req.url).searchParams));
+}

@@ -7,9 +7,8 @@ import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import * as schema from "../db/schema";
+import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
 import { DEMO_PASSWORD, DEMO_USERS, seedDemoData } from "../db/seed";
 import { buildIsStale, runNextBuild } from "./lib/build";
@@ -76,7 +75,7 @@ async function main() {
   await runMigrations(databaseUrl);
   step("seeding demo data");
   const pool = new pg.Pool({ connectionString: databaseUrl, max: 2 });
-  await seedDemoData(drizzle(pool, { schema }));
+  await seedDemoData(createDb(pool));
   await pool.end();
 
   const appUrl = process.env.APP_URL ?? `http://127.0.0.1:${port}`;

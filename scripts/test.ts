@@ -6,9 +6,8 @@ import { execFileSync, spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import * as schema from "../db/schema";
+import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
 import { seedDemoData } from "../db/seed";
 import { createDatabase, ensurePostgresBinaries, freePort, startThrowawayCluster, type Cluster } from "./lib/postgres";
@@ -119,7 +118,7 @@ async function main(): Promise<number> {
       const e2eUrl = await createDatabase(cluster.serverUrl, "seriatim_e2e");
       await runMigrations(e2eUrl);
       const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });
-      await seedDemoData(drizzle(pool, { schema }));
+      await seedDemoData(createDb(pool));
       await pool.end();
       steps.push(
         run("e2e", bin("playwright"), ["test"], {

@@ -7,14 +7,14 @@ if (!url) {
 }
 
 try {
-  const boss = await startWorker(url, (msg, extra) => console.error(`worker: ${msg}`, extra ?? ""));
+  const worker = await startWorker(url, (msg, extra) => console.error(`worker ${process.pid}: ${msg}`, extra ?? ""));
   console.log(`worker ${process.pid}: listening for jobs`);
   let stopping = false;
   const stop = async () => {
     if (stopping) return;
     stopping = true;
-    // graceful: lets the job in hand finish (or releases it) before closing connections
-    await boss.stop({ graceful: true, timeout: 20_000 });
+    // Finishes the job in hand, or hands its unfinished scenarios back to the queue.
+    await worker.stop({ graceful: true, timeoutMs: 20_000 });
     process.exit(0);
   };
   process.on("SIGINT", stop);

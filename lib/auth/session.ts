@@ -1,9 +1,10 @@
-import { cookies } from "next/headers";
+import { cookies, headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { getDb } from "@/db/client";
 import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
+import { actorFromApiToken } from "@/lib/services/tokens";
 import { auth } from "./config";
 
 /** Cookie holding the team the user last switched to; checked against memberships on every read. */
@@ -21,8 +22,18 @@ export async function getActor(): Promise<Actor | null> {
   return loadActor(getDb(), userId, preferred);
 }
 
-/** For route handlers and server actions: 401 when signed out, 403 without a team. */
+/**
+ * For route handlers: a personal API token (Authorization: Bearer) or the session cookie.
+ * 401 when neither is valid, 403 for a signed-in user without a team.
+ */
 export async function requireActor(): Promise<Actor> {
+  const authorization = (await headers()).get("authorization");
+  if (authorization) {
+    const [scheme, token] = authorization.split(" ");
+    const actor = scheme?.toLowerCase() === "bearer" && token ? await actorFromApiToken(getDb(), token) : null;
+    if (!actor) throw new AppError("unauthorized", "The API token is not valid (unknown, revoked, or its user left the team)");
+    return actor;
+  }
   const userId = await getSessionUserId();
   if (!userId) throw new AppError("unauthorized", "Sign in first");
   const preferred = (await cookies()).get(TEAM_COOKIE)?.value;

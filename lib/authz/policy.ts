@@ -24,7 +24,16 @@ export type Action =
   | "invitation.list"
   | "invitation.create"
   | "invitation.revoke"
-  | "audit.read";
+  | "audit.read"
+  | "kinetics.read"
+  | "kinetics.create"
+  | "sweep.read"
+  | "sweep.create"
+  | "sweep.cancel"
+  | "pin.read"
+  | "pin.create"
+  | "pin.review"
+  | "token.manage";
 
 const EVERYONE = ROLES;
 const AUTHORS: readonly Role[] = ["admin", "manager", "engineer"];
@@ -46,10 +55,20 @@ export const POLICY: Record<Action, readonly Role[]> = {
   "invitation.create": ADMINS,
   "invitation.revoke": ADMINS,
   "audit.read": ["admin", "manager"],
+  "kinetics.read": AUTHORS,
+  "kinetics.create": AUTHORS,
+  "sweep.read": AUTHORS,
+  "sweep.create": AUTHORS,
+  "sweep.cancel": AUTHORS,
+  // Viewers read pinned designs, but the service shows them approved ones only.
+  "pin.read": EVERYONE,
+  "pin.create": AUTHORS,
+  "pin.review": ["admin", "manager"],
+  "token.manage": EVERYONE,
 };
 
 /** Actions an engineer may take only on records they created. */
-const OWN_RECORDS_ONLY_FOR_ENGINEERS: ReadonlySet<Action> = new Set(["project.update", "project.archive"]);
+const OWN_RECORDS_ONLY_FOR_ENGINEERS: ReadonlySet<Action> = new Set(["project.update", "project.archive", "sweep.cancel"]);
 
 export interface ResourceRef {
   teamId: string;
@@ -86,6 +105,9 @@ function describe(action: Action): string {
     update: "change",
     archive: "archive",
     revoke: "revoke",
+    cancel: "cancel",
+    review: "review",
+    manage: "manage",
   };
   const plural = verb === "list" ? `${entity}s` : `this ${entity}`;
   return verb === "create" ? `create a ${entity}` : `${verbs[verb] ?? verb} ${plural}`;

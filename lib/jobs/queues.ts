@@ -1,10 +1,44 @@
+import type PgBoss from "pg-boss";
 import { z } from "zod";
 
 /** Queue names (kebab-case) and their payload schemas: checked on send and on receipt. */
 export const QUEUES = {
   /** Round trip through the queue; used by health checks and tests of the worker's wiring. */
   systemPing: "system-ping",
+  /** A few consecutive scenarios of one sweep. */
+  sweepChunk: "sweep-chunk",
+  /** Chunks that failed every retry end here; their sweep is marked failed. */
+  sweepChunkDead: "sweep-chunk-dead",
 } as const;
+
+/** Postgres NOTIFY channel that wakes idle workers when jobs are queued. */
+export const WAKE_CHANNEL = "seriatim_jobs";
 
 export const systemPingPayload = z.object({ sentAt: z.iso.datetime() });
 export type SystemPingPayload = z.infer<typeof systemPingPayload>;
+
+export const sweepChunkPayload = z.strictObject({
+  sweepId: z.uuid(),
+  /** Scenario indexes from (inclusive) to (exclusive). */
+  from: z.int().min(0),
+  to: z.int().min(1),
+});
+export type SweepChunkPayload = z.infer<typeof sweepChunkPayload>;
+
+/** Queue settings, from the environment so tests can shorten the expiry of a killed worker's job. */
+export function sweepQueueOptions(): PgBoss.Queue {
+  return {
+    name: QUEUES.sweepChunk,
+    retryLimit: Number(process.env.SWEEP_JOB_RETRY_LIMIT ?? 3),
+    retryDelay: Number(process.env.SWEEP_JOB_RETRY_DELAY_SECONDS ?? 1),
+    expireInSeconds: Number(process.env.SWEEP_JOB_EXPIRE_SECONDS ?? 120),
+    deadLetter: QUEUES.sweepChunkDead,
+  };
+}
+
+/** Creates every queue (idempotent); both the app and the worker call it on start. */
+export async function ensureQueues(boss: PgBoss): Promise<void> {
+  await boss.createQueue(QUEUES.systemPing);
+  await boss.createQueue(QUEUES.sweepChunkDead);
+  await boss.createQueue(QUEUES.sweepChunk, sweepQueueOptions());
+}

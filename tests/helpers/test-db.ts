@@ -1,8 +1,6 @@
 import { randomUUID } from "node:crypto";
-import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import * as schema from "@/db/schema";
-import type { Database } from "@/db/client";
+import { createDb, type Database } from "@/db/client";
 
 export interface TestDatabase {
   db: Database;
@@ -35,7 +33,7 @@ export async function createTestDatabase(opts: { empty?: boolean } = {}): Promis
   const url = `${serverUrl()}${name}`;
   const pool = new pg.Pool({ connectionString: url, max: 4 });
   return {
-    db: drizzle(pool, { schema }),
+    db: createDb(pool),
     url,
     pool,
     async drop() {

@@ -1,11 +1,11 @@
 import PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QUEUES } from "@/lib/jobs/queues";
-import { startWorker } from "@/worker/boot";
+import { startWorker, type RunningWorker } from "@/worker/boot";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 let t: TestDatabase;
-let worker: PgBoss;
+let worker: RunningWorker;
 let client: PgBoss;
 
 beforeAll(async () => {

@@ -1,0 +1,160 @@
+import { boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { projects, teams, users } from "./schema";
+
+export const sweepStatusEnum = pgEnum("sweep_status", ["queued", "running", "succeeded", "failed", "cancelled"]);
+export const scenarioStatusEnum = pgEnum("scenario_status", ["pending", "succeeded", "failed"]);
+export const reviewStateEnum = pgEnum("review_state", ["proposed", "approved", "rejected", "superseded"]);
+
+/** A named kinetics model of a project; its content lives in numbered, immutable versions. */
+export const kineticsModels = pgTable(
+  "kinetics_models",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    createdBy: text("created_by").notNull().references(() => users.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("kinetics_models_project_idx").on(t.projectId)],
+);
+
+/** One version of a kinetics model: the feed and reaction part of an engine spec. Never updated. */
+export const kineticsVersions = pgTable(
+  "kinetics_versions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    modelId: uuid("model_id").notNull().references(() => kineticsModels.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    /** { feed, reaction } as the engine reads them. */
+    spec: jsonb("spec").$type<Record<string, unknown>>().notNull(),
+    note: text("note").notNull().default(""),
+    createdBy: text("created_by").notNull().references(() => users.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("kinetics_versions_model_version_unique").on(t.modelId, t.version)],
+);
+
+export const sweeps = pgTable(
+  "sweeps",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
+    kineticsVersionId: uuid("kinetics_version_id").notNull().references(() => kineticsVersions.id),
+    name: text("name").notNull(),
+    /** The full engine spec every scenario starts from (kinetics version + target, train, objective). */
+    baseSpec: jsonb("base_spec").$type<Record<string, unknown>>().notNull(),
+    /** The scenario grid as submitted. */
+    grid: jsonb("grid").$type<unknown[]>().notNull().default([]),
+    status: sweepStatusEnum("status").notNull().default("queued"),
+    total: integer("total").notNull(),
+    done: integer("done").notNull().default(0),
+    failedScenarios: integer("failed_scenarios").notNull().default(0),
+    error: text("error"),
+    jobIds: jsonb("job_ids").$type<string[]>().notNull().default([]),
+    rerunOf: uuid("rerun_of"),
+    submittedBy: text("submitted_by").notNull().references(() => users.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp("started_at", { withTimezone: true }),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (t) => [index("sweeps_project_idx").on(t.projectId, t.createdAt), index("sweeps_team_idx").on(t.teamId)],
+);
+
+export const scenarios = pgTable(
+  "scenarios",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    sweepId: uuid("sweep_id").notNull().references(() => sweeps.id, { onDelete: "cascade" }),
+    index: integer("index").notNull(),
+    /** Field path → value for this scenario, e.g. { "feed.flowA": 0.02 }. */
+    overrides: jsonb("overrides").$type<Record<string, number>>().notNull(),
+    status: scenarioStatusEnum("status").notNull().default("pending"),
+    error: jsonb("error").$type<{ message: string; path: string | null; code: string } | null>(),
+    bestObjective: doublePrecision("best_objective"),
+    reference: jsonb("reference").$type<Record<string, unknown> | null>(),
+    candidateCount: integer("candidate_count").notNull().default(0),
+    computedAt: timestamp("computed_at", { withTimezone: true }),
+  },
+  (t) => [uniqueIndex("scenarios_sweep_index_unique").on(t.sweepId, t.index)],
+);
+
+export const candidates = pgTable(
+  "candidates",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    sweepId: uuid("sweep_id").notNull().references(() => sweeps.id, { onDelete: "cascade" }),
+    scenarioId: uuid("scenario_id").notNull().references(() => scenarios.id, { onDelete: "cascade" }),
+    /** Stage types joined by "-", e.g. "CSTR-PFR"; unique per scenario, so a retried job never duplicates. */
+    sequenceKey: text("sequence_key").notNull(),
+    rank: integer("rank").notNull(),
+    stageCount: integer("stage_count").notNull(),
+    feasible: boolean("feasible").notNull(),
+    totalVolume: doublePrecision("total_volume"),
+    totalCost: doublePrecision("total_cost"),
+    /** Total volume over the single-PFR volume of the same scenario. */
+    ratioToPfr: doublePrecision("ratio_to_pfr"),
+    reason: text("reason"),
+    /** Stages without their plot data. */
+    stages: jsonb("stages").$type<Record<string, unknown>[]>().notNull(),
+    /** Levenspiel plot data per stage (curve and area), read only when a chart is drawn. */
+    levenspiel: jsonb("levenspiel").$type<unknown[]>().notNull(),
+  },
+  (t) => [
+    uniqueIndex("candidates_scenario_sequence_unique").on(t.sweepId, t.scenarioId, t.sequenceKey),
+    index("candidates_scenario_rank_idx").on(t.scenarioId, t.rank),
+  ],
+);
+
+/** A frozen copy of one candidate, pinned to a project with its spec, under review. */
+export const pinnedDesigns = pgTable(
+  "pinned_designs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
+    sweepId: uuid("sweep_id").references(() => sweeps.id, { onDelete: "set null" }),
+    candidateId: uuid("candidate_id"),
+    kineticsVersionId: uuid("kinetics_version_id").notNull().references(() => kineticsVersions.id),
+    /** The candidate as it was ranked (stages, totals, plot data). */
+    candidate: jsonb("candidate").$type<Record<string, unknown>>().notNull(),
+    /** The resolved engine spec of its scenario. */
+    spec: jsonb("spec").$type<Record<string, unknown>>().notNull(),
+    note: text("note").notNull().default(""),
+    state: reviewStateEnum("state").notNull().default("proposed"),
+    pinnedBy: text("pinned_by").notNull().references(() => users.id),
+    pinnedAt: timestamp("pinned_at", { withTimezone: true }).notNull().defaultNow(),
+    reviewerId: text("reviewer_id").references(() => users.id),
+    reviewComment: text("review_comment"),
+    reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
+  },
+  (t) => [index("pinned_designs_project_idx").on(t.projectId, t.pinnedAt)],
+);
+
+/** Personal API tokens: shown once, stored as SHA-256, scoped to the user and one team. */
+export const apiTokens = pgTable(
+  "api_tokens",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: text("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    /** First characters of the token, to tell tokens apart in lists. */
+    prefix: text("prefix").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (t) => [index("api_tokens_user_idx").on(t.userId)],
+);
+
+export type KineticsModel = typeof kineticsModels.$inferSelect;
+export type KineticsVersion = typeof kineticsVersions.$inferSelect;
+export type Sweep = typeof sweeps.$inferSelect;
+export type Scenario = typeof scenarios.$inferSelect;
+export type Candidate = typeof candidates.$inferSelect;
+export type PinnedDesign = typeof pinnedDesigns.$inferSelect;
+export type ApiToken = typeof apiTokens.$inferSelect;
+export type SweepStatus = (typeof sweepStatusEnum.enumValues)[number];

@@ -1,0 +1,83 @@
+import { z } from "zod";
+import { designSpecSchema } from "./sweep-spec";
+import { uuidSchema } from "./foundation";
+
+const spec = designSpecSchema.shape;
+
+/** The chemistry of a kinetics version: what the engine calls feed and reaction. */
+export const kineticsSpecSchema = z.strictObject({ feed: spec.feed, reaction: spec.reaction });
+export type KineticsSpec = z.infer<typeof kineticsSpecSchema>;
+
+const modelName = z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
+const note = z.string().trim().max(2000, "Use at most 2000 characters");
+
+export const kineticsModelCreateSchema = z.strictObject({ name: modelName, spec: kineticsSpecSchema, note: note.default("") });
+export const kineticsVersionCreateSchema = z.strictObject({ spec: kineticsSpecSchema, note: note.default("") });
+
+export const kineticsPreviewSchema = z.strictObject({
+  spec: kineticsSpecSchema,
+  /** Conversion to draw the curve to and size the single-stage references for. */
+  targetConversion: z.number().gt(0, "Conversion must be above 0").lt(1, "Conversion must be below 1").optional(),
+});
+
+const fieldPath = z
+  .string({ error: "Field path is required" })
+  .regex(/^[A-Za-z_]\w*(\.[A-Za-z_]\w*)+$/, "Use a dot path into the spec, e.g. feed.flowA or target.conversion");
+const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
+
+export const gridAxisSchema = z.union([
+  z.strictObject({ field: fieldPath, values: z.array(finite).min(1, "Give at least one value").max(1000, "At most 1000 values") }),
+  z
+    .strictObject({
+      field: fieldPath,
+      from: finite,
+      to: finite,
+      steps: z.int("Steps must be a whole number").min(2, "At least 2 steps").max(1000, "At most 1000 steps"),
+      scale: z.enum(["linear", "log"]).optional(),
+    })
+    .refine((a) => a.scale !== "log" || (a.from > 0 && a.to > 0), { message: "A log range needs positive ends", path: ["from"] }),
+]);
+
+export const sweepCreateSchema = z
+  .strictObject({
+    name: z.string().trim().min(1).max(120, "Use at most 120 characters").optional(),
+    kineticsVersionId: uuidSchema,
+    target: spec.target,
+    train: spec.train,
+    objective: spec.objective,
+    grid: z.array(gridAxisSchema).max(4, "Vary at most 4 fields").default([]),
+  })
+  .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each field may be varied once", path: ["grid"] });
+export type SweepCreate = z.infer<typeof sweepCreateSchema>;
+
+export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence"] as const;
+
+export const candidateQuerySchema = z.strictObject({
+  sort: z.enum(SORTABLE_COLUMNS, { error: `sort must be one of ${SORTABLE_COLUMNS.join(", ")}` }).default("rank"),
+  dir: z.enum(["asc", "desc"]).default("asc"),
+  feasible: z.enum(["true", "false"]).optional(),
+  contains: z
+    .string()
+    .regex(/^(CSTR|PFR)(-(CSTR|PFR))*$/, "contains is a run of stage types joined by '-', e.g. CSTR-PFR")
+    .optional(),
+  stages: z.coerce.number().int().min(1).max(8).optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(500).default(50),
+  include: z.enum(["levenspiel"]).optional(),
+});
+export type CandidateQuery = z.infer<typeof candidateQuerySchema>;
+
+export const compareQuerySchema = z.strictObject({
+  ids: z
+    .string({ error: "ids is required" })
+    .transform((s) => s.split(",").filter(Boolean))
+    .pipe(z.array(uuidSchema).min(2, "Compare at least 2 candidates").max(4, "Compare at most 4 candidates")),
+});
+
+export const pinCreateSchema = z.strictObject({ note: note.default("") });
+export const reviewSchema = z.strictObject({
+  decision: z.enum(["approve", "reject"], { error: "decision must be approve or reject" }),
+  comment: z.string().trim().min(1, "Say why").max(2000),
+});
+
+export const tokenCreateSchema = z.strictObject({ name: z.string().trim().min(1, "Name the token").max(80) });

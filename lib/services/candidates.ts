@@ -1,0 +1,97 @@
+import { and, asc, desc, eq, inArray, like, sql, type SQL } from "drizzle-orm";
+import type { Database } from "@/db/client";
+import { candidates, scenarios, sweeps } from "@/db/schema-sweeps";
+import { assertCan, type Actor } from "@/lib/authz/policy";
+import { notFound } from "@/lib/errors";
+import type { CandidateQuery } from "@/lib/schemas/sweeps";
+import { requireTeamSweep } from "./sweeps";
+
+const SORT_COLUMNS = {
+  rank: [candidates.rank],
+  totalVolume: [candidates.totalVolume],
+  totalCost: [candidates.totalCost],
+  stageCount: [candidates.stageCount, candidates.rank],
+  ratioToPfr: [candidates.ratioToPfr],
+  sequence: [candidates.stageCount, candidates.sequenceKey],
+} as const;
+
+const summaryColumns = {
+  id: candidates.id,
+  rank: candidates.rank,
+  sequenceKey: candidates.sequenceKey,
+  stageCount: candidates.stageCount,
+  feasible: candidates.feasible,
+  totalVolume: candidates.totalVolume,
+  totalCost: candidates.totalCost,
+  ratioToPfr: candidates.ratioToPfr,
+  reason: candidates.reason,
+  stages: candidates.stages,
+};
+
+/** One scenario's ranked candidates, sorted, filtered and paged in the database. */
+export async function listCandidates(db: Database, actor: Actor, sweepId: string, scenarioIndex: number, q: CandidateQuery) {
+  await requireTeamSweep(db, actor, sweepId);
+  const [scenario] = await db.select().from(scenarios).where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex)));
+  if (!scenario) throw notFound("scenario");
+
+  const filters: SQL[] = [eq(candidates.scenarioId, scenario.id)];
+  if (q.feasible) filters.push(eq(candidates.feasible, q.feasible === "true"));
+  if (q.stages) filters.push(eq(candidates.stageCount, q.stages));
+  // Whole stage names only: "PFR" must not match inside another name, so compare on "-"-bounded keys.
+  if (q.contains) filters.push(like(sql`'-' || ${candidates.sequenceKey} || '-'`, `%-${q.contains}-%`));
+  const where = and(...filters);
+
+  const direction = q.dir === "desc" ? desc : asc;
+  // Infeasible candidates (null totals) stay after the feasible ones whichever way one sorts.
+  const order = [sql`${candidates.feasible} desc`, ...SORT_COLUMNS[q.sort].map((c) => sql`${direction(c)} nulls last`), asc(candidates.rank)];
+  const columns = q.include === "levenspiel" ? { ...summaryColumns, levenspiel: candidates.levenspiel } : summaryColumns;
+  const [items, [{ total }]] = await Promise.all([
+    db.select(columns).from(candidates).where(where).orderBy(...order).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
+    db.select({ total: sql<number>`count(*)::int` }).from(candidates).where(where),
+  ]);
+  return {
+    scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference },
+    page: q.page,
+    pageSize: q.pageSize,
+    total,
+    items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-") })),
+  };
+}
+
+/** Two to four candidates of the actor's team, from one sweep or several, with their plot data. */
+export async function compareCandidates(db: Database, actor: Actor, ids: string[]) {
+  assertCan(actor, "sweep.read");
+  const rows = await db
+    .select({
+      candidate: candidates,
+      scenario: { index: scenarios.index, overrides: scenarios.overrides, reference: scenarios.reference },
+      sweep: { id: sweeps.id, name: sweeps.name, projectId: sweeps.projectId, teamId: sweeps.teamId },
+    })
+    .from(candidates)
+    .innerJoin(scenarios, eq(scenarios.id, candidates.scenarioId))
+    .innerJoin(sweeps, eq(sweeps.id, candidates.sweepId))
+    .where(and(inArray(candidates.id, ids), eq(sweeps.teamId, actor.teamId)));
+  if (rows.length !== new Set(ids).size) throw notFound("candidate");
+  const byId = new Map(rows.map((r) => [r.candidate.id, r]));
+  const list = ids.map((id) => byId.get(id)!);
+  const best = Math.min(...list.map((r) => r.candidate.totalVolume ?? Infinity));
+  const bestCost = Math.min(...list.map((r) => r.candidate.totalCost ?? Infinity));
+  return list.map(({ candidate: c, scenario, sweep }) => ({
+    id: c.id,
+    sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
+    scenario,
+    rank: c.rank,
+    sequence: c.sequenceKey.split("-"),
+    feasible: c.feasible,
+    totalVolume: c.totalVolume,
+    totalCost: c.totalCost,
+    stageCount: c.stageCount,
+    ratioToPfr: c.ratioToPfr,
+    stages: c.stages,
+    levenspiel: c.levenspiel,
+    differences: {
+      volumeOverBest: c.totalVolume !== null && Number.isFinite(best) ? c.totalVolume - best : null,
+      costOverBest: c.totalCost !== null && Number.isFinite(bestCost) ? c.totalCost - bestCost : null,
+    },
+  }));
+}

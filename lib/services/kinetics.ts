@@ -1,0 +1,84 @@
+import { and, desc, eq, max } from "drizzle-orm";
+import type { Database, Executor } from "@/db/client";
+import { projects } from "@/db/schema";
+import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
+import { assertCan, type Actor } from "@/lib/authz/policy";
+import { notFound } from "@/lib/errors";
+import type { KineticsSpec } from "@/lib/schemas/sweeps";
+import { checkKinetics } from "@/lib/sweeps/engine-bridge";
+import { recordAudit } from "./audit";
+
+/** A project of the actor's team, or 404 (also for another team's id). */
+export async function requireTeamProject(db: Executor, actor: Actor, projectId: string) {
+  const [p] = await db.select().from(projects).where(and(eq(projects.id, projectId), eq(projects.teamId, actor.teamId)));
+  if (!p) throw notFound("project");
+  return p;
+}
+
+export async function createKineticsModel(db: Database, actor: Actor, projectId: string, input: { name: string; spec: KineticsSpec; note: string }) {
+  const project = await requireTeamProject(db, actor, projectId);
+  assertCan(actor, "kinetics.create", project, "project");
+  checkKinetics(input.spec);
+  return db.transaction(async (tx) => {
+    const [model] = await tx.insert(kineticsModels).values({ teamId: actor.teamId, projectId, name: input.name, createdBy: actor.userId }).returning();
+    const [version] = await tx
+      .insert(kineticsVersions)
+      .values({ modelId: model.id, version: 1, spec: input.spec as Record<string, unknown>, note: input.note, createdBy: actor.userId })
+      .returning();
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.created", entityType: "project", entityId: projectId, details: { model: model.name, modelId: model.id, version: 1 } });
+    return { model, version };
+  });
+}
+
+async function requireTeamModel(db: Executor, actor: Actor, modelId: string) {
+  const [m] = await db.select().from(kineticsModels).where(and(eq(kineticsModels.id, modelId), eq(kineticsModels.teamId, actor.teamId)));
+  if (!m) throw notFound("kinetics model");
+  return m;
+}
+
+/** Editing a model makes a new version; earlier versions (and sweeps that ran on them) stay as they were. */
+export async function addKineticsVersion(db: Database, actor: Actor, modelId: string, input: { spec: KineticsSpec; note: string }) {
+  const model = await requireTeamModel(db, actor, modelId);
+  assertCan(actor, "kinetics.create", { teamId: model.teamId }, "kinetics model");
+  checkKinetics(input.spec);
+  return db.transaction(async (tx) => {
+    // Lock the model row so two concurrent edits get consecutive numbers.
+    await tx.select({ id: kineticsModels.id }).from(kineticsModels).where(eq(kineticsModels.id, modelId)).for("update");
+    const [{ latest }] = await tx.select({ latest: max(kineticsVersions.version) }).from(kineticsVersions).where(eq(kineticsVersions.modelId, modelId));
+    const [version] = await tx
+      .insert(kineticsVersions)
+      .values({ modelId, version: (latest ?? 0) + 1, spec: input.spec as Record<string, unknown>, note: input.note, createdBy: actor.userId })
+      .returning();
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.version_added", entityType: "project", entityId: model.projectId, details: { model: model.name, modelId, version: version.version } });
+    return version;
+  });
+}
+
+export async function listKineticsModels(db: Database, actor: Actor, projectId: string) {
+  const project = await requireTeamProject(db, actor, projectId);
+  assertCan(actor, "kinetics.read", project, "project");
+  const models = await db.select().from(kineticsModels).where(eq(kineticsModels.projectId, projectId)).orderBy(kineticsModels.name);
+  const out = [];
+  for (const m of models) {
+    const [latest] = await db.select().from(kineticsVersions).where(eq(kineticsVersions.modelId, m.id)).orderBy(desc(kineticsVersions.version)).limit(1);
+    out.push({ ...m, latestVersion: latest });
+  }
+  return out;
+}
+
+export async function getKineticsModel(db: Database, actor: Actor, modelId: string) {
+  const model = await requireTeamModel(db, actor, modelId);
+  assertCan(actor, "kinetics.read", { teamId: model.teamId }, "kinetics model");
+  const versions = await db.select().from(kineticsVersions).where(eq(kineticsVersions.modelId, modelId)).orderBy(desc(kineticsVersions.version));
+  return { ...model, versions };
+}
+
+/** A version of a model of the actor's team, with its model (for the project it belongs to). */
+export async function requireTeamKineticsVersion(db: Executor, actor: Actor, versionId: string) {
+  const [row] = await db
+    .select({ version: kineticsVersions, model: kineticsModels })
+    .from(kineticsVersions)
+    .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
+    .where(and(eq(kineticsVersions.id, versionId), eq(kineticsModels.teamId, actor.teamId)));
+  return row ?? null;
+}

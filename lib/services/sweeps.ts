@@ -1,0 +1,221 @@
+import { randomUUID } from "node:crypto";
+import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { type Database, withTransaction } from "@/db/client";
+import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema-sweeps";
+import { designTrains, EngineError, type DesignSpec } from "@/lib/engine";
+import { assertCan, type Actor } from "@/lib/authz/policy";
+import { AppError, notFound } from "@/lib/errors";
+import { bossDbFor, getBoss } from "@/lib/jobs/boss";
+import { QUEUES, WAKE_CHANNEL, type SweepChunkPayload } from "@/lib/jobs/queues";
+import { designSpecSchema } from "@/lib/schemas/sweep-spec";
+import type { SweepCreate } from "@/lib/schemas/sweeps";
+import { toBadRequest } from "@/lib/sweeps/engine-bridge";
+import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
+import { recordAudit } from "./audit";
+import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
+
+/** Most scenarios one sweep may hold (SWEEP_MAX_SCENARIOS, default 2,000). */
+export const maxScenarios = () => Number(process.env.SWEEP_MAX_SCENARIOS ?? 2000);
+
+/** Scenarios per queue job: small enough that several workers share a sweep, large enough to batch writes. */
+export function chunkSizeFor(total: number): number {
+  const configured = Number(process.env.SWEEP_CHUNK_SIZE ?? 0);
+  if (configured > 0) return configured;
+  return Math.min(8, Math.max(1, Math.round(total / 40)));
+}
+
+/** Where a field of a resolved scenario spec came from in the request, for error paths. */
+function fieldOfRequest(path: string, grid: GridAxis[]): string {
+  const axis = grid.findIndex((a) => a.field === path);
+  if (axis >= 0) return `grid.${axis}.field`;
+  return path.startsWith("feed") || path.startsWith("reaction") ? `kineticsVersionId (${path})` : path;
+}
+
+/** Checks the resolved scenarios before anything is written: the shape of each, and the engine on the first. */
+function checkScenarios(base: Record<string, unknown>, grid: GridAxis[], all: Overrides[]): void {
+  const probes = all.length > 1 ? [all[0], all[all.length - 1]] : all;
+  for (const o of probes) {
+    const parsed = designSpecSchema.safeParse(applyOverrides(base, o));
+    if (!parsed.success) {
+      const issue = parsed.error.issues[0];
+      const path = issue.path.join(".");
+      const axis = grid.findIndex((a) => path === a.field || path.startsWith(`${a.field}.`) || a.field.startsWith(`${path}.`) || (issue.code === "unrecognized_keys" && a.field.startsWith(path)));
+      const field = axis >= 0 ? `grid.${axis}.field` : fieldOfRequest(path, grid);
+      throw new AppError("bad_request", `${field}: ${issue.message}`, { fields: { [field]: [issue.message] } });
+    }
+  }
+  try {
+    designTrains(applyOverrides(base, all[0]) as unknown as DesignSpec);
+  } catch (err) {
+    if (!(err instanceof EngineError)) throw err;
+    // A target one scenario cannot reach is that scenario's result; a malformed spec, or a
+    // single-scenario sweep the engine refuses, is the request's error.
+    if (all.length === 1 || !["infeasible", "equilibrium"].includes(err.code)) {
+      const bad = toBadRequest(err);
+      const field = fieldOfRequest(err.path, grid);
+      throw new AppError("bad_request", err.message, { fields: { [field]: bad.fields?.[err.path] ?? [err.message] } });
+    }
+  }
+}
+
+interface NewSweep {
+  actor: Actor;
+  projectId: string;
+  kineticsVersionId: string;
+  name: string;
+  baseSpec: Record<string, unknown>;
+  grid: GridAxis[];
+  rerunOf?: string;
+}
+
+async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
+  const all = expandGrid(s.grid);
+  const ranges = chunkRanges(all.length, chunkSizeFor(all.length));
+  const jobs = ranges.map((r) => ({ id: randomUUID(), ...r }));
+  const boss = await getBoss();
+  return withTransaction(async (tx, client) => {
+    const [sweep] = await tx
+      .insert(sweeps)
+      .values({
+        teamId: s.actor.teamId,
+        projectId: s.projectId,
+        kineticsVersionId: s.kineticsVersionId,
+        name: s.name,
+        baseSpec: s.baseSpec,
+        grid: s.grid,
+        total: all.length,
+        jobIds: jobs.map((j) => j.id),
+        rerunOf: s.rerunOf ?? null,
+        submittedBy: s.actor.userId,
+      })
+      .returning();
+    for (let i = 0; i < all.length; i += 1000) {
+      await tx.insert(scenarios).values(all.slice(i, i + 1000).map((overrides, k) => ({ sweepId: sweep.id, index: i + k, overrides })));
+    }
+    // The jobs are written by this same transaction: no sweep without its jobs, no job without its sweep.
+    await boss.insert(
+      jobs.map((j) => ({ id: j.id, name: QUEUES.sweepChunk, data: { sweepId: sweep.id, from: j.from, to: j.to } satisfies SweepChunkPayload })),
+      { db: bossDbFor(client) },
+    );
+    await client.query("select pg_notify($1, $2)", [WAKE_CHANNEL, sweep.id]);
+    await recordAudit(tx, {
+      teamId: s.actor.teamId,
+      actorId: s.actor.userId,
+      action: s.rerunOf ? "sweep.rerun" : "sweep.submitted",
+      entityType: "project",
+      entityId: s.projectId,
+      details: { sweepId: sweep.id, name: sweep.name, scenarios: all.length, ...(s.rerunOf ? { rerunOf: s.rerunOf } : {}) },
+    });
+    return sweep;
+  });
+}
+
+export async function createSweep(db: Database, actor: Actor, projectId: string, input: SweepCreate): Promise<Sweep> {
+  const project = await requireTeamProject(db, actor, projectId);
+  assertCan(actor, "sweep.create", project, "project");
+  const kv = await requireTeamKineticsVersion(db, actor, input.kineticsVersionId);
+  if (!kv || kv.model.projectId !== projectId) {
+    throw new AppError("not_found", "No such kinetics version in this project", { fields: { kineticsVersionId: ["No such kinetics version in this project"] } });
+  }
+  const total = scenarioCount(input.grid);
+  if (total > maxScenarios()) {
+    throw new AppError("bad_request", `The grid gives ${total} scenarios; a sweep may hold at most ${maxScenarios()}`, {
+      fields: { grid: [`${total} scenarios; at most ${maxScenarios()}`] },
+    });
+  }
+  const baseSpec = { ...kv.version.spec, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
+  checkScenarios(baseSpec, input.grid, expandGrid(input.grid));
+  return insertSweepWithJobs({
+    actor,
+    projectId,
+    kineticsVersionId: kv.version.id,
+    name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
+    baseSpec,
+    grid: input.grid,
+  });
+}
+
+async function requireTeamSweep(db: Database, actor: Actor, sweepId: string): Promise<Sweep> {
+  const [s] = await db.select().from(sweeps).where(and(eq(sweeps.id, sweepId), eq(sweeps.teamId, actor.teamId)));
+  if (!s) throw notFound("sweep");
+  assertCan(actor, "sweep.read", s, "sweep");
+  return s;
+}
+
+/** What the screens and API show of a sweep: no job ids, progress as numbers. */
+export function sweepView(s: Sweep) {
+  const { jobIds: _jobIds, baseSpec, ...rest } = s;
+  const elapsed = s.startedAt ? ((s.finishedAt ?? new Date()).getTime() - s.startedAt.getTime()) / 1000 : null;
+  const remaining = elapsed && s.done > 0 && s.status === "running" ? (elapsed / s.done) * (s.total - s.done) : null;
+  return { ...rest, spec: baseSpec, progress: { done: s.done, total: s.total, fraction: s.total ? s.done / s.total : 0, elapsedSeconds: elapsed, remainingSeconds: remaining } };
+}
+
+export async function getSweep(db: Database, actor: Actor, sweepId: string) {
+  return sweepView(await requireTeamSweep(db, actor, sweepId));
+}
+
+export async function listSweeps(db: Database, actor: Actor, projectId: string) {
+  const project = await requireTeamProject(db, actor, projectId);
+  assertCan(actor, "sweep.read", project, "project");
+  const rows = await db.select().from(sweeps).where(eq(sweeps.projectId, projectId)).orderBy(desc(sweeps.createdAt)).limit(200);
+  return rows.map(sweepView);
+}
+
+/** Cancels a queued or running sweep: pending jobs are cancelled, a job in hand stops at its next scenario. */
+export async function cancelSweep(db: Database, actor: Actor, sweepId: string) {
+  const s = await requireTeamSweep(db, actor, sweepId);
+  assertCan(actor, "sweep.cancel", { teamId: s.teamId, createdBy: s.submittedBy }, "sweep");
+  const [row] = await db.transaction(async (tx) => {
+    const updated = await tx
+      .update(sweeps)
+      .set({ status: "cancelled", finishedAt: new Date() })
+      .where(and(eq(sweeps.id, sweepId), inArray(sweeps.status, ["queued", "running"])))
+      .returning();
+    if (updated.length === 0) throw new AppError("conflict", `The sweep is already ${s.status}`);
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "sweep.cancelled", entityType: "project", entityId: s.projectId, details: { sweepId, done: s.done, total: s.total } });
+    return updated;
+  });
+  const boss = await getBoss();
+  if (s.jobIds.length) await boss.cancel(QUEUES.sweepChunk, s.jobIds);
+  return sweepView(row);
+}
+
+export async function rerunSweep(db: Database, actor: Actor, sweepId: string) {
+  const s = await requireTeamSweep(db, actor, sweepId);
+  assertCan(actor, "sweep.create", s, "sweep");
+  const sweep = await insertSweepWithJobs({
+    actor,
+    projectId: s.projectId,
+    kineticsVersionId: s.kineticsVersionId,
+    name: `${s.name} (re-run)`,
+    baseSpec: s.baseSpec,
+    grid: s.grid as GridAxis[],
+    rerunOf: s.id,
+  });
+  return sweepView(sweep);
+}
+
+export async function listScenarios(db: Database, actor: Actor, sweepId: string) {
+  await requireTeamSweep(db, actor, sweepId);
+  return db
+    .select({
+      index: scenarios.index,
+      overrides: scenarios.overrides,
+      status: scenarios.status,
+      error: scenarios.error,
+      bestObjective: scenarios.bestObjective,
+      reference: scenarios.reference,
+      candidateCount: scenarios.candidateCount,
+    })
+    .from(scenarios)
+    .where(eq(scenarios.sweepId, sweepId))
+    .orderBy(asc(scenarios.index));
+}
+
+export { requireTeamSweep };
+export const scenarioIdOf = async (db: Database, sweepId: string, index: number) => {
+  const [row] = await db.select({ id: scenarios.id }).from(scenarios).where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, index)));
+  return row?.id ?? null;
+};
+export const candidateCountOf = (db: Database, sweepId: string) =>
+  db.select({ n: sql<number>`count(*)::int` }).from(candidates).where(eq(candidates.sweepId, sweepId)).then((r) => r[0].n);

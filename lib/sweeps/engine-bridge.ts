@@ -1,0 +1,75 @@
+import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
+import { AppError } from "@/lib/errors";
+import type { KineticsSpec } from "@/lib/schemas/sweeps";
+
+/** Errors in what the user typed (as opposed to a request that cannot be met). */
+const INPUT_CODES = new Set(["invalid-spec", "invalid-unit", "invalid-expression"]);
+
+/** An engine refusal as a 400 naming the field; `prefix` maps engine paths into the request body. */
+export function toBadRequest(err: EngineError, prefix = ""): AppError {
+  const field = prefix ? `${prefix}.${err.path}` : err.path;
+  return new AppError("bad_request", err.message, { fields: { [field]: [err.message] } });
+}
+
+/**
+ * Checks a kinetics version the way the engine will read it (units, expressions, orders,
+ * rate sign), without the target or train of any sweep: sizes one CSTR to a small conversion.
+ */
+export function checkKinetics(spec: KineticsSpec, prefix = "spec"): void {
+  try {
+    designTrains({ ...(spec as DesignSpec), target: { conversion: 0.01 }, train: { candidates: [["CSTR"]] } });
+  } catch (err) {
+    if (err instanceof EngineError && INPUT_CODES.has(err.code)) throw toBadRequest(err, prefix);
+    if (!(err instanceof EngineError)) throw err;
+    // infeasible/equilibrium at 1 % conversion says nothing about the kinetics being malformed
+  }
+}
+
+export interface KineticsPreview {
+  /** FA0/(-rA) against X from the feed to the drawn conversion, m3: [[X, FA0/(-rA)], ...]. */
+  curve: [number, number][];
+  targetConversion: number;
+  equilibriumConversion: number | null;
+  reference: { singleCSTR: number | null; singlePFR: number | null };
+  /** The single-CSTR rectangle and single-PFR area, as closed outlines on the same axes. */
+  cstrOutline: [number, number][];
+  pfrOutline: [number, number][];
+  cautions: string[];
+}
+
+/**
+ * The Levenspiel curve of a draft kinetics spec and its single-stage references, for the live
+ * chart: one CSTR and one PFR sized from the feed to the target (default 0.9, or 95 % of the
+ * equilibrium conversion when that is lower).
+ */
+export function previewKinetics(spec: KineticsSpec, targetConversion?: number): KineticsPreview {
+  const run = (conversion: number): DesignResult =>
+    designTrains({ ...(spec as DesignSpec), target: { conversion }, train: { candidates: [["CSTR"], ["PFR"]] } });
+  let result: DesignResult;
+  let target = targetConversion ?? 0.9;
+  try {
+    result = run(target);
+  } catch (err) {
+    if (!(err instanceof EngineError)) throw err;
+    if (err.code === "equilibrium" && targetConversion === undefined) {
+      const eq = Number(/([0-9.]+)/.exec(err.message.split("equilibrium")[1] ?? "")?.[1]);
+      if (!(eq > 0 && eq < 1)) throw toBadRequest(err, "spec");
+      target = 0.95 * eq;
+      result = run(target);
+    } else {
+      throw toBadRequest(err, err.path.startsWith("target") ? "" : "spec");
+    }
+  }
+  const cstr = result.candidates.find((c) => c.sequence.length === 1 && c.sequence[0] === "CSTR");
+  const pfr = result.candidates.find((c) => c.sequence.length === 1 && c.sequence[0] === "PFR");
+  const pfrStage = pfr?.stages[0];
+  return {
+    curve: pfrStage?.levenspiel.curve ?? cstr?.stages[0]?.levenspiel.curve ?? [],
+    targetConversion: target,
+    equilibriumConversion: result.equilibriumConversion ?? null,
+    reference: result.reference,
+    cstrOutline: cstr?.stages[0]?.levenspiel.area ?? [],
+    pfrOutline: pfrStage?.levenspiel.area ?? [],
+    cautions: result.cautions,
+  };
+}

@@ -1,0 +1,153 @@
+import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
+import type { Database } from "@/db/client";
+import { users } from "@/db/schema";
+import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema-sweeps";
+import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
+import type { SweepChunkPayload } from "@/lib/jobs/queues";
+import { appLink, sendMail } from "@/lib/mail";
+import { applyOverrides } from "./grid";
+
+type Outcome =
+  | { scenarioId: string; result: DesignResult }
+  | { scenarioId: string; error: { message: string; path: string | null; code: string } };
+
+const ACTIVE = ["queued", "running"] as const;
+
+function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
+  const pfr = result.reference.singlePFR;
+  return result.candidates.map((c) => ({
+    sweepId,
+    scenarioId,
+    sequenceKey: c.sequence.join("-"),
+    rank: c.rank,
+    stageCount: c.sequence.length,
+    feasible: c.feasible,
+    totalVolume: c.totalVolume,
+    totalCost: c.totalCost,
+    ratioToPfr: c.totalVolume !== null && pfr ? c.totalVolume / pfr : null,
+    reason: c.reason,
+    stages: c.stages.map(({ levenspiel: _plot, ...stage }) => stage as unknown as Record<string, unknown>),
+    levenspiel: c.stages.map((s) => s.levenspiel),
+  }));
+}
+
+function bestObjective(result: DesignResult): number | null {
+  const best = result.candidates.find((c) => c.feasible);
+  if (!best) return null;
+  return result.objective === "cost" ? best.totalCost : best.totalVolume;
+}
+
+export interface ChunkReport {
+  computed: number;
+  written: number;
+  skipped?: string;
+  finished?: Sweep["status"];
+}
+
+/**
+ * Runs the scenarios [from, to) of a sweep and stores their candidates. Safe to repeat:
+ * candidates are unique per (sweep, scenario, sequence) and a scenario counts towards
+ * progress only on its first transition out of "pending", so a retried job never
+ * duplicates or loses a candidate. An engine refusal is recorded on its scenario.
+ */
+export async function runSweepChunk(db: Database, payload: SweepChunkPayload, shouldStop: () => boolean = () => false): Promise<ChunkReport> {
+  const [sweep] = await db.select().from(sweeps).where(eq(sweeps.id, payload.sweepId));
+  if (!sweep) return { computed: 0, written: 0, skipped: "no such sweep" };
+  if (!(ACTIVE as readonly string[]).includes(sweep.status)) return { computed: 0, written: 0, skipped: sweep.status };
+  if (sweep.status === "queued") {
+    await db.update(sweeps).set({ status: "running", startedAt: new Date() }).where(and(eq(sweeps.id, sweep.id), eq(sweeps.status, "queued")));
+  }
+
+  const pending = await db
+    .select()
+    .from(scenarios)
+    .where(and(eq(scenarios.sweepId, sweep.id), gte(scenarios.index, payload.from), lt(scenarios.index, payload.to), eq(scenarios.status, "pending")))
+    .orderBy(scenarios.index);
+
+  const outcomes: Outcome[] = [];
+  for (const s of pending) {
+    if (shouldStop()) break;
+    const spec = applyOverrides(sweep.baseSpec, s.overrides) as unknown as DesignSpec;
+    try {
+      outcomes.push({ scenarioId: s.id, result: designTrains(spec) });
+    } catch (err) {
+      if (!(err instanceof EngineError)) throw err;
+      outcomes.push({ scenarioId: s.id, error: { message: err.message, path: err.path || null, code: err.code } });
+    }
+  }
+  if (outcomes.length === 0) return { computed: 0, written: 0 };
+
+  const finished = await db.transaction(async (tx) => {
+    // The sweep row lock orders concurrent chunks' progress updates and sees a cancel.
+    const [current] = await tx.select().from(sweeps).where(eq(sweeps.id, sweep.id)).for("update");
+    if (!current || !(ACTIVE as readonly string[]).includes(current.status)) return { written: 0, status: current?.status ?? null, changed: false };
+    let transitioned = 0;
+    let failed = 0;
+    for (const o of outcomes) {
+      if ("result" in o) {
+        const rows = candidateRows(sweep.id, o.scenarioId, o.result);
+        for (let i = 0; i < rows.length; i += 200) await tx.insert(candidates).values(rows.slice(i, i + 200)).onConflictDoNothing();
+      }
+      const updated = await tx
+        .update(scenarios)
+        .set(
+          "result" in o
+            ? {
+                status: "succeeded",
+                bestObjective: bestObjective(o.result),
+                reference: { ...o.result.reference, equilibriumConversion: o.result.equilibriumConversion ?? null, feedVolumetricFlow: o.result.feedVolumetricFlow, objective: o.result.objective },
+                candidateCount: o.result.candidates.length,
+                computedAt: new Date(),
+              }
+            : { status: "failed", error: o.error, computedAt: new Date() },
+        )
+        .where(and(eq(scenarios.id, o.scenarioId), eq(scenarios.status, "pending")))
+        .returning({ id: scenarios.id });
+      if (updated.length) {
+        transitioned += 1;
+        if ("error" in o) failed += 1;
+      }
+    }
+    const [after] = await tx
+      .update(sweeps)
+      .set({
+        done: sql`${sweeps.done} + ${transitioned}`,
+        failedScenarios: sql`${sweeps.failedScenarios} + ${failed}`,
+        status: sql`case when ${sweeps.done} + ${transitioned} >= ${sweeps.total} then 'succeeded'::sweep_status else ${sweeps.status} end`,
+        finishedAt: sql`case when ${sweeps.done} + ${transitioned} >= ${sweeps.total} then now() else ${sweeps.finishedAt} end`,
+      })
+      .where(eq(sweeps.id, sweep.id))
+      .returning();
+    return { written: transitioned, status: after.status, changed: after.status === "succeeded" && current.status !== "succeeded" };
+  });
+
+  if (finished.changed) await notifySubmitter(db, sweep, "succeeded");
+  return { computed: outcomes.length, written: finished.written, ...(finished.changed ? { finished: "succeeded" as const } : {}) };
+}
+
+/** Marks a sweep failed (a chunk failed every retry); only an active sweep changes. */
+export async function markSweepFailed(db: Database, sweepId: string, message: string): Promise<boolean> {
+  const rows = await db
+    .update(sweeps)
+    .set({ status: "failed", error: message, finishedAt: new Date() })
+    .where(and(eq(sweeps.id, sweepId), inArray(sweeps.status, [...ACTIVE])))
+    .returning();
+  if (rows.length) await notifySubmitter(db, rows[0], "failed");
+  return rows.length > 0;
+}
+
+async function notifySubmitter(db: Database, sweep: Sweep, status: "succeeded" | "failed"): Promise<void> {
+  const [user] = await db.select({ email: users.email, name: users.name }).from(users).where(eq(users.id, sweep.submittedBy));
+  if (!user) return;
+  const link = appLink(`/projects/${sweep.projectId}/sweeps/${sweep.id}`);
+  const [fresh] = await db.select().from(sweeps).where(eq(sweeps.id, sweep.id));
+  const lines =
+    status === "succeeded"
+      ? [`Your sweep "${sweep.name}" has finished: ${fresh?.total ?? sweep.total} scenarios, ${fresh?.failedScenarios ?? 0} of them refused by the engine.`, "", `Ranked trains: ${link}`]
+      : [`Your sweep "${sweep.name}" failed: ${fresh?.error ?? "see the sweep page"}.`, "", `Details: ${link}`];
+  try {
+    await sendMail({ to: user.email, subject: `Sweep ${status === "succeeded" ? "finished" : "failed"}: ${sweep.name}`, text: [...lines, "", "Results come from idealised reactor models; see the cautions on the sweep page."].join("\n") });
+  } catch (err) {
+    console.error("sweep mail failed", { sweepId: sweep.id, err });
+  }
+}

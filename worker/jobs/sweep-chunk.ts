@@ -1,0 +1,40 @@
+import type PgBoss from "pg-boss";
+import type { Database } from "@/db/client";
+import { QUEUES, sweepChunkPayload } from "@/lib/jobs/queues";
+import { markSweepFailed, runSweepChunk } from "@/lib/sweeps/run-chunk";
+
+export interface WorkerState {
+  stopping: boolean;
+}
+
+/**
+ * One chunk per job. A throw fails the job and pg-boss retries it (a killed worker's job
+ * comes back after its expiry); the attempt that has no retry left marks the sweep failed.
+ */
+export async function registerSweepChunk(boss: PgBoss, db: Database, state: WorkerState, log: (m: string, x?: unknown) => void): Promise<string> {
+  await boss.work(QUEUES.sweepChunkDead, async ([job]) => {
+    const payload = sweepChunkPayload.safeParse(job.data);
+    if (payload.success) await markSweepFailed(db, payload.data.sweepId, "A part of this sweep failed on every attempt; see the worker log");
+  });
+  return boss.work(QUEUES.sweepChunk, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    const parsed = sweepChunkPayload.safeParse(job.data);
+    if (!parsed.success) {
+      // A retry cannot fix a malformed payload; let it fail straight to the dead letter queue.
+      log(`job ${job.id}: invalid payload`, parsed.error.issues);
+      throw new Error("invalid sweep-chunk payload");
+    }
+    try {
+      const report = await runSweepChunk(db, parsed.data, () => state.stopping);
+      if (state.stopping && report.computed < parsed.data.to - parsed.data.from) {
+        // Stopped between scenarios: hand the rest back to the queue.
+        throw new Error("worker stopping; chunk released for another worker");
+      }
+      return report;
+    } catch (err) {
+      const message = err instanceof Error ? err.message : String(err);
+      log(`queue ${QUEUES.sweepChunk} job ${job.id} (sweep ${parsed.data.sweepId}, attempt ${job.retryCount + 1}/${job.retryLimit + 1}): ${message}`);
+      if (job.retryCount >= job.retryLimit && !state.stopping) await markSweepFailed(db, parsed.data.sweepId, message);
+      throw err;
+    }
+  });
+}
