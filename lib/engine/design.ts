@@ -12,6 +12,7 @@ import { equalisePfrRuns } from "./pfr-runs";
 import { refineChain } from "./refine";
 import { resolveModel } from "./resolve-model";
 import { enumerateSequences } from "./sequences";
+import { fullVesselConversions, optimiseStandardSizes, type SizedDesign } from "./standard-sizes";
 import { cstrVolume, pfrVolume, stageVolume, type StagePlace } from "./stages";
 import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType } from "./types";
 
@@ -84,6 +85,34 @@ function stageResults(model: ReactorModel, cm: CostModel, places: readonly Stage
   });
 }
 
+/** A train bought with standard sizes: every vessel full, conversions by rating (the last may pass the target). */
+function evaluateSized(model: ReactorModel, sequence: StageType[], design: SizedDesign | null): Evaluated {
+  if (!design) return evaluate(model, VOLUME_ONLY, sequence, null);
+  const capacities = design.pieces.map((p) => p.capacity);
+  const x = fullVesselConversions(model, sequence, capacities);
+  const stages = sequence.map((type, k): StageResult => {
+    const first = k === 0;
+    const a = x[k];
+    const b = x[k + 1];
+    const p = design.pieces[k];
+    return {
+      type,
+      conversionIn: a,
+      conversionOut: b,
+      temperatureIn: stageTemperature(model, first, a, a),
+      temperatureOut: stageTemperature(model, first, a, b),
+      volume: p.capacity,
+      residenceTime: p.capacity / model.v0,
+      vessels: { count: p.count, sizeEach: p.sizeEach },
+      cost: p.cost,
+      levenspiel: stagePlot(model, type, first, a, b),
+    };
+  });
+  return { sequence, boundaries: x, objective: design.cost, totalVolume: capacities.reduce((s, v) => s + v, 0), stages };
+}
+
+const VOLUME_ONLY: CostModel = { kind: "volume", vessels: { CSTR: { a: 0, b: 1, n: 1 }, PFR: { a: 0, b: 1, n: 1 } }, sizes: null, maxVessel: Infinity };
+
 function evaluate(model: ReactorModel, cm: CostModel, sequence: StageType[], x: number[] | null): Evaluated {
   if (!x) return { sequence, boundaries: null, objective: Infinity, totalVolume: Infinity, stages: [] };
   const places = placesOf(sequence);
@@ -121,11 +150,15 @@ function rank(evaluated: Evaluated[], model: ReactorModel, target: number, cm: C
       feasible,
       totalVolume: feasible ? e.totalVolume : null,
       totalCost: feasible && cm.kind === "cost" ? e.objective : null,
+      conversionReached: feasible ? e.stages[e.stages.length - 1].conversionOut : null,
       reason: feasible ? null : infeasibleReason(model, e.sequence.length, target),
       stages: e.stages,
     };
   });
 }
+
+const SIZED_CAUTION =
+  "With standard sizes every vessel is used full, so a train may pass the target (see conversionReached); each CSTR is taken at its lowest steady state from the feed side, the conservative choice when it has several.";
 
 function finite(v: number): number | null {
   return Number.isFinite(v) ? v : null;
@@ -146,6 +179,10 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   let evaluated: Evaluated[];
   if (spec.train.equalVolume) {
     evaluated = sequences.map((s) => evaluate(model, cm, s, equalVolumeBoundaries(model, placesOf(s), target)));
+  } else if (cm.sizes) {
+    // Standard sizes: an exact search over the purchase choices (not limited by a grid).
+    const designs = optimiseStandardSizes(model, cm, target, sequences);
+    evaluated = sequences.map((s, i) => evaluateSized(model, s, designs[i]));
   } else {
     const tables = buildGridTables(model, cm, target, options.gridPoints ?? 128);
     const grid = optimiseOnGrid(tables, sequences);
@@ -173,6 +210,6 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
     ...(eq !== null ? { equilibriumConversion: eq } : {}),
     feedVolumetricFlow: model.v0,
     objective: cm.kind,
-    cautions: [...CAUTIONS],
+    cautions: cm.sizes && !spec.train.equalVolume ? [...CAUTIONS, SIZED_CAUTION] : [...CAUTIONS],
   };
 }

@@ -2,7 +2,7 @@ import type { ReactorModel } from "./model";
 import { levenspielHeight, pfrVolume, type StagePlace } from "./stages";
 
 /** Conversion where a PFR from a reaches `volume`, within [a, b]: Newton's method (dV/dX = FA0/(-rA)), kept in its bracket. */
-function pfrConversionAt(model: ReactorModel, first: boolean, a: number, b: number, volume: number, guess: number): number {
+export function pfrConversionAt(model: ReactorModel, first: boolean, a: number, b: number, volume: number, guess: number): number {
   let lo = a;
   let hi = b;
   let x = Math.min(Math.max(guess, a), b);

@@ -249,6 +249,11 @@ export interface CandidateResult {
   totalVolume: number | null;
   /** Total vessel cost (cost objective); null otherwise or when infeasible. */
   totalCost: number | null;
+  /**
+   * Conversion the train reaches: the target, or more with standard sizes (every vessel used full);
+   * null when infeasible.
+   */
+  conversionReached?: number | null;
   /** Why the sequence is infeasible; null when feasible. */
   reason: string | null;
   /** Stages; empty when infeasible. */
