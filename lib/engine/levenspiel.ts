@@ -5,9 +5,15 @@ import type { PlotPoint, StagePlot, StageType } from "./types";
 /** Points of a stage's curve; enough for a smooth plot, few enough to keep results small. */
 export const CURVE_POINTS = 25;
 
+// Powers of ten 10^-330 .. 10^330 by table: rounding thousands of plot points per request should not cost a pow each.
+const POW10 = Array.from({ length: 661 }, (_, i) => Number(`1e${i - 330}`));
+
+/** v rounded to 6 significant digits. */
 function round(v: number): number {
   if (!Number.isFinite(v) || v === 0) return v;
-  const scale = Math.pow(10, 5 - Math.floor(Math.log10(Math.abs(v))));
+  const e = 5 - Math.floor(Math.log10(Math.abs(v)));
+  if (e < -300 || e > 300) return v;
+  const scale = POW10[e + 330];
   return Math.round(v * scale) / scale;
 }
 

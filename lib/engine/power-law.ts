@@ -1,4 +1,4 @@
-import { arrheniusFactor } from "./arrhenius";
+import { GAS_CONSTANT } from "./arrhenius";
 import { concentration, type ConcentrationBasis } from "./concentrations";
 import { ensure } from "./errors";
 import type { RateFunction } from "./model";
@@ -36,22 +36,28 @@ export function resolveOrders(
   return { index, order };
 }
 
-function termValue(term: PowerTerm, basis: ConcentrationBasis, tref: number, x: number, t: number): number {
-  let v = term.k * arrheniusFactor(term.activationEnergy, tref, t);
+/** k(T) prod C_i^a_i for one term; `inverseT` is 1/T - 1/Tref (shared by the forward and reverse terms). */
+function termValue(term: PowerTerm, eOverR: number, basis: ConcentrationBasis, inverseT: number, x: number, t: number): number {
+  let v = eOverR === 0 ? term.k : term.k * Math.exp(-eOverR * inverseT);
   for (let j = 0; j < term.index.length; j++) {
     v *= Math.pow(concentration(basis, term.index[j], x, t), term.order[j]);
   }
   return v;
 }
 
-/** -rA = k(T) prod C_i^a_i - k_rev(T) prod C_j^b_j. */
+/** -rA = k(T) prod C_i^a_i - k_rev(T) prod C_j^b_j, with Arrhenius factors exp(-Ea/R (1/T - 1/Tref)). */
 export function powerLawRate(
   forward: PowerTerm,
   reverse: PowerTerm | null,
   basis: ConcentrationBasis,
   referenceTemperature: number,
 ): RateFunction {
-  if (reverse === null) return (x, t) => termValue(forward, basis, referenceTemperature, x, t);
-  return (x, t) =>
-    termValue(forward, basis, referenceTemperature, x, t) - termValue(reverse, basis, referenceTemperature, x, t);
+  const tinv = 1 / referenceTemperature;
+  const ef = forward.activationEnergy / GAS_CONSTANT;
+  if (reverse === null) return (x, t) => termValue(forward, ef, basis, 1 / t - tinv, x, t);
+  const er = reverse.activationEnergy / GAS_CONSTANT;
+  return (x, t) => {
+    const u = 1 / t - tinv;
+    return termValue(forward, ef, basis, u, x, t) - termValue(reverse, er, basis, u, x, t);
+  };
 }

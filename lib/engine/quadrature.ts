@@ -126,16 +126,3 @@ function adapt(
   }
   return { value: total, error };
 }
-
-// Gauss–Legendre 5-point nodes on [-1, 1] (Abramowitz and Stegun, Handbook of Mathematical Functions, table 25.4).
-const GL5X = [-0.906179845938664, -0.5384693101056831, 0, 0.5384693101056831, 0.906179845938664];
-const GL5W = [0.2369268850561891, 0.4786286704993665, 0.5688888888888889, 0.4786286704993665, 0.2369268850561891];
-
-/** Fixed 5-point Gauss–Legendre integral over [a, b]: used for the coarse grid tables only. */
-export function gauss5(f: (x: number) => number, a: number, b: number): number {
-  const c = 0.5 * (a + b);
-  const h = 0.5 * (b - a);
-  let s = 0;
-  for (let i = 0; i < 5; i++) s += GL5W[i] * f(c + h * GL5X[i]);
-  return s * h;
-}

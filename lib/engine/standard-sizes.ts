@@ -1,5 +1,5 @@
 import { purchase, type CostModel } from "./cost";
-import type { ReactorModel } from "./model";
+import { sharedPath, type ReactorModel } from "./model";
 import { pfrConversionAt } from "./pfr-runs";
 import { reachLimit } from "./rating";
 import { brentRoot } from "./root-finding";
@@ -99,8 +99,7 @@ export function pfrOutletWithin(model: ReactorModel, first: boolean, a: number, 
 }
 
 /** Every useful piece from inlet a for one stage, with its outlet. */
-function moves(model: ReactorModel, list: PieceList, type: StageType, first: boolean, a: number, target: number): Move[] {
-  const limit = reachLimit(model, first, a);
+function moves(model: ReactorModel, list: PieceList, type: StageType, first: boolean, a: number, target: number, limit: number): Move[] {
   const reaches = target <= limit;
   const top = reaches ? target : a + (limit - a) * NEAR_LIMIT;
   // The volume past which a piece saturates: it reaches `top` (the target, or next to the reach limit).
@@ -195,11 +194,15 @@ export function optimiseStandardSizes(
   };
   const cheapest = { CSTR: cheapestOf(lists.CSTR), PFR: cheapestOf(lists.PFR) };
   const memo = new Map<string, Move[]>();
+  // On a shared temperature path the reach limit (rate or temperature limit) is the same from every inlet.
+  const feedLimit = reachLimit(model, true, 0);
+  const shared = sharedPath(model);
   const movesFrom = (type: StageType, first: boolean, a: number): Move[] => {
     const key = `${type}${first ? 1 : 0}${a}`;
     let m = memo.get(key);
     if (!m) {
-      m = moves(model, lists[type], type, first, a, target);
+      const limit = first || shared ? feedLimit : reachLimit(model, false, a);
+      m = moves(model, lists[type], type, first, a, target, limit);
       memo.set(key, m);
     }
     return m;
