@@ -53,6 +53,10 @@ describe("sweep command line", { timeout: 60000 }, () => {
     const { lines } = sweep(...names.map(spec));
     for (const l of lines.slice(0, 5)) expect(l.candidates[0].feasible).toBe(true);
     expect(lines[1].candidates[0].totalCost).toBeGreaterThan(0);
+    // The spec's target (0.95): with standard sizes every vessel is full, so the train reaches it or passes it,
+    // and each stage's volume is what was bought (count x size).
+    expect(lines[1].candidates[0].conversionReached).toBeGreaterThanOrEqual(0.95);
+    for (const s of lines[1].candidates[0].stages) expect(s.volume).toBeCloseTo(s.vessels.count * s.vessels.sizeEach, 12);
     expect(lines[5].path).toBe("target.conversion");
   });
 });
