@@ -20,15 +20,19 @@ export async function listTeamsOfUser(db: Executor, userId: string): Promise<Tea
 }
 
 /**
- * The actor for a signed-in user, read fresh from the database on every request so a
- * changed or removed membership takes effect at once. `preferredTeamId` (from the team
- * switcher) is honoured only when the user really is a member of that team.
+ * The actor for a signed-in user, read fresh from the database on every request (one query)
+ * so a changed or removed membership takes effect at once. `preferredTeamId` (from the team
+ * switcher or an API token) is honoured only when the user really is a member of that team.
  */
 export async function loadActor(db: Executor, userId: string, preferredTeamId?: string): Promise<Actor | null> {
-  const [user] = await db.select().from(users).where(eq(users.id, userId));
-  if (!user) return null;
-  const choices = await listTeamsOfUser(db, userId);
-  const chosen = choices.find((c) => c.teamId === preferredTeamId) ?? choices[0];
+  const rows = await db
+    .select({ email: users.email, name: users.name, teamId: teams.id, teamName: teams.name, role: memberships.role })
+    .from(users)
+    .innerJoin(memberships, eq(memberships.userId, users.id))
+    .innerJoin(teams, eq(teams.id, memberships.teamId))
+    .where(eq(users.id, userId))
+    .orderBy(asc(memberships.createdAt), asc(teams.name));
+  const chosen = rows.find((r) => r.teamId === preferredTeamId) ?? rows[0];
   if (!chosen) return null;
-  return { userId: user.id, email: user.email, name: user.name, teamId: chosen.teamId, teamName: chosen.teamName, role: chosen.role };
+  return { userId, email: chosen.email, name: chosen.name, teamId: chosen.teamId, teamName: chosen.teamName, role: chosen.role };
 }

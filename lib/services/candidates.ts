@@ -4,7 +4,6 @@ import { candidates, scenarios, sweeps } from "@/db/schema-sweeps";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
-import { requireTeamSweep } from "./sweeps";
 
 const SORT_COLUMNS = {
   rank: [candidates.rank],
@@ -30,8 +29,13 @@ const summaryColumns = {
 
 /** One scenario's ranked candidates, sorted, filtered and paged in the database. */
 export async function listCandidates(db: Database, actor: Actor, sweepId: string, scenarioIndex: number, q: CandidateQuery) {
-  await requireTeamSweep(db, actor, sweepId);
-  const [scenario] = await db.select().from(scenarios).where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex)));
+  assertCan(actor, "sweep.read");
+  // The team check and the scenario in one query: another team's sweep is simply not found.
+  const [scenario] = await db
+    .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference })
+    .from(scenarios)
+    .innerJoin(sweeps, eq(sweeps.id, scenarios.sweepId))
+    .where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex), eq(sweeps.teamId, actor.teamId)));
   if (!scenario) throw notFound("scenario");
 
   const filters: SQL[] = [eq(candidates.scenarioId, scenario.id)];
@@ -44,11 +48,15 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   const direction = q.dir === "desc" ? desc : asc;
   // Infeasible candidates (null totals) stay after the feasible ones whichever way one sorts.
   const order = [sql`${candidates.feasible} desc`, ...SORT_COLUMNS[q.sort].map((c) => sql`${direction(c)} nulls last`), asc(candidates.rank)];
-  const columns = q.include === "levenspiel" ? { ...summaryColumns, levenspiel: candidates.levenspiel } : summaryColumns;
-  const [items, [{ total }]] = await Promise.all([
-    db.select(columns).from(candidates).where(where).orderBy(...order).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
-    db.select({ total: sql<number>`count(*)::int` }).from(candidates).where(where),
-  ]);
+  const columns = {
+    ...summaryColumns,
+    ...(q.include === "levenspiel" ? { levenspiel: candidates.levenspiel } : {}),
+    // The filtered total rides along with the page instead of a second query.
+    filteredTotal: sql<number>`count(*) over ()`.mapWith(Number),
+  };
+  const rows = await db.select(columns).from(candidates).where(where).orderBy(...order).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+  const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
+  const items = rows.map(({ filteredTotal: _t, ...c }) => c);
   return {
     scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference },
     page: q.page,
@@ -56,6 +64,11 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
     total,
     items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-") })),
   };
+}
+
+async function countWhere(db: Database, where: SQL | undefined): Promise<number> {
+  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(candidates).where(where);
+  return n;
 }
 
 /** Two to four candidates of the actor's team, from one sweep or several, with their plot data. */

@@ -13,6 +13,13 @@ type Outcome =
 
 const ACTIVE = ["queued", "running"] as const;
 
+/** Thrown inside the write transaction to roll it back when the sweep was cancelled or failed meanwhile. */
+class SweepNotActive extends Error {
+  constructor(readonly status: string) {
+    super(`sweep is ${status}`);
+  }
+}
+
 function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
   const pfr = result.reference.singlePFR;
   return result.candidates.map((c) => ({
@@ -77,49 +84,58 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
   }
   if (outcomes.length === 0) return { computed: 0, written: 0 };
 
-  const finished = await db.transaction(async (tx) => {
-    // The sweep row lock orders concurrent chunks' progress updates and sees a cancel.
-    const [current] = await tx.select().from(sweeps).where(eq(sweeps.id, sweep.id)).for("update");
-    if (!current || !(ACTIVE as readonly string[]).includes(current.status)) return { written: 0, status: current?.status ?? null, changed: false };
-    let transitioned = 0;
-    let failed = 0;
-    for (const o of outcomes) {
-      if ("result" in o) {
-        const rows = candidateRows(sweep.id, o.scenarioId, o.result);
-        for (let i = 0; i < rows.length; i += 200) await tx.insert(candidates).values(rows.slice(i, i + 200)).onConflictDoNothing();
+  let finished: { written: number; changed: boolean };
+  try {
+    finished = await db.transaction(async (tx) => {
+      let transitioned = 0;
+      let failed = 0;
+      for (const o of outcomes) {
+        if ("result" in o) {
+          const rows = candidateRows(sweep.id, o.scenarioId, o.result);
+          for (let i = 0; i < rows.length; i += 500) await tx.insert(candidates).values(rows.slice(i, i + 500)).onConflictDoNothing();
+        }
+        const updated = await tx
+          .update(scenarios)
+          .set(
+            "result" in o
+              ? {
+                  status: "succeeded",
+                  bestObjective: bestObjective(o.result),
+                  reference: { ...o.result.reference, equilibriumConversion: o.result.equilibriumConversion ?? null, feedVolumetricFlow: o.result.feedVolumetricFlow, objective: o.result.objective },
+                  candidateCount: o.result.candidates.length,
+                  computedAt: new Date(),
+                }
+              : { status: "failed", error: o.error, computedAt: new Date() },
+          )
+          .where(and(eq(scenarios.id, o.scenarioId), eq(scenarios.status, "pending")))
+          .returning({ id: scenarios.id });
+        if (updated.length) {
+          transitioned += 1;
+          if ("error" in o) failed += 1;
+        }
       }
-      const updated = await tx
-        .update(scenarios)
-        .set(
-          "result" in o
-            ? {
-                status: "succeeded",
-                bestObjective: bestObjective(o.result),
-                reference: { ...o.result.reference, equilibriumConversion: o.result.equilibriumConversion ?? null, feedVolumetricFlow: o.result.feedVolumetricFlow, objective: o.result.objective },
-                candidateCount: o.result.candidates.length,
-                computedAt: new Date(),
-              }
-            : { status: "failed", error: o.error, computedAt: new Date() },
-        )
-        .where(and(eq(scenarios.id, o.scenarioId), eq(scenarios.status, "pending")))
-        .returning({ id: scenarios.id });
-      if (updated.length) {
-        transitioned += 1;
-        if ("error" in o) failed += 1;
-      }
-    }
-    const [after] = await tx
-      .update(sweeps)
-      .set({
-        done: sql`${sweeps.done} + ${transitioned}`,
-        failedScenarios: sql`${sweeps.failedScenarios} + ${failed}`,
-        status: sql`case when ${sweeps.done} + ${transitioned} >= ${sweeps.total} then 'succeeded'::sweep_status else ${sweeps.status} end`,
-        finishedAt: sql`case when ${sweeps.done} + ${transitioned} >= ${sweeps.total} then now() else ${sweeps.finishedAt} end`,
-      })
-      .where(eq(sweeps.id, sweep.id))
-      .returning();
-    return { written: transitioned, status: after.status, changed: after.status === "succeeded" && current.status !== "succeeded" };
-  });
+      // Lock the sweep row last and briefly: it orders concurrent chunks' progress updates,
+      // and a sweep cancelled meanwhile rolls this chunk's rows back. "No key update", because
+      // the candidates' foreign keys already hold key-share locks on this row in every chunk's
+      // transaction, and FOR UPDATE would deadlock against them.
+      const [current] = await tx.select({ status: sweeps.status }).from(sweeps).where(eq(sweeps.id, sweep.id)).for("no key update");
+      if (!current || !(ACTIVE as readonly string[]).includes(current.status)) throw new SweepNotActive(current?.status ?? "deleted");
+      const [after] = await tx
+        .update(sweeps)
+        .set({
+          done: sql`${sweeps.done} + ${transitioned}`,
+          failedScenarios: sql`${sweeps.failedScenarios} + ${failed}`,
+          status: sql`case when ${sweeps.done} + ${transitioned} >= ${sweeps.total} then 'succeeded'::sweep_status else ${sweeps.status} end`,
+          finishedAt: sql`case when ${sweeps.done} + ${transitioned} >= ${sweeps.total} then now() else ${sweeps.finishedAt} end`,
+        })
+        .where(eq(sweeps.id, sweep.id))
+        .returning();
+      return { written: transitioned, changed: after.status === "succeeded" };
+    });
+  } catch (err) {
+    if (err instanceof SweepNotActive) return { computed: outcomes.length, written: 0, skipped: err.status };
+    throw err;
+  }
 
   if (finished.changed) await notifySubmitter(db, sweep, "succeeded");
   return { computed: outcomes.length, written: finished.written, ...(finished.changed ? { finished: "succeeded" as const } : {}) };

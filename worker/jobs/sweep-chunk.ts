@@ -16,7 +16,11 @@ export async function registerSweepChunk(boss: PgBoss, db: Database, state: Work
     const payload = sweepChunkPayload.safeParse(job.data);
     if (payload.success) await markSweepFailed(db, payload.data.sweepId, "A part of this sweep failed on every attempt; see the worker log");
   });
-  return boss.work(QUEUES.sweepChunk, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+  let workerId = "";
+  workerId = await boss.work(QUEUES.sweepChunk, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    // pg-boss waits out its polling interval after every job; a finished chunk means more
+    // may be waiting, so ask for the next one at once.
+    if (workerId) setImmediate(() => boss.notifyWorker(workerId));
     const parsed = sweepChunkPayload.safeParse(job.data);
     if (!parsed.success) {
       // A retry cannot fix a malformed payload; let it fail straight to the dead letter queue.
@@ -31,10 +35,13 @@ export async function registerSweepChunk(boss: PgBoss, db: Database, state: Work
       }
       return report;
     } catch (err) {
-      const message = err instanceof Error ? err.message : String(err);
+      // Drizzle wraps driver errors; the cause holds what PostgreSQL said.
+      const cause = err instanceof Error && err.cause instanceof Error ? `: ${err.cause.message}` : "";
+      const message = err instanceof Error ? `${err.message.split("\n")[0]}${cause}` : String(err);
       log(`queue ${QUEUES.sweepChunk} job ${job.id} (sweep ${parsed.data.sweepId}, attempt ${job.retryCount + 1}/${job.retryLimit + 1}): ${message}`);
       if (job.retryCount >= job.retryLimit && !state.stopping) await markSweepFailed(db, parsed.data.sweepId, message);
       throw err;
     }
   });
+  return workerId;
 }
