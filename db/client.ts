@@ -17,7 +17,13 @@ export function createDb(client: pg.Pool | pg.PoolClient): Database {
 const globalForDb = globalThis as unknown as { seriatimPool?: pg.Pool; seriatimDb?: Database };
 
 export function getPool(): pg.Pool {
-  globalForDb.seriatimPool ??= new pg.Pool({ connectionString: getEnv().DATABASE_URL, max: 10 });
+  if (!globalForDb.seriatimPool) {
+    const pool = new pg.Pool({ connectionString: getEnv().DATABASE_URL, max: 10 });
+    // An idle connection the server closed (restart, failover) must not crash the process;
+    // the pool replaces it on the next checkout.
+    pool.on("error", (err) => console.error("database pool: idle connection lost", err.message));
+    globalForDb.seriatimPool = pool;
+  }
   return globalForDb.seriatimPool;
 }
 

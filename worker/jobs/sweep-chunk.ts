@@ -33,7 +33,7 @@ export async function registerSweepChunk(boss: PgBoss, db: Database, state: Work
         // Stopped between scenarios: hand the rest back to the queue.
         throw new Error("worker stopping; chunk released for another worker");
       }
-      return report;
+      return { ...report, worker: process.pid };
     } catch (err) {
       // Drizzle wraps driver errors; the cause holds what PostgreSQL said.
       const cause = err instanceof Error && err.cause instanceof Error ? `: ${err.cause.message}` : "";
