@@ -24,6 +24,7 @@ export default defineConfig({
   // the vitest reports that `npm test` counts.
   outputDir: "test-results/e2e-artifacts",
   fullyParallel: false,
+  globalSetup: "./tests/e2e/global-setup.ts",
   workers: 1,
   retries: 0,
   timeout: 60_000,

@@ -1,11 +1,12 @@
 import { expect, test, type APIRequestContext, type APIResponse } from "@playwright/test";
 import { signedInContext, USERS, type Who } from "./fixtures";
+import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 
 type Caller = Who | "anonymous";
 const CALLERS: Caller[] = ["admin", "manager", "engineer", "viewer", "otherTeam", "anonymous"];
 
 const ctx = {} as Record<Caller, APIRequestContext>;
-const ids = { project: "", managerProject: "", viewer: "", kestrelTeam: "", brightwaterTeam: "" };
+const ids = { project: "", managerProject: "", viewer: "", kestrelTeam: "", brightwaterTeam: "", model: "", version: "", sweep: "", candidates: [] as string[], pin: "" };
 
 test.beforeAll(async () => {
   for (const c of CALLERS) ctx[c] = await signedInContext(c);
@@ -17,7 +18,30 @@ test.beforeAll(async () => {
   ids.viewer = members.members.find((m) => m.email === USERS.viewer)!.userId;
   ids.brightwaterTeam = ((await (await ctx.admin.get("/api/me")).json()) as { team: { id: string } }).team.id;
   ids.kestrelTeam = ((await (await ctx.otherTeam.get("/api/me")).json()) as { team: { id: string } }).team.id;
+
+  const { model, version } = await createModel(ctx.engineer, ids.project, "Matrix kinetics");
+  ids.model = model.id;
+  ids.version = version.id;
+  const sweep = await submitSweep(ctx.engineer, ids.project, version.id, [], 2);
+  ids.sweep = sweep.id;
+  expect((await waitForSweep(ctx.engineer, sweep.id)).status).toBe("succeeded");
+  const page = (await (await ctx.engineer.get(`/api/sweeps/${sweep.id}/scenarios/0/candidates`)).json()) as CandidatePage;
+  ids.candidates = page.items.map((c) => c.id);
+  ids.pin = await newPinId();
 });
+
+async function newPinId(): Promise<string> {
+  const res = await ctx.engineer.post(`/api/candidates/${ids.candidates[0]}/pin`, { data: { note: "matrix" } });
+  expect(res.status()).toBe(201);
+  return ((await res.json()) as { pin: { id: string } }).pin.id;
+}
+
+async function newEngineerTokenId(): Promise<string> {
+  const res = await ctx.engineer.post("/api/tokens", { data: { name: "matrix" } });
+  return ((await res.json()) as { token: { id: string } }).token.id;
+}
+
+const SPEC = { feed: { flowA: 0.02, concA: 1000 }, reaction: { rate: { law: "power", k: 0.001, orders: { A: 1 } } } };
 test.afterAll(async () => {
   for (const c of CALLERS) await ctx[c].dispose();
 });
@@ -89,6 +113,70 @@ const ROWS: Row[] = [
     expect: { admin: 404, manager: 404, engineer: 404, viewer: 404, otherTeam: 404, anonymous: 404 },
   },
   { route: "GET /api/audit", call: (c) => c.get("/api/audit"), expect: { admin: 200, manager: 200, engineer: 403, viewer: 403, otherTeam: 200, anonymous: 401 } },
+  { route: "GET /api/projects/:id/kinetics", call: (c) => c.get(`/api/projects/${ids.project}/kinetics`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/projects/:id/kinetics",
+    call: (c) => c.post(`/api/projects/${ids.project}/kinetics`, { data: { name: `Matrix ${Math.random()}`, spec: SPEC } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/kinetics/:id", call: (c) => c.get(`/api/kinetics/${ids.model}`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/kinetics/:id/versions",
+    call: (c) => c.post(`/api/kinetics/${ids.model}/versions`, { data: { spec: SPEC, note: "matrix" } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/kinetics/preview",
+    call: (c) => c.post("/api/kinetics/preview", { data: { spec: SPEC } }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 200, anonymous: 401 },
+  },
+  { route: "GET /api/projects/:id/sweeps", call: (c) => c.get(`/api/projects/${ids.project}/sweeps`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/projects/:id/sweeps",
+    call: (c) => c.post(`/api/projects/${ids.project}/sweeps`, { data: { kineticsVersionId: ids.version, target: { conversion: 0.8 }, train: { maxStages: 1 } } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/sweeps/:id", call: (c) => c.get(`/api/sweeps/${ids.sweep}`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/sweeps/:id/cancel (a finished sweep: allowed callers hear it is too late)",
+    call: (c) => c.post(`/api/sweeps/${ids.sweep}/cancel`),
+    expect: { admin: 409, manager: 409, engineer: 409, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "POST /api/sweeps/:id/rerun", call: (c) => c.post(`/api/sweeps/${ids.sweep}/rerun`), expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  { route: "GET /api/sweeps/:id/scenarios", call: (c) => c.get(`/api/sweeps/${ids.sweep}/scenarios`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "GET /api/sweeps/:id/scenarios/:index/candidates",
+    call: (c) => c.get(`/api/sweeps/${ids.sweep}/scenarios/0/candidates?sort=totalVolume`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "GET /api/candidates/compare",
+    call: (c) => c.get(`/api/candidates/compare?ids=${ids.candidates.slice(0, 2).join(",")}`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/candidates/:id/pin",
+    call: (c) => c.post(`/api/candidates/${ids.candidates[1]}/pin`, { data: { note: "matrix" } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/projects/:id/pins", call: (c) => c.get(`/api/projects/${ids.project}/pins`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "GET /api/pins/:id (a proposed pin: hidden from viewers)",
+    call: (c) => c.get(`/api/pins/${ids.pin}`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 404, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/pins/:id/review (a fresh pin each time)",
+    call: async (c) => c.post(`/api/pins/${await newPinId()}/review`, { data: { decision: "approve", comment: "within the envelope" } }),
+    expect: { admin: 200, manager: 200, engineer: 403, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/tokens", call: (c) => c.get("/api/tokens"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },
+  { route: "POST /api/tokens", call: (c) => c.post("/api/tokens", { data: { name: "matrix" } }), expect: { admin: 201, manager: 201, engineer: 201, viewer: 201, otherTeam: 201, anonymous: 401 } },
+  {
+    route: "DELETE /api/tokens/:id (the engineer's token)",
+    call: async (c) => c.delete(`/api/tokens/${await newEngineerTokenId()}`),
+    expect: { admin: 404, manager: 404, engineer: 204, viewer: 404, otherTeam: 404, anonymous: 401 },
+  },
 ];
 
 for (const row of ROWS) {
