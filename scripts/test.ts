@@ -3,7 +3,7 @@
  * even when a step fails. typecheck → lint → unit → integration → build → browser.
  */
 import { execFileSync, spawnSync } from "node:child_process";
-import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import pg from "pg";
@@ -13,7 +13,8 @@ import { seedDemoData } from "../db/seed";
 import { createDatabase, ensurePostgresBinaries, freePort, startThrowawayCluster, type Cluster } from "./lib/postgres";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
-const results = path.join(root, "test-results");
+// Per run, so two runs in one folder (a developer and a helper script) never clear each other's reports.
+const results = path.join(root, "test-results", `reports-${process.pid}`);
 const bin = (name: string) => path.join(root, "node_modules", ".bin", name);
 const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 
@@ -22,6 +23,53 @@ interface StepResult {
   ok: boolean;
   seconds: number;
   note?: string;
+}
+
+/**
+ * One production build and browser run at a time per checkout: two `npm test` runs in the
+ * same folder would otherwise write .next/ together. The lock holds our pid; a dead
+ * holder's lock is taken over.
+ */
+async function withBuildLock<T>(fn: () => Promise<T>): Promise<T> {
+  const dir = path.join(root, ".data", "build.lock");
+  mkdirSync(path.dirname(dir), { recursive: true });
+  for (let waitedSeconds = 0; ; waitedSeconds++) {
+    try {
+      mkdirSync(dir);
+      writeFileSync(path.join(dir, "pid"), String(process.pid));
+      break;
+    } catch {
+      const holder = Number(readFileSafe(path.join(dir, "pid")));
+      if (!holder || !alive(holder)) {
+        rmSync(dir, { recursive: true, force: true });
+        continue;
+      }
+      if (waitedSeconds % 30 === 0) console.log(`› waiting for another npm test in this folder (pid ${holder}) to finish its build and browser run…`);
+      await new Promise((r) => setTimeout(r, 1000));
+    }
+  }
+  try {
+    return await fn();
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+function readFileSafe(file: string): string {
+  try {
+    return readFileSync(file, "utf8");
+  } catch {
+    return "";
+  }
+}
+
+function alive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 function ensureChromium(): void {
@@ -94,7 +142,8 @@ async function main(): Promise<number> {
     console.log("› starting a throwaway PostgreSQL cluster");
     cluster = await startThrowawayCluster();
     console.log(`  on 127.0.0.1:${cluster.port}, data in ${cluster.dataDir}`);
-    const templateUrl = await createDatabase(cluster.serverUrl, "seriatim_template");
+    const serverUrl = cluster.serverUrl;
+    const templateUrl = await createDatabase(serverUrl, "seriatim_template");
 
     const vitestJson = (f: string) => ["--reporter=default", "--reporter=json", `--outputFile.json=${path.join(results, f)}`];
     if (wanted("typecheck")) steps.push(run("typecheck", bin("tsc"), ["--noEmit", "-p", "."]));
@@ -109,29 +158,31 @@ async function main(): Promise<number> {
       );
     }
     // The browser tests need a production build; `npm test -- e2e` builds too.
-    const build = wanted("build") || wanted("e2e") ? run("build", bin("next"), ["build"], { NODE_ENV: "production" }) : undefined;
-    if (build) steps.push(build);
-
-    if (!wanted("e2e")) {
-      // nothing more to do
-    } else if (build?.ok) {
-      const e2eUrl = await createDatabase(cluster.serverUrl, "seriatim_e2e");
-      await runMigrations(e2eUrl);
-      const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });
-      await seedDemoData(createDb(pool));
-      await pool.end();
-      steps.push(
-        run("e2e", bin("playwright"), ["test"], {
-          DATABASE_URL: e2eUrl,
-          E2E_PORT: String(await freePort()),
-          MAIL_FAKE_SMTP_PORT: String(await freePort()),
-          MAIL_FAKE_HTTP_PORT: String(await freePort()),
-          E2E_JSON_REPORT: path.join(results, "e2e.json"),
-          CHROMIUM_PATH: CHROMIUM,
-        }),
-      );
-    } else {
-      steps.push({ name: "e2e", ok: false, seconds: 0, note: "not run: the build failed" });
+    if (wanted("build") || wanted("e2e")) {
+      await withBuildLock(async () => {
+        const build = run("build", bin("next"), ["build"], { NODE_ENV: "production" });
+        steps.push(build);
+        if (!wanted("e2e")) return;
+        if (build.ok) {
+          const e2eUrl = await createDatabase(serverUrl, "seriatim_e2e");
+          await runMigrations(e2eUrl);
+          const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });
+          await seedDemoData(createDb(pool));
+          await pool.end();
+          steps.push(
+            run("e2e", bin("playwright"), ["test"], {
+              DATABASE_URL: e2eUrl,
+              E2E_PORT: String(await freePort()),
+              MAIL_FAKE_SMTP_PORT: String(await freePort()),
+              MAIL_FAKE_HTTP_PORT: String(await freePort()),
+              E2E_JSON_REPORT: path.join(results, "e2e.json"),
+              CHROMIUM_PATH: CHROMIUM,
+            }),
+          );
+        } else {
+          steps.push({ name: "e2e", ok: false, seconds: 0, note: "not run: the build failed" });
+        }
+      });
     }
   } finally {
     cleanup();
@@ -143,7 +194,9 @@ async function main(): Promise<number> {
   const failedSteps = steps.filter((s) => !s.ok).length;
   console.log(`  total ${((Date.now() - t0) / 1000).toFixed(1)} s; throwaway cluster removed`);
   console.log(`tests: ${passed} passed, ${failed} failed`);
-  return failedSteps === 0 && failed === 0 && passed > 0 ? 0 : 1;
+  // A run that was meant to execute tests but executed none has failed too.
+  const ranTests = steps.some((s) => ["unit", "integration", "e2e"].includes(s.name));
+  return failedSteps === 0 && failed === 0 && (passed > 0 || !ranTests) ? 0 : 1;
 }
 
 main().then(
