@@ -1,0 +1,126 @@
+import { z } from "zod";
+import {
+  invitationAcceptSchema,
+  invitationCreateSchema,
+  memberUpdateSchema,
+  projectCreateSchema,
+  projectUpdateSchema,
+} from "./schemas/foundation";
+import {
+  candidateQuerySchema,
+  compareQuerySchema,
+  kineticsModelCreateSchema,
+  kineticsPreviewSchema,
+  kineticsVersionCreateSchema,
+  pinCreateSchema,
+  reviewSchema,
+  sweepCreateSchema,
+  tokenCreateSchema,
+} from "./schemas/sweeps";
+
+type Method = "get" | "post" | "patch" | "delete";
+
+interface Endpoint {
+  method: Method;
+  path: string;
+  summary: string;
+  body?: z.ZodType;
+  query?: z.ZodObject;
+  /** Success status. */
+  status?: number;
+  public?: boolean;
+}
+
+/** Every route handler of the JSON API; a unit test checks this list against app/api. */
+export const ENDPOINTS: Endpoint[] = [
+  { method: "get", path: "/api/health", summary: "200 once the app reaches its database", public: true },
+  { method: "get", path: "/api/me", summary: "The signed-in user, active team and role" },
+  { method: "post", path: "/api/me/team", summary: "Switch the active team", body: z.object({ teamId: z.uuid() }) },
+  { method: "get", path: "/api/projects", summary: "Projects of the team (?archived=include)" },
+  { method: "post", path: "/api/projects", summary: "Create a project", body: projectCreateSchema, status: 201 },
+  { method: "get", path: "/api/projects/{projectId}", summary: "Read a project" },
+  { method: "patch", path: "/api/projects/{projectId}", summary: "Rename, describe, archive or restore a project", body: projectUpdateSchema },
+  { method: "get", path: "/api/team/members", summary: "Members of the team (admins)" },
+  { method: "patch", path: "/api/team/members/{userId}", summary: "Change a member's role (admins)", body: memberUpdateSchema },
+  { method: "delete", path: "/api/team/members/{userId}", summary: "Remove a member (admins)", status: 204 },
+  { method: "get", path: "/api/team/invitations", summary: "Open invitations (admins)" },
+  { method: "post", path: "/api/team/invitations", summary: "Invite by e-mail (admins)", body: invitationCreateSchema, status: 201 },
+  { method: "delete", path: "/api/team/invitations/{invitationId}", summary: "Revoke an invitation (admins)", status: 204 },
+  { method: "post", path: "/api/invitations/accept", summary: "Accept an invitation: creates the account", body: invitationAcceptSchema, status: 201, public: true },
+  { method: "get", path: "/api/audit", summary: "The team's audit trail (?entityType=&entityId=)" },
+  { method: "get", path: "/api/projects/{projectId}/kinetics", summary: "Kinetics models of a project, with their latest version" },
+  { method: "post", path: "/api/projects/{projectId}/kinetics", summary: "Create a kinetics model (version 1)", body: kineticsModelCreateSchema, status: 201 },
+  { method: "get", path: "/api/kinetics/{modelId}", summary: "A kinetics model with every version" },
+  { method: "post", path: "/api/kinetics/{modelId}/versions", summary: "Save a new version of a kinetics model", body: kineticsVersionCreateSchema, status: 201 },
+  { method: "post", path: "/api/kinetics/preview", summary: "Levenspiel curve, equilibrium limit and single-stage references of a draft, without queueing", body: kineticsPreviewSchema },
+  { method: "get", path: "/api/projects/{projectId}/sweeps", summary: "Sweeps of a project, newest first" },
+  { method: "post", path: "/api/projects/{projectId}/sweeps", summary: "Submit a sweep: kinetics version, target, train space, objective, scenario grid", body: sweepCreateSchema, status: 201 },
+  { method: "get", path: "/api/sweeps/{sweepId}", summary: "A sweep with its progress" },
+  { method: "post", path: "/api/sweeps/{sweepId}/cancel", summary: "Cancel a queued or running sweep" },
+  { method: "post", path: "/api/sweeps/{sweepId}/rerun", summary: "Run the same sweep again as a new sweep", status: 201 },
+  { method: "get", path: "/api/sweeps/{sweepId}/scenarios", summary: "Scenarios of a sweep with their status and best objective" },
+  { method: "get", path: "/api/sweeps/{sweepId}/scenarios/{index}/candidates", summary: "Ranked candidates of one scenario, sorted, filtered and paged", query: candidateQuerySchema },
+  { method: "get", path: "/api/candidates/compare", summary: "Two to four candidates side by side", query: compareQuerySchema },
+  { method: "post", path: "/api/candidates/{candidateId}/pin", summary: "Pin a candidate to its project for review", body: pinCreateSchema, status: 201 },
+  { method: "get", path: "/api/projects/{projectId}/pins", summary: "Pinned designs of a project (viewers: approved only)" },
+  { method: "get", path: "/api/pins/{pinId}", summary: "A pinned design with its frozen candidate and spec" },
+  { method: "post", path: "/api/pins/{pinId}/review", summary: "Approve or reject a proposed design (managers)", body: reviewSchema },
+  { method: "get", path: "/api/tokens", summary: "Your personal API tokens (never the tokens themselves)" },
+  { method: "post", path: "/api/tokens", summary: "Create a personal API token; shown once", body: tokenCreateSchema, status: 201 },
+  { method: "delete", path: "/api/tokens/{tokenId}", summary: "Revoke a personal API token", status: 204 },
+  { method: "get", path: "/api/openapi.json", summary: "This document", public: true },
+];
+
+const errorSchema = {
+  type: "object",
+  properties: {
+    error: {
+      type: "object",
+      required: ["code", "message"],
+      properties: {
+        code: { type: "string", enum: ["bad_request", "unauthorized", "forbidden", "not_found", "conflict", "rate_limited", "internal"] },
+        message: { type: "string" },
+        fields: { type: "object", additionalProperties: { type: "array", items: { type: "string" } }, description: "Field path → messages" },
+      },
+    },
+  },
+};
+
+const jsonSchema = (s: z.ZodType) => z.toJSONSchema(s, { io: "input", unrepresentable: "any" });
+
+/** The OpenAPI 3.1 document, generated from the same zod schemas the handlers validate with. */
+export function buildOpenApiDocument(serverUrl: string) {
+  const paths: Record<string, Record<string, unknown>> = {};
+  for (const e of ENDPOINTS) {
+    const params = [...e.path.matchAll(/\{(\w+)\}/g)].map((m) => ({ name: m[1], in: "path", required: true, schema: { type: "string" } }));
+    const query = e.query
+      ? Object.entries(e.query.shape).map(([name, s]) => ({ name, in: "query", required: !(s as z.ZodType).safeParse(undefined).success, schema: jsonSchema(s as z.ZodType) }))
+      : [];
+    (paths[e.path] ??= {})[e.method] = {
+      summary: e.summary,
+      ...(e.public ? { security: [] } : {}),
+      parameters: [...params, ...query],
+      ...(e.body ? { requestBody: { required: true, content: { "application/json": { schema: jsonSchema(e.body) } } } } : {}),
+      responses: {
+        [String(e.status ?? 200)]: { description: "Success" },
+        "400": { description: "Invalid input; error.fields names each bad field", content: { "application/json": { schema: errorSchema } } },
+        "401": { description: "Not signed in, or the API token is not valid" },
+        "403": { description: "Your role does not allow this" },
+        "404": { description: "No such record in your team" },
+      },
+    };
+  }
+  return {
+    openapi: "3.1.0",
+    info: { title: "Seriatim API", version: "1", description: "Reactor-train sweeps, ranked candidates and pinned designs. All quantities SI unless a unit string is given." },
+    servers: [{ url: serverUrl }],
+    components: {
+      securitySchemes: {
+        session: { type: "apiKey", in: "cookie", name: "authjs.session-token" },
+        token: { type: "http", scheme: "bearer", description: "Personal API token (srt_…), from POST /api/tokens" },
+      },
+    },
+    security: [{ session: [] }, { token: [] }],
+    paths,
+  };
+}
