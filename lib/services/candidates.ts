@@ -30,15 +30,16 @@ const summaryColumns = {
 /** One scenario's ranked candidates, sorted, filtered and paged in the database. */
 export async function listCandidates(db: Database, actor: Actor, sweepId: string, scenarioIndex: number, q: CandidateQuery) {
   assertCan(actor, "sweep.read");
-  // The team check and the scenario in one query: another team's sweep is simply not found.
-  const [scenario] = await db
+  // The scenario (with the team check) and the page are read concurrently; the page is only
+  // returned when the scenario query found the sweep in the actor's team.
+  const scenarioQuery = db
     .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference })
     .from(scenarios)
     .innerJoin(sweeps, eq(sweeps.id, scenarios.sweepId))
     .where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex), eq(sweeps.teamId, actor.teamId)));
-  if (!scenario) throw notFound("scenario");
+  const scenarioIdSql = sql`(select ${scenarios.id} from ${scenarios} where ${scenarios.sweepId} = ${sweepId} and ${scenarios.index} = ${scenarioIndex})`;
 
-  const filters: SQL[] = [eq(candidates.scenarioId, scenario.id)];
+  const filters: SQL[] = [eq(candidates.sweepId, sweepId), sql`${candidates.scenarioId} = ${scenarioIdSql}`];
   if (q.feasible) filters.push(eq(candidates.feasible, q.feasible === "true"));
   if (q.stages) filters.push(eq(candidates.stageCount, q.stages));
   // Whole stage names only: "PFR" must not match inside another name, so compare on "-"-bounded keys.
@@ -54,7 +55,11 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
     // The filtered total rides along with the page instead of a second query.
     filteredTotal: sql<number>`count(*) over ()`.mapWith(Number),
   };
-  const rows = await db.select(columns).from(candidates).where(where).orderBy(...order).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+  const [[scenario], rows] = await Promise.all([
+    scenarioQuery,
+    db.select(columns).from(candidates).where(where).orderBy(...order).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
+  ]);
+  if (!scenario) throw notFound("scenario");
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
   const items = rows.map(({ filteredTotal: _t, ...c }) => c);
   return {
