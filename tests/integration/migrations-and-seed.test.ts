@@ -6,7 +6,10 @@ import { auditEntries } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 const journal = JSON.parse(readFileSync("drizzle/meta/_journal.json", "utf8")) as { entries: { tag: string }[] };
-const TABLES = ["users", "accounts", "sessions", "verification_tokens", "teams", "memberships", "projects", "invitations", "audit_entries", "sign_in_attempts"];
+const TABLES = [
+  ...["users", "accounts", "sessions", "verification_tokens", "teams", "memberships", "projects", "invitations", "audit_entries", "sign_in_attempts"],
+  ...["kinetics_models", "kinetics_versions", "sweeps", "scenarios", "candidates", "pinned_designs", "api_tokens"],
+];
 
 describe("migrations on an empty database", () => {
   let t: TestDatabase;
