@@ -2,6 +2,8 @@ import { and, eq } from "drizzle-orm";
 import { fileURLToPath } from "node:url";
 import type { Database } from "./client";
 import { memberships, projects, teams, users, type Role } from "./schema";
+import { kineticsModels, kineticsVersions } from "./schema-sweeps";
+import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
 
 /** The demo scenario: an invented fine-chemicals company and a second, unrelated team. */
@@ -38,6 +40,33 @@ const DEMO_PROJECTS = [
     name: "Resin dryer feed",
     description: "Kestrel's own project; never visible to Brightwater.",
     owner: "kai.admin@kestrel.example",
+  },
+];
+
+/** Demo kinetics, invented for the scenario: one normal (second-order) case, one autocatalytic. */
+export const DEMO_KINETICS: { project: string; name: string; note: string; spec: KineticsSpec }[] = [
+  {
+    project: "Ester line 3 revamp",
+    name: "Esterification, second order",
+    note: "Rate constant from the October bench runs at 67 °C (invented demo data).",
+    spec: {
+      feed: { flowA: 0.02, concA: "1 mol/L", temperature: 340, ratios: { B: 1.2, R: 0, S: 0 } },
+      reaction: {
+        stoichiometry: { A: -1, B: -1, R: 1, S: 1 },
+        phase: "liquid",
+        rate: { law: "power", k: 1e-4, orders: { A: 1, B: 1 }, activationEnergy: 55000 },
+        thermal: { mode: "isothermal" },
+      },
+    },
+  },
+  {
+    project: "Lactone pilot unit",
+    name: "Ring opening, autocatalytic",
+    note: "Product catalyses its own formation; 5 % product recycled in the feed (invented demo data).",
+    spec: {
+      feed: { flowA: 0.005, concA: 800, temperature: 320, ratios: { R: 0.05 } },
+      reaction: { stoichiometry: { A: -1, R: 1 }, phase: "liquid", rate: { law: "power", k: 2e-6, orders: { A: 1, R: 1 } } },
+    },
   },
 ];
 
@@ -79,6 +108,17 @@ export async function seedDemoData(db: Database): Promise<void> {
           createdBy: userId(p.owner),
         });
       }
+    }
+    const projectRows = await tx.select().from(projects);
+    for (const k of DEMO_KINETICS) {
+      const project = projectRows.find((p) => p.name === k.project)!;
+      const existing = await tx
+        .select({ id: kineticsModels.id })
+        .from(kineticsModels)
+        .where(and(eq(kineticsModels.projectId, project.id), eq(kineticsModels.name, k.name)));
+      if (existing.length) continue;
+      const [model] = await tx.insert(kineticsModels).values({ teamId: project.teamId, projectId: project.id, name: k.name, createdBy: project.createdBy }).returning();
+      await tx.insert(kineticsVersions).values({ modelId: model.id, version: 1, spec: k.spec, note: k.note, createdBy: project.createdBy });
     }
   });
 }

@@ -1,7 +1,8 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runMigrations } from "@/db/migrate";
-import { DEMO_USERS, seedDemoData } from "@/db/seed";
+import { DEMO_KINETICS, DEMO_USERS, seedDemoData } from "@/db/seed";
+import { checkKinetics } from "@/lib/sweeps/engine-bridge";
 import { auditEntries } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
@@ -55,6 +56,12 @@ describe("demo seed", () => {
     expect(Object.fromEntries(roles.rows.map((r) => [r.role, r.n]))).toEqual({ admin: 2, manager: 1, engineer: 1, viewer: 1 });
     const users = await t.pool.query("select email from users order by email");
     expect(users.rows.map((r) => r.email)).toEqual(DEMO_USERS.map((u) => u.email).sort());
+  });
+
+  it("holds demo kinetics the engine accepts", async () => {
+    for (const k of DEMO_KINETICS) expect(() => checkKinetics(k.spec)).not.toThrow();
+    const r = await t.pool.query("select count(*)::int n from kinetics_versions");
+    expect(r.rows[0].n).toBe(DEMO_KINETICS.length);
   });
 
   it("changes nothing when run a second time", async () => {
