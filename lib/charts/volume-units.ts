@@ -1,18 +1,17 @@
 /**
- * Volume units of the charts and tables. A local map until lib/units/display.ts (the kinetics
- * screens' unit pickers) is shared; the factors are exact by definition.
+ * Volume units of the charts and result tables, on the shared unit table (lib/units/display.ts,
+ * exact definitions: 1 US gal = 3.785411784 L, 1 ft3 = 28.316846592 L).
  */
-export type VolumeUnit = "m3" | "L" | "gal" | "ft3";
+import { fromSI, UNITS, type VolumeUnit } from "@/lib/units/display";
 
-/** Litres per unit: 1 US gal = 3.785411784 L and 1 ft3 = 28.316846592 L exactly. */
-const LITRES: Record<VolumeUnit, number> = { m3: 1000, L: 1, gal: 3.785411784, ft3: 28.316846592 };
+export type { VolumeUnit };
 
 export const VOLUME_UNITS: VolumeUnit[] = ["m3", "L", "gal", "ft3"];
-export const VOLUME_LABEL: Record<VolumeUnit, string> = { m3: "m³", L: "L", gal: "US gal", ft3: "ft³" };
+export const VOLUME_LABEL = Object.fromEntries(VOLUME_UNITS.map((u) => [u, UNITS.volume[u].label])) as Record<VolumeUnit, string>;
 
 /** A volume in m3 expressed in `unit`. */
 export function fromCubicMetres(m3: number, unit: VolumeUnit): number {
-  return (m3 * 1000) / LITRES[unit];
+  return fromSI("volume", m3, unit);
 }
 
 export function isVolumeUnit(v: unknown): v is VolumeUnit {

@@ -1,0 +1,102 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { specToForm } from "@/components/kinetics/form-model";
+import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
+import { normaliseKineticsSpec } from "@/components/kinetics/normalise-spec";
+import { loadProjectPage, orNotFound } from "../../project-data";
+import { FormMessage } from "@/components/ui/field";
+import { getDb } from "@/db/client";
+import { can } from "@/lib/authz/policy";
+import { uuidSchema } from "@/lib/schemas/foundation";
+import type { KineticsSpec } from "@/lib/schemas/sweeps";
+import { getKineticsModel } from "@/lib/services/kinetics";
+
+export const dynamic = "force-dynamic";
+export const metadata = { title: "Kinetics" };
+
+const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+export default async function KineticsModelPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string; modelId: string }>;
+  searchParams: Promise<{ saved?: string }>;
+}) {
+  const { projectId, modelId } = await params;
+  const { saved } = await searchParams;
+  const { actor, project } = await loadProjectPage(projectId);
+  if (!uuidSchema.safeParse(modelId).success || !can(actor, "kinetics.read")) notFound();
+  const model = await orNotFound(getKineticsModel(getDb(), actor, modelId));
+  if (model.projectId !== project.id) notFound();
+  const latest = model.versions[0];
+  let initial;
+  try {
+    initial = specToForm(normaliseKineticsSpec(latest.spec as KineticsSpec), { note: "" });
+  } catch {
+    initial = null;
+  }
+
+  return (
+    <div className="space-y-4">
+      <div className="text-sm text-ink-soft">
+        <Link href="/" className="hover:underline">
+          Projects
+        </Link>{" "}
+        /{" "}
+        <Link href={`/projects/${project.id}`} className="hover:underline">
+          {project.name}
+        </Link>{" "}
+        / {model.name}
+      </div>
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1 data-testid="kinetics-title">{model.name}</h1>
+          <p className="text-ink-soft">
+            Latest: version {latest.version}, {fmt.format(latest.createdAt)} UTC{latest.note ? ` · ${latest.note}` : ""}
+          </p>
+        </div>
+        {can(actor, "sweep.create") ? (
+          <Link href={`/projects/${project.id}/sweeps/new?version=${latest.id}`} className="btn-primary">
+            Build a sweep on version {latest.version}
+          </Link>
+        ) : null}
+      </div>
+      {saved ? <FormMessage kind="info">Saved as version {latest.version}. Edit below to make the next version, or build a sweep on it.</FormMessage> : null}
+      {initial && can(actor, "kinetics.create") ? (
+        <KineticsEditor
+          key={latest.id}
+          mode={{ kind: "version", projectId: project.id, modelId: model.id, modelName: model.name, latestVersion: latest.version }}
+          initial={initial}
+        />
+      ) : (
+        <pre className="card overflow-auto p-4 text-xs">{JSON.stringify(latest.spec, null, 2)}</pre>
+      )}
+      <section className="card overflow-hidden" aria-labelledby="versions-title">
+        <h2 id="versions-title" className="border-b border-line px-3 py-2">
+          Versions
+        </h2>
+        <table className="table-dense" data-testid="versions-table">
+          <thead>
+            <tr>
+              <th scope="col">Version</th>
+              <th scope="col">Saved (UTC)</th>
+              <th scope="col">Rate law</th>
+              <th scope="col">Note</th>
+            </tr>
+          </thead>
+          <tbody>
+            {model.versions.map((v) => (
+              <tr key={v.id}>
+                <td className="num">v{v.version}</td>
+                <td className="num whitespace-nowrap">{fmt.format(v.createdAt)}</td>
+                <td>{((v.spec as KineticsSpec).reaction?.rate?.law ?? "—").toString()}</td>
+                <td className="text-ink-soft">{v.note || "—"}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,122 @@
+"use client";
+
+import Link from "next/link";
+import { useSearchParams } from "next/navigation";
+import { useQuery } from "@tanstack/react-query";
+import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { LevenspielChart } from "@/components/charts/levenspiel-chart";
+import { chartInputs } from "@/components/charts/candidate-chart-data";
+import { describeOverrides } from "@/components/sweeps/scenario-picker";
+import { StageBadges } from "@/components/sweeps/stage-badges";
+import { ErrorPanel, LoadingPanel } from "@/components/sweeps/states";
+import type { CandidateDetail, SweepView } from "@/components/sweeps/types";
+import { fetchJson } from "@/lib/client/fetch-json";
+import { formatNumber, formatVolume } from "@/lib/charts/volume-units";
+import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+import { PinForm } from "./pin-form";
+import { StageTable } from "./stage-table";
+import { TemperatureProfile } from "./temperature-profile";
+
+export function CandidateView({ candidateId, canPin }: { candidateId: string; canPin: boolean }) {
+  const params = useSearchParams();
+  const [unit, setUnit] = useUrlUnit();
+  const back = params.get("back");
+  const q = useQuery({
+    queryKey: ["candidate", candidateId],
+    queryFn: () => fetchJson<{ candidate: CandidateDetail }>(`/api/candidates/${candidateId}`).then((r) => r.candidate),
+  });
+  const sweepId = q.data?.sweep.id;
+  const sweepQ = useQuery({
+    queryKey: ["sweep", sweepId],
+    queryFn: () => fetchJson<{ sweep: SweepView }>(`/api/sweeps/${sweepId}`).then((r) => r.sweep),
+    enabled: !!sweepId,
+  });
+
+  if (q.isPending) return <LoadingPanel label="Loading the candidate…" />;
+  if (q.isError) return <ErrorPanel error={q.error} what="this candidate" />;
+  const c = q.data;
+  const sweepHref = back?.startsWith("/projects/") ? back : `/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}`;
+  const ref = c.scenario.reference;
+  const thermal = sweepQ.data?.spec.reaction?.thermal;
+  const adiabatic = thermal?.mode === "adiabatic" || c.stages.some((s) => Math.abs(s.temperatureOut - s.temperatureIn) > 1e-6);
+  const warnings = thermalWarnings({ thermal, stageTemperatures: c.stages.map((s) => s.temperatureOut) });
+  const target = sweepQ.data?.spec.target?.conversion;
+  const empty = c.stages.filter((s) => s.volume === 0).map((s) => c.stages.indexOf(s) + 1);
+
+  return (
+    <div className="space-y-5">
+      <nav aria-label="Breadcrumb" className="text-sm text-ink-soft">
+        <Link href={`/projects/${c.sweep.projectId}`} className="hover:underline">
+          Project
+        </Link>{" "}
+        /{" "}
+        <Link href={sweepHref} className="hover:underline">
+          {c.sweep.name}
+        </Link>{" "}
+        / Rank {c.rank}
+      </nav>
+      <header className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h1 className="flex flex-wrap items-center gap-2" data-testid="candidate-title">
+            Rank {c.rank} <StageBadges sequence={c.sequence} />
+          </h1>
+          <p className="mt-1 text-ink-soft">
+            Scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
+          </p>
+        </div>
+        <UnitSelect id="cand-unit" value={unit} onChange={setUnit} />
+      </header>
+
+      <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+        {[
+          ["Total volume", formatVolume(c.totalVolume, unit, 4)],
+          ["Total cost", formatNumber(c.totalCost, 4)],
+          ["Ratio to single PFR", c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4)}×`],
+          ["Single CSTR / PFR", `${formatVolume(ref?.singleCSTR, unit)} / ${formatVolume(ref?.singlePFR, unit)}`],
+        ].map(([k, v]) => (
+          <div key={k} className="card px-3 py-2">
+            <dt className="text-xs uppercase tracking-wide text-ink-soft">{k}</dt>
+            <dd className="num mt-0.5 text-base">{v}</dd>
+          </div>
+        ))}
+      </dl>
+
+      {!c.feasible ? (
+        <div role="status" className="card border-red-200 p-4 text-red-800">
+          This train cannot reach the target within the limits.
+        </div>
+      ) : (
+        <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
+          <section className="card p-4" aria-labelledby="chart-title">
+            <h2 id="chart-title">Levenspiel area chart</h2>
+            <p className="mb-2 text-xs text-ink-soft">Each CSTR is the rectangle at its outlet height; each PFR the area under the curve. Areas are the stage volumes.</p>
+            <LevenspielChart {...chartInputs(c.stages, c.levenspiel)} target={target} equilibrium={ref?.equilibriumConversion ?? null} volumeUnit={unit} height={340} />
+            {empty.length ? <p className="mt-1 text-xs text-ink-soft">Stage {empty.join(", ")} has zero volume at this optimum and draws no area.</p> : null}
+          </section>
+          <div className="space-y-4">
+            <section className="card p-4" aria-labelledby="pin-title">
+              <h2 id="pin-title">Pin to project</h2>
+              <div className="mt-2">
+                <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
+              </div>
+            </section>
+            {adiabatic ? (
+              <section className="card p-4" aria-labelledby="temp-title">
+                <h2 id="temp-title">Temperature profile</h2>
+                <TemperatureProfile stages={c.stages} />
+              </section>
+            ) : null}
+          </div>
+        </div>
+      )}
+
+      <section className="card overflow-hidden" aria-labelledby="stages-title">
+        <h2 id="stages-title" className="border-b border-line px-3 py-2">
+          Stages
+        </h2>
+        <StageTable stages={c.stages} unit={unit} caption={`Stages of rank ${c.rank}`} />
+      </section>
+      <Cautions warnings={warnings} />
+    </div>
+  );
+}

@@ -1,0 +1,37 @@
+"use client";
+
+import { ResponsiveLine } from "@nivo/line";
+import type { StoredStage } from "@/components/sweeps/types";
+import { formatNumber } from "@/lib/charts/volume-units";
+
+/** Temperature against conversion through the train (adiabatic stages are straight lines in X). */
+export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
+  const data = stages.map((s, i) => ({
+    id: `Stage ${i + 1} ${s.type}`,
+    data: [
+      { x: s.conversionIn, y: s.temperatureIn },
+      { x: s.conversionOut, y: s.temperatureOut },
+    ],
+  }));
+  const temps = stages.flatMap((s) => [s.temperatureIn, s.temperatureOut]);
+  const lo = Math.min(...temps);
+  const hi = Math.max(...temps);
+  const label = `Temperature profile: ${stages.map((s, i) => `stage ${i + 1} ${formatNumber(s.temperatureIn, 5)} to ${formatNumber(s.temperatureOut, 5)} K`).join("; ")}`;
+  return (
+    <div role="img" aria-label={label} style={{ height: 200 }} data-testid="temperature-profile">
+      <ResponsiveLine
+        data={data}
+        margin={{ top: 10, right: 16, bottom: 40, left: 56 }}
+        xScale={{ type: "linear", min: 0, max: "auto" }}
+        yScale={{ type: "linear", min: Math.floor(lo - 2), max: Math.ceil(hi + 2) }}
+        axisBottom={{ legend: "Conversion X", legendOffset: 32, legendPosition: "middle", tickValues: 5 }}
+        axisLeft={{ legend: "T, K", legendOffset: -46, legendPosition: "middle", tickValues: 4 }}
+        colors={["#136f67", "#b45309", "#3f51b5", "#a21caf", "#4d7c0f", "#854d0e", "#0369a1", "#6d28d9"]}
+        pointSize={6}
+        enableGridX={false}
+        useMesh
+        animate={false}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,134 @@
+"use client";
+
+import Link from "next/link";
+import { useSearchParams } from "next/navigation";
+import { useMemo } from "react";
+import { useQuery } from "@tanstack/react-query";
+import { StageTable } from "@/components/candidates/stage-table";
+import { Cautions } from "@/components/cautions/cautions";
+import { LevenspielChart } from "@/components/charts/levenspiel-chart";
+import { chartInputs } from "@/components/charts/candidate-chart-data";
+import { describeOverrides } from "@/components/sweeps/scenario-picker";
+import { StageBadges } from "@/components/sweeps/stage-badges";
+import { ErrorPanel, LoadingPanel } from "@/components/sweeps/states";
+import type { CandidateDetail } from "@/components/sweeps/types";
+import { fetchJson } from "@/lib/client/fetch-json";
+import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
+import { formatNumber, formatVolume } from "@/lib/charts/volume-units";
+import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+
+const signed = (v: number | null, text: (n: number) => string) => (v === null ? "—" : v === 0 ? "best" : `+${text(v)}`);
+
+export function CompareView() {
+  const params = useSearchParams();
+  const [unit, setUnit] = useUrlUnit();
+  const ids = (params.get("ids") ?? "").split(",").filter(Boolean);
+  const valid = ids.length >= 2 && ids.length <= 4;
+  const q = useQuery({
+    queryKey: ["compare", ids.join(",")],
+    queryFn: () => fetchJson<{ candidates: CandidateDetail[] }>(`/api/candidates/compare?ids=${ids.join(",")}`).then((r) => r.candidates),
+    enabled: valid,
+  });
+  const charts = useMemo(() => (q.data ?? []).map((c) => chartInputs(c.stages, c.levenspiel)), [q.data]);
+  const yMax = useMemo(() => (charts.length ? sharedYMax(charts) : undefined), [charts]);
+
+  if (!valid)
+    return (
+      <div className="card p-6 text-ink-soft" data-testid="compare-empty">
+        <h1>Compare trains</h1>
+        <p className="mt-2">Choose two to four trains in a sweep&apos;s ranked table and press “Compare selected”.</p>
+      </div>
+    );
+  if (q.isPending) return <LoadingPanel label="Loading the trains…" />;
+  if (q.isError) return <ErrorPanel error={q.error} what="these candidates" />;
+  const list = q.data;
+  const fewest = Math.min(...list.map((c) => c.stageCount));
+  const anyCost = list.some((c) => c.totalCost !== null);
+  const cols = list.length === 3 ? "lg:grid-cols-3" : "lg:grid-cols-2";
+
+  return (
+    <div className="space-y-5">
+      <header className="flex flex-wrap items-end justify-between gap-4">
+        <div>
+          <h1>Compare {list.length} trains</h1>
+          <p className="mt-1 text-ink-soft">Charts share one vertical scale, so equal areas are equal volumes across them.</p>
+        </div>
+        <UnitSelect id="cmp-unit" value={unit} onChange={setUnit} />
+      </header>
+
+      <section className="card overflow-x-auto" aria-labelledby="diff-title">
+        <h2 id="diff-title" className="border-b border-line px-3 py-2">
+          Differences
+        </h2>
+        <table className="table-dense" data-testid="compare-differences">
+          <thead>
+            <tr>
+              <th scope="col">Measure</th>
+              {list.map((c, i) => (
+                <th key={c.id} scope="col">
+                  {String.fromCharCode(65 + i)} · rank {c.rank}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            <tr>
+              <th scope="row">Sequence</th>
+              {list.map((c) => (
+                <td key={c.id}>
+                  <StageBadges sequence={c.sequence} />
+                </td>
+              ))}
+            </tr>
+            <Row label="Total volume" list={list} cell={(c) => formatVolume(c.totalVolume, unit, 4)} />
+            <Row label="Volume over the smallest" list={list} cell={(c) => signed(c.differences.volumeOverBest, (v) => formatVolume(v, unit, 3))} />
+            {anyCost ? <Row label="Total cost" list={list} cell={(c) => formatNumber(c.totalCost, 4)} /> : null}
+            {anyCost ? <Row label="Cost over the cheapest" list={list} cell={(c) => signed(c.differences.costOverBest, (v) => formatNumber(v, 3))} /> : null}
+            <Row label="Stages" list={list} cell={(c) => `${c.stageCount}${c.stageCount > fewest ? ` (+${c.stageCount - fewest})` : ""}`} />
+            <Row label="Ratio to single PFR" list={list} cell={(c) => (c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4)}×`)} />
+          </tbody>
+        </table>
+      </section>
+
+      <div className={`grid gap-4 ${cols}`}>
+        {list.map((c, i) => (
+          <section key={c.id} className="card min-w-0 overflow-hidden" aria-labelledby={`cmp-${c.id}`} data-testid="compare-card">
+            <div className="border-b border-line px-3 py-2">
+              <h2 id={`cmp-${c.id}`} className="flex flex-wrap items-center gap-2">
+                {String.fromCharCode(65 + i)} · rank {c.rank} <StageBadges sequence={c.sequence} />
+              </h2>
+              <p className="text-xs text-ink-soft">
+                <Link href={`/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}/candidates/${c.id}?unit=${unit}`} className="hover:underline">
+                  {c.sweep.name}
+                </Link>{" "}
+                · scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
+              </p>
+            </div>
+            <div className="p-3">
+              {c.feasible ? (
+                <LevenspielChart {...charts[i]} yMax={yMax} volumeUnit={unit} height={260} equilibrium={c.scenario.reference?.equilibriumConversion ?? null} />
+              ) : (
+                <p className="text-red-800">Infeasible: no chart.</p>
+              )}
+            </div>
+            <StageTable stages={c.stages} unit={unit} caption={`Stages of train ${String.fromCharCode(65 + i)}`} />
+          </section>
+        ))}
+      </div>
+      <Cautions compact />
+    </div>
+  );
+}
+
+function Row({ label, list, cell }: { label: string; list: CandidateDetail[]; cell: (c: CandidateDetail) => string }) {
+  return (
+    <tr>
+      <th scope="row">{label}</th>
+      {list.map((c) => (
+        <td key={c.id} className="num">
+          {cell(c)}
+        </td>
+      ))}
+    </tr>
+  );
+}

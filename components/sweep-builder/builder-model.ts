@@ -1,0 +1,251 @@
+/**
+ * The sweep builder's form values and their mapping to the POST /api/projects/:id/sweeps body,
+ * with the counts shown before submitting. Pure.
+ */
+import { z } from "zod";
+import { sweepCreateSchema, type SweepCreate } from "@/lib/schemas/sweeps";
+import { toSI, type UnitKind } from "@/lib/units/display";
+
+export type StageType = "CSTR" | "PFR";
+
+const vessel = z.object({ a: z.string(), b: z.string(), n: z.string() });
+const axis = z.object({
+  field: z.string(),
+  customField: z.string(),
+  unit: z.string(),
+  kind: z.enum(["values", "range"]),
+  values: z.string(),
+  from: z.string(),
+  to: z.string(),
+  steps: z.string(),
+  scale: z.enum(["linear", "log"]),
+});
+
+export const builderValuesSchema = z.object({
+  name: z.string(),
+  kineticsVersionId: z.string(),
+  target: z.string(),
+  trainMode: z.enum(["range", "candidates", "multiset"]),
+  maxStages: z.string(),
+  useCSTR: z.boolean(),
+  usePFR: z.boolean(),
+  candidates: z.array(z.object({ seq: z.string() })),
+  multisetCSTR: z.string(),
+  multisetPFR: z.string(),
+  equalVolume: z.boolean(),
+  objective: z.enum(["volume", "cost"]),
+  vesselCSTR: vessel,
+  vesselPFR: vessel,
+  standardSizes: z.string(),
+  sizeUnit: z.string(),
+  maxVessel: z.string(),
+  grid: z.array(axis),
+});
+export type BuilderValues = z.infer<typeof builderValuesSchema>;
+export type AxisValues = z.infer<typeof axis>;
+
+/** Fields one can vary by picking, with the unit kind of their values (null: a plain number). */
+export const GRID_FIELDS: { field: string; label: string; kind: UnitKind | null; defaultUnit: string }[] = [
+  { field: "feed.flowA", label: "Feed flow of A, FA0", kind: "molarFlow", defaultUnit: "mol/s" },
+  { field: "target.conversion", label: "Target conversion", kind: null, defaultUnit: "" },
+  { field: "feed.temperature", label: "Feed temperature", kind: "temperature", defaultUnit: "K" },
+  { field: "feed.concA", label: "Feed concentration of A", kind: "concentration", defaultUnit: "mol/L" },
+  { field: "custom", label: "Another numeric field (dot path, SI)", kind: null, defaultUnit: "" },
+];
+
+export function newAxis(field = "feed.flowA"): AxisValues {
+  const f = GRID_FIELDS.find((g) => g.field === field) ?? GRID_FIELDS[0];
+  return { field, customField: "", unit: f.defaultUnit, kind: "values", values: "", from: "", to: "", steps: "3", scale: "linear" };
+}
+
+export function defaultBuilderValues(kineticsVersionId = ""): BuilderValues {
+  return {
+    name: "",
+    kineticsVersionId,
+    target: "0.9",
+    trainMode: "range",
+    maxStages: "3",
+    useCSTR: true,
+    usePFR: true,
+    candidates: [{ seq: "CSTR-PFR" }, { seq: "PFR" }],
+    multisetCSTR: "2",
+    multisetPFR: "1",
+    equalVolume: false,
+    objective: "volume",
+    vesselCSTR: { a: "20000", b: "45000", n: "0.6" },
+    vesselPFR: { a: "15000", b: "38000", n: "0.6" },
+    standardSizes: "",
+    sizeUnit: "m3",
+    maxVessel: "",
+    grid: [],
+  };
+}
+
+export const parseSequence = (s: string): StageType[] => (s ? (s.split("-").filter((t) => t === "CSTR" || t === "PFR") as StageType[]) : []);
+
+const factorial = (n: number): number => (n <= 1 ? 1 : n * factorial(n - 1));
+
+/** How many sequences the train space holds (what the engine will optimise per scenario). */
+export function sequenceCount(train: SweepCreate["train"]): number {
+  if ("maxStages" in train) {
+    const t = new Set(train.types ?? ["CSTR", "PFR"]).size;
+    let n = 0;
+    for (let k = 1; k <= train.maxStages; k++) n += t ** k;
+    return n;
+  }
+  if ("candidates" in train) return new Set(train.candidates.map((c) => c.join("-"))).size;
+  const c = train.multiset.CSTR ?? 0;
+  const p = train.multiset.PFR ?? 0;
+  return c + p === 0 ? 0 : factorial(c + p) / (factorial(c) * factorial(p));
+}
+
+/** Values an axis takes (as the server expands it). */
+export function axisLength(a: SweepCreate["grid"][number]): number {
+  return "values" in a ? a.values.length : a.steps;
+}
+
+export function scenarioCountOf(grid: SweepCreate["grid"]): number {
+  return grid.reduce((n, a) => n * axisLength(a), 1);
+}
+
+export interface BuilderIssue {
+  path: string;
+  message: string;
+}
+
+function numberIn(text: string, path: string, issues: BuilderIssue[], required = true): number | undefined {
+  const t = text.trim();
+  if (!t) {
+    if (required) issues.push({ path, message: "Required" });
+    return undefined;
+  }
+  const n = Number(t);
+  if (!Number.isFinite(n)) {
+    issues.push({ path, message: "Enter a number" });
+    return undefined;
+  }
+  return n;
+}
+
+function listIn(text: string, path: string, issues: BuilderIssue[]): number[] {
+  const parts = text.split(/[,;\s]+/).filter(Boolean);
+  const out = parts.map(Number);
+  if (parts.length === 0) issues.push({ path, message: "Give at least one value" });
+  else if (out.some((n) => !Number.isFinite(n))) issues.push({ path, message: "Separate numbers with commas, e.g. 0.01, 0.02, 0.04" });
+  return out;
+}
+
+/** The request body of the form, or the issues at form paths that keep it from being one. */
+export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; issues: BuilderIssue[] } {
+  const issues: BuilderIssue[] = [];
+  if (!v.kineticsVersionId) issues.push({ path: "kineticsVersionId", message: "Choose a kinetics version" });
+  const target = numberIn(v.target, "target", issues);
+
+  let train: SweepCreate["train"] | undefined;
+  if (v.trainMode === "range") {
+    const maxStages = numberIn(v.maxStages, "maxStages", issues);
+    const types = [...(v.useCSTR ? (["CSTR"] as const) : []), ...(v.usePFR ? (["PFR"] as const) : [])];
+    if (!types.length) issues.push({ path: "useCSTR", message: "Allow at least one stage type" });
+    if (maxStages !== undefined) train = { maxStages, types: [...types], ...(v.equalVolume ? { equalVolume: true } : {}) };
+  } else if (v.trainMode === "candidates") {
+    const candidates = v.candidates.map((c) => parseSequence(c.seq));
+    candidates.forEach((c, i) => {
+      if (!c.length) issues.push({ path: `candidates.${i}.seq`, message: "Add at least one stage" });
+    });
+    if (!candidates.length) issues.push({ path: "candidates", message: "List at least one sequence" });
+    train = { candidates, ...(v.equalVolume ? { equalVolume: true } : {}) };
+  } else {
+    const CSTR = numberIn(v.multisetCSTR, "multisetCSTR", issues, false) ?? 0;
+    const PFR = numberIn(v.multisetPFR, "multisetPFR", issues, false) ?? 0;
+    if (CSTR + PFR < 1) issues.push({ path: "multisetCSTR", message: "The multiset needs at least one stage" });
+    train = { multiset: { ...(CSTR ? { CSTR } : {}), ...(PFR ? { PFR } : {}) }, ...(v.equalVolume ? { equalVolume: true } : {}) };
+  }
+
+  let objective: SweepCreate["objective"] = { minimise: "volume" };
+  if (v.objective === "cost") {
+    const vessels: Record<string, { a: number; b: number; n: number }> = {};
+    for (const type of ["CSTR", "PFR"] as const) {
+      const src = type === "CSTR" ? v.vesselCSTR : v.vesselPFR;
+      const key = type === "CSTR" ? "vesselCSTR" : "vesselPFR";
+      const a = numberIn(src.a, `${key}.a`, issues);
+      const b = numberIn(src.b, `${key}.b`, issues);
+      const n = numberIn(src.n, `${key}.n`, issues);
+      if (a !== undefined && b !== undefined && n !== undefined) vessels[type] = { a, b, n };
+    }
+    const sizes = v.standardSizes.trim() ? listIn(v.standardSizes, "standardSizes", issues).map((s) => toSI("volume", s, v.sizeUnit)) : undefined;
+    const maxRaw = numberIn(v.maxVessel, "maxVessel", issues, false);
+    objective = {
+      minimise: "cost",
+      vessels,
+      ...(sizes ? { standardSizes: sizes } : {}),
+      ...(maxRaw !== undefined ? { maxVesselVolume: toSI("volume", maxRaw, v.sizeUnit) } : {}),
+    };
+  }
+
+  const grid: SweepCreate["grid"] = [];
+  v.grid.forEach((a, i) => {
+    const preset = GRID_FIELDS.find((g) => g.field === a.field);
+    const field = a.field === "custom" ? a.customField.trim() : a.field;
+    if (!field) issues.push({ path: `grid.${i}.customField`, message: "Give the dot path of a numeric field, e.g. reaction.rate.k" });
+    const si = (n: number) => (preset?.kind && a.unit ? toSI(preset.kind, n, a.unit) : n);
+    if (a.kind === "values") {
+      grid.push({ field, values: listIn(a.values, `grid.${i}.values`, issues).map(si) });
+    } else {
+      const from = numberIn(a.from, `grid.${i}.from`, issues);
+      const to = numberIn(a.to, `grid.${i}.to`, issues);
+      const steps = numberIn(a.steps, `grid.${i}.steps`, issues);
+      if (from !== undefined && to !== undefined && steps !== undefined) grid.push({ field, from: si(from), to: si(to), steps, scale: a.scale });
+    }
+  });
+
+  if (issues.length || target === undefined || !train) return { body: null, issues };
+  const raw = { ...(v.name.trim() ? { name: v.name.trim() } : {}), kineticsVersionId: v.kineticsVersionId, target: { conversion: target }, train, objective, grid };
+  const parsed = sweepCreateSchema.safeParse(raw);
+  if (!parsed.success) return { body: null, issues: parsed.error.issues.map((i) => ({ path: builderPathOf(i.path.join(".")), message: i.message })) };
+  return { body: parsed.data, issues: [] };
+}
+
+/** A request field path (from zod or the server) → the builder field that shows it. */
+export function builderPathOf(path: string): string {
+  if (path.startsWith("kineticsVersionId")) return "kineticsVersionId";
+  if (path.startsWith("target")) return "target";
+  if (path === "name") return "name";
+  const g = /^grid\.(\d+)\.(\w+)/.exec(path);
+  if (g) return g[2] === "field" ? `grid.${g[1]}.customField` : ["from", "to", "steps"].includes(g[2]) ? `grid.${g[1]}.${g[2]}` : `grid.${g[1]}.values`;
+  if (path.startsWith("grid")) return "grid";
+  if (path.startsWith("train.maxStages")) return "maxStages";
+  if (path.startsWith("train.types")) return "useCSTR";
+  if (path.startsWith("train.candidates")) return "candidates";
+  if (path.startsWith("train.multiset")) return "multisetCSTR";
+  if (path.startsWith("train")) return "trainMode";
+  const o = /^objective\.vessels\.(CSTR|PFR)\.?(a|b|n)?/.exec(path);
+  if (o) return `vessel${o[1]}.${o[2] ?? "a"}`;
+  if (path.startsWith("objective.standardSizes")) return "standardSizes";
+  if (path.startsWith("objective.maxVesselVolume")) return "maxVessel";
+  if (path.startsWith("objective")) return "objective";
+  return "";
+}
+
+/** The form's error-shown-at field for each API field error; the rest are general. */
+export function mapSweepServerFields(fields: Record<string, string[]>): { byField: Record<string, string>; rest: string[] } {
+  const byField: Record<string, string> = {};
+  const rest: string[] = [];
+  for (const [key, messages] of Object.entries(fields)) {
+    const field = builderPathOf(key);
+    if (field) byField[field] = [byField[field], ...messages].filter(Boolean).join(" ");
+    else rest.push(...messages);
+  }
+  return { byField, rest };
+}
+
+/** Scenarios, sequences and their product for the form as it stands (null while a part is unreadable). */
+export function implied(v: BuilderValues): { scenarios: number | null; sequences: number | null; optimisations: number | null } {
+  const { body } = builderToRequest({ ...v, kineticsVersionId: v.kineticsVersionId || "00000000-0000-4000-8000-000000000000" });
+  if (!body) {
+    // Still count what can be counted.
+    return { scenarios: null, sequences: null, optimisations: null };
+  }
+  const scenarios = scenarioCountOf(body.grid);
+  const sequences = sequenceCount(body.train);
+  return { scenarios, sequences, optimisations: scenarios * sequences };
+}

@@ -1,0 +1,339 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useMemo, useState } from "react";
+import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
+import { z } from "zod";
+import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
+import { FormMessage } from "@/components/ui/field";
+import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { unitOptions } from "@/lib/units/display";
+import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-model";
+
+export interface VersionOption {
+  id: string;
+  label: string;
+}
+
+const schema = builderValuesSchema.transform((v, ctx) => {
+  const { body, issues } = builderToRequest(v);
+  for (const i of issues) ctx.addIssue({ code: "custom", path: i.path.split("."), message: i.message });
+  return body ?? z.NEVER;
+});
+
+function StageBadge({ type }: { type: string }) {
+  return (
+    <span className={`badge ${type === "CSTR" ? "border-accent-600 bg-accent-50 text-accent-800" : "border-ink-soft bg-white text-ink"}`}>
+      {type === "CSTR" ? "▣ " : "▭ "}
+      {type}
+    </span>
+  );
+}
+
+export function SweepBuilder({ projectId, versions, initial }: { projectId: string; versions: VersionOption[]; initial: BuilderValues }) {
+  const router = useRouter();
+  const form = useForm<z.input<typeof schema>, unknown, z.output<typeof schema>>({ resolver: zodResolver(schema), defaultValues: initial, mode: "onChange" });
+  const { register, control, formState, setValue, setError } = form;
+  const v = useWatch({ control }) as BuilderValues;
+  const [formError, setFormError] = useState<string>();
+  const grid = useFieldArray({ control, name: "grid" });
+  const candidates = useFieldArray({ control, name: "candidates" });
+  const count = useMemo(() => implied(v), [v]);
+  const err = (p: string) => messageAt(formState.errors, p);
+
+  const onSubmit = form.handleSubmit(async (body) => {
+    setFormError(undefined);
+    try {
+      const res = await fetchJson<{ sweep: { id: string } }>(`/api/projects/${projectId}/sweeps`, { method: "POST", json: body });
+      router.push(`/projects/${projectId}/sweeps/${res.sweep.id}`);
+    } catch (e) {
+      if (!(e instanceof ApiError)) return setFormError("Could not reach the server; nothing was submitted.");
+      const { byField, rest } = mapSweepServerFields(e.fields);
+      for (const [p, message] of Object.entries(byField)) setError(p as Path<BuilderValues>, { type: "server", message });
+      setFormError([e.message, ...rest].filter((m, i, a) => a.indexOf(m) === i).join(" "));
+    }
+  });
+
+  const num = (path: string, label: string, extra = "w-24") => {
+    const id = `s-${path.replace(/\./g, "-")}`;
+    return (
+      <div>
+        <label htmlFor={id} className="field-label">
+          {label}
+        </label>
+        <input id={id} className={`input num ${extra}`} inputMode="decimal" autoComplete="off" aria-invalid={!!err(path)} {...register(path as Path<BuilderValues>)} />
+        <ErrorText id={id} message={err(path)} />
+      </div>
+    );
+  };
+
+  return (
+    <FormProvider {...form}>
+      <form onSubmit={onSubmit} noValidate aria-label="New sweep" className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_18rem]">
+        <div className="space-y-4">
+          <section className="card grid gap-3 p-4 sm:grid-cols-[2fr_1fr]">
+            <div>
+              <label htmlFor="s-kineticsVersionId" className="field-label">
+                Kinetics version
+              </label>
+              <select id="s-kineticsVersionId" className="input" aria-invalid={!!err("kineticsVersionId")} {...register("kineticsVersionId")}>
+                <option value="">Choose…</option>
+                {versions.map((o) => (
+                  <option key={o.id} value={o.id}>
+                    {o.label}
+                  </option>
+                ))}
+              </select>
+              <ErrorText id="s-kineticsVersionId" message={err("kineticsVersionId")} />
+            </div>
+            {num("target", "Target conversion X", "w-full")}
+            <div className="sm:col-span-2">
+              <label htmlFor="s-name" className="field-label">
+                Sweep name <span className="normal-case tracking-normal text-ink-faint">(optional)</span>
+              </label>
+              <input id="s-name" className="input" placeholder="Named after the kinetics and scenario count when blank" {...register("name")} />
+              <ErrorText id="s-name" message={err("name")} />
+            </div>
+          </section>
+
+          <fieldset className="card space-y-3 p-4">
+            <legend className="px-1 text-base font-semibold">Trains to try</legend>
+            <div role="radiogroup" aria-label="Train space" className="grid gap-1.5 sm:grid-cols-3">
+              {(
+                [
+                  ["range", "Up to N stages", "every sequence of 1…N stages"],
+                  ["candidates", "Listed sequences", "exactly the ones you compose"],
+                  ["multiset", "A set of stages", "all orderings of it"],
+                ] as const
+              ).map(([value, label, text]) => (
+                <label key={value} className={`flex cursor-pointer items-start gap-2 rounded border p-2 text-sm ${v.trainMode === value ? "border-accent-500 bg-accent-50" : "border-line"}`}>
+                  <input type="radio" value={value} className="mt-0.5" {...register("trainMode")} />
+                  <span>
+                    <span className="font-medium">{label}</span>
+                    <span className="block text-xs text-ink-soft">{text}</span>
+                  </span>
+                </label>
+              ))}
+            </div>
+            {v.trainMode === "range" ? (
+              <div className="flex flex-wrap items-start gap-4">
+                {num("maxStages", "Maximum stages (1–8)")}
+                <fieldset>
+                  <legend className="field-label">Stage types</legend>
+                  <div className="flex gap-3 text-sm">
+                    <label className="flex items-center gap-1.5">
+                      <input type="checkbox" {...register("useCSTR")} /> CSTR
+                    </label>
+                    <label className="flex items-center gap-1.5">
+                      <input type="checkbox" {...register("usePFR")} /> PFR
+                    </label>
+                  </div>
+                  <ErrorText id="s-useCSTR" message={err("useCSTR")} />
+                </fieldset>
+              </div>
+            ) : null}
+            {v.trainMode === "candidates" ? (
+              <div className="space-y-2" data-testid="sequence-editor">
+                {candidates.fields.map((f, i) => {
+                  const seq = parseSequence(v.candidates?.[i]?.seq ?? "");
+                  const set = (next: string[]) => setValue(`candidates.${i}.seq`, next.join("-"), { shouldValidate: true });
+                  return (
+                    <div key={f.id} className="rounded border border-line p-2">
+                      <div className="flex flex-wrap items-center gap-1.5" aria-label={`Sequence ${i + 1}`} role="group">
+                        <span className="mr-1 text-xs text-ink-soft">#{i + 1}</span>
+                        {seq.length ? seq.map((t, j) => <StageBadge key={j} type={t} />) : <span className="text-xs text-ink-faint">empty</span>}
+                        <span className="ml-auto flex gap-1">
+                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "CSTR"])} disabled={seq.length >= 8} aria-label={`Add a CSTR to sequence ${i + 1}`}>
+                            + CSTR
+                          </button>
+                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "PFR"])} disabled={seq.length >= 8} aria-label={`Add a PFR to sequence ${i + 1}`}>
+                            + PFR
+                          </button>
+                          <button type="button" className="btn-quiet py-0.5" onClick={() => set(seq.slice(0, -1))} disabled={!seq.length} aria-label={`Remove the last stage of sequence ${i + 1}`}>
+                            ⌫
+                          </button>
+                          <button type="button" className="btn-danger py-0.5" onClick={() => candidates.remove(i)} aria-label={`Delete sequence ${i + 1}`}>
+                            Delete
+                          </button>
+                        </span>
+                      </div>
+                      <ErrorText id={`s-candidates-${i}`} message={err(`candidates.${i}.seq`)} />
+                    </div>
+                  );
+                })}
+                <button type="button" className="btn-quiet py-1" onClick={() => candidates.append({ seq: "" })}>
+                  + Add a sequence
+                </button>
+                <ErrorText id="s-candidates" message={err("candidates")} />
+              </div>
+            ) : null}
+            {v.trainMode === "multiset" ? (
+              <div className="flex flex-wrap gap-4">
+                {num("multisetCSTR", "CSTRs")}
+                {num("multisetPFR", "PFRs")}
+              </div>
+            ) : null}
+            <label className="flex items-center gap-2 text-sm">
+              <input type="checkbox" {...register("equalVolume")} /> All stages of a train the same volume
+            </label>
+            <ErrorText id="s-trainMode" message={err("trainMode")} />
+          </fieldset>
+
+          <fieldset className="card space-y-3 p-4">
+            <legend className="px-1 text-base font-semibold">Objective</legend>
+            <div className="flex gap-4 text-sm">
+              <label className="flex items-center gap-1.5">
+                <input type="radio" value="volume" {...register("objective")} /> Least total volume
+              </label>
+              <label className="flex items-center gap-1.5">
+                <input type="radio" value="cost" {...register("objective")} /> Least vessel cost
+              </label>
+            </div>
+            {v.objective === "cost" ? (
+              <div className="space-y-3">
+                <p className="text-xs text-ink-soft">Each vessel costs a + b·S^n with S its volume in m³, in the currency of your choice.</p>
+                {(["CSTR", "PFR"] as const).map((t) => (
+                  <fieldset key={t} className="flex flex-wrap items-start gap-3">
+                    <legend className="field-label">{t} vessel</legend>
+                    {num(`vessel${t}.a`, `${t} a`)}
+                    {num(`vessel${t}.b`, `${t} b`)}
+                    {num(`vessel${t}.n`, `${t} n`)}
+                  </fieldset>
+                ))}
+                <div className="flex flex-wrap items-start gap-3">
+                  {num("standardSizes", "Standard sizes (comma separated, optional)", "w-64")}
+                  {num("maxVessel", "Largest vessel (optional)")}
+                  <div>
+                    <label htmlFor="s-sizeUnit" className="field-label">
+                      Size unit
+                    </label>
+                    <select id="s-sizeUnit" className="input w-auto" {...register("sizeUnit")}>
+                      {unitOptions("volume").map((o) => (
+                        <option key={o.value} value={o.value}>
+                          {o.label}
+                        </option>
+                      ))}
+                    </select>
+                  </div>
+                </div>
+              </div>
+            ) : null}
+          </fieldset>
+
+          <fieldset className="card space-y-3 p-4">
+            <legend className="px-1 text-base font-semibold">Scenario grid</legend>
+            <p className="text-sm text-ink-soft">Vary up to four fields; every combination of their values is one scenario. With none, the sweep is one scenario.</p>
+            {grid.fields.map((f, i) => {
+              const a = v.grid?.[i] ?? newAxis();
+              const preset = GRID_FIELDS.find((g) => g.field === a.field);
+              return (
+                <div key={f.id} className="space-y-2 rounded border border-line p-3" role="group" aria-label={`Varied field ${i + 1}`}>
+                  <div className="flex flex-wrap items-start gap-3">
+                    <div>
+                      <label htmlFor={`s-grid-${i}-field`} className="field-label">
+                        Field {i + 1}
+                      </label>
+                      <select
+                        id={`s-grid-${i}-field`}
+                        className="input w-auto"
+                        {...register(`grid.${i}.field`, {
+                          onChange: (e: { target: { value: string } }) => setValue(`grid.${i}.unit`, GRID_FIELDS.find((g) => g.field === e.target.value)?.defaultUnit ?? ""),
+                        })}
+                      >
+                        {GRID_FIELDS.map((g) => (
+                          <option key={g.field} value={g.field}>
+                            {g.label}
+                          </option>
+                        ))}
+                      </select>
+                    </div>
+                    {a.field === "custom" ? num(`grid.${i}.customField`, "Dot path", "w-56 font-mono") : null}
+                    {preset?.kind ? (
+                      <div>
+                        <label htmlFor={`s-grid-${i}-unit`} className="field-label">
+                          Unit
+                        </label>
+                        <select id={`s-grid-${i}-unit`} className="input w-auto" {...register(`grid.${i}.unit`)}>
+                          {unitOptions(preset.kind).map((o) => (
+                            <option key={o.value} value={o.value}>
+                              {o.label}
+                            </option>
+                          ))}
+                        </select>
+                      </div>
+                    ) : null}
+                    <fieldset>
+                      <legend className="field-label">Given as</legend>
+                      <div className="flex gap-3 text-sm">
+                        <label className="flex items-center gap-1.5">
+                          <input type="radio" value="values" {...register(`grid.${i}.kind`)} /> Values
+                        </label>
+                        <label className="flex items-center gap-1.5">
+                          <input type="radio" value="range" {...register(`grid.${i}.kind`)} /> Range
+                        </label>
+                      </div>
+                    </fieldset>
+                    <button type="button" className="btn-danger ml-auto py-1" onClick={() => grid.remove(i)}>
+                      Remove field {i + 1}
+                    </button>
+                  </div>
+                  {a.kind === "values" ? (
+                    num(`grid.${i}.values`, "Values (comma separated)", "w-full")
+                  ) : (
+                    <div className="flex flex-wrap items-start gap-3">
+                      {num(`grid.${i}.from`, "From")}
+                      {num(`grid.${i}.to`, "To")}
+                      {num(`grid.${i}.steps`, "Steps")}
+                      <div>
+                        <label htmlFor={`s-grid-${i}-scale`} className="field-label">
+                          Spacing
+                        </label>
+                        <select id={`s-grid-${i}-scale`} className="input w-auto" {...register(`grid.${i}.scale`)}>
+                          <option value="linear">Linear</option>
+                          <option value="log">Logarithmic</option>
+                        </select>
+                      </div>
+                    </div>
+                  )}
+                </div>
+              );
+            })}
+            {grid.fields.length < 4 ? (
+              <button type="button" className="btn-quiet py-1" onClick={() => grid.append(newAxis(GRID_FIELDS[Math.min(grid.fields.length, 2)].field))}>
+                + Vary a field
+              </button>
+            ) : null}
+            <ErrorText id="s-grid" message={err("grid")} />
+          </fieldset>
+        </div>
+
+        <aside className="lg:sticky lg:top-4 lg:self-start">
+          <div className="card space-y-3 p-4" aria-live="polite">
+            <h2>This sweep</h2>
+            <dl className="grid grid-cols-[1fr_auto] gap-y-1 text-sm">
+              <dt className="text-ink-soft">Scenarios</dt>
+              <dd className="num text-right" data-testid="scenario-count">
+                {count.scenarios ?? "—"}
+              </dd>
+              <dt className="text-ink-soft">Sequences each</dt>
+              <dd className="num text-right" data-testid="sequence-count">
+                {count.sequences ?? "—"}
+              </dd>
+              <dt className="border-t border-line pt-1 font-medium">Optimisations</dt>
+              <dd className="num border-t border-line pt-1 text-right text-lg font-semibold" data-testid="optimisation-count">
+                {count.optimisations ?? "—"}
+              </dd>
+            </dl>
+            {count.optimisations === null ? <p className="text-xs text-ink-faint">Complete the fields marked with ✕ to see the count.</p> : null}
+            {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
+            <button type="submit" className="btn-primary w-full justify-center" disabled={formState.isSubmitting}>
+              {formState.isSubmitting ? "Submitting…" : "Submit sweep"}
+            </button>
+            <p className="text-xs text-ink-faint">The sweep runs on the queue; you can leave the page and come back.</p>
+          </div>
+        </aside>
+      </form>
+    </FormProvider>
+  );
+}

@@ -1,0 +1,193 @@
+"use client";
+
+import Link from "next/link";
+import { useMemo } from "react";
+import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures, useTable, type SortingState } from "@tanstack/react-table";
+import { LevenspielChart } from "@/components/charts/levenspiel-chart";
+import { chartInputs } from "@/components/charts/candidate-chart-data";
+import { formatNumber, formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
+import { StageBadges } from "./stage-badges";
+import type { CandidateRow } from "./types";
+import type { OptionalColumn, SortKey, SweepViewState } from "./view-state";
+
+const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
+const helper = createColumnHelper<typeof features, CandidateRow>();
+const NO_ROWS: CandidateRow[] = [];
+
+/** Column id → the server's sort key (the stage columns sort by stage count). */
+const SORT_OF: Record<string, SortKey> = {
+  rank: "rank",
+  sequence: "sequence",
+  totalVolume: "totalVolume",
+  totalCost: "totalCost",
+  ratioToPfr: "ratioToPfr",
+  stages: "stageCount",
+};
+
+export const COLUMN_TITLES: Record<OptionalColumn, string> = {
+  chart: "Chart",
+  totalCost: "Total cost",
+  ratioToPfr: "× single PFR",
+  stages: "Stages (volume, outlet X)",
+  feasible: "Feasibility",
+};
+
+interface Props {
+  rows: CandidateRow[] | undefined;
+  view: SweepViewState;
+  onSort: (sort: SortKey, dir: "asc" | "desc") => void;
+  selected: string[];
+  onToggle: (id: string) => void;
+  candidateHref: (id: string) => string;
+  yMax?: number;
+  target?: number;
+}
+
+export function RankedTable({ rows, view, onSort, selected, onToggle, candidateHref, yMax, target }: Props) {
+  const unit: VolumeUnit = view.unit;
+  const columns = useMemo(
+    () =>
+      helper.columns([
+        helper.display({
+          id: "select",
+          enableSorting: false,
+          header: () => <span className="sr-only">Select to compare</span>,
+          cell: ({ row }) => {
+            const c = row.original;
+            const checked = selected.includes(c.id);
+            return (
+              <input
+                type="checkbox"
+                className="size-4 accent-accent-600"
+                aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
+                checked={checked}
+                disabled={!checked && (selected.length >= 4 || !c.feasible)}
+                onChange={() => onToggle(c.id)}
+              />
+            );
+          },
+        }),
+        helper.accessor("rank", { header: "Rank", cell: (i) => <span className="num">{i.getValue()}</span> }),
+        helper.accessor("sequence", {
+          header: "Sequence",
+          cell: (i) => (
+            <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
+              <StageBadges sequence={i.getValue()} />
+            </Link>
+          ),
+        }),
+        helper.display({
+          id: "chart",
+          header: "Chart",
+          enableSorting: false,
+          cell: ({ row }) => {
+            const c = row.original;
+            if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
+            const input = chartInputs(c.stages, c.levenspiel);
+            return (
+              <div className="w-28" data-testid="thumbnail">
+                <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
+              </div>
+            );
+          },
+        }),
+        helper.accessor("totalVolume", {
+          header: `Total volume, ${VOLUME_LABEL[unit]}`,
+          cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4)}</span>,
+        }),
+        helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span> }),
+        helper.accessor("ratioToPfr", { header: "× single PFR", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3)}×`}</span> }),
+        helper.accessor("stages", {
+          header: "Stages (volume, outlet X)",
+          cell: (i) => (
+            <ol className="flex flex-wrap gap-x-3 gap-y-0.5 text-xs">
+              {i.getValue().map((s, k) => (
+                <li key={k} className="num whitespace-nowrap">
+                  <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4)}
+                </li>
+              ))}
+            </ol>
+          ),
+        }),
+        helper.accessor("feasible", {
+          header: "Feasibility",
+          enableSorting: false,
+          cell: (i) =>
+            i.getValue() ? (
+              <span className="badge border-accent-200 bg-accent-50 text-accent-800">✓ feasible</span>
+            ) : (
+              <span className="badge border-red-300 bg-red-50 text-red-800" title={i.row.original.reason ?? undefined}>
+                ✕ {i.row.original.reason ?? "infeasible"}
+              </span>
+            ),
+        }),
+      ]),
+    [unit, selected, onToggle, candidateHref, yMax, target],
+  );
+
+  const sorting: SortingState = useMemo(() => {
+    const col = Object.entries(SORT_OF).find(([, k]) => k === view.sort)?.[0] ?? "rank";
+    return [{ id: col, desc: view.dir === "desc" }];
+  }, [view.sort, view.dir]);
+  const columnVisibility = useMemo(() => Object.fromEntries(view.hidden.map((c) => [c, false])), [view.hidden]);
+
+  const table = useTable({
+    features,
+    columns,
+    data: rows ?? NO_ROWS,
+    getRowId: (r) => r.id,
+    manualSorting: true,
+    enableMultiSort: false,
+    state: { sorting, columnVisibility },
+    onSortingChange: () => {},
+  });
+
+  return (
+    <div className="overflow-x-auto">
+      <table className="table-dense" data-testid="ranked-table">
+        <caption className="sr-only">Ranked candidate trains of the scenario; use the column buttons to sort.</caption>
+        <thead>
+          {table.getHeaderGroups().map((group) => (
+            <tr key={group.id}>
+              {group.headers.map((header) => {
+                const key = SORT_OF[header.column.id];
+                const sorted = header.column.getIsSorted();
+                const label = <table.FlexRender header={header} />;
+                return (
+                  <th key={header.id} scope="col" aria-sort={key ? (sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none") : undefined}>
+                    {key ? (
+                      <button
+                        type="button"
+                        className="inline-flex items-center gap-1 rounded uppercase tracking-wide hover:text-ink"
+                        onClick={() => onSort(key, view.sort === key && view.dir === "asc" ? "desc" : "asc")}
+                        data-testid={`sort-${header.column.id}`}
+                      >
+                        {label}
+                        <span aria-hidden="true" className={sorted ? "text-accent-700" : "text-ink-faint"}>
+                          {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
+                        </span>
+                      </button>
+                    ) : (
+                      label
+                    )}
+                  </th>
+                );
+              })}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((row) => (
+            <tr key={row.id} className={row.original.feasible ? "" : "bg-paper text-ink-soft"} data-testid="candidate-row">
+              {row.getVisibleCells().map((cell) => (
+                <td key={cell.id}>
+                  <table.FlexRender cell={cell} />
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,223 @@
+"use client";
+
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { keepPreviousData, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { fetchJson } from "@/lib/client/fetch-json";
+import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
+import { chartInputs } from "@/components/charts/candidate-chart-data";
+import { ErrorPanel, LoadingPanel, refusalText } from "./states";
+import { ResultsToolbar } from "./results-toolbar";
+import { RankedTable } from "./ranked-table";
+import { ObjectiveHeatMap, ScenarioPicker, twoVariedFields } from "./scenario-picker";
+import { StatusBadge, SweepProgressBar } from "./sweep-progress";
+import type { CandidatePage, ScenarioRow, SweepView as Sweep } from "./types";
+import { candidateQuery, serialiseViewState, useViewState } from "./view-state";
+
+const ACTIVE = new Set(["queued", "running"]);
+
+export function SweepView({ sweepId, projectId, projectName, canSubmit }: { sweepId: string; projectId: string; projectName: string; canSubmit: boolean }) {
+  const router = useRouter();
+  const qc = useQueryClient();
+  const [view, setView] = useViewState();
+  const [selected, setSelected] = useState<string[]>([]);
+  const [actionError, setActionError] = useState<string | null>(null);
+
+  const sweepQ = useQuery({
+    queryKey: ["sweep", sweepId],
+    queryFn: () => fetchJson<{ sweep: Sweep }>(`/api/sweeps/${sweepId}`).then((r) => r.sweep),
+    refetchInterval: (q) => (q.state.data && !ACTIVE.has(q.state.data.status) ? false : 1000),
+    staleTime: 0,
+  });
+  const sweep = sweepQ.data;
+  const finished = !!sweep && !ACTIVE.has(sweep.status);
+  const hasResults = finished && sweep.done > 0;
+
+  // When the run ends, the scenarios and their candidates are new: read them again.
+  const wasActive = useRef(false);
+  useEffect(() => {
+    if (sweep && ACTIVE.has(sweep.status)) wasActive.current = true;
+    else if (sweep && wasActive.current) {
+      wasActive.current = false;
+      void qc.invalidateQueries({ queryKey: ["scenarios", sweepId] });
+      void qc.invalidateQueries({ queryKey: ["candidates", sweepId] });
+    }
+  }, [sweep, qc, sweepId]);
+
+  const scenariosQ = useQuery({
+    queryKey: ["scenarios", sweepId],
+    queryFn: () => fetchJson<{ scenarios: ScenarioRow[] }>(`/api/sweeps/${sweepId}/scenarios`).then((r) => r.scenarios),
+    enabled: hasResults,
+  });
+  // Thumbnails ride along with the page while it is small enough.
+  const withCharts = view.pageSize <= 50 && !view.hidden.includes("chart");
+  const candidatesQ = useQuery({
+    queryKey: ["candidates", sweepId, view.scenario, candidateQuery(view, { levenspiel: withCharts })],
+    queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${view.scenario}/candidates?${candidateQuery(view, { levenspiel: withCharts })}`),
+    enabled: hasResults,
+    placeholderData: keepPreviousData,
+  });
+
+  const cancel = useMutation({
+    mutationFn: () => fetchJson<{ sweep: Sweep }>(`/api/sweeps/${sweepId}/cancel`, { method: "POST" }),
+    onMutate: () => setActionError(null),
+    onSuccess: (r) => qc.setQueryData(["sweep", sweepId], r.sweep),
+    onError: (e) => setActionError(refusalText(e, "cancel this sweep", "Engineers may cancel only the sweeps they submitted; a manager or an admin can cancel any.")),
+  });
+  const rerun = useMutation({
+    mutationFn: () => fetchJson<{ sweep: Sweep }>(`/api/sweeps/${sweepId}/rerun`, { method: "POST" }),
+    onMutate: () => setActionError(null),
+    onSuccess: (r) => router.push(`/projects/${projectId}/sweeps/${r.sweep.id}`),
+    onError: (e) => setActionError(refusalText(e, "re-run this sweep", "Re-running needs the engineer, manager or admin role.")),
+  });
+
+  const toggle = useCallback((id: string) => setSelected((s) => (s.includes(id) ? s.filter((x) => x !== id) : s.length >= 4 ? s : [...s, id])), []);
+  const qs = serialiseViewState(view);
+  const back = encodeURIComponent(`/projects/${projectId}/sweeps/${sweepId}${qs ? `?${qs}` : ""}`);
+  const candidateHref = useCallback((id: string) => `/projects/${projectId}/sweeps/${sweepId}/candidates/${id}?unit=${view.unit}&back=${back}`, [projectId, sweepId, view.unit, back]);
+
+  const rows = candidatesQ.data?.items;
+  const target = sweep?.spec.target?.conversion;
+  const yMax = useMemo(() => {
+    const charts = (rows ?? []).filter((r) => r.feasible && r.levenspiel).map((r) => ({ ...chartInputs(r.stages, r.levenspiel), target }));
+    return charts.length ? sharedYMax(charts) : undefined;
+  }, [rows, target]);
+
+  if (sweepQ.isPending) return <LoadingPanel label="Loading the sweep…" />;
+  if (sweepQ.isError || !sweep) return <ErrorPanel error={sweepQ.error} what="this sweep" />;
+
+  const objective = sweep.spec.objective?.minimise ?? "volume";
+  const scenarios = scenariosQ.data ?? [];
+  const grid2 = twoVariedFields(scenarios);
+  const page = candidatesQ.data;
+  const pages = page ? Math.max(1, Math.ceil(page.total / view.pageSize)) : 1;
+  const warnings = thermalWarnings({ thermal: sweep.spec.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
+
+  return (
+    <div className="space-y-5">
+      <nav aria-label="Breadcrumb" className="text-sm text-ink-soft">
+        <Link href="/" className="hover:underline">
+          Projects
+        </Link>{" "}
+        /{" "}
+        <Link href={`/projects/${projectId}`} className="hover:underline">
+          {projectName}
+        </Link>{" "}
+        / Sweep
+      </nav>
+      <header className="flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h1 data-testid="sweep-title">{sweep.name}</h1>
+          <p className="mt-1 flex flex-wrap items-center gap-2 text-ink-soft">
+            <StatusBadge status={sweep.status} />
+            <span>
+              {sweep.total} scenario{sweep.total === 1 ? "" : "s"} · minimise {objective} · target X {target ?? "—"}
+            </span>
+          </p>
+        </div>
+        {canSubmit ? (
+          <div className="flex gap-2">
+            {!finished ? (
+              <button type="button" className="btn-danger" onClick={() => cancel.mutate()} disabled={cancel.isPending}>
+                {cancel.isPending ? "Cancelling…" : "Cancel sweep"}
+              </button>
+            ) : (
+              <button type="button" className="btn-quiet" onClick={() => rerun.mutate()} disabled={rerun.isPending}>
+                {rerun.isPending ? "Submitting…" : "Re-run"}
+              </button>
+            )}
+          </div>
+        ) : null}
+      </header>
+      {actionError ? (
+        <div role="alert" className="rounded border border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800" data-testid="action-error">
+          {actionError}
+        </div>
+      ) : null}
+
+      <section className="card p-4" aria-label="Progress">
+        <SweepProgressBar sweep={sweep} />
+        {sweep.error ? <p className="mt-2 text-sm text-red-800">{sweep.error}</p> : null}
+      </section>
+
+      {!hasResults ? (
+        <section className="card p-6 text-center text-ink-soft" data-testid="results-pending">
+          {finished ? "This sweep ended before any scenario was optimised." : "The ranked table appears here as soon as the sweep finishes."}
+        </section>
+      ) : (
+        <>
+          {scenariosQ.isError ? <ErrorPanel error={scenariosQ.error} what="the scenarios" /> : null}
+          {grid2 && scenarios.length > 1 ? (
+            <ObjectiveHeatMap scenarios={scenarios} fields={grid2} selected={view.scenario} onSelect={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} />
+          ) : null}
+          <section className="card" aria-labelledby="ranked-title">
+            <div className="space-y-3 border-b border-line p-4">
+              <div className="flex flex-wrap items-end justify-between gap-3">
+                <h2 id="ranked-title">Ranked trains</h2>
+                <Link
+                  href={`/compare?ids=${selected.join(",")}&unit=${view.unit}`}
+                  aria-disabled={selected.length < 2}
+                  onClick={(e) => selected.length < 2 && e.preventDefault()}
+                  className={`btn-primary ${selected.length < 2 ? "pointer-events-none opacity-50" : ""}`}
+                  data-testid="compare-selected"
+                >
+                  Compare selected ({selected.length})
+                </Link>
+              </div>
+              {scenarios.length > 1 ? (
+                <ScenarioPicker scenarios={scenarios} value={view.scenario} onChange={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} />
+              ) : null}
+              <ResultsToolbar sweepId={sweepId} view={view} setView={setView} />
+            </div>
+            {candidatesQ.isPending ? (
+              <LoadingPanel label="Loading the ranked trains…" bare />
+            ) : candidatesQ.isError ? (
+              <ErrorPanel error={candidatesQ.error} what="the ranked trains" bare />
+            ) : page && page.items.length === 0 ? (
+              <p className="p-6 text-center text-ink-soft" data-testid="table-empty">
+                No train matches these filters.{" "}
+                <button type="button" className="text-accent-700 underline" onClick={() => setView({ feasible: false, contains: "", stages: null })}>
+                  Clear the filters
+                </button>
+              </p>
+            ) : (
+              <div aria-busy={candidatesQ.isFetching}>
+                <RankedTable
+                  rows={rows}
+                  view={view}
+                  onSort={(sort, dir) => setView({ sort, dir })}
+                  selected={selected}
+                  onToggle={toggle}
+                  candidateHref={candidateHref}
+                  yMax={yMax}
+                  target={target}
+                />
+              </div>
+            )}
+            {page && page.total > 0 ? (
+              <nav aria-label="Pages" className="flex flex-wrap items-center justify-between gap-3 p-3 text-sm">
+                <span className="text-ink-soft" data-testid="page-info">
+                  {(page.page - 1) * view.pageSize + 1}–{Math.min(page.total, page.page * view.pageSize)} of {page.total} trains
+                </span>
+                <span className="flex items-center gap-2">
+                  <button type="button" className="btn-quiet" disabled={view.page <= 1} onClick={() => setView({ page: view.page - 1 })}>
+                    ← Previous
+                  </button>
+                  <span className="num">
+                    Page {view.page} of {pages}
+                  </span>
+                  <button type="button" className="btn-quiet" disabled={view.page >= pages} onClick={() => setView({ page: view.page + 1 })}>
+                    Next →
+                  </button>
+                </span>
+              </nav>
+            ) : null}
+          </section>
+        </>
+      )}
+      <Cautions warnings={warnings} compact />
+    </div>
+  );
+}
