@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { useCallback, useMemo, useState } from "react";
 import { FormProvider, useForm, useFormContext, useWatch, type Path } from "react-hook-form";
 import type { z } from "zod";
+import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { rateConstantLabel, unitOptions } from "@/lib/units/display";
@@ -186,17 +187,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Rate law, −rA</legend>
-            <div role="radiogroup" aria-label="Rate law" className="grid gap-1.5 sm:grid-cols-2">
-              {LAWS.map(([value, label, text]) => (
-                <label key={value} className={`flex cursor-pointer items-start gap-2 rounded border p-2 text-sm ${law === value ? "border-accent-500 bg-accent-50" : "border-line"}`}>
-                  <input type="radio" value={value} className="mt-0.5" {...register("reaction.rate.law")} />
-                  <span>
-                    <span className="font-medium">{label}</span>
-                    <span className="block text-xs text-ink-soft">{text}</span>
-                  </span>
-                </label>
-              ))}
-            </div>
+            <ChoiceCards label="Rate law" options={LAWS} current={law} field={register("reaction.rate.law")} />
             <ErrorText id={fieldId("reaction.rate.law")} message={err("reaction.rate.law")} />
 
             {law === "power" ? (

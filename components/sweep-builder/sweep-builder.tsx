@@ -6,6 +6,7 @@ import { useMemo, useState } from "react";
 import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
+import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { unitOptions } from "@/lib/units/display";
@@ -99,23 +100,17 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Trains to try</legend>
-            <div role="radiogroup" aria-label="Train space" className="grid gap-1.5 sm:grid-cols-3">
-              {(
-                [
-                  ["range", "Up to N stages", "every sequence of 1…N stages"],
-                  ["candidates", "Listed sequences", "exactly the ones you compose"],
-                  ["multiset", "A set of stages", "all orderings of it"],
-                ] as const
-              ).map(([value, label, text]) => (
-                <label key={value} className={`flex cursor-pointer items-start gap-2 rounded border p-2 text-sm ${v.trainMode === value ? "border-accent-500 bg-accent-50" : "border-line"}`}>
-                  <input type="radio" value={value} className="mt-0.5" {...register("trainMode")} />
-                  <span>
-                    <span className="font-medium">{label}</span>
-                    <span className="block text-xs text-ink-soft">{text}</span>
-                  </span>
-                </label>
-              ))}
-            </div>
+            <ChoiceCards
+              label="Train space"
+              columns="sm:grid-cols-3"
+              current={v.trainMode}
+              field={register("trainMode")}
+              options={[
+                ["range", "Up to N stages", "every sequence of 1…N stages"],
+                ["candidates", "Listed sequences", "exactly the ones you compose"],
+                ["multiset", "A set of stages", "all orderings of it"],
+              ]}
+            />
             {v.trainMode === "range" ? (
               <div className="flex flex-wrap items-start gap-4">
                 {num("maxStages", "Maximum stages (1–8)")}

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { notFound } from "next/navigation";
 import { specToForm } from "@/components/kinetics/form-model";
 import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
@@ -39,16 +40,7 @@ export default async function KineticsModelPage({
 
   return (
     <div className="space-y-4">
-      <div className="text-sm text-ink-soft">
-        <Link href="/" className="hover:underline">
-          Projects
-        </Link>{" "}
-        /{" "}
-        <Link href={`/projects/${project.id}`} className="hover:underline">
-          {project.name}
-        </Link>{" "}
-        / {model.name}
-      </div>
+      <ProjectCrumbs project={project} here={model.name} />
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <h1 data-testid="kinetics-title">{model.name}</h1>

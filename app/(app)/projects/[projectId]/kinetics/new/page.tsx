@@ -1,4 +1,4 @@
-import Link from "next/link";
+import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { defaultKineticsValues } from "@/components/kinetics/form-model";
 import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
 import { loadProjectPage } from "../../project-data";
@@ -12,16 +12,7 @@ export default async function NewKineticsPage({ params }: { params: Promise<{ pr
   const { actor, project } = await loadProjectPage(projectId);
   return (
     <div className="space-y-4">
-      <div className="text-sm text-ink-soft">
-        <Link href="/" className="hover:underline">
-          Projects
-        </Link>{" "}
-        /{" "}
-        <Link href={`/projects/${project.id}`} className="hover:underline">
-          {project.name}
-        </Link>{" "}
-        / New kinetics
-      </div>
+      <ProjectCrumbs project={project} here="New kinetics" />
       <div>
         <h1>New kinetics</h1>
         <p className="text-ink-soft">Feed, reaction, rate law and thermal mode. Every number is stored in SI, whatever unit you type it in.</p>

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { defaultBuilderValues } from "@/components/sweep-builder/builder-model";
 import { SweepBuilder } from "@/components/sweep-builder/sweep-builder";
 import { getDb } from "@/db/client";
@@ -19,16 +20,7 @@ export default async function NewSweepPage({ params, searchParams }: { params: P
   const chosen = versions.find((o) => o.id === version)?.id ?? versions[0]?.id ?? "";
   return (
     <div className="space-y-4">
-      <div className="text-sm text-ink-soft">
-        <Link href="/" className="hover:underline">
-          Projects
-        </Link>{" "}
-        /{" "}
-        <Link href={`/projects/${project.id}`} className="hover:underline">
-          {project.name}
-        </Link>{" "}
-        / New sweep
-      </div>
+      <ProjectCrumbs project={project} here="New sweep" />
       <div>
         <h1>New sweep</h1>
         <p className="text-ink-soft">Rank every candidate train against a target, over one scenario or a grid of them.</p>
