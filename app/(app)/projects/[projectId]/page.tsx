@@ -1,40 +1,66 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
 import { AuditList, type AuditRow } from "@/components/audit/audit-list";
+import { Cautions } from "@/components/cautions/cautions";
+import { PinsPanel, type PinRow } from "@/components/project/pins-panel";
+import { SweepsList, type SweepRow } from "@/components/project/sweeps-list";
 import { getDb } from "@/db/client";
-import { requirePageActor } from "@/lib/auth/session";
 import { can } from "@/lib/authz/policy";
-import { AppError } from "@/lib/errors";
-import { uuidSchema } from "@/lib/schemas/foundation";
 import { listAuditEntries } from "@/lib/services/audit";
-import { getProjectById } from "@/lib/services/projects";
+import { listKineticsModels } from "@/lib/services/kinetics";
+import { listPins } from "@/lib/services/pins";
+import { listSweeps } from "@/lib/services/sweeps";
+import { kineticsVersionLabels, loadProjectPage, userNames } from "./project-data";
 
 export const dynamic = "force-dynamic";
 
-async function loadProject(projectId: string) {
-  const actor = await requirePageActor();
-  if (!uuidSchema.safeParse(projectId).success) notFound();
-  try {
-    return { actor, project: await getProjectById(getDb(), actor, projectId) };
-  } catch (err) {
-    if (err instanceof AppError && err.code === "not_found") notFound();
-    throw err;
-  }
-}
+const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+const wire = <T,>(v: unknown) => JSON.parse(JSON.stringify(v)) as T;
 
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
-  const { actor, project } = await loadProject(projectId);
-  const audit = can(actor, "audit.read") ? await listAuditEntries(getDb(), actor, { entityType: "project", entityId: project.id }) : null;
+  const { actor, project } = await loadProjectPage(projectId);
+  const db = getDb();
+  const readsKinetics = can(actor, "kinetics.read");
+  const [audit, models, sweeps, pins] = await Promise.all([
+    can(actor, "audit.read") ? listAuditEntries(db, actor, { entityType: "project", entityId: project.id }) : null,
+    readsKinetics ? listKineticsModels(db, actor, project.id) : [],
+    can(actor, "sweep.read") ? listSweeps(db, actor, project.id) : null,
+    listPins(db, actor, project.id),
+  ]);
+  const names = await userNames(pins.flatMap((p) => [p.pinnedBy, p.reviewerId ?? ""]));
+  const versions = await kineticsVersionLabels(actor.teamId, pins.map((p) => p.kineticsVersionId));
+  const pinRows: PinRow[] = pins.map((p) => {
+    const c = p.candidate as { sequence?: ("CSTR" | "PFR")[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
+    const v = versions[p.kineticsVersionId];
+    return {
+      id: p.id,
+      state: p.state,
+      note: p.note,
+      pinnedAt: p.pinnedAt.toISOString(),
+      pinnedByName: names[p.pinnedBy] ?? "someone",
+      reviewerName: p.reviewerId ? (names[p.reviewerId] ?? "someone") : null,
+      reviewComment: p.reviewComment,
+      reviewedAt: p.reviewedAt?.toISOString() ?? null,
+      kinetics: { label: v?.label ?? "kinetics version", href: v && readsKinetics ? `/projects/${project.id}/kinetics/${v.modelId}` : null },
+      sweep: c.sweep ?? null,
+      sequence: c.sequence ?? [],
+      totalVolume: c.totalVolume ?? null,
+      totalCost: c.totalCost ?? null,
+      stageTemperatures: (c.stages ?? []).map((s) => s.temperatureOut ?? NaN).filter(Number.isFinite),
+      spec: p.spec,
+      canReview: can(actor, "pin.review") && p.pinnedBy !== actor.userId,
+    };
+  });
+  const canAuthor = can(actor, "kinetics.create");
 
   return (
     <div className="space-y-5">
-      <div className="text-sm text-ink-soft">
+      <nav aria-label="Breadcrumb" className="text-sm text-ink-soft">
         <Link href="/" className="hover:underline">
           Projects
         </Link>{" "}
-        / {project.name}
-      </div>
+        / <span aria-current="page">{project.name}</span>
+      </nav>
       <div className="flex items-start justify-between gap-4">
         <div>
           <h1 data-testid="project-title">{project.name}</h1>
@@ -42,23 +68,62 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         </div>
         {project.archivedAt ? <span className="badge border-line">archived</span> : null}
       </div>
-      <div className="grid gap-4 md:grid-cols-3">
-        {[
-          ["Kinetics", "Rate laws and bench data for this project's reaction."],
-          ["Sweeps", "Ranked candidate trains over operating scenarios."],
-          ["Pinned designs", "The trains chosen for the design basis, with their review state."],
-        ].map(([title, text]) => (
-          <section key={title} className="card p-4">
-            <h2>{title}</h2>
-            <p className="mt-1 text-ink-soft">{text}</p>
-            <p className="mt-3 text-xs text-ink-faint">None yet.</p>
+
+      <div className="grid gap-5 lg:grid-cols-2">
+        {readsKinetics ? (
+          <section className="card overflow-hidden" aria-labelledby="kinetics-title">
+            <div className="flex items-center justify-between border-b border-line px-3 py-2">
+              <h2 id="kinetics-title">Kinetics</h2>
+              {canAuthor ? (
+                <Link href={`/projects/${project.id}/kinetics/new`} className="btn-primary py-1">
+                  New kinetics
+                </Link>
+              ) : null}
+            </div>
+            {models.length === 0 ? (
+              <p className="px-3 py-6 text-center text-ink-soft">No kinetics yet{canAuthor ? ": define the rate law, feed and thermal mode first." : "."}</p>
+            ) : (
+              <table className="table-dense" data-testid="kinetics-table">
+                <thead>
+                  <tr>
+                    <th scope="col">Model</th>
+                    <th scope="col">Latest</th>
+                    <th scope="col">Saved (UTC)</th>
+                    <th scope="col">
+                      <span className="sr-only">Actions</span>
+                    </th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {models.map((m) => (
+                    <tr key={m.id}>
+                      <td className="font-medium">{m.name}</td>
+                      <td className="num">v{m.latestVersion?.version ?? "—"}</td>
+                      <td className="num whitespace-nowrap">{m.latestVersion ? fmt.format(m.latestVersion.createdAt) : "—"}</td>
+                      <td className="text-right">
+                        <Link href={`/projects/${project.id}/kinetics/${m.id}`} className="btn-quiet py-1" aria-label={`Edit ${m.name} (saves a new version)`}>
+                          {canAuthor ? "Edit / new version" : "Open"}
+                        </Link>
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            )}
           </section>
-        ))}
+        ) : null}
+        {sweeps ? <SweepsList projectId={project.id} initial={wire<SweepRow[]>(sweeps)} canCreate={can(actor, "sweep.create") && models.length > 0} /> : null}
       </div>
+
+      <PinsPanel pins={pinRows} viewerOnly={actor.role === "viewer"} />
+      {pinRows.length ? <Cautions /> : null}
+
       {audit ? (
-        <section className="card overflow-hidden">
-          <h2 className="border-b border-line px-3 py-2">Audit trail</h2>
-          <AuditList entries={JSON.parse(JSON.stringify(audit)) as AuditRow[]} />
+        <section className="card overflow-hidden" aria-labelledby="audit-title">
+          <h2 id="audit-title" className="border-b border-line px-3 py-2">
+            Audit trail
+          </h2>
+          <AuditList entries={wire<AuditRow[]>(audit)} />
         </section>
       ) : null}
     </div>
