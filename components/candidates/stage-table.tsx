@@ -7,7 +7,7 @@ import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume
 export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; unit: VolumeUnit; caption: string }) {
   const anyCost = stages.some((s) => s.cost !== null);
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={caption}>
       <table className="table-dense" data-testid="stage-table">
         <caption className="sr-only">{caption}</caption>
         <thead>

@@ -114,7 +114,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
           enableSorting: false,
           cell: (i) =>
             i.getValue() ? (
-              <span className="badge border-accent-200 bg-accent-50 text-accent-800">✓ feasible</span>
+              <span className="badge whitespace-nowrap border-accent-200 bg-accent-50 text-accent-800">✓ feasible</span>
             ) : (
               <span className="badge border-red-300 bg-red-50 text-red-800" title={i.row.original.reason ?? undefined}>
                 ✕ {i.row.original.reason ?? "infeasible"}
@@ -143,7 +143,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
   });
 
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Ranked trains table">
       <table className="table-dense" data-testid="ranked-table">
         <caption className="sr-only">Ranked candidate trains of the scenario; use the column buttons to sort.</caption>
         <thead>
