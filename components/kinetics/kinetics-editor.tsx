@@ -96,7 +96,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
           {select(`${path}.conc`, `${label} concentration basis`, unitOptions("concentration"))}
           {select(`${path}.time`, `${label} time basis`, unitOptions("time"))}
         </div>
-        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-faint">
+        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
           In {rateConstantLabel(n, conc, time)} for total order {Math.round(n * 1000) / 1000}.
         </p>
         <ErrorText id={id} message={message} />
@@ -124,7 +124,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
             )}
             <div>
               <label htmlFor="f-note" className="field-label">
-                Note <span className="normal-case tracking-normal text-ink-faint">(optional)</span>
+                Note <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
               </label>
               <input id="f-note" className="input" placeholder="Where the numbers come from" aria-invalid={!!err("note")} {...register("note")} />
               <ErrorText id="f-note" message={err("note")} />
@@ -176,7 +176,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
               {values.reaction?.phase === "gas" ? (
                 <div>
                   <label htmlFor={fieldId("reaction.epsilon")} className="field-label">
-                    Expansion factor ε <span className="normal-case tracking-normal text-ink-faint">(optional)</span>
+                    Expansion factor ε <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
                   </label>
                   <input id={fieldId("reaction.epsilon")} className="input num" inputMode="decimal" placeholder="from stoichiometry" aria-invalid={!!err("reaction.epsilon")} {...register("reaction.epsilon")} />
                   <ErrorText id={fieldId("reaction.epsilon")} message={err("reaction.epsilon")} />
@@ -246,7 +246,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
                     aria-describedby={`${fieldId("reaction.rate.expression")}-hint`}
                     {...register("reaction.rate.expression")}
                   />
-                  <p id={`${fieldId("reaction.rate.expression")}-hint`} className="mt-1 text-xs text-ink-faint">
+                  <p id={`${fieldId("reaction.rate.expression")}-hint`} className="mt-1 text-xs text-ink-soft">
                     Variables C_A, C_B… (mol/m³), T (K) and X; functions exp, log, sqrt, pow, min, max…
                   </p>
                   <ErrorText id={fieldId("reaction.rate.expression")} message={err("reaction.rate.expression")} />
@@ -358,7 +358,7 @@ function RateTable({ external }: { external: ExternalErrors }) {
       >
         + Add a point
       </button>
-      <p className="mt-1 text-xs text-ink-faint">From X = 0 to at least the target; interpolated, never extrapolated.</p>
+      <p className="mt-1 text-xs text-ink-soft">From X = 0 to at least the target; interpolated, never extrapolated.</p>
       <ErrorText id={id} message={groupError} />
     </fieldset>
   );

@@ -183,7 +183,7 @@ export function PreviewPanel({ specJson, target, onTarget, targetError, onEngine
         </p>
       ) : null}
       {p ? (
-        <p className="mt-1 text-xs text-ink-faint" data-testid="preview-timing" data-ms={p.elapsedMs}>
+        <p className="mt-1 text-xs text-ink-soft" data-testid="preview-timing" data-ms={p.elapsedMs}>
           Computed in {p.elapsedMs} ms after a {PREVIEW_DEBOUNCE_MS} ms pause in typing.
         </p>
       ) : null}

@@ -55,7 +55,7 @@ export function QuantityField({
     <div>
       <label htmlFor={id} className="field-label">
         {label}
-        {optional ? <span className="ml-1 normal-case tracking-normal text-ink-faint">(optional)</span> : null}
+        {optional ? <span className="ml-1 normal-case tracking-normal text-ink-soft">(optional)</span> : null}
       </label>
       <div className="flex gap-1.5">
         <input
@@ -90,7 +90,7 @@ export function QuantityField({
         </select>
       </div>
       {hint && !error ? (
-        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-faint">
+        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
           {hint}
         </p>
       ) : null}

@@ -34,13 +34,13 @@ export function RowsEditor({
   return (
     <fieldset className="min-w-0" aria-describedby={groupError ? `${groupId}-error` : undefined}>
       <legend className="field-label">{legend}</legend>
-      {hint ? <p className="-mt-0.5 mb-1 text-xs text-ink-faint">{hint}</p> : null}
+      {hint ? <p className="-mt-0.5 mb-1 text-xs text-ink-soft">{hint}</p> : null}
       <div className="space-y-1.5">
         {fixed ? (
           <div className="grid grid-cols-[1fr_1fr_auto] gap-1.5 text-sm">
             <span className="input bg-paper text-ink-soft">{fixed.name}</span>
             <span className="input num bg-paper text-ink-soft">{fixed.value}</span>
-            <span className="w-[4.5rem] self-center text-xs text-ink-faint">fixed</span>
+            <span className="w-[4.5rem] self-center text-xs text-ink-soft">fixed</span>
           </div>
         ) : null}
         {fields.map((f, i) => {

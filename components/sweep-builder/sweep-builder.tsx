@@ -91,7 +91,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
             {num("target", "Target conversion X", "w-full")}
             <div className="sm:col-span-2">
               <label htmlFor="s-name" className="field-label">
-                Sweep name <span className="normal-case tracking-normal text-ink-faint">(optional)</span>
+                Sweep name <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
               </label>
               <input id="s-name" className="input" placeholder="Named after the kinetics and scenario count when blank" {...register("name")} />
               <ErrorText id="s-name" message={err("name")} />
@@ -137,7 +137,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
                     <div key={f.id} className="rounded border border-line p-2">
                       <div className="flex flex-wrap items-center gap-1.5" aria-label={`Sequence ${i + 1}`} role="group">
                         <span className="mr-1 text-xs text-ink-soft">#{i + 1}</span>
-                        {seq.length ? seq.map((t, j) => <StageBadge key={j} type={t} />) : <span className="text-xs text-ink-faint">empty</span>}
+                        {seq.length ? seq.map((t, j) => <StageBadge key={j} type={t} />) : <span className="text-xs text-ink-soft">empty</span>}
                         <span className="ml-auto flex gap-1">
                           <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "CSTR"])} disabled={seq.length >= 8} aria-label={`Add a CSTR to sequence ${i + 1}`}>
                             + CSTR
@@ -320,12 +320,12 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
                 {count.optimisations ?? "—"}
               </dd>
             </dl>
-            {count.optimisations === null ? <p className="text-xs text-ink-faint">Complete the fields marked with ✕ to see the count.</p> : null}
+            {count.optimisations === null ? <p className="text-xs text-ink-soft">Complete the fields marked with ✕ to see the count.</p> : null}
             {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
             <button type="submit" className="btn-primary w-full justify-center" disabled={formState.isSubmitting}>
               {formState.isSubmitting ? "Submitting…" : "Submit sweep"}
             </button>
-            <p className="text-xs text-ink-faint">The sweep runs on the queue; you can leave the page and come back.</p>
+            <p className="text-xs text-ink-soft">The sweep runs on the queue; you can leave the page and come back.</p>
           </div>
         </aside>
       </form>
