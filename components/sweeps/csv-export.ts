@@ -1,4 +1,3 @@
-import Papa from "papaparse";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { fromCubicMetres, VOLUME_LABEL } from "@/lib/charts/volume-units";
 import { describeOverrides } from "./scenario-picker";
@@ -36,7 +35,9 @@ export async function exportCandidatesCsv(sweepId: string, view: SweepViewState,
     if (res.items.length < EXPORT_PAGE || rows.length >= res.total) break;
   }
   const preface = `# scenario ${view.scenario + 1}: ${overrides}; preliminary sizing from ideal-reactor models, check under local codes\n`;
-  return preface + Papa.unparse(rows);
+  // papaparse loads only when someone exports, not with the page.
+  const { unparse } = await import("papaparse");
+  return preface + unparse(rows);
 }
 
 export function downloadText(filename: string, text: string) {
