@@ -87,7 +87,7 @@ function PinItem({ pin, isCurrent }: { pin: PinRow; isCurrent: boolean }) {
         <dt className="text-ink-soft">From</dt>
         <dd>
           {pin.kinetics.href ? (
-            <a href={pin.kinetics.href} className="text-accent-700 hover:underline">
+            <a href={pin.kinetics.href} className="text-accent-700 underline">
               {pin.kinetics.label}
             </a>
           ) : (
