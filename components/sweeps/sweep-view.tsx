@@ -46,17 +46,19 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
     }
   }, [sweep, qc, sweepId]);
 
+  // Scenarios and candidates are asked for at once with the sweep, not after it: one round trip
+  // less before the table. While the sweep runs they are not shown, and are read again when it ends.
   const scenariosQ = useQuery({
     queryKey: ["scenarios", sweepId],
     queryFn: () => fetchJson<{ scenarios: ScenarioRow[] }>(`/api/sweeps/${sweepId}/scenarios`).then((r) => r.scenarios),
-    enabled: hasResults,
+    enabled: !sweep || hasResults,
   });
   // Thumbnails ride along with the page while it is small enough.
   const withCharts = view.pageSize <= 50 && !view.hidden.includes("chart");
   const candidatesQ = useQuery({
     queryKey: ["candidates", sweepId, view.scenario, candidateQuery(view, { levenspiel: withCharts })],
     queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${view.scenario}/candidates?${candidateQuery(view, { levenspiel: withCharts })}`),
-    enabled: hasResults,
+    enabled: !sweep || hasResults,
     placeholderData: keepPreviousData,
   });
 
