@@ -4,7 +4,7 @@ const TONE: Record<Role, string> = {
   admin: "border-ink/30 text-ink",
   manager: "border-accent-600/40 text-accent-700",
   engineer: "border-line text-ink-soft",
-  viewer: "border-line text-ink-faint",
+  viewer: "border-line text-ink-soft",
 };
 
 export function RoleBadge({ role }: { role: Role }) {
