@@ -61,6 +61,7 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/sweeps/{sweepId}/scenarios", summary: "Scenarios of a sweep with their status and best objective" },
   { method: "get", path: "/api/sweeps/{sweepId}/scenarios/{index}/candidates", summary: "Ranked candidates of one scenario, sorted, filtered and paged", query: candidateQuerySchema },
   { method: "get", path: "/api/candidates/compare", summary: "Two to four candidates side by side", query: compareQuerySchema },
+  { method: "get", path: "/api/candidates/{candidateId}", summary: "One candidate with its stages, plot data, scenario and sweep" },
   { method: "post", path: "/api/candidates/{candidateId}/pin", summary: "Pin a candidate to its project for review", body: pinCreateSchema, status: 201 },
   { method: "get", path: "/api/projects/{projectId}/pins", summary: "Pinned designs of a project (viewers: approved only)" },
   { method: "get", path: "/api/pins/{pinId}", summary: "A pinned design with its frozen candidate and spec" },

@@ -155,6 +155,11 @@ const ROWS: Row[] = [
     expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
   },
   {
+    route: "GET /api/candidates/:id",
+    call: (c) => c.get(`/api/candidates/${ids.candidates[0]}`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
     route: "POST /api/candidates/:id/pin",
     call: (c) => c.post(`/api/candidates/${ids.candidates[1]}/pin`, { data: { note: "matrix" } }),
     expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
