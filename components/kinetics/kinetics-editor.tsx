@@ -153,7 +153,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
             <legend className="px-1 text-base font-semibold">Reaction</legend>
             <RowsEditor
               path="reaction.stoichiometry"
-              legend="Stoichiometry, ν per mole of A"
+              legend="Stoichiometric coefficients per mole of A"
               nameLabel="Species"
               valueLabel="Coefficient"
               addLabel="Add a species"
