@@ -1,6 +1,7 @@
 "use client";
 
 import Link from "next/link";
+import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
@@ -99,16 +100,7 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
 
   return (
     <div className="space-y-5">
-      <nav aria-label="Breadcrumb" className="text-sm text-ink-soft">
-        <Link href="/" className="hover:underline">
-          Projects
-        </Link>{" "}
-        /{" "}
-        <Link href={`/projects/${projectId}`} className="hover:underline">
-          {projectName}
-        </Link>{" "}
-        / Sweep
-      </nav>
+      <ProjectCrumbs project={{ id: projectId, name: projectName }} here="Sweep" />
       <header className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <h1 data-testid="sweep-title">{sweep.name}</h1>
