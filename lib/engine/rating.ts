@@ -32,12 +32,32 @@ export function reachLimit(model: ReactorModel, first: boolean, a: number): numb
   return lo;
 }
 
-/** PFR rating: outlet conversion of a PFR of volume V (m3) fed at conversion a. */
+/**
+ * PFR rating: outlet conversion of a PFR of volume V (m3) fed at conversion a. Solves
+ * V(a, x) = V by Newton's method, whose derivative dV/dx = FA0/(-rA) is the Levenspiel height
+ * itself, kept inside a shrinking bracket (bisection when a step would leave it); Brent's
+ * method finishes any case Newton does not settle in 30 steps.
+ */
 export function pfrOutlet(model: ReactorModel, first: boolean, a: number, volume: number): number {
   if (volume <= 0) return a;
   const hi = reachLimit(model, first, a);
-  if (pfrVolume(model, first, a, hi) <= volume) return hi;
-  return brentRoot((x) => pfrVolume(model, first, a, x) - volume, a, hi, 1e-15);
+  const full = pfrVolume(model, first, a, hi);
+  if (full <= volume) return hi;
+  let lo = a;
+  let up = hi;
+  let x = Number.isFinite(full) ? a + ((hi - a) * volume) / full : 0.5 * (a + hi);
+  for (let i = 0; i < 30; i++) {
+    const g = pfrVolume(model, first, a, x) - volume;
+    if (g === 0) return x;
+    if (g > 0) up = x;
+    else lo = x;
+    const step = g / levenspielHeight(model, first, a, x);
+    let next = x - step;
+    if (!(next > lo && next < up)) next = 0.5 * (lo + up);
+    if (Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) || up - lo <= 1e-15) return next;
+    x = next;
+  }
+  return brentRoot((y) => pfrVolume(model, first, a, y) - volume, lo, up, 1e-15);
 }
 
 /**
