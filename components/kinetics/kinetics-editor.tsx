@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { UnitOptions } from "@/components/ui/unit-options";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useCallback, useMemo, useState } from "react";
@@ -311,11 +312,7 @@ function RateTable({ external }: { external: ExternalErrors }) {
       <div className="mb-2 flex items-center gap-2 text-sm">
         <label htmlFor={fieldId("reaction.rate.table.rateUnit")}>Rate unit</label>
         <select id={fieldId("reaction.rate.table.rateUnit")} className="input w-auto" {...register("reaction.rate.table.rateUnit")}>
-          {unitOptions("rate").map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
+          <UnitOptions kind={"rate"} />
         </select>
       </div>
       <table className="table-dense">

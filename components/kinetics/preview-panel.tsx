@@ -1,13 +1,14 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { UnitOptions } from "@/components/ui/unit-options";
 import { useEffect, useState } from "react";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import type { KineticsPreview } from "@/lib/sweeps/engine-bridge";
-import { formatNumber, formatQuantity, unitOptions, type VolumeUnit } from "@/lib/units/display";
+import { formatNumber, formatQuantity, type VolumeUnit } from "@/lib/units/display";
 
 /** The value, once it has stayed the same for `ms`. */
 export function useDebounced<T>(value: T, ms: number): T {
@@ -106,11 +107,7 @@ export function PreviewPanel({ specJson, target, onTarget, targetError, onEngine
               Volume unit
             </label>
             <select id="preview-unit" className="input w-auto" value={volumeUnit} onChange={(e) => setVolumeUnit(e.target.value as VolumeUnit)}>
-              {unitOptions("volume").map((o) => (
-                <option key={o.value} value={o.value}>
-                  {o.label}
-                </option>
-              ))}
+              <UnitOptions kind={"volume"} />
             </select>
           </div>
         </div>

@@ -1,7 +1,8 @@
 "use client";
 
 import { useFormContext, useWatch } from "react-hook-form";
-import { convert, formatNumber, unitOptions, type UnitKind } from "@/lib/units/display";
+import { UnitOptions } from "@/components/ui/unit-options";
+import { convert, formatNumber, type UnitKind } from "@/lib/units/display";
 
 /** The field's id, from its form path. */
 export const fieldId = (path: string) => `f-${path.replace(/[.]/g, "-")}`;
@@ -82,11 +83,7 @@ export function QuantityField({
             void unitField.onChange(e);
           }}
         >
-          {unitOptions(kind).map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
+          <UnitOptions kind={kind} />
         </select>
       </div>
       {hint && !error ? (

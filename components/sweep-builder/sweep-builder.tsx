@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { UnitOptions } from "@/components/ui/unit-options";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
@@ -9,7 +10,6 @@ import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { unitOptions } from "@/lib/units/display";
 import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-model";
 
 export interface VersionOption {
@@ -204,11 +204,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
                       Size unit
                     </label>
                     <select id="s-sizeUnit" className="input w-auto" {...register("sizeUnit")}>
-                      {unitOptions("volume").map((o) => (
-                        <option key={o.value} value={o.value}>
-                          {o.label}
-                        </option>
-                      ))}
+                      <UnitOptions kind={"volume"} />
                     </select>
                   </div>
                 </div>
@@ -250,11 +246,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
                           Unit
                         </label>
                         <select id={`s-grid-${i}-unit`} className="input w-auto" {...register(`grid.${i}.unit`)}>
-                          {unitOptions(preset.kind).map((o) => (
-                            <option key={o.value} value={o.value}>
-                              {o.label}
-                            </option>
-                          ))}
+                          <UnitOptions kind={preset.kind} />
                         </select>
                       </div>
                     ) : null}
