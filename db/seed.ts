@@ -1,8 +1,11 @@
 import { and, eq } from "drizzle-orm";
 import { fileURLToPath } from "node:url";
-import type { Database } from "./client";
+import type { Database, Executor } from "./client";
 import { memberships, projects, teams, users, type Role } from "./schema";
-import { kineticsModels, kineticsVersions } from "./schema-sweeps";
+import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, scenarios, sweeps } from "./schema-sweeps";
+import { designTrains, type DesignSpec } from "@/lib/engine";
+import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
+import { bestObjective, candidateRows } from "@/lib/sweeps/run-chunk";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
 
@@ -120,6 +123,76 @@ export async function seedDemoData(db: Database): Promise<void> {
       const [model] = await tx.insert(kineticsModels).values({ teamId: project.teamId, projectId: project.id, name: k.name, createdBy: project.createdBy }).returning();
       await tx.insert(kineticsVersions).values({ modelId: model.id, version: 1, spec: k.spec, note: k.note, createdBy: project.createdBy });
     }
+    await seedDemoSweep(tx, projectRows.find((p) => p.name === DEMO_KINETICS[0].project)!);
+  });
+}
+
+const DEMO_SWEEP_NAME = "Demo: feed rate × target conversion";
+
+/**
+ * A finished sweep on the first demo model, computed here by the engine (no worker needed),
+ * and its best train at the design point pinned for review: so a manager signing in for the
+ * first time has a ranking to read and a design to approve.
+ */
+async function seedDemoSweep(tx: Executor, project: typeof projects.$inferSelect): Promise<void> {
+  const existing = await tx.select({ id: sweeps.id }).from(sweeps).where(and(eq(sweeps.projectId, project.id), eq(sweeps.name, DEMO_SWEEP_NAME)));
+  if (existing.length) return;
+  const [model] = await tx.select().from(kineticsModels).where(and(eq(kineticsModels.projectId, project.id), eq(kineticsModels.name, DEMO_KINETICS[0].name)));
+  const [version] = await tx.select().from(kineticsVersions).where(eq(kineticsVersions.modelId, model.id));
+  const grid: GridAxis[] = [
+    { field: "feed.flowA", values: [0.01, 0.02, 0.04] },
+    { field: "target.conversion", values: [0.85, 0.9, 0.95] },
+  ];
+  const baseSpec = { ...version.spec, target: { conversion: 0.9 }, train: { maxStages: 3, types: ["CSTR", "PFR"] }, objective: { minimise: "volume" } };
+  const all = expandGrid(grid);
+  const at = new Date();
+  const [sweep] = await tx
+    .insert(sweeps)
+    .values({ teamId: project.teamId, projectId: project.id, kineticsVersionId: version.id, name: DEMO_SWEEP_NAME, baseSpec, grid, status: "succeeded", total: all.length, done: all.length, submittedBy: project.createdBy, startedAt: at, finishedAt: at })
+    .returning();
+  let pinSource: { candidateId: string; scenarioIndex: number } | null = null;
+  for (const [index, overrides] of all.entries()) {
+    const result = designTrains(applyOverrides(baseSpec, overrides) as unknown as DesignSpec);
+    const [scenario] = await tx
+      .insert(scenarios)
+      .values({
+        sweepId: sweep.id,
+        index,
+        overrides,
+        status: "succeeded",
+        bestObjective: bestObjective(result),
+        reference: { ...result.reference, equilibriumConversion: result.equilibriumConversion ?? null, feedVolumetricFlow: result.feedVolumetricFlow, objective: result.objective },
+        candidateCount: result.candidates.length,
+        computedAt: at,
+      })
+      .returning();
+    const rows = await tx.insert(candidates).values(candidateRows(sweep.id, scenario.id, result)).returning({ id: candidates.id, rank: candidates.rank });
+    if (overrides["feed.flowA"] === 0.02 && overrides["target.conversion"] === 0.9) pinSource = { candidateId: rows.find((r) => r.rank === 1)!.id, scenarioIndex: index };
+  }
+  if (!pinSource) return;
+  const [c] = await tx.select().from(candidates).where(eq(candidates.id, pinSource.candidateId));
+  const [sc] = await tx.select().from(scenarios).where(eq(scenarios.id, c.scenarioId));
+  await tx.insert(pinnedDesigns).values({
+    teamId: project.teamId,
+    projectId: project.id,
+    sweepId: sweep.id,
+    candidateId: c.id,
+    kineticsVersionId: version.id,
+    candidate: {
+      rank: c.rank,
+      sequence: c.sequenceKey.split("-"),
+      feasible: c.feasible,
+      totalVolume: c.totalVolume,
+      totalCost: c.totalCost,
+      ratioToPfr: c.ratioToPfr,
+      stages: c.stages.map((st, i) => ({ ...st, levenspiel: c.levenspiel[i] })),
+      scenario: { index: sc.index, overrides: sc.overrides, reference: sc.reference },
+      sweep: { id: sweep.id, name: sweep.name },
+    },
+    spec: applyOverrides(baseSpec, sc.overrides),
+    note: "Least volume at the design feed of 0.02 mol/s and X = 0.9 (demo).",
+    pinnedBy: project.createdBy,
+    pinnedAt: at,
   });
 }
 

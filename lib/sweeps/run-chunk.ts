@@ -20,7 +20,7 @@ class SweepNotActive extends Error {
   }
 }
 
-function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
+export function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
   const pfr = result.reference.singlePFR;
   return result.candidates.map((c) => ({
     sweepId,
@@ -38,7 +38,7 @@ function candidateRows(sweepId: string, scenarioId: string, result: DesignResult
   }));
 }
 
-function bestObjective(result: DesignResult): number | null {
+export function bestObjective(result: DesignResult): number | null {
   const best = result.candidates.find((c) => c.feasible);
   if (!best) return null;
   return result.objective === "cost" ? best.totalCost : best.totalVolume;
