@@ -4,6 +4,7 @@ import type { Database, Executor } from "./client";
 import { memberships, projects, teams, users, type Role } from "./schema";
 import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, scenarios, sweeps } from "./schema-sweeps";
 import { designTrains, type DesignSpec } from "@/lib/engine";
+import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
 import { bestObjective, candidateRows } from "@/lib/sweeps/run-chunk";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
@@ -178,17 +179,7 @@ async function seedDemoSweep(tx: Executor, project: typeof projects.$inferSelect
     sweepId: sweep.id,
     candidateId: c.id,
     kineticsVersionId: version.id,
-    candidate: {
-      rank: c.rank,
-      sequence: c.sequenceKey.split("-"),
-      feasible: c.feasible,
-      totalVolume: c.totalVolume,
-      totalCost: c.totalCost,
-      ratioToPfr: c.ratioToPfr,
-      stages: c.stages.map((st, i) => ({ ...st, levenspiel: c.levenspiel[i] })),
-      scenario: { index: sc.index, overrides: sc.overrides, reference: sc.reference },
-      sweep: { id: sweep.id, name: sweep.name },
-    },
+    candidate: freezeCandidate(c, sc, sweep),
     spec: applyOverrides(baseSpec, sc.overrides),
     note: "Least volume at the design feed of 0.02 mol/s and X = 0.9 (demo).",
     pinnedBy: project.createdBy,

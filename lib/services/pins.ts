@@ -5,6 +5,7 @@ import { candidates, pinnedDesigns, scenarios, sweeps, type PinnedDesign } from 
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";
+import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
 import { requireTeamProject } from "./kinetics";
@@ -36,17 +37,7 @@ export async function pinCandidate(db: Database, actor: Actor, candidateId: stri
   if (!row.candidate.feasible) throw new AppError("conflict", "An infeasible candidate cannot be pinned", { fields: { candidateId: [row.candidate.reason ?? "infeasible"] } });
 
   const { candidate: c, scenario, sweep } = row;
-  const frozen = {
-    rank: c.rank,
-    sequence: c.sequenceKey.split("-"),
-    feasible: c.feasible,
-    totalVolume: c.totalVolume,
-    totalCost: c.totalCost,
-    ratioToPfr: c.ratioToPfr,
-    stages: c.stages.map((s, i) => ({ ...s, levenspiel: c.levenspiel[i] })),
-    scenario: { index: scenario.index, overrides: scenario.overrides, reference: scenario.reference },
-    sweep: { id: sweep.id, name: sweep.name },
-  };
+  const frozen = freezeCandidate(c, scenario, sweep);
   const pin = await db.transaction(async (tx) => {
     const superseded = await tx
       .update(pinnedDesigns)
