@@ -54,6 +54,10 @@ export const sweeps = pgTable(
     error: text("error"),
     jobIds: jsonb("job_ids").$type<string[]>().notNull().default([]),
     rerunOf: uuid("rerun_of"),
+    /** Monte Carlo settings { uncertain, samples, seed } when candidates are also rated under uncertainty. */
+    robustness: jsonb("robustness").$type<Record<string, unknown> | null>(),
+    /** The team's available inventory vessels as they were when the sweep was submitted, when reuse was asked for. */
+    inventory: jsonb("inventory").$type<Record<string, unknown>[] | null>(),
     submittedBy: text("submitted_by").notNull().references(() => users.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     startedAt: timestamp("started_at", { withTimezone: true }),
@@ -96,6 +100,12 @@ export const candidates = pgTable(
     /** Total volume over the single-PFR volume of the same scenario. */
     ratioToPfr: doublePrecision("ratio_to_pfr"),
     reason: text("reason"),
+    /** Installed cost (purchase × installation factor, less reused vessels), when the sweep had a cost basis. */
+    installedCost: doublePrecision("installed_cost"),
+    /** Probability that the fixed train meets the target under the sweep's uncertain inputs. */
+    probabilityMeet: doublePrecision("probability_meet"),
+    /** Which inventory vessel equips which stage, and what is bought, when reuse was asked for. */
+    inventoryPlan: jsonb("inventory_plan").$type<Record<string, unknown> | null>(),
     /** Stages without their plot data. */
     stages: jsonb("stages").$type<Record<string, unknown>[]>().notNull(),
     /** Levenspiel plot data per stage (curve and area), read only when a chart is drawn. */

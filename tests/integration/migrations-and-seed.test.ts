@@ -10,6 +10,7 @@ const journal = JSON.parse(readFileSync("drizzle/meta/_journal.json", "utf8")) a
 const TABLES = [
   ...["users", "accounts", "sessions", "verification_tokens", "teams", "memberships", "projects", "invitations", "audit_entries", "sign_in_attempts"],
   ...["kinetics_models", "kinetics_versions", "sweeps", "scenarios", "candidates", "pinned_designs", "api_tokens"],
+  ...["rate_datasets", "rate_dataset_versions", "kinetics_sources", "project_cost_settings", "inventory_vessels", "robustness_runs"],
 ];
 
 describe("migrations on an empty database", () => {
