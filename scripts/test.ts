@@ -148,10 +148,12 @@ async function main(): Promise<number> {
     const vitestJson = (f: string) => ["--reporter=default", "--reporter=json", `--outputFile.json=${path.join(results, f)}`];
     if (wanted("typecheck")) steps.push(run("typecheck", bin("tsc"), ["--noEmit", "-p", "."]));
     if (wanted("lint")) steps.push(run("lint", bin("eslint"), ["--max-warnings=0", "."]));
-    if (wanted("unit")) steps.push(run("unit", bin("vitest"), ["run", "--project", "unit", ...vitestJson("unit.json")]));
+    // VITEST_FILES="tests/unit/x.test.ts" narrows the unit and integration steps to those files (daily work).
+    const vitestFiles = (process.env.VITEST_FILES ?? "").split(/\s+/).filter(Boolean);
+    if (wanted("unit")) steps.push(run("unit", bin("vitest"), ["run", "--project", "unit", ...vitestJson("unit.json"), ...vitestFiles]));
     if (wanted("integration")) {
       steps.push(
-        run("integration", bin("vitest"), ["run", "--project", "integration", ...vitestJson("integration.json")], {
+        run("integration", bin("vitest"), ["run", "--project", "integration", ...vitestJson("integration.json"), ...vitestFiles], {
           DATABASE_URL: templateUrl,
           TEST_PG_SERVER_URL: cluster.serverUrl,
         }),
@@ -170,7 +172,8 @@ async function main(): Promise<number> {
           await seedDemoData(createDb(pool));
           await pool.end();
           steps.push(
-            run("e2e", bin("playwright"), ["test"], {
+            // E2E_FILES="tests/e2e/a.spec.ts tests/e2e/b.spec.ts" runs only those files (daily work).
+            run("e2e", bin("playwright"), ["test", ...(process.env.E2E_FILES ?? "").split(/\s+/).filter(Boolean)], {
               DATABASE_URL: e2eUrl,
               E2E_PORT: String(await freePort()),
               MAIL_FAKE_SMTP_PORT: String(await freePort()),
