@@ -17,6 +17,7 @@ import {
   sweepCreateSchema,
   tokenCreateSchema,
 } from "./schemas/sweeps";
+import { fitRequestSchema, fitSaveSchema } from "./schemas/fits";
 
 type Method = "get" | "post" | "patch" | "delete";
 
@@ -53,6 +54,8 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/kinetics/{modelId}", summary: "A kinetics model with every version" },
   { method: "post", path: "/api/kinetics/{modelId}/versions", summary: "Save a new version of a kinetics model", body: kineticsVersionCreateSchema, status: 201 },
   { method: "post", path: "/api/kinetics/preview", summary: "Levenspiel curve, equilibrium limit and single-stage references of a draft, without queueing", body: kineticsPreviewSchema },
+  { method: "post", path: "/api/dataset-versions/{versionId}/fits", summary: "Fit rate laws to a dataset version: parameters with standard errors and 95 % intervals, RSS, R², AIC, parity and residuals (nothing stored)", body: fitRequestSchema },
+  { method: "post", path: "/api/dataset-versions/{versionId}/kinetics", summary: "Refit one law and save it as a kinetics model or a new version, with the dataset version as its source", body: fitSaveSchema, status: 201 },
   { method: "get", path: "/api/projects/{projectId}/sweeps", summary: "Sweeps of a project, newest first" },
   { method: "post", path: "/api/projects/{projectId}/sweeps", summary: "Submit a sweep: kinetics version, target, train space, objective, scenario grid", body: sweepCreateSchema, status: 201 },
   { method: "get", path: "/api/sweeps/{sweepId}", summary: "A sweep with its progress" },
