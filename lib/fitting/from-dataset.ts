@@ -118,7 +118,10 @@ export function tryFit(law: RateModelKind, prepared: PreparedPoints): LawResult 
     if (!finite) return { law, ok: false, error: "the fit did not settle on finite parameters: the data do not support this law" };
     return { law, ok: true, fit };
   } catch (err) {
-    return { law, ok: false, error: err instanceof Error ? err.message : String(err) };
+    const message = err instanceof Error ? err.message : String(err);
+    // ml-matrix reports a singular system in its own words; say what it means for the fit.
+    if (/singular/i.test(message)) return { law, ok: false, error: "the data do not determine this law's parameters (the fit's normal equations are singular): the data do not support this law" };
+    return { law, ok: false, error: message };
   }
 }
 

@@ -1,4 +1,4 @@
-import { and, eq, inArray } from "drizzle-orm";
+import { and, desc, eq, inArray } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
 import { kineticsSources, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
@@ -130,4 +130,25 @@ export async function listKineticsSources(db: Executor, actor: Actor, kineticsVe
     .innerJoin(rateDatasetVersions, eq(rateDatasetVersions.id, kineticsSources.datasetVersionId))
     .innerJoin(rateDatasets, eq(rateDatasets.id, rateDatasetVersions.datasetId))
     .where(and(inArray(kineticsSources.kineticsVersionId, kineticsVersionIds), eq(kineticsModels.teamId, actor.teamId)));
+}
+
+/** A dataset of the actor's team and one of its versions by number (the latest when absent), for the fit screen. */
+export async function getDatasetVersionForFit(db: Executor, actor: Actor, datasetId: string, versionNumber?: number) {
+  const [dataset] = await db.select().from(rateDatasets).where(and(eq(rateDatasets.id, datasetId), eq(rateDatasets.teamId, actor.teamId)));
+  if (!dataset) throw notFound("dataset");
+  assertCan(actor, "dataset.read", { teamId: dataset.teamId }, "dataset");
+  const all = await db
+    .select({ id: rateDatasetVersions.id, version: rateDatasetVersions.version, rowCount: rateDatasetVersions.rowCount, feedConcA: rateDatasetVersions.feedConcA, rows: rateDatasetVersions.rows })
+    .from(rateDatasetVersions)
+    .where(eq(rateDatasetVersions.datasetId, datasetId))
+    .orderBy(desc(rateDatasetVersions.version));
+  const version = versionNumber === undefined ? all[0] : all.find((v) => v.version === versionNumber);
+  if (!version) throw notFound("dataset version");
+  const rows = version.rows as DatasetRow[];
+  const columns = (["conversion", "concA", "concR", "temperature"] as const).filter((c) => rows.some((r) => typeof r[c] === "number"));
+  return {
+    dataset,
+    version: { id: version.id, version: version.version, rowCount: version.rowCount, feedConcA: version.feedConcA, columns },
+    versions: all.map((v) => v.version),
+  };
 }

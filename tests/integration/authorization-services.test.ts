@@ -8,6 +8,8 @@ import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
+import { rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
+import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -26,6 +28,7 @@ const actors = {} as Record<Who, Actor>;
 let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
+let datasetVersionId: string;
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -38,6 +41,11 @@ beforeAll(async () => {
   const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
   engineersProject = p.id;
   managersProject = (await createProject(t.db, actors.manager, { name: "Manager's own study", description: "" })).id;
+  // A dataset version written straight to the tables (the upload is another feature's route).
+  const [ds] = await t.db.insert(rateDatasets).values({ teamId: actors.engineer.teamId, projectId: engineersProject, name: "Matrix rates", createdBy: actors.engineer.userId }).returning();
+  const rows = [100, 200, 300, 400, 500].map((c) => ({ concA: c, rate: 1e-3 * c }));
+  const [dv] = await t.db.insert(rateDatasetVersions).values({ datasetId: ds.id, version: 1, fileName: "m.csv", format: "csv", mapping: {}, rows, rowCount: rows.length, createdBy: actors.engineer.userId }).returning();
+  datasetVersionId = dv.id;
 });
 afterAll(() => t.drop());
 
@@ -70,6 +78,12 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
   { name: "list members", run: (a) => listMembers(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
   { name: "change a member's role", run: (a) => updateMemberRole(t.db, a, viewerId, "viewer"), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "list invitations", run: (a) => listOpenInvitations(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
+  { name: "fit rate laws to a dataset version", run: (a) => fitDatasetVersion(t.db, a, datasetVersionId, { laws: ["power"] }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  {
+    name: "save a fit as kinetics",
+    run: (a) => saveFitAsKinetics(t.db, a, datasetVersionId, { law: "power", modelName: `Fit by ${a.role} ${Math.random()}`, feed: { flowA: 0.1, concA: 1000 }, note: "" }),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
+  },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
 ];
 

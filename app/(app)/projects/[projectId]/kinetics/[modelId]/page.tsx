@@ -11,6 +11,8 @@ import { can } from "@/lib/authz/policy";
 import { uuidSchema } from "@/lib/schemas/foundation";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { getKineticsModel } from "@/lib/services/kinetics";
+import { FitSourceLine } from "@/components/fitting/fit-source-line";
+import { listKineticsSources } from "@/lib/services/fits";
 
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Kinetics" };
@@ -31,6 +33,7 @@ export default async function KineticsModelPage({
   const model = await orNotFound(getKineticsModel(getDb(), actor, modelId));
   if (model.projectId !== project.id) notFound();
   const latest = model.versions[0];
+  const sources = new Map((await listKineticsSources(getDb(), actor, model.versions.map((v) => v.id))).map((s) => [s.kineticsVersionId, s]));
   let initial;
   try {
     initial = specToForm(normaliseKineticsSpec(latest.spec as KineticsSpec), { note: "" });
@@ -83,7 +86,10 @@ export default async function KineticsModelPage({
                 <td className="num">v{v.version}</td>
                 <td className="num whitespace-nowrap">{fmt.format(v.createdAt)}</td>
                 <td>{((v.spec as KineticsSpec).reaction?.rate?.law ?? "—").toString()}</td>
-                <td className="text-ink-soft">{v.note || "—"}</td>
+                <td className="text-ink-soft">
+                  {v.note || "—"}
+                  {sources.has(v.id) ? <FitSourceLine projectId={project.id} source={sources.get(v.id)!} /> : null}
+                </td>
               </tr>
             ))}
           </tbody>
