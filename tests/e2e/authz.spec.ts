@@ -1,12 +1,13 @@
 import { expect, test, type APIRequestContext, type APIResponse } from "@playwright/test";
 import { signedInContext, USERS, type Who } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { insertDatasetVersion } from "./dataset-fixtures";
 
 type Caller = Who | "anonymous";
 const CALLERS: Caller[] = ["admin", "manager", "engineer", "viewer", "otherTeam", "anonymous"];
 
 const ctx = {} as Record<Caller, APIRequestContext>;
-const ids = { project: "", managerProject: "", viewer: "", kestrelTeam: "", brightwaterTeam: "", model: "", version: "", sweep: "", candidates: [] as string[], pin: "" };
+const ids = { project: "", managerProject: "", viewer: "", kestrelTeam: "", brightwaterTeam: "", model: "", version: "", sweep: "", candidates: [] as string[], pin: "", datasetVersion: "" };
 
 test.beforeAll(async () => {
   for (const c of CALLERS) ctx[c] = await signedInContext(c);
@@ -28,6 +29,8 @@ test.beforeAll(async () => {
   const page = (await (await ctx.engineer.get(`/api/sweeps/${sweep.id}/scenarios/0/candidates`)).json()) as CandidatePage;
   ids.candidates = page.items.map((c) => c.id);
   ids.pin = await newPinId();
+  const rows = [100, 200, 300, 400, 500].map((c) => ({ concA: c, rate: 1e-3 * c }));
+  ids.datasetVersion = (await insertDatasetVersion({ email: USERS.engineer, projectName: "Ester line 3 revamp", name: "Matrix rates", rows })).versionId;
 });
 
 async function newPinId(): Promise<string> {
@@ -129,6 +132,16 @@ const ROWS: Row[] = [
     route: "POST /api/kinetics/preview",
     call: (c) => c.post("/api/kinetics/preview", { data: { spec: SPEC } }),
     expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 200, anonymous: 401 },
+  },
+  {
+    route: "POST /api/dataset-versions/:id/fits",
+    call: (c) => c.post(`/api/dataset-versions/${ids.datasetVersion}/fits`, { data: { laws: ["power"] } }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/dataset-versions/:id/kinetics",
+    call: (c) => c.post(`/api/dataset-versions/${ids.datasetVersion}/kinetics`, { data: { law: "power", modelName: `Fit ${Math.random()}`, feed: { flowA: 0.1, concA: 1000 } } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
   },
   { route: "GET /api/projects/:id/sweeps", call: (c) => c.get(`/api/projects/${ids.project}/sweeps`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
   {
