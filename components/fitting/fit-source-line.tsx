@@ -11,7 +11,7 @@ interface Source {
 }
 
 /** "Fitted to <dataset> vN — power law, k = … ± …, n = … ± …, R² = …", linking to the fit screen. */
-export function FitSourceLine({ projectId, source }: { projectId: string; source: Source }) {
+export function FitSourceLine({ projectId, source, testId = "kinetics-source" }: { projectId: string; source: Source; testId?: string }) {
   const href = `/projects/${projectId}/datasets/${source.datasetId}/fit?version=${source.datasetVersion}`;
   const fit = source.fit as { law?: FitLaw; parameters?: FitParameterOut[]; rSquared?: number } | null;
   const link = (
@@ -20,11 +20,11 @@ export function FitSourceLine({ projectId, source }: { projectId: string; source
     </Link>
   );
   if (source.kind !== "fit" || !fit?.law) {
-    return <span className="block text-xs" data-testid="kinetics-source">Measured table from {link}</span>;
+    return <span className="block text-xs" data-testid={testId}>Measured table from {link}</span>;
   }
   const params = (fit.parameters ?? []).map(valuePlusMinus).join(", ");
   return (
-    <span className="block text-xs text-ink" data-testid="kinetics-source">
+    <span className="block text-xs text-ink" data-testid={testId}>
       Fitted to {link} — {FIT_LAW_INFO[fit.law].label.toLowerCase()}, {params}, R² = {sig(fit.rSquared, 5)}
     </span>
   );

@@ -1,8 +1,12 @@
+import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
 import { insertDatasetVersion } from "./dataset-fixtures";
 import { DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
+
+const SHOTS = "test-results/screens";
+mkdirSync(SHOTS, { recursive: true });
 
 async function expectNoSeriousA11yViolations(page: Page) {
   const result = await new AxeBuilder({ page }).analyze();
@@ -48,6 +52,7 @@ test("an engineer fits two laws to a dataset version, compares them and saves on
   await expect(page.getByTestId("residual-plot")).toContainText("Residuals: Saturation");
   await expect(page.getByTestId("parity-plot").locator("svg").first()).toBeVisible();
   await expectNoSeriousA11yViolations(page);
+  await page.screenshot({ path: `${SHOTS}/fit-screen.png`, fullPage: true });
 
   const save = page.getByTestId("save-fit-form");
   await save.getByLabel("Model name").fill(`Lipase saturation ${Date.now()}`);
@@ -60,6 +65,7 @@ test("an engineer fits two laws to a dataset version, compares them and saves on
   await expect(source).toContainText(`Fitted to ${name} v1 — saturation, vmax = `);
   await expect(source).toContainText("R² = 0.99");
   await expect(source.getByRole("link", { name: `${name} v1` })).toHaveAttribute("href", `/projects/${projectId}/datasets/${datasetId}/fit?version=1`);
+  await page.screenshot({ path: `${SHOTS}/kinetics-fitted-source.png`, fullPage: true });
   await expectNoSeriousA11yViolations(page);
 });
 

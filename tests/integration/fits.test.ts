@@ -10,6 +10,7 @@ import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/http";
 import { fitRequestSchema, fitSaveSchema } from "@/lib/schemas/fits";
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
+import { createKineticsModel } from "@/lib/services/kinetics";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 const R = 8.314462618; // J/(mol K), CODATA 2018 exact
@@ -151,6 +152,16 @@ describe("saving a fit as kinetics", () => {
     const again = await saveFitAsKinetics(t.db, engineer, versions.concentration, parseWith(fitSaveSchema, { law: "power", modelId: saved.model.id, feed: FEED, note: "second save" }));
     expect(again.version.version).toBe(2);
     expect((await counts()).sources).toBe(before.sources + 2);
+  });
+
+  it("the version and its source are one transaction: a source that cannot be written leaves no model or version", async () => {
+    const before = await counts();
+    const spec = { feed: { flowA: 0.4, concA: 1000 }, reaction: { rate: { law: "power" as const, k: 1e-3, orders: { A: 1 } } } };
+    // A dataset version id that does not exist: the source row's foreign key fails inside the transaction.
+    const source = { datasetVersionId: "00000000-0000-4000-8000-000000000000", kind: "fit" as const, fit: {} };
+    await expect(createKineticsModel(t.db, engineer, projectId, { name: "Orphan source", spec, note: "", source })).rejects.toThrow();
+    expect(await counts()).toEqual(before);
+    expect((await t.db.select().from(kineticsModels).where(eq(kineticsModels.name, "Orphan source"))).length).toBe(0);
   });
 
   it("bad input: 400 naming the field, nothing written", async () => {

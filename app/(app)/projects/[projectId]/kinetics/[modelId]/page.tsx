@@ -50,6 +50,7 @@ export default async function KineticsModelPage({
           <p className="text-ink-soft">
             Latest: version {latest.version}, {fmt.format(latest.createdAt)} UTC{latest.note ? ` · ${latest.note}` : ""}
           </p>
+          {sources.has(latest.id) ? <FitSourceLine projectId={project.id} source={sources.get(latest.id)!} testId="latest-source" /> : null}
         </div>
         {can(actor, "sweep.create") ? (
           <Link href={`/projects/${project.id}/sweeps/new?version=${latest.id}`} className="btn-primary">
@@ -87,7 +88,7 @@ export default async function KineticsModelPage({
                 <td className="num whitespace-nowrap">{fmt.format(v.createdAt)}</td>
                 <td>{((v.spec as KineticsSpec).reaction?.rate?.law ?? "—").toString()}</td>
                 <td className="text-ink-soft">
-                  {v.note || "—"}
+                  {v.note || (sources.has(v.id) ? null : "—")}
                   {sources.has(v.id) ? <FitSourceLine projectId={project.id} source={sources.get(v.id)!} /> : null}
                 </td>
               </tr>
