@@ -65,7 +65,7 @@ for (const [name, spec] of [
   const report = pinOf(spec);
   for (let i = 0; i < 3; i++) await renderReportPdf(report);
   const times: number[] = [];
-  let pdf = Buffer.alloc(0);
+  let pdf: Buffer = Buffer.alloc(0);
   for (let i = 0; i < 15; i++) {
     const t0 = performance.now();
     pdf = await renderReportPdf(report);
