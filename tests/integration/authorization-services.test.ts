@@ -8,6 +8,9 @@ import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
+import { pinnedDesigns } from "@/db/schema-sweeps";
+import { getDesignReport } from "@/lib/reports/design-report";
+import { exportCandidates } from "@/lib/services/candidate-export";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -26,6 +29,7 @@ const actors = {} as Record<Who, Actor>;
 let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
+let demoPin: { id: string; sweepId: string };
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -38,6 +42,8 @@ beforeAll(async () => {
   const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
   engineersProject = p.id;
   managersProject = (await createProject(t.db, actors.manager, { name: "Manager's own study", description: "" })).id;
+  const [pin] = await t.db.select().from(pinnedDesigns).where(eq(pinnedDesigns.projectId, engineersProject));
+  demoPin = { id: pin.id, sweepId: pin.sweepId! };
 });
 afterAll(() => t.drop());
 
@@ -70,6 +76,8 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
   { name: "list members", run: (a) => listMembers(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
   { name: "change a member's role", run: (a) => updateMemberRole(t.db, a, viewerId, "viewer"), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "list invitations", run: (a) => listOpenInvitations(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
+  { name: "read the design report of a proposed pin", run: (a) => getDesignReport(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
+  { name: "export a scenario's candidates", run: (a) => exportCandidates(t.db, a, demoPin.sweepId, 0, { sort: "rank", dir: "asc" }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
 ];
 
