@@ -252,9 +252,9 @@ function table(doc: Doc, headings: string[], rows: string[][], widths: number[],
 }
 
 function stageTable(doc: Doc, r: DesignReport) {
-  heading(doc, "Stages");
   // Keep a short table on one page with its heading.
-  if (r.stages.length <= 8) ensureSpace(doc, 40 + r.stages.length * 26);
+  if (r.stages.length <= 8) ensureSpace(doc, 80 + r.stages.length * 26);
+  heading(doc, "Stages");
   table(
     doc,
     STAGE_COLUMNS.map((c) => c.heading),
