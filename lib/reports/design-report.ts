@@ -3,7 +3,7 @@
  * the JSON export and the CSV export all render. Sections whose tables hold no row say so
  * ("not recorded") rather than disappearing, so a reader sees what was never done.
  */
-import { and, desc, eq, inArray } from "drizzle-orm";
+import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { CAUTION_TEXTS, thermalWarnings } from "@/components/cautions/cautions";
 import type { Database } from "@/db/client";
 import { projects, users } from "@/db/schema";
@@ -345,7 +345,8 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
       .select({ id: robustnessRuns.id, request: robustnessRuns.request, result: robustnessRuns.result, finishedAt: robustnessRuns.finishedAt })
       .from(robustnessRuns)
       .where(and(eq(robustnessRuns.pinId, pin.id), eq(robustnessRuns.teamId, actor.teamId), eq(robustnessRuns.status, "succeeded")))
-      .orderBy(desc(robustnessRuns.finishedAt), desc(robustnessRuns.createdAt))
+      // Latest finished first; a run without a finish time (should not happen once succeeded) goes last.
+      .orderBy(sql`${robustnessRuns.finishedAt} desc nulls last`, desc(robustnessRuns.createdAt))
       .limit(1),
     userNames(db, [pin.pinnedBy, pin.reviewerId]),
   ]);

@@ -1,4 +1,4 @@
-import { readFileSync } from "node:fs";
+import { mkdirSync, readFileSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import Papa from "papaparse";
@@ -55,6 +55,8 @@ test("the manager opens the demo pin's report from the project page, reads the t
   for (const c of CAUTION_TEXTS) await expect(page.getByTestId("cautions").first()).toContainText(c);
   await expect(page.getByTestId("report-costs")).toContainText("not recorded");
 
+  mkdirSync("test-results/screens", { recursive: true });
+  await page.screenshot({ path: "test-results/screens/design-report.png", fullPage: true });
   const axe = await new AxeBuilder({ page }).analyze();
   const bad = axe.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
   expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
