@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { candidateExportQuerySchema } from "./schemas/report-exports";
 import {
   invitationAcceptSchema,
   invitationCreateSchema,
@@ -69,6 +70,10 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/projects/{projectId}/pins", summary: "Pinned designs of a project (viewers: approved only)" },
   { method: "get", path: "/api/pins/{pinId}", summary: "A pinned design with its frozen candidate and spec" },
   { method: "post", path: "/api/pins/{pinId}/review", summary: "Approve or reject a proposed design (managers)", body: reviewSchema },
+  { method: "get", path: "/api/pins/{pinId}/report.pdf", summary: "The design report of a pinned design as an A4 PDF (attachment)" },
+  { method: "get", path: "/api/pins/{pinId}/export.json", summary: "The design report of a pinned design as JSON, with the cautions (attachment)" },
+  { method: "get", path: "/api/pins/{pinId}/export.csv", summary: "The stage table of a pinned design as CSV, units in the headers (attachment)" },
+  { method: "get", path: "/api/sweeps/{sweepId}/scenarios/{index}/candidates/export", summary: "Every candidate of one scenario as CSV or JSON, sorted and filtered as the ranked table", query: candidateExportQuerySchema },
   { method: "get", path: "/api/tokens", summary: "Your personal API tokens (never the tokens themselves)" },
   { method: "post", path: "/api/tokens", summary: "Create a personal API token; shown once", body: tokenCreateSchema, status: 201 },
   { method: "delete", path: "/api/tokens/{tokenId}", summary: "Revoke a personal API token", status: 204 },

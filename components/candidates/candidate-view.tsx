@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
 import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { candidateExportHref } from "@/components/reports/export-links";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
@@ -64,7 +65,15 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
             Scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
           </p>
         </div>
-        <UnitSelect id="cand-unit" value={unit} onChange={setUnit} />
+        <div className="flex flex-wrap items-end gap-2">
+          <a className="btn-quiet" href={candidateExportHref(c.sweep.id, c.scenario.index, "csv")} download data-testid="candidate-export-csv">
+            Scenario CSV
+          </a>
+          <a className="btn-quiet" href={candidateExportHref(c.sweep.id, c.scenario.index, "json")} download data-testid="candidate-export-json">
+            Scenario JSON
+          </a>
+          <UnitSelect id="cand-unit" value={unit} onChange={setUnit} />
+        </div>
       </header>
 
       <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">

@@ -25,6 +25,8 @@ export interface PinRow {
   stageTemperatures: number[];
   spec: Record<string, unknown>;
   canReview: boolean;
+  /** The printable report page of this pin. */
+  reportHref?: string;
 }
 
 const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
@@ -76,6 +78,16 @@ function PinItem({ pin, isCurrent }: { pin: PinRow; isCurrent: boolean }) {
           {formatQuantity("volume", pin.totalVolume, "m3")}
           {pin.totalCost !== null ? ` · cost ${pin.totalCost.toPrecision(4)}` : ""}
         </span>
+        {pin.reportHref ? (
+          <span className="ml-auto flex gap-2">
+            <a href={pin.reportHref} className="btn-quiet py-0.5 text-xs" data-testid="pin-report">
+              Report
+            </a>
+            <a href={`/api/pins/${pin.id}/report.pdf`} download className="btn-quiet py-0.5 text-xs" data-testid="pin-pdf">
+              PDF
+            </a>
+          </span>
+        ) : null}
       </div>
       <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[8rem_1fr]">
         <dt className="text-ink-soft">Pinned by</dt>

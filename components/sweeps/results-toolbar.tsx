@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { COLUMN_TITLES } from "./ranked-table";
 import { UnitSelect } from "./unit-select";
+import { candidateExportHref } from "@/components/reports/export-links";
 import { downloadText, exportCandidatesCsv } from "./csv-export";
 import { OPTIONAL_COLUMNS, PAGE_SIZES, type SweepViewState } from "./view-state";
 
@@ -89,9 +90,17 @@ export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; vi
         </div>
       </fieldset>
       <div className="ml-auto flex flex-col items-end">
-        <button type="button" className="btn-quiet" onClick={onExport} disabled={exporting !== null} data-testid="export-csv">
-          {exporting ? `Exporting ${exporting}` : "Export CSV"}
-        </button>
+        <div className="flex gap-2">
+          <button type="button" className="btn-quiet" onClick={onExport} disabled={exporting !== null} data-testid="export-csv">
+            {exporting ? `Exporting ${exporting}` : "Export CSV"}
+          </button>
+          <a className="btn-quiet" href={candidateExportHref(sweepId, view.scenario, "csv", view)} download data-testid="export-server-csv" title="Every candidate, SI units, from the server">
+            CSV (SI)
+          </a>
+          <a className="btn-quiet" href={candidateExportHref(sweepId, view.scenario, "json", view)} download data-testid="export-server-json">
+            JSON
+          </a>
+        </div>
         {exportError ? (
           <p role="alert" className="field-error">
             {exportError}

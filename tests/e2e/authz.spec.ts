@@ -188,6 +188,16 @@ const ROWS: Row[] = [
     call: async (c) => c.post(`/api/pins/${await newPinId()}/review`, { data: { decision: "approve", comment: "within the envelope" } }),
     expect: { admin: 200, manager: 200, engineer: 403, viewer: 403, otherTeam: 404, anonymous: 401 },
   },
+  ...["report.pdf", "export.json", "export.csv"].map((file) => ({
+    route: `GET /api/pins/:id/${file} (a proposed pin: hidden from viewers)`,
+    call: (c: APIRequestContext) => c.get(`/api/pins/${ids.pin}/${file}`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 404, otherTeam: 404, anonymous: 401 },
+  })),
+  {
+    route: "GET /api/sweeps/:id/scenarios/:index/candidates/export",
+    call: (c) => c.get(`/api/sweeps/${ids.sweep}/scenarios/0/candidates/export?format=csv`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
   { route: "GET /api/tokens", call: (c) => c.get("/api/tokens"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },
   { route: "POST /api/tokens", call: (c) => c.post("/api/tokens", { data: { name: "matrix" } }), expect: { admin: 201, manager: 201, engineer: 201, viewer: 201, otherTeam: 201, anonymous: 401 } },
   {

@@ -10,6 +10,9 @@ import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, u
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
 import { rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
+import { pinnedDesigns } from "@/db/schema-sweeps";
+import { getDesignReport } from "@/lib/reports/design-report";
+import { exportCandidates } from "@/lib/services/candidate-export";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -29,6 +32,7 @@ let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
 let datasetVersionId: string;
+let demoPin: { id: string; sweepId: string };
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -46,6 +50,8 @@ beforeAll(async () => {
   const rows = [100, 200, 300, 400, 500].map((c) => ({ concA: c, rate: 1e-3 * c }));
   const [dv] = await t.db.insert(rateDatasetVersions).values({ datasetId: ds.id, version: 1, fileName: "m.csv", format: "csv", mapping: {}, rows, rowCount: rows.length, createdBy: actors.engineer.userId }).returning();
   datasetVersionId = dv.id;
+  const [pin] = await t.db.select().from(pinnedDesigns).where(eq(pinnedDesigns.projectId, engineersProject));
+  demoPin = { id: pin.id, sweepId: pin.sweepId! };
 });
 afterAll(() => t.drop());
 
@@ -84,6 +90,8 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
     run: (a) => saveFitAsKinetics(t.db, a, datasetVersionId, { law: "power", modelName: `Fit by ${a.role} ${Math.random()}`, feed: { flowA: 0.1, concA: 1000 }, note: "" }),
     expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
   },
+  { name: "read the design report of a proposed pin", run: (a) => getDesignReport(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
+  { name: "export a scenario's candidates", run: (a) => exportCandidates(t.db, a, demoPin.sweepId, 0, { sort: "rank", dir: "asc" }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
 ];
 

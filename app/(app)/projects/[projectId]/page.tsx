@@ -49,6 +49,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       stageTemperatures: (c.stages ?? []).map((s) => s.temperatureOut ?? NaN).filter(Number.isFinite),
       spec: p.spec,
       canReview: can(actor, "pin.review") && p.pinnedBy !== actor.userId,
+      reportHref: `/projects/${project.id}/pins/${p.id}/report`,
     };
   });
   const canAuthor = can(actor, "kinetics.create");

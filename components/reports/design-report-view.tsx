@@ -1,0 +1,253 @@
+import { TemperatureProfile } from "@/components/candidates/temperature-profile";
+import { Cautions } from "@/components/cautions/cautions";
+import { LevenspielChart } from "@/components/charts/levenspiel-chart";
+import type { StoredStage } from "@/components/sweeps/types";
+import type { DesignReport } from "@/lib/reports/design-report";
+import type { WordLine } from "@/lib/reports/kinetics-words";
+import { fmtConversion, fmtDate, fmtMoney, fmtPercent, fmtVolume, sig, STAGE_COLUMNS } from "@/lib/reports/report-format";
+
+function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
+  return (
+    <section className="report-section card p-4" aria-labelledby={id}>
+      <h2 id={id} className="mb-2">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+function Pairs({ lines }: { lines: WordLine[] }) {
+  return (
+    <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[14rem_1fr]">
+      {lines.map((l, i) => (
+        <div key={`${l.label}-${i}`} className="contents">
+          <dt className="text-ink-soft">{l.label}</dt>
+          <dd>{l.value}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+const NotRecorded = ({ children }: { children: React.ReactNode }) => <p className="text-sm text-ink-soft">{children}</p>;
+
+/** The design report on screen and on paper: every section of the report model, in the PDF's order. */
+export function DesignReportView({ report: r }: { report: DesignReport }) {
+  const cs = r.costs.settings;
+  const currency = cs.recorded ? cs.currency : null;
+  return (
+    <article id="design-report" className="space-y-4" data-testid="design-report">
+      <header className="space-y-1">
+        <p className="text-sm text-ink-soft">Design report · {r.project.name}</p>
+        <h1 data-testid="report-train">{r.train.label || "Pinned design"}</h1>
+        <Pairs
+          lines={[
+            { label: "Review state", value: r.pin.reviewedBy ? `${r.pin.stateLabel} by ${r.pin.reviewedBy}, ${fmtDate(r.pin.reviewedAt)}` : r.pin.stateLabel },
+            ...(r.pin.reviewComment ? [{ label: "Review comment", value: `“${r.pin.reviewComment}”` }] : []),
+            { label: "Pinned by", value: `${r.pin.pinnedBy}, ${fmtDate(r.pin.pinnedAt)}` },
+            { label: "Kinetics", value: `${r.kinetics.label} (${r.kinetics.law})` },
+            { label: "Generated", value: fmtDate(r.generatedAt) },
+          ]}
+        />
+      </header>
+
+      <Cautions warnings={r.cautions.warnings} />
+
+      <Section id="report-train-title" title="Train">
+        <Pairs
+          lines={[
+            { label: "Sequence", value: r.train.label },
+            { label: "Target conversion", value: fmtConversion(r.target.conversion) },
+            { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
+            { label: "Total volume", value: fmtVolume(r.train.totalVolume) },
+            ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost, currency) }] : []),
+            { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : sig(r.train.ratioToPfr, 4) },
+          ]}
+        />
+      </Section>
+
+      <Section id="report-chart-title" title="Levenspiel plot">
+        <div className="report-chart">
+          <LevenspielChart curve={r.chart.curve} stages={r.chart.stages} target={r.chart.target ?? undefined} equilibrium={r.chart.equilibrium} />
+        </div>
+      </Section>
+
+      <Section id="report-stages-title" title="Stages">
+        <div className="overflow-x-auto">
+          <table className="table-dense" data-testid="report-stage-table">
+            <thead>
+              <tr>
+                {STAGE_COLUMNS.map((c) => (
+                  <th key={c.heading} scope="col" className={c.numeric ? "text-right" : undefined}>
+                    {c.heading}
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody>
+              {r.stages.map((s) => (
+                <tr key={s.index}>
+                  {STAGE_COLUMNS.map((c) => (
+                    <td key={c.heading} className={c.numeric ? "num text-right whitespace-nowrap" : undefined}>
+                      {c.shown(s)}
+                    </td>
+                  ))}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </Section>
+
+      {r.thermal.mode === "adiabatic" && r.stages.length ? (
+        <Section id="report-temperature-title" title="Temperature profile (adiabatic)">
+          <TemperatureProfile stages={r.stages as unknown as StoredStage[]} />
+        </Section>
+      ) : null}
+
+      <div className="grid gap-4 lg:grid-cols-2">
+        <Section id="report-feed-title" title="Feed">
+          <Pairs lines={r.feed} />
+        </Section>
+        <Section id="report-kinetics-title" title="Kinetics">
+          <Pairs lines={[{ label: "Model and version", value: r.kinetics.label }, { label: "Rate law", value: `${r.kinetics.law}: ${r.kinetics.formula}` }, ...r.kinetics.parameters, ...r.kinetics.reaction]} />
+        </Section>
+      </div>
+
+      <Section id="report-source-title" title="Source of the kinetics">
+        {!r.source.recorded ? (
+          <NotRecorded>Not recorded: the kinetics were typed in, not derived from a rate dataset.</NotRecorded>
+        ) : (
+          <div className="space-y-2">
+            <Pairs
+              lines={[
+                { label: "Dataset", value: `${r.source.dataset}, version ${r.source.datasetVersion} (${r.source.fileName}, ${r.source.rowCount} rows)` },
+                { label: "Use", value: r.source.kind === "fit" ? "fitted rate law" : "measured table" },
+                ...(r.source.fit ? [{ label: "Fitted law", value: r.source.fit.formula ?? r.source.fit.law ?? "—" }, { label: "R²", value: r.source.fit.rSquared === null ? "—" : r.source.fit.rSquared.toFixed(4) }] : []),
+              ]}
+            />
+            {r.source.fit?.parameters.length ? (
+              <table className="table-dense">
+                <thead>
+                  <tr>
+                    <th scope="col">Parameter</th>
+                    <th scope="col" className="text-right">
+                      Value
+                    </th>
+                    <th scope="col" className="text-right">
+                      Standard error
+                    </th>
+                    <th scope="col" className="text-right">
+                      95 % interval
+                    </th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {r.source.fit.parameters.map((p) => (
+                    <tr key={p.name}>
+                      <td>{p.name}</td>
+                      <td className="num text-right">{sig(p.value, 5)}</td>
+                      <td className="num text-right">{p.standardError === null ? "—" : `± ${sig(p.standardError, 3)}`}</td>
+                      <td className="num text-right">{p.interval95 ? `${sig(p.interval95[0], 4)} to ${sig(p.interval95[1], 4)}` : "—"}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            ) : null}
+          </div>
+        )}
+      </Section>
+
+      <div className="grid gap-4 lg:grid-cols-2">
+        <Section id="report-target-title" title="Target and search">
+          <Pairs lines={[{ label: "Target conversion", value: fmtConversion(r.target.conversion) }, ...r.objective]} />
+        </Section>
+        <Section id="report-references-title" title="Equilibrium and references">
+          <Pairs
+            lines={[
+              { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
+              { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR) },
+              { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR) },
+              { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${sig(r.references.feedVolumetricFlow, 4)} m³/s` },
+            ]}
+          />
+        </Section>
+      </div>
+
+      <Section id="report-costs-title" title="Costs">
+        <div className="space-y-2" data-testid="report-costs">
+          <Pairs
+            lines={[
+              { label: "Total vessel cost", value: fmtMoney(r.costs.totalCost, currency) },
+              { label: "Installed cost", value: r.costs.installedCost === null ? "not recorded" : fmtMoney(r.costs.installedCost, currency) },
+            ]}
+          />
+          {!cs.recorded ? (
+            <NotRecorded>Cost basis: not recorded for this project.</NotRecorded>
+          ) : (
+            <>
+              <Pairs lines={[{ label: "Currency and basis year", value: `${cs.currency ?? "—"}, ${cs.basisYear ?? "—"}` }, ...cs.other]} />
+              <ul className="list-disc pl-5 text-sm">
+                {cs.correlations.map((c) => (
+                  <li key={c.type}>
+                    {c.type}: cost = {sig(c.a)} + {sig(c.b)} · V^{sig(c.n)} (source: {c.source})
+                  </li>
+                ))}
+              </ul>
+            </>
+          )}
+          {!r.costs.inventoryPlan.recorded ? (
+            <NotRecorded>Reuse of idle vessels: not recorded.</NotRecorded>
+          ) : (
+            <ul className="list-disc pl-5 text-sm">
+              <li>
+                With reused vessels {fmtMoney(r.costs.inventoryPlan.totalCost, currency)} (all new: {fmtMoney(r.costs.inventoryPlan.allNewCost, currency)})
+              </li>
+              {r.costs.inventoryPlan.assignments.map((a) => (
+                <li key={a.stage}>
+                  Stage {a.stage}: {a.vesselId ? `reuse ${a.vesselTag ?? a.vesselId}` : "buy new"}, {fmtMoney(a.cost, currency)}
+                </li>
+              ))}
+            </ul>
+          )}
+        </div>
+      </Section>
+
+      <Section id="report-robustness-title" title="Robustness">
+        {!r.robustness.recorded ? (
+          <NotRecorded>Not recorded: no finished Monte Carlo run for this pinned design.</NotRecorded>
+        ) : (
+          <Pairs
+            lines={[
+              { label: "Samples and seed", value: `${r.robustness.samples ?? "—"} samples, seed ${r.robustness.seed ?? "—"}${r.robustness.refusedSamples ? `, ${r.robustness.refusedSamples} refused` : ""}` },
+              ...r.robustness.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
+              { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(r.robustness.p5)} / ${fmtConversion(r.robustness.p50)} / ${fmtConversion(r.robustness.p95)}` },
+              { label: "Mean outlet conversion", value: fmtConversion(r.robustness.mean) },
+              {
+                label: "Probability of missing the target",
+                value: `${fmtPercent(r.robustness.probabilityOfMissingTarget)} ± ${fmtPercent(r.robustness.probabilityStandardError)} (target ${fmtConversion(r.robustness.target)})`,
+              },
+              { label: "Finished", value: fmtDate(r.robustness.finishedAt) },
+            ]}
+          />
+        )}
+      </Section>
+
+      <Section id="report-assumptions-title" title="Assumptions">
+        <Pairs lines={[{ label: "Note of the pin", value: r.pin.note || "—" }]} />
+        <ul className="mt-2 list-disc pl-5 text-sm">
+          {r.assumptions.model.map((a) => (
+            <li key={a}>{a}</li>
+          ))}
+        </ul>
+        <details className="mt-2 text-sm">
+          <summary className="cursor-pointer text-accent-700">The frozen spec, as the engine read it</summary>
+          <pre className="mt-1 overflow-auto rounded bg-paper p-2 text-xs">{JSON.stringify(r.assumptions.spec, null, 2)}</pre>
+        </details>
+      </Section>
+
+      <Cautions warnings={r.cautions.warnings} className="report-cautions-end" />
+    </article>
+  );
+}

@@ -1,0 +1,386 @@
+/**
+ * The design report of a pinned design: one plain object that the printable page, the PDF,
+ * the JSON export and the CSV export all render. Sections whose tables hold no row say so
+ * ("not recorded") rather than disappearing, so a reader sees what was never done.
+ */
+import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { CAUTION_TEXTS, thermalWarnings } from "@/components/cautions/cautions";
+import type { Database } from "@/db/client";
+import { projects, users } from "@/db/schema";
+import { inventoryVessels, kineticsSources, projectCostSettings, rateDatasets, rateDatasetVersions, robustnessRuns } from "@/db/schema-design-basis";
+import { candidates, kineticsModels, kineticsVersions, type PinnedDesign } from "@/db/schema-sweeps";
+import type { Actor } from "@/lib/authz/policy";
+import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
+import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
+import { getPin } from "@/lib/services/pins";
+import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
+
+export const REPORT_FORMAT = "seriatim.design-report/1";
+
+export type PinState = PinnedDesign["state"];
+
+export const STATE_LABEL: Record<PinState, string> = {
+  proposed: "Proposed, pending review",
+  approved: "Approved",
+  rejected: "Rejected",
+  superseded: "Superseded",
+};
+
+export interface ReportStage {
+  index: number;
+  type: "CSTR" | "PFR";
+  conversionIn: number;
+  conversionOut: number;
+  /** K */
+  temperatureIn: number;
+  /** K */
+  temperatureOut: number;
+  /** m3 */
+  volume: number;
+  /** s */
+  residenceTime: number;
+  vesselCount: number;
+  /** m3 */
+  vesselSize: number;
+  cost: number | null;
+}
+
+export interface FitParameter {
+  name: string;
+  value: number;
+  standardError: number | null;
+  interval95: [number, number] | null;
+}
+
+export interface DesignReport {
+  format: typeof REPORT_FORMAT;
+  generatedAt: string;
+  project: { id: string; name: string; description: string };
+  pin: {
+    id: string;
+    state: PinState;
+    stateLabel: string;
+    note: string;
+    pinnedBy: string;
+    pinnedAt: string;
+    reviewedBy: string | null;
+    reviewedAt: string | null;
+    reviewComment: string | null;
+  };
+  origin: { sweep: { id: string; name: string } | null; scenarioIndex: number | null; overrides: Record<string, number>; rank: number | null };
+  feed: WordLine[];
+  kinetics: { label: string; model: string | null; version: number | null; law: string; formula: string; parameters: WordLine[]; reaction: WordLine[] };
+  source:
+    | { recorded: false }
+    | {
+        recorded: true;
+        kind: string;
+        dataset: string;
+        datasetVersion: number;
+        fileName: string;
+        rowCount: number;
+        fit: { law: string | null; formula: string | null; parameters: FitParameter[]; rSquared: number | null; residualSumOfSquares: number | null } | null;
+      };
+  target: { conversion: number | null; conversionReached: number | null };
+  objective: WordLine[];
+  train: { sequence: ("CSTR" | "PFR")[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
+  stages: ReportStage[];
+  equilibriumConversion: number | null;
+  references: { singleCSTR: number | null; singlePFR: number | null; feedVolumetricFlow: number | null };
+  thermal: { mode: "isothermal" | "adiabatic"; adiabaticRise: number | null; maxTemperature: number | null };
+  costs: {
+    settings: { recorded: false } | { recorded: true; currency: string | null; basisYear: number | null; correlations: { type: string; a: number | null; b: number | null; n: number | null; source: string }[]; other: WordLine[]; updatedAt: string };
+    totalCost: number | null;
+    installedCost: number | null;
+    inventoryPlan: { recorded: false } | { recorded: true; totalCost: number | null; allNewCost: number | null; assignments: { stage: number; vesselId: string | null; vesselTag: string | null; cost: number | null }[] };
+  };
+  robustness:
+    | { recorded: false }
+    | {
+        recorded: true;
+        runId: string;
+        finishedAt: string | null;
+        samples: number | null;
+        seed: number | null;
+        target: number | null;
+        uncertain: WordLine[];
+        p5: number | null;
+        p50: number | null;
+        p95: number | null;
+        mean: number | null;
+        probabilityOfMissingTarget: number | null;
+        probabilityStandardError: number | null;
+        refusedSamples: number | null;
+      };
+  assumptions: { note: string; model: string[]; spec: Record<string, unknown> };
+  chart: { curve: Point[]; stages: ChartStage[]; target: number | null; equilibrium: number | null };
+  cautions: { warnings: string[]; general: string[] };
+}
+
+type Obj = Record<string, unknown>;
+const obj = (v: unknown): Obj => (v && typeof v === "object" && !Array.isArray(v) ? (v as Obj) : {});
+const num = (v: unknown): number | null => (typeof v === "number" && Number.isFinite(v) ? v : null);
+const str = (v: unknown): string | null => (typeof v === "string" ? v : null);
+
+/** What the report reads besides the pin; every part optional, as the tables may hold nothing. */
+export interface ReportInputs {
+  pin: PinnedDesign;
+  project: { id: string; name: string; description: string };
+  names: Record<string, string>;
+  kinetics: { model: string; version: number } | null;
+  source: { kind: string; fit: Obj | null; dataset: string; datasetVersion: number; fileName: string; rowCount: number } | null;
+  candidate: { installedCost: number | null; inventoryPlan: Obj | null } | null;
+  costSettings: { settings: Obj; updatedAt: Date } | null;
+  robustness: { id: string; request: Obj; result: Obj; finishedAt: Date | null } | null;
+  inventoryTags: Record<string, string>;
+  now: Date;
+}
+
+function fitSection(fit: Obj | null) {
+  if (!fit) return null;
+  const params = Array.isArray(fit.parameters) ? (fit.parameters as unknown[]).map(obj) : [];
+  return {
+    law: str(fit.kind) ?? str(fit.law),
+    formula: str(fit.formula),
+    parameters: params.map((p) => {
+      const iv = Array.isArray(p.interval95) && p.interval95.length === 2 ? (p.interval95 as [number, number]) : null;
+      return { name: String(p.name ?? "?"), value: num(p.value) ?? NaN, standardError: num(p.standardError), interval95: iv };
+    }),
+    rSquared: num(fit.rSquared),
+    residualSumOfSquares: num(fit.residualSumOfSquares),
+  };
+}
+
+function uncertainLines(list: unknown): WordLine[] {
+  return (Array.isArray(list) ? list : []).map(obj).map((u) => {
+    const field = String(u.field ?? "?");
+    if (u.kind === "uniform") return { label: field, value: `uniform between ${u.low} and ${u.high}` };
+    if (u.kind === "normal") return { label: field, value: `normal, mean ${u.mean}, standard deviation ${u.sd}` };
+    if (u.kind === "plusMinus") return { label: field, value: `its value ± ${Math.round(Number(u.fraction) * 1000) / 10} %, uniformly` };
+    return { label: field, value: JSON.stringify(u) };
+  });
+}
+
+function costSettingsSection(row: ReportInputs["costSettings"]): DesignReport["costs"]["settings"] {
+  if (!row) return { recorded: false };
+  const s = row.settings;
+  const correlations = (["CSTR", "PFR"] as const)
+    .filter((t) => s[t])
+    .map((t) => {
+      const c = obj(s[t]);
+      return { type: t, a: num(c.a), b: num(c.b), n: num(c.n), source: str(c.source) ?? "not given" };
+    });
+  const other: WordLine[] = Object.entries(s)
+    .filter(([k]) => !["CSTR", "PFR", "currency", "basisYear"].includes(k))
+    .map(([k, v]) => ({ label: k, value: Array.isArray(v) ? v.join(", ") : typeof v === "object" ? JSON.stringify(v) : String(v) }));
+  return { recorded: true, currency: str(s.currency), basisYear: num(s.basisYear), correlations, other, updatedAt: row.updatedAt.toISOString() };
+}
+
+/** The report from what was read: pure, so the same rows always give the same report. */
+export function buildDesignReport(input: ReportInputs): DesignReport {
+  const { pin } = input;
+  const c = obj(pin.candidate);
+  const spec = obj(pin.spec);
+  const reaction = obj(spec.reaction);
+  const thermal = obj(reaction.thermal);
+  const scenario = obj(c.scenario);
+  const reference = obj(scenario.reference);
+  const rawStages = (Array.isArray(c.stages) ? c.stages : []).map(obj);
+  const stages: ReportStage[] = rawStages.map((s, i) => {
+    const vessels = obj(s.vessels);
+    return {
+      index: i + 1,
+      type: s.type === "PFR" ? "PFR" : "CSTR",
+      conversionIn: num(s.conversionIn) ?? 0,
+      conversionOut: num(s.conversionOut) ?? 0,
+      temperatureIn: num(s.temperatureIn) ?? NaN,
+      temperatureOut: num(s.temperatureOut) ?? NaN,
+      volume: num(s.volume) ?? 0,
+      residenceTime: num(s.residenceTime) ?? NaN,
+      vesselCount: num(vessels.count) ?? 1,
+      vesselSize: num(vessels.sizeEach) ?? num(s.volume) ?? 0,
+      cost: num(s.cost),
+    };
+  });
+  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as ("CSTR" | "PFR")[];
+  const plots = rawStages.map((s) => obj(s.levenspiel));
+  const curve = plots.flatMap((p) => (Array.isArray(p.curve) ? (p.curve as Point[]) : []));
+  const rate = describeRate(reaction.rate);
+  const target = num(obj(spec.target).conversion);
+  const equilibrium = num(reference.equilibriumConversion);
+  const adiabatic = thermal.mode === "adiabatic";
+  const plan = input.candidate?.inventoryPlan ?? null;
+  const run = input.robustness;
+  const rres = run ? run.result : {};
+  const rreq = run ? run.request : {};
+  const name = (id: string | null) => (id ? (input.names[id] ?? "someone") : null);
+
+  return {
+    format: REPORT_FORMAT,
+    generatedAt: input.now.toISOString(),
+    project: input.project,
+    pin: {
+      id: pin.id,
+      state: pin.state,
+      stateLabel: STATE_LABEL[pin.state],
+      note: pin.note,
+      pinnedBy: name(pin.pinnedBy)!,
+      pinnedAt: pin.pinnedAt.toISOString(),
+      reviewedBy: name(pin.reviewerId),
+      reviewedAt: pin.reviewedAt?.toISOString() ?? null,
+      reviewComment: pin.reviewComment,
+    },
+    origin: {
+      sweep: c.sweep ? { id: String(obj(c.sweep).id), name: String(obj(c.sweep).name) } : null,
+      scenarioIndex: num(scenario.index),
+      overrides: obj(scenario.overrides) as Record<string, number>,
+      rank: num(c.rank),
+    },
+    feed: describeFeed(spec.feed),
+    kinetics: {
+      label: input.kinetics ? `${input.kinetics.model}, version ${input.kinetics.version}` : "kinetics version not found",
+      model: input.kinetics?.model ?? null,
+      version: input.kinetics?.version ?? null,
+      law: rate.law,
+      formula: rate.formula,
+      parameters: rate.parameters,
+      reaction: describeReaction(reaction),
+    },
+    source: input.source
+      ? { recorded: true, kind: input.source.kind, dataset: input.source.dataset, datasetVersion: input.source.datasetVersion, fileName: input.source.fileName, rowCount: input.source.rowCount, fit: fitSection(input.source.fit) }
+      : { recorded: false },
+    target: { conversion: target, conversionReached: num(c.conversionReached) ?? (stages.length ? stages[stages.length - 1].conversionOut : null) },
+    objective: describeObjective(spec),
+    train: { sequence, label: sequence.join(" → "), totalVolume: num(c.totalVolume), totalCost: num(c.totalCost), ratioToPfr: num(c.ratioToPfr) },
+    stages,
+    equilibriumConversion: equilibrium,
+    references: { singleCSTR: num(reference.singleCSTR), singlePFR: num(reference.singlePFR), feedVolumetricFlow: num(reference.feedVolumetricFlow) },
+    thermal: { mode: adiabatic ? "adiabatic" : "isothermal", adiabaticRise: num(thermal.adiabaticRise), maxTemperature: num(thermal.maxTemperature) },
+    costs: {
+      settings: costSettingsSection(input.costSettings),
+      totalCost: num(c.totalCost),
+      installedCost: input.candidate?.installedCost ?? null,
+      inventoryPlan: plan
+        ? {
+            recorded: true,
+            totalCost: num(plan.totalCost),
+            allNewCost: num(plan.allNewCost),
+            assignments: (Array.isArray(plan.assignments) ? plan.assignments : []).map(obj).map((a) => {
+              const vesselId = str(a.vesselId);
+              return { stage: (num(a.stage) ?? 0) + 1, vesselId, vesselTag: vesselId ? (input.inventoryTags[vesselId] ?? str(a.tag)) : null, cost: num(a.cost) };
+            }),
+          }
+        : { recorded: false },
+    },
+    robustness: run
+      ? {
+          recorded: true,
+          runId: run.id,
+          finishedAt: run.finishedAt?.toISOString() ?? null,
+          samples: num(rres.samples) ?? num(rreq.samples),
+          seed: num(rres.seed) ?? num(rreq.seed),
+          target: num(rreq.target),
+          uncertain: uncertainLines(rreq.uncertain),
+          p5: num(rres.p5),
+          p50: num(rres.p50),
+          p95: num(rres.p95),
+          mean: num(rres.mean),
+          probabilityOfMissingTarget: num(rres.probabilityOfMissingTarget),
+          probabilityStandardError: num(rres.probabilityStandardError),
+          refusedSamples: num(rres.refusedSamples),
+        }
+      : { recorded: false },
+    assumptions: { note: pin.note, model: [...ENGINE_CAUTIONS], spec },
+    chart: {
+      curve,
+      stages: stages.map((s, i) => ({ type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: Array.isArray(plots[i].area) ? (plots[i].area as Point[]) : undefined })),
+      target,
+      equilibrium,
+    },
+    cautions: {
+      warnings: thermalWarnings({ thermal: adiabatic ? (thermal as { mode: string }) : null, stageTemperatures: stages.map((s) => s.temperatureOut).filter(Number.isFinite) }),
+      general: [...CAUTION_TEXTS],
+    },
+  };
+}
+
+/**
+ * The design report of a pin, read through the pin's own authorisation (getPin: viewers see
+ * approved pins only, another team's pin is not found); every other read is scoped to the
+ * pin's team and project.
+ */
+export async function getDesignReport(db: Database, actor: Actor, pinId: string, now = new Date()): Promise<DesignReport> {
+  const pin = await getPin(db, actor, pinId);
+  const [project] = await db
+    .select({ id: projects.id, name: projects.name, description: projects.description })
+    .from(projects)
+    .where(and(eq(projects.id, pin.projectId), eq(projects.teamId, actor.teamId)));
+  const [[kinetics], [source], [candidate], [costSettings], [robustness], people] = await Promise.all([
+    db
+      .select({ model: kineticsModels.name, version: kineticsVersions.version })
+      .from(kineticsVersions)
+      .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
+      .where(and(eq(kineticsVersions.id, pin.kineticsVersionId), eq(kineticsModels.teamId, actor.teamId))),
+    db
+      .select({
+        kind: kineticsSources.kind,
+        fit: kineticsSources.fit,
+        dataset: rateDatasets.name,
+        datasetVersion: rateDatasetVersions.version,
+        fileName: rateDatasetVersions.fileName,
+        rowCount: rateDatasetVersions.rowCount,
+      })
+      .from(kineticsSources)
+      .innerJoin(rateDatasetVersions, eq(rateDatasetVersions.id, kineticsSources.datasetVersionId))
+      .innerJoin(rateDatasets, eq(rateDatasets.id, rateDatasetVersions.datasetId))
+      .where(and(eq(kineticsSources.kineticsVersionId, pin.kineticsVersionId), eq(rateDatasets.teamId, actor.teamId))),
+    pin.candidateId
+      ? db.select({ installedCost: candidates.installedCost, inventoryPlan: candidates.inventoryPlan }).from(candidates).where(eq(candidates.id, pin.candidateId))
+      : Promise.resolve([]),
+    db
+      .select({ settings: projectCostSettings.settings, updatedAt: projectCostSettings.updatedAt })
+      .from(projectCostSettings)
+      .where(and(eq(projectCostSettings.projectId, pin.projectId), eq(projectCostSettings.teamId, actor.teamId))),
+    db
+      .select({ id: robustnessRuns.id, request: robustnessRuns.request, result: robustnessRuns.result, finishedAt: robustnessRuns.finishedAt })
+      .from(robustnessRuns)
+      .where(and(eq(robustnessRuns.pinId, pin.id), eq(robustnessRuns.teamId, actor.teamId), eq(robustnessRuns.status, "succeeded")))
+      // Latest finished first; a run without a finish time (should not happen once succeeded) goes last.
+      .orderBy(sql`${robustnessRuns.finishedAt} desc nulls last`, desc(robustnessRuns.createdAt))
+      .limit(1),
+    userNames(db, [pin.pinnedBy, pin.reviewerId]),
+  ]);
+  const plan = obj(candidate?.inventoryPlan);
+  const vesselIds = (Array.isArray(plan.assignments) ? plan.assignments : []).map((a) => str(obj(a).vesselId)).filter((id): id is string => !!id);
+  return buildDesignReport({
+    pin,
+    project: project ?? { id: pin.projectId, name: "project", description: "" },
+    names: people,
+    kinetics: kinetics ?? null,
+    source: source ? { ...source, fit: source.fit ?? null } : null,
+    candidate: candidate ? { installedCost: candidate.installedCost, inventoryPlan: candidate.inventoryPlan ?? null } : null,
+    costSettings: costSettings ?? null,
+    robustness: robustness?.result ? { id: robustness.id, request: robustness.request, result: robustness.result, finishedAt: robustness.finishedAt } : null,
+    inventoryTags: await inventoryTags(db, actor.teamId, vesselIds),
+    now,
+  });
+}
+
+async function userNames(db: Database, ids: (string | null)[]): Promise<Record<string, string>> {
+  const out: Record<string, string> = {};
+  for (const id of new Set(ids.filter((x): x is string => !!x))) {
+    const [u] = await db.select({ name: users.name, email: users.email }).from(users).where(eq(users.id, id));
+    if (u) out[id] = u.name ?? u.email;
+  }
+  return out;
+}
+
+async function inventoryTags(db: Database, teamId: string, ids: string[]): Promise<Record<string, string>> {
+  const uuids = ids.filter((id) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id));
+  if (!uuids.length) return {};
+  const rows = await db
+    .select({ id: inventoryVessels.id, tag: inventoryVessels.tag })
+    .from(inventoryVessels)
+    .where(and(eq(inventoryVessels.teamId, teamId), inArray(inventoryVessels.id, uuids)));
+  return Object.fromEntries(rows.map((r) => [r.id, r.tag]));
+}

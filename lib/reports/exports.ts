@@ -1,0 +1,65 @@
+/**
+ * CSV files of the report and of a scenario's ranked list: SI numbers at full precision, the
+ * unit in every header, the cautions in a leading "#" comment line.
+ */
+import Papa from "papaparse";
+import type { exportCandidates } from "@/lib/services/candidate-export";
+import type { DesignReport } from "./design-report";
+import { STAGE_COLUMNS, VESSEL_SIZE_COLUMN } from "./report-format";
+
+const PREFACE = "# preliminary sizing from ideal-reactor models; heat removal, runaway and pressure relief need their own studies; check under local codes";
+
+const cell = (v: unknown) => (v === null || v === undefined || (typeof v === "number" && !Number.isFinite(v)) ? "" : v);
+
+/** The stage table of a pinned design. */
+export function stageTableCsv(report: DesignReport): string {
+  const rows = report.stages.map((s) => {
+    const row: Record<string, unknown> = {};
+    for (const c of STAGE_COLUMNS) row[c.csv] = cell(c.raw(s));
+    row[VESSEL_SIZE_COLUMN.csv] = cell(VESSEL_SIZE_COLUMN.raw(s));
+    return row;
+  });
+  const fields = [...STAGE_COLUMNS.map((c) => c.csv), VESSEL_SIZE_COLUMN.csv];
+  return `# ${report.project.name}: ${report.train.label}, pinned design ${report.pin.id} (${report.pin.state})\n${PREFACE}\n${Papa.unparse({ fields, data: rows.map((r) => fields.map((f) => r[f])) })}\n`;
+}
+
+type Export = Awaited<ReturnType<typeof exportCandidates>>;
+
+/** Units of the ranked list's numbers, for the JSON export and the CSV headers. */
+export const CANDIDATE_UNITS = { totalVolume: "m3", totalCost: "currency of the cost basis", ratioToPfr: "-", stageVolumes: "m3", stageConversionsOut: "-" } as const;
+
+export function candidateRowsForExport(data: Export) {
+  return data.items.map((c) => ({
+    rank: c.rank,
+    sequence: c.sequence.join("-"),
+    stageCount: c.stageCount,
+    feasible: c.feasible,
+    totalVolume: c.totalVolume,
+    totalCost: c.totalCost,
+    ratioToPfr: c.ratioToPfr,
+    stageVolumes: c.stages.map((s) => Number(s.volume)),
+    stageConversionsOut: c.stages.map((s) => Number(s.conversionOut)),
+    reason: c.reason,
+  }));
+}
+
+/** Every candidate of a scenario; one row each. */
+export function candidatesCsv(sweepId: string, data: Export): string {
+  const fields = ["rank", "sequence", "stage count", "feasible", "total volume (m3)", "total cost (currency of the cost basis)", "ratio to single PFR (-)", "stage volumes (m3)", "stage outlet conversions (-)", "reason"];
+  const rows = candidateRowsForExport(data).map((c) => [
+    c.rank,
+    c.sequence,
+    c.stageCount,
+    c.feasible ? "yes" : "no",
+    cell(c.totalVolume),
+    cell(c.totalCost),
+    cell(c.ratioToPfr),
+    c.stageVolumes.join(" | "),
+    c.stageConversionsOut.join(" | "),
+    c.reason ?? "",
+  ]);
+  const overrides = Object.entries(data.scenario.overrides)
+    .map(([k, v]) => `${k} = ${v}`)
+    .join(", ");
+  return `# sweep ${sweepId}, scenario ${data.scenario.index + 1}${overrides ? ` (${overrides})` : ""}: ${data.total} candidates\n${PREFACE}\n${Papa.unparse({ fields, data: rows })}\n`;
+}

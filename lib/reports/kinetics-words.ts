@@ -1,0 +1,138 @@
+/**
+ * The feed, reaction and thermal mode of a frozen spec in words, with their units: what a
+ * reader of the design package needs without opening the JSON. Pure; numbers are SI unless
+ * the spec holds a quantity string, which is shown as typed.
+ */
+
+export interface WordLine {
+  label: string;
+  value: string;
+}
+
+type Obj = Record<string, unknown>;
+const obj = (v: unknown): Obj => (v && typeof v === "object" && !Array.isArray(v) ? (v as Obj) : {});
+
+/** A number to `digits` significant figures (exponent for very large or small), "—" when absent. */
+export function sig(v: unknown, digits = 4): string {
+  if (typeof v !== "number" || !Number.isFinite(v)) return "—";
+  if (v === 0) return "0";
+  const a = Math.abs(v);
+  if (a >= 1e6 || a < 1e-3) return v.toExponential(digits - 1);
+  return String(Number(v.toPrecision(digits)));
+}
+
+/** A spec value with its SI unit; a quantity string ("2 mol/L") is shown as given. */
+export function quantity(v: unknown, unit: string): string {
+  if (typeof v === "string") return v;
+  if (typeof v !== "number") return "—";
+  return unit ? `${sig(v)} ${unit}` : sig(v);
+}
+
+const orderText = (orders: unknown) =>
+  Object.entries(obj(orders))
+    .filter(([, n]) => typeof n === "number" && n !== 0)
+    .map(([s, n]) => (n === 1 ? `C_${s}` : `C_${s}^${n}`))
+    .join("·") || "1";
+
+const totalOrder = (orders: unknown) => Object.values(obj(orders)).reduce<number>((s, n) => s + (typeof n === "number" ? n : 0), 0);
+
+/** Unit of a power-law rate constant of total order n: (mol/m3)^(1-n)/s. */
+export function rateConstantUnit(order: number): string {
+  const p = Number((1 - order).toPrecision(6));
+  if (p === 0) return "1/s";
+  if (p === 1) return "mol/(m³·s)";
+  return `(mol/m³)^${p}/s`;
+}
+
+/** The rate law: its name, its formula and each parameter with its unit. */
+export function describeRate(rate: unknown): { law: string; formula: string; parameters: WordLine[] } {
+  const r = obj(rate);
+  switch (r.law) {
+    case "power": {
+      const rev = r.reverse ? obj(r.reverse) : null;
+      const formula = `−rA = k·${orderText(r.orders)}` + (rev ? ` − k_rev·${orderText(rev.orders)}` : "");
+      const parameters: WordLine[] = [{ label: "k", value: quantity(r.k, rateConstantUnit(totalOrder(r.orders))) }];
+      if (r.activationEnergy !== undefined) parameters.push({ label: "Activation energy", value: quantity(r.activationEnergy, "J/mol") });
+      if (r.referenceTemperature !== undefined) parameters.push({ label: "Reference temperature", value: quantity(r.referenceTemperature, "K") });
+      if (rev) {
+        parameters.push({ label: "k_rev", value: quantity(rev.k, rateConstantUnit(totalOrder(rev.orders))) });
+        if (rev.activationEnergy !== undefined) parameters.push({ label: "Reverse activation energy", value: quantity(rev.activationEnergy, "J/mol") });
+      }
+      return { law: rev ? "power law, reversible" : "power law", formula, parameters };
+    }
+    case "saturation": {
+      const parameters: WordLine[] = [
+        { label: "vmax", value: quantity(r.vmax, "mol/(m³·s)") },
+        { label: "km", value: quantity(r.km, "mol/m³") },
+      ];
+      if (r.ki !== undefined) parameters.push({ label: "ki", value: quantity(r.ki, "mol/m³") });
+      if (r.activationEnergy !== undefined) parameters.push({ label: "Activation energy", value: quantity(r.activationEnergy, "J/mol") });
+      return { law: "saturation", formula: `−rA = vmax·C_A/(km + C_A${r.ki !== undefined ? " + C_A²/ki" : ""})`, parameters };
+    }
+    case "expression":
+      return {
+        law: "expression",
+        formula: `−rA = ${String(r.expression ?? "")}`,
+        parameters: Object.entries(obj(r.parameters)).map(([k, v]) => ({ label: k, value: quantity(v, "") })),
+      };
+    case "table": {
+      const xs = Array.isArray(r.conversion) ? (r.conversion as number[]) : [];
+      return {
+        law: "measured table",
+        formula: "−rA interpolated (PCHIP) between measured points, never extrapolated",
+        parameters: [
+          { label: "Points", value: String(xs.length) },
+          { label: "Conversion range", value: xs.length ? `${sig(xs[0])} to ${sig(xs[xs.length - 1])}` : "—" },
+        ],
+      };
+    }
+    default:
+      return { law: String(r.law ?? "unknown"), formula: "—", parameters: [] };
+  }
+}
+
+/** Feed lines: FA0, CA0, T0 and the other species' ratios. */
+export function describeFeed(feed: unknown): WordLine[] {
+  const f = obj(feed);
+  const lines: WordLine[] = [
+    { label: "Feed rate of A (FA0)", value: quantity(f.flowA, "mol/s") },
+    { label: "Feed concentration of A (CA0)", value: quantity(f.concA, "mol/m³") },
+    { label: "Feed temperature (T0)", value: f.temperature === undefined ? "298.15 K (default)" : quantity(f.temperature, "K") },
+  ];
+  const ratios = Object.entries(obj(f.ratios));
+  if (ratios.length) lines.push({ label: "Other species (C_i0/C_A0)", value: ratios.map(([s, v]) => `${s} ${sig(v)}`).join(", ") });
+  return lines;
+}
+
+/** Phase, stoichiometry and thermal mode. */
+export function describeReaction(reaction: unknown): WordLine[] {
+  const r = obj(reaction);
+  const t = obj(r.thermal);
+  const stoich = Object.entries(obj(r.stoichiometry));
+  const lines: WordLine[] = [
+    { label: "Phase", value: r.phase === "gas" ? "gas (isobaric, ideal)" : "liquid (constant density)" },
+    { label: "Stoichiometry", value: stoich.length ? stoich.map(([s, n]) => `${s} ${sig(n)}`).join(", ") : "A −1" },
+  ];
+  if (t.mode === "adiabatic") {
+    lines.push({ label: "Thermal mode", value: "adiabatic" });
+    lines.push({ label: "Adiabatic rise (full conversion)", value: quantity(t.adiabaticRise, "K") });
+    if (t.maxTemperature !== undefined) lines.push({ label: "Highest temperature allowed", value: quantity(t.maxTemperature, "K") });
+    if (t.interstageTemperature !== undefined) lines.push({ label: "Interstage inlet temperature", value: quantity(t.interstageTemperature, "K") });
+  } else lines.push({ label: "Thermal mode", value: "isothermal at the feed temperature" });
+  return lines;
+}
+
+/** The search and objective of the spec. */
+export function describeObjective(spec: unknown): WordLine[] {
+  const s = obj(spec);
+  const o = obj(s.objective);
+  const train = obj(s.train);
+  const lines: WordLine[] = [{ label: "Objective", value: o.minimise === "cost" ? "least vessel cost" : "least total volume" }];
+  if (typeof train.maxStages === "number") lines.push({ label: "Trains searched", value: `up to ${train.maxStages} stages of ${(Array.isArray(train.types) ? train.types : ["CSTR", "PFR"]).join(", ")}` });
+  if (Array.isArray(train.candidates)) lines.push({ label: "Trains searched", value: `${train.candidates.length} listed sequences` });
+  if (train.multiset) lines.push({ label: "Trains searched", value: `orderings of ${Object.entries(obj(train.multiset)).map(([k, n]) => `${n} × ${k}`).join(" + ")}` });
+  if (train.equalVolume) lines.push({ label: "Stage volumes", value: "all equal" });
+  if (Array.isArray(o.standardSizes)) lines.push({ label: "Standard sizes", value: o.standardSizes.map((v) => quantity(v, "m³")).join(", ") });
+  if (o.maxVesselVolume !== undefined) lines.push({ label: "Largest single vessel", value: quantity(o.maxVesselVolume, "m³") });
+  return lines;
+}

@@ -1,0 +1,70 @@
+/**
+ * How the report shows its numbers, in one place for the page, the PDF and the CSV: the
+ * stage table's columns with their units, and the formatting of volumes, times and dates.
+ */
+import type { DesignReport, ReportStage } from "./design-report";
+import { sig } from "./kinetics-words";
+
+export { sig };
+
+const dateFmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+/** "2 Dec 2026, 04:40 UTC", or "—". */
+export function fmtDate(iso: string | null | undefined): string {
+  return iso ? `${dateFmt.format(new Date(iso))} UTC` : "—";
+}
+
+export const fmtVolume = (m3: number | null | undefined) => (m3 === null || m3 === undefined || !Number.isFinite(m3) ? "—" : `${sig(m3, 4)} m³`);
+export const fmtConversion = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(4));
+export const fmtKelvin = (t: number | null | undefined) => (t === null || t === undefined || !Number.isFinite(t) ? "—" : `${t.toFixed(1)} K`);
+export const fmtPercent = (p: number | null | undefined) => (p === null || p === undefined || !Number.isFinite(p) ? "—" : `${(p * 100).toFixed(1)} %`);
+export const fmtMoney = (v: number | null | undefined, currency?: string | null) =>
+  v === null || v === undefined || !Number.isFinite(v) ? "—" : `${Math.round(v).toLocaleString("en-US")}${currency ? ` ${currency}` : ""}`;
+
+/** Residence time in seconds with minutes beside it for readers who think in minutes. */
+export function fmtResidence(s: number | null | undefined): string {
+  if (s === null || s === undefined || !Number.isFinite(s)) return "—";
+  return s >= 120 ? `${sig(s, 4)} s (${sig(s / 60, 3)} min)` : `${sig(s, 4)} s`;
+}
+
+export interface StageColumn {
+  /** Heading on the page and in the PDF. */
+  heading: string;
+  /** Header of the CSV column, with its unit. */
+  csv: string;
+  /** Raw value for the CSV and JSON (SI). */
+  raw: (s: ReportStage) => number | string | null;
+  /** As shown on the page and in the PDF. */
+  shown: (s: ReportStage) => string;
+  numeric: boolean;
+}
+
+/** The stage table, in order. */
+export const STAGE_COLUMNS: StageColumn[] = [
+  { heading: "Stage", csv: "stage", raw: (s) => s.index, shown: (s) => String(s.index), numeric: true },
+  { heading: "Type", csv: "type", raw: (s) => s.type, shown: (s) => s.type, numeric: false },
+  { heading: "X in", csv: "conversion in (-)", raw: (s) => s.conversionIn, shown: (s) => fmtConversion(s.conversionIn), numeric: true },
+  { heading: "X out", csv: "conversion out (-)", raw: (s) => s.conversionOut, shown: (s) => fmtConversion(s.conversionOut), numeric: true },
+  { heading: "T in", csv: "temperature in (K)", raw: (s) => s.temperatureIn, shown: (s) => fmtKelvin(s.temperatureIn), numeric: true },
+  { heading: "T out", csv: "temperature out (K)", raw: (s) => s.temperatureOut, shown: (s) => fmtKelvin(s.temperatureOut), numeric: true },
+  { heading: "Volume", csv: "volume (m3)", raw: (s) => s.volume, shown: (s) => fmtVolume(s.volume), numeric: true },
+  { heading: "Residence time", csv: "residence time (s)", raw: (s) => s.residenceTime, shown: (s) => fmtResidence(s.residenceTime), numeric: true },
+  { heading: "Vessels", csv: "vessel count", raw: (s) => s.vesselCount, shown: (s) => `${s.vesselCount} × ${fmtVolume(s.vesselSize)}`, numeric: true },
+  { heading: "Cost", csv: "cost (currency of the cost basis)", raw: (s) => s.cost, shown: (s) => fmtMoney(s.cost), numeric: true },
+];
+
+/** CSV-only column: the size of each vessel, m3 (the page shows it inside "Vessels"). */
+export const VESSEL_SIZE_COLUMN = { csv: "vessel size each (m3)", raw: (s: ReportStage) => s.vesselSize };
+
+/** A clean file name for the report's downloads: project and train, no spaces or punctuation. */
+export function reportFileName(report: Pick<DesignReport, "project" | "train" | "pin">, ext: string): string {
+  const slug = (s: string) =>
+    s
+      .normalize("NFKD")
+      .replace(/[^\w\s-]/g, "")
+      .trim()
+      .replace(/[\s_]+/g, "-")
+      .toLowerCase()
+      .slice(0, 48) || "design";
+  return `${slug(report.project.name)}-${report.train.sequence.join("-").toLowerCase() || "train"}-${report.pin.id.slice(0, 8)}.${ext}`;
+}

@@ -1,0 +1,393 @@
+/**
+ * The design report as an A4 PDF (pdfkit): DejaVu Sans embedded (no base-14 font, so every
+ * glyph — ³, →, −, × — prints the same everywhere), the Levenspiel chart drawn as vectors,
+ * the tables, page numbers and the cautions boxed on page 1 and again at the end.
+ */
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import PDFDocument from "pdfkit";
+import { STAGE_STYLES } from "@/components/charts/stage-patterns";
+import { chartGeometry, ticks, type Point } from "@/lib/charts/levenspiel-geometry";
+import type { DesignReport } from "./design-report";
+import type { WordLine } from "./kinetics-words";
+import { fmtConversion, fmtDate, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, sig, STAGE_COLUMNS } from "./report-format";
+
+const FONT_DIR = path.join(process.cwd(), "node_modules", "dejavu-fonts-ttf", "ttf");
+let fonts: { regular: Buffer; bold: Buffer } | null = null;
+/** The font files, read once per process (pdfkit parses and subsets them per document). */
+function fontFiles() {
+  fonts ??= { regular: readFileSync(path.join(FONT_DIR, "DejaVuSans.ttf")), bold: readFileSync(path.join(FONT_DIR, "DejaVuSans-Bold.ttf")) };
+  return fonts;
+}
+
+const INK = "#1c2430";
+const SOFT = "#4a5565";
+const LINE = "#c9ced6";
+const MARGIN = 50;
+const FOOTER = 30;
+
+type Doc = PDFKit.PDFDocument;
+
+/** Renders the report; resolves with the whole file. */
+export function renderReportPdf(report: DesignReport): Promise<Buffer> {
+  const { regular, bold } = fontFiles();
+  const doc = new PDFDocument({
+    size: "A4",
+    margins: { top: MARGIN, bottom: MARGIN + FOOTER, left: MARGIN, right: MARGIN },
+    bufferPages: true,
+    // A font file as the default keeps pdfkit from ever loading Helvetica.
+    font: regular as unknown as string,
+    info: { Title: `Design report: ${report.train.label} (${report.project.name})`, Author: "Seriatim", Subject: "Pinned reactor train", CreationDate: new Date(report.generatedAt) },
+  });
+  doc.registerFont("body", regular);
+  doc.registerFont("bold", bold);
+  const chunks: Buffer[] = [];
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on("data", (c: Buffer) => chunks.push(c));
+    doc.on("end", () => resolve(Buffer.concat(chunks)));
+    doc.on("error", reject);
+  });
+
+  header(doc, report);
+  cautionsBox(doc, report, "Before you rely on this design");
+  summary(doc, report);
+  levenspiel(doc, report);
+  stageTable(doc, report);
+  if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report);
+  sections(doc, report);
+  ensureSpace(doc, 140);
+  cautionsBox(doc, report, "Cautions (repeated)");
+  footers(doc, report);
+  doc.end();
+  return done;
+}
+
+const width = (doc: Doc) => doc.page.width - MARGIN * 2;
+const bottom = (doc: Doc) => doc.page.height - MARGIN - FOOTER;
+
+function ensureSpace(doc: Doc, h: number) {
+  if (doc.y + h > bottom(doc)) doc.addPage();
+}
+
+function heading(doc: Doc, text: string) {
+  ensureSpace(doc, 60);
+  doc.moveDown(0.6).font("bold").fontSize(12.5).fillColor(INK).text(text, MARGIN, doc.y);
+  doc.moveTo(MARGIN, doc.y + 1).lineTo(MARGIN + width(doc), doc.y + 1).lineWidth(0.5).strokeColor(LINE).stroke();
+  doc.moveDown(0.4).font("body").fontSize(9.5);
+}
+
+/** Label: value lines in two columns. */
+function pairs(doc: Doc, lines: WordLine[]) {
+  const labelW = 170;
+  for (const l of lines) {
+    const h = Math.max(doc.heightOfString(l.value, { width: width(doc) - labelW }), 12);
+    ensureSpace(doc, h + 2);
+    const y = doc.y;
+    doc.font("body").fontSize(9.5).fillColor(SOFT).text(l.label, MARGIN, y, { width: labelW - 8 });
+    doc.fillColor(INK).text(l.value, MARGIN + labelW, y, { width: width(doc) - labelW });
+    doc.y = Math.max(doc.y, y + h) + 2;
+  }
+  doc.x = MARGIN;
+}
+
+function paragraph(doc: Doc, text: string, opts: { colour?: string; size?: number } = {}) {
+  ensureSpace(doc, 14);
+  doc.font("body").fontSize(opts.size ?? 9.5).fillColor(opts.colour ?? INK).text(text, MARGIN, doc.y, { width: width(doc) });
+}
+
+function header(doc: Doc, r: DesignReport) {
+  doc.font("body").fontSize(9).fillColor(SOFT).text(`Seriatim design report · ${r.project.name}`, MARGIN, MARGIN);
+  doc.moveDown(0.3).font("bold").fontSize(20).fillColor(INK).text(r.train.label || "Pinned design");
+  doc.moveDown(0.2).font("body").fontSize(10).fillColor(INK);
+  const review = r.pin.reviewedBy ? `${r.pin.stateLabel} by ${r.pin.reviewedBy}, ${fmtDate(r.pin.reviewedAt)}` : r.pin.stateLabel;
+  pairs(doc, [
+    { label: "Review state", value: review },
+    ...(r.pin.reviewComment ? [{ label: "Review comment", value: `“${r.pin.reviewComment}”` }] : []),
+    { label: "Pinned by", value: `${r.pin.pinnedBy}, ${fmtDate(r.pin.pinnedAt)}` },
+    { label: "Kinetics", value: `${r.kinetics.label} (${r.kinetics.law})` },
+    { label: "Generated", value: fmtDate(r.generatedAt) },
+  ]);
+}
+
+function cautionsBox(doc: Doc, r: DesignReport, title: string) {
+  const w = width(doc);
+  const pad = 8;
+  const items = [...r.cautions.warnings.map((t) => `⚠ ${t}`), ...r.cautions.general.map((t) => `• ${t}`)];
+  doc.font("body").fontSize(9);
+  const textH = items.reduce((h, t) => h + doc.heightOfString(t, { width: w - pad * 2 }) + 2, 0);
+  const boxH = textH + pad * 2 + 16;
+  ensureSpace(doc, boxH + 10);
+  doc.moveDown(0.6);
+  const top = doc.y;
+  doc.rect(MARGIN, top, w, boxH).lineWidth(1).fillAndStroke("#fff8e6", "#b45309");
+  doc.font("bold").fontSize(10).fillColor("#7c2d12").text(title, MARGIN + pad, top + pad, { width: w - pad * 2 });
+  doc.moveDown(0.2);
+  for (const t of items) {
+    doc.font("body").fontSize(9).fillColor(t.startsWith("⚠") ? "#991b1b" : INK).text(t, MARGIN + pad, doc.y, { width: w - pad * 2 });
+    doc.y += 2;
+  }
+  doc.y = top + boxH + 4;
+  doc.x = MARGIN;
+}
+
+function summary(doc: Doc, r: DesignReport) {
+  heading(doc, "Train");
+  pairs(doc, [
+    { label: "Sequence", value: r.train.label },
+    { label: "Target conversion", value: fmtConversion(r.target.conversion) },
+    { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
+    { label: "Total volume", value: fmtVolume(r.train.totalVolume) },
+    ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost) }] : []),
+    { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : sig(r.train.ratioToPfr, 4) },
+  ]);
+}
+
+/** Axes with ticks and labels inside the box; returns the scales. */
+function axes(doc: Doc, box: { x: number; y: number; w: number; h: number }, xMax: number, yMin: number, yMax: number, xLabel: string, yLabel: string, yFmt: (v: number) => string) {
+  const sx = (x: number) => box.x + (x / xMax) * box.w;
+  const sy = (y: number) => box.y + box.h - ((Math.min(Math.max(y, yMin), yMax) - yMin) / (yMax - yMin)) * box.h;
+  doc.lineWidth(0.4).strokeColor("#e5e7eb");
+  for (const t of ticks(yMax - yMin, 4)) {
+    const v = yMin + t;
+    if (v > yMax) continue;
+    doc.moveTo(box.x, sy(v)).lineTo(box.x + box.w, sy(v)).stroke();
+    doc.font("body").fontSize(7.5).fillColor(SOFT).text(yFmt(v), box.x - 52, sy(v) - 4, { width: 48, align: "right" });
+  }
+  for (const t of ticks(xMax, 5).filter((t) => t <= xMax)) {
+    doc.moveTo(sx(t), box.y + box.h).lineTo(sx(t), box.y + box.h + 3).lineWidth(0.6).strokeColor(SOFT).stroke();
+    doc.font("body").fontSize(7.5).fillColor(SOFT).text(sig(t, 3), sx(t) - 20, box.y + box.h + 5, { width: 40, align: "center" });
+  }
+  doc.moveTo(box.x, box.y).lineTo(box.x, box.y + box.h).lineTo(box.x + box.w, box.y + box.h).lineWidth(0.8).strokeColor(SOFT).stroke();
+  doc.font("body").fontSize(8.5).fillColor(INK).text(xLabel, box.x, box.y + box.h + 17, { width: box.w, align: "center" });
+  doc.save().rotate(-90, { origin: [box.x - 58, box.y + box.h / 2] });
+  doc.text(yLabel, box.x - 58 - box.h / 2, box.y + box.h / 2 - 5, { width: box.h, align: "center" });
+  doc.restore();
+  return { sx, sy };
+}
+
+const HATCH_ANGLES = [45, 90, -45, 0, 30, -30, 60, -60];
+
+function polygonPath(doc: Doc, pts: Point[], sx: (x: number) => number, sy: (y: number) => number) {
+  pts.forEach(([x, y], i) => (i ? doc.lineTo(sx(x), sy(y)) : doc.moveTo(sx(x), sy(y))));
+  doc.closePath();
+}
+
+function levenspiel(doc: Doc, r: DesignReport) {
+  heading(doc, "Levenspiel plot");
+  paragraph(doc, "FA0/(−rA) against conversion X. Each CSTR is the rectangle at its outlet height, each PFR the area under the curve over its span; each area is the stage volume.", { colour: SOFT, size: 8.5 });
+  const geo = chartGeometry({ curve: r.chart.curve, stages: r.chart.stages, target: r.chart.target ?? undefined, equilibrium: r.chart.equilibrium });
+  const h = 230;
+  ensureSpace(doc, h + 50);
+  const box = { x: MARGIN + 64, y: doc.y + 8, w: width(doc) - 76, h };
+  const { sx, sy } = axes(doc, box, geo.xMax, 0, geo.yMax, "Conversion X", "FA0/(−rA), m³", (v) => sig(v, 3));
+  doc.save();
+  doc.rect(box.x, box.y, box.w, box.h).clip();
+  for (const s of geo.stages) {
+    const style = STAGE_STYLES[s.index % STAGE_STYLES.length];
+    polygonPath(doc, s.polygon, sx, sy);
+    doc.fillColor(style.fill).fill();
+    // Hatch inside the outline, one direction per stage, so stages stay apart in grey print.
+    doc.save();
+    polygonPath(doc, s.polygon, sx, sy);
+    doc.clip();
+    const angle = HATCH_ANGLES[s.index % HATCH_ANGLES.length];
+    doc.rotate(angle, { origin: [box.x + box.w / 2, box.y + box.h / 2] });
+    doc.lineWidth(0.5).strokeColor(style.stroke).strokeOpacity(0.7);
+    for (let d = -box.w; d <= box.w * 2; d += 6) doc.moveTo(box.x + d - box.w / 2, box.y - box.w).lineTo(box.x + d - box.w / 2, box.y + box.h + box.w).stroke();
+    doc.restore();
+    polygonPath(doc, s.polygon, sx, sy);
+    doc.lineWidth(1).strokeColor(style.stroke).strokeOpacity(1).stroke();
+  }
+  if (geo.curve.length > 1) {
+    geo.curve.forEach(([x, y], i) => (i ? doc.lineTo(sx(x), sy(y)) : doc.moveTo(sx(x), sy(y))));
+    doc.lineWidth(1.3).strokeColor(INK).stroke();
+  }
+  const marker = (x: number, colour: string, label: string, dash: number) => {
+    doc.moveTo(sx(x), box.y).lineTo(sx(x), box.y + box.h).dash(dash, { space: 3 }).lineWidth(1).strokeColor(colour).stroke().undash();
+    doc.font("body").fontSize(7.5).fillColor(colour).text(label, sx(x) - 104, box.y + 3, { width: 100, align: "right" });
+  };
+  if (r.chart.target !== null) marker(r.chart.target, "#115a54", `target ${fmtConversion(r.chart.target)}`, 5);
+  if (r.chart.equilibrium) marker(r.chart.equilibrium, "#9a3412", `equilibrium ${fmtConversion(r.chart.equilibrium)}`, 2);
+  doc.restore();
+  // Labels: stage number, type and volume, above the middle of each area.
+  for (const s of geo.stages) {
+    const cx = sx((s.conversionIn + s.conversionOut) / 2);
+    const tops = s.polygon.map(([, y]) => y).filter((y) => y > 0);
+    const top = Math.max(box.y + 4, sy(Math.max(...tops, 0)) - 24 - (s.index % 2) * 4);
+    const label = `${s.index + 1} ${s.type}\n${fmtVolume(s.volume)}`;
+    doc.font("bold").fontSize(7.5);
+    const w = Math.max(doc.widthOfString(`${s.index + 1} ${s.type}`), doc.widthOfString(fmtVolume(s.volume))) + 6;
+    doc.rect(cx - w / 2, top - 1, w, 21).fillOpacity(0.85).fill("#ffffff").fillOpacity(1);
+    doc.fillColor(INK).text(label, cx - w / 2, top, { width: w, align: "center", lineGap: -1 });
+  }
+  doc.y = box.y + box.h + 32;
+  doc.x = MARGIN;
+}
+
+function table(doc: Doc, headings: string[], rows: string[][], widths: number[], numeric: boolean[]) {
+  const total = widths.reduce((a, b) => a + b, 0);
+  const scale = width(doc) / total;
+  const ws = widths.map((w) => w * scale);
+  const drawRow = (cells: string[], bold: boolean) => {
+    doc.font(bold ? "bold" : "body").fontSize(8.5);
+    const h = Math.max(...cells.map((c, i) => doc.heightOfString(c, { width: ws[i] - 6 }))) + 6;
+    if (doc.y + h > bottom(doc)) {
+      doc.addPage();
+      if (!bold) drawRow(headings, true);
+      doc.font("body").fontSize(8.5);
+    }
+    const y = doc.y;
+    let x = MARGIN;
+    cells.forEach((c, i) => {
+      doc.fillColor(bold ? SOFT : INK).text(c, x + 3, y + 3, { width: ws[i] - 6, align: numeric[i] && !bold ? "right" : "left" });
+      x += ws[i];
+    });
+    doc.moveTo(MARGIN, y + h).lineTo(MARGIN + width(doc), y + h).lineWidth(0.4).strokeColor(LINE).stroke();
+    doc.y = y + h;
+  };
+  drawRow(headings, true);
+  for (const r of rows) drawRow(r, false);
+  doc.x = MARGIN;
+  doc.moveDown(0.3);
+}
+
+function stageTable(doc: Doc, r: DesignReport) {
+  // Keep a short table on one page with its heading.
+  if (r.stages.length <= 8) ensureSpace(doc, 80 + r.stages.length * 26);
+  heading(doc, "Stages");
+  table(
+    doc,
+    STAGE_COLUMNS.map((c) => c.heading),
+    r.stages.map((s) => STAGE_COLUMNS.map((c) => c.shown(s))),
+    [36, 36, 40, 40, 46, 46, 56, 70, 76, 44],
+    STAGE_COLUMNS.map((c) => c.numeric),
+  );
+}
+
+function temperatureProfile(doc: Doc, r: DesignReport) {
+  heading(doc, "Temperature profile (adiabatic)");
+  const temps = r.stages.flatMap((s) => [s.temperatureIn, s.temperatureOut]).filter(Number.isFinite);
+  if (r.thermal.maxTemperature !== null) temps.push(r.thermal.maxTemperature);
+  const lo = Math.floor(Math.min(...temps) - 2);
+  const hi = Math.ceil(Math.max(...temps) + 2);
+  const h = 150;
+  ensureSpace(doc, h + 45);
+  const box = { x: MARGIN + 64, y: doc.y + 6, w: width(doc) - 76, h };
+  const xMax = Math.min(1, Math.max(...r.stages.map((s) => s.conversionOut)) * 1.05 || 1);
+  const { sx, sy } = axes(doc, box, xMax, lo, hi, "Conversion X", "Temperature, K", (v) => sig(v, 4));
+  for (const s of r.stages) {
+    const style = STAGE_STYLES[(s.index - 1) % STAGE_STYLES.length];
+    doc.moveTo(sx(s.conversionIn), sy(s.temperatureIn)).lineTo(sx(s.conversionOut), sy(s.temperatureOut)).lineWidth(1.6).strokeColor(style.stroke).stroke();
+    doc.circle(sx(s.conversionOut), sy(s.temperatureOut), 2).fill(style.stroke);
+    doc.font("body").fontSize(7.5).fillColor(INK).text(`${s.index} ${s.type} ${fmtKelvin(s.temperatureOut)}`, sx(s.conversionOut) - 80, sy(s.temperatureOut) - 11, { width: 78, align: "right" });
+  }
+  if (r.thermal.maxTemperature !== null) {
+    const y = sy(r.thermal.maxTemperature);
+    doc.moveTo(box.x, y).lineTo(box.x + box.w, y).dash(3, { space: 3 }).lineWidth(0.8).strokeColor("#991b1b").stroke().undash();
+    doc.font("body").fontSize(7.5).fillColor("#991b1b").text(`limit ${fmtKelvin(r.thermal.maxTemperature)}`, box.x + 4, y - 10);
+  }
+  doc.y = box.y + box.h + 32;
+  doc.x = MARGIN;
+}
+
+function sections(doc: Doc, r: DesignReport) {
+  heading(doc, "Feed");
+  pairs(doc, r.feed);
+  heading(doc, "Kinetics");
+  pairs(doc, [
+    { label: "Model and version", value: r.kinetics.label },
+    { label: "Rate law", value: `${r.kinetics.law}: ${r.kinetics.formula}` },
+    ...r.kinetics.parameters,
+    ...r.kinetics.reaction,
+  ]);
+  heading(doc, "Source of the kinetics");
+  if (!r.source.recorded) paragraph(doc, "Not recorded: the kinetics were typed in, not derived from a rate dataset.", { colour: SOFT });
+  else {
+    pairs(doc, [
+      { label: "Dataset", value: `${r.source.dataset}, version ${r.source.datasetVersion} (${r.source.fileName}, ${r.source.rowCount} rows)` },
+      { label: "Use", value: r.source.kind === "fit" ? "fitted rate law" : "measured table" },
+      ...(r.source.fit ? [{ label: "Fitted law", value: r.source.fit.formula ?? r.source.fit.law ?? "—" }, { label: "R²", value: r.source.fit.rSquared === null ? "—" : r.source.fit.rSquared.toFixed(4) }] : []),
+    ]);
+    if (r.source.fit?.parameters.length) {
+      table(
+        doc,
+        ["Parameter", "Value", "Standard error", "95 % interval"],
+        r.source.fit.parameters.map((p) => [p.name, sig(p.value, 5), p.standardError === null ? "—" : `± ${sig(p.standardError, 3)}`, p.interval95 ? `${sig(p.interval95[0], 4)} to ${sig(p.interval95[1], 4)}` : "—"]),
+        [1, 1, 1, 1.4],
+        [false, true, true, true],
+      );
+    }
+  }
+  heading(doc, "Target and search");
+  pairs(doc, [{ label: "Target conversion", value: fmtConversion(r.target.conversion) }, ...r.objective]);
+  heading(doc, "Equilibrium and references");
+  pairs(doc, [
+    { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
+    { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR) },
+    { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR) },
+    { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${sig(r.references.feedVolumetricFlow, 4)} m³/s` },
+  ]);
+  heading(doc, "Costs");
+  const cs = r.costs.settings;
+  pairs(doc, [
+    { label: "Total vessel cost", value: fmtMoney(r.costs.totalCost, cs.recorded ? cs.currency : null) },
+    { label: "Installed cost", value: r.costs.installedCost === null ? "not recorded" : fmtMoney(r.costs.installedCost, cs.recorded ? cs.currency : null) },
+  ]);
+  if (!cs.recorded) paragraph(doc, "Cost basis: not recorded for this project.", { colour: SOFT });
+  else {
+    pairs(doc, [{ label: "Currency and basis year", value: `${cs.currency ?? "—"}, ${cs.basisYear ?? "—"}` }, ...cs.other]);
+    table(
+      doc,
+      ["Type", "a", "b", "n", "Source"],
+      cs.correlations.map((c) => [c.type, sig(c.a), sig(c.b), sig(c.n), c.source]),
+      [0.6, 0.8, 0.8, 0.6, 2.5],
+      [false, true, true, true, false],
+    );
+  }
+  if (!r.costs.inventoryPlan.recorded) paragraph(doc, "Reuse of idle vessels: not recorded.", { colour: SOFT });
+  else {
+    const plan = r.costs.inventoryPlan;
+    pairs(doc, [{ label: "With reused vessels", value: `${fmtMoney(plan.totalCost)} (all new: ${fmtMoney(plan.allNewCost)})` }]);
+    table(
+      doc,
+      ["Stage", "Vessel", "Cost"],
+      plan.assignments.map((a) => [String(a.stage), a.vesselId ? `reuse ${a.vesselTag ?? a.vesselId}` : "buy new", fmtMoney(a.cost)]),
+      [0.6, 2, 1],
+      [true, false, true],
+    );
+  }
+  heading(doc, "Robustness");
+  if (!r.robustness.recorded) paragraph(doc, "Not recorded: no finished Monte Carlo run for this pinned design.", { colour: SOFT });
+  else {
+    const rb = r.robustness;
+    pairs(doc, [
+      { label: "Samples and seed", value: `${rb.samples ?? "—"} samples, seed ${rb.seed ?? "—"}${rb.refusedSamples ? `, ${rb.refusedSamples} refused` : ""}` },
+      ...rb.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
+      { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(rb.p5)} / ${fmtConversion(rb.p50)} / ${fmtConversion(rb.p95)}` },
+      { label: "Mean outlet conversion", value: fmtConversion(rb.mean) },
+      { label: "Probability of missing the target", value: `${fmtPercent(rb.probabilityOfMissingTarget)} ± ${fmtPercent(rb.probabilityStandardError)} (target ${fmtConversion(rb.target)})` },
+      { label: "Finished", value: fmtDate(rb.finishedAt) },
+    ]);
+  }
+  heading(doc, "Assumptions");
+  pairs(doc, [{ label: "Note of the pin", value: r.pin.note || "—" }]);
+  for (const a of r.assumptions.model) paragraph(doc, `• ${a}`);
+  doc.moveDown(0.4);
+  paragraph(doc, "The frozen spec, as the engine read it:", { colour: SOFT, size: 8.5 });
+  paragraph(doc, JSON.stringify(r.assumptions.spec, null, 1).replace(/\n\s*/g, " "), { size: 7.5 });
+}
+
+function footers(doc: Doc, r: DesignReport) {
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    const y = doc.page.height - MARGIN;
+    // Writing inside the bottom margin: lift it so pdfkit does not start a new page.
+    const saved = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    doc.font("body").fontSize(7.5).fillColor(SOFT);
+    doc.text(`${r.project.name} · ${r.train.label} · generated ${fmtDate(r.generatedAt)}`, MARGIN, y, { width: width(doc) - 80, lineBreak: false });
+    doc.text(`Page ${i + 1} of ${range.count}`, MARGIN + width(doc) - 80, y, { width: 80, align: "right", lineBreak: false });
+    doc.page.margins.bottom = saved;
+  }
+}
