@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { designSpecSchema } from "./sweep-spec";
 import { uuidSchema } from "./foundation";
+import { sweepCostingSchema } from "./costs";
 
 const spec = designSpecSchema.shape;
 
@@ -46,6 +47,8 @@ export const sweepCreateSchema = z
     train: spec.train,
     objective: spec.objective,
     grid: z.array(gridAxisSchema).max(4, "Vary at most 4 fields").default([]),
+    /** Installation factor and reuse of idle vessels (cost objective only). */
+    costing: sweepCostingSchema.optional(),
   })
   .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each field may be varied once", path: ["grid"] });
 export type SweepCreate = z.infer<typeof sweepCreateSchema>;
