@@ -85,7 +85,8 @@ export function readInventoryRecords(records: Record<string, string>[]): ParsedI
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const field = String(issue.path[0] ?? "row");
-        if (!mine.some((p) => p.field === field)) mine.push({ row, field, message: issue.message });
+        const covered = mine.some((p) => p.field === field) || (field === "volume" && vol.problem);
+        if (!covered) mine.push({ row, field, message: issue.message });
       }
     }
     const tag = String(candidate.tag).toLowerCase();

@@ -53,7 +53,7 @@ export const sweepCreateSchema = z
   .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each field may be varied once", path: ["grid"] });
 export type SweepCreate = z.infer<typeof sweepCreateSchema>;
 
-export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence"] as const;
+export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused"] as const;
 
 export const candidateQuerySchema = z.strictObject({
   sort: z.enum(SORTABLE_COLUMNS, { error: `sort must be one of ${SORTABLE_COLUMNS.join(", ")}` }).default("rank"),
