@@ -8,6 +8,12 @@ import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
+import { DEMO_COST_BASIS } from "@/db/seed-inventory";
+import { inventoryVessels } from "@/db/schema-design-basis";
+import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
+import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
+import { createVessel, deleteVessel, getVessel, importInventory, listInventory, updateVessel } from "@/lib/services/inventory";
+import { rateFixedTrain } from "@/lib/services/rating";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -26,6 +32,8 @@ const actors = {} as Record<Who, Actor>;
 let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
+let vesselId: string;
+let kineticsVersionId: string;
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -37,6 +45,12 @@ beforeAll(async () => {
   viewerId = actors.viewer.userId;
   const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
   engineersProject = p.id;
+  [{ id: vesselId }] = await t.db.select({ id: inventoryVessels.id }).from(inventoryVessels).where(eq(inventoryVessels.tag, "R-302"));
+  [{ id: kineticsVersionId }] = await t.db
+    .select({ id: kineticsVersions.id })
+    .from(kineticsVersions)
+    .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
+    .where(eq(kineticsModels.projectId, p.id));
   managersProject = (await createProject(t.db, actors.manager, { name: "Manager's own study", description: "" })).id;
 });
 afterAll(() => t.drop());
@@ -71,6 +85,35 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
   { name: "change a member's role", run: (a) => updateMemberRole(t.db, a, viewerId, "viewer"), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "list invitations", run: (a) => listOpenInvitations(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
+  // Cost basis, inventory and rating (GET/PUT /api/projects/:id/costs, /api/inventory…, POST /api/projects/:id/rate).
+  { name: "read a project's cost basis", run: (a) => getCostBasis(t.db, a, engineersProject), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "not_found" } },
+  { name: "save a project's cost basis", run: (a) => saveCostBasis(t.db, a, engineersProject, DEMO_COST_BASIS), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  { name: "list the inventory", run: (a) => listInventory(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "ok" } },
+  { name: "read an inventory vessel", run: (a) => getVessel(t.db, a, vesselId), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "not_found" } },
+  {
+    name: "add an inventory vessel",
+    run: (a) => createVessel(t.db, a, { tag: `X-${a.role}-${Math.random()}`, type: "CSTR", volume: 1, available: true, reuseCost: 0, location: "", note: "" }),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "ok" },
+  },
+  { name: "change an inventory vessel", run: (a) => updateVessel(t.db, a, vesselId, { available: true }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  {
+    name: "remove an inventory vessel",
+    run: async (a) => {
+      const v = await createVessel(t.db, actors.admin, { tag: `D-${a.role}-${Math.random()}`, type: "PFR", volume: 1, available: true, reuseCost: 0, location: "", note: "" });
+      await deleteVessel(t.db, a, v.id);
+    },
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
+  },
+  {
+    name: "preview an inventory file",
+    run: (a) => importInventory(t.db, a, { name: "v.csv", data: new TextEncoder().encode("tag,type,volume\nP-1,CSTR,1\n").buffer as ArrayBuffer }, false),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "ok" },
+  },
+  {
+    name: "rate a fixed train",
+    run: (a) => rateFixedTrain(t.db, a, engineersProject, { kineticsVersionId, stages: [{ type: "CSTR", volume: 0.01 }], target: 0.5 }),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
+  },
 ];
 
 describe("authorisation matrix over the services", () => {
