@@ -191,11 +191,17 @@ describe("a sweep that reuses idle vessels, on a real worker", () => {
         if (tag === "R-301") reusedR301 += 1;
       }
     }
-    // A single CSTR of this duty needs 6–16 L; the 25 L kettle R-301 fits and costs far less than new.
+    // A single CSTR of this duty needs 6–16 L: the cheapest available CSTR that holds it (picked
+    // here by hand from the demo list) is far cheaper than a new one, so the plan must take it.
     const singleCstr = rows.filter((c) => c.sequenceKey === "CSTR");
     expect(singleCstr.length).toBe(2);
-    for (const c of singleCstr) expect((c.inventoryPlan as unknown as TrainPlan).stages[0].slots[0].tag).toBe("R-301");
-    expect(reusedR301).toBeGreaterThanOrEqual(2);
+    for (const c of singleCstr) {
+      const need = (c.stages[0] as { volume: number }).volume;
+      const cheapest = DEMO_INVENTORY.filter((v) => v.available && v.type === "CSTR" && v.volume >= need).sort((a, b) => a.reuseCost - b.reuseCost)[0];
+      expect((c.inventoryPlan as unknown as TrainPlan).stages[0].slots[0].tag).toBe(cheapest.tag);
+    }
+    // At the larger feed (16 L) only the 25 L kettle R-301 fits.
+    expect(reusedR301).toBeGreaterThanOrEqual(1);
   }, 120_000);
 
   it("refuses reuse without the cost objective, naming the field", async () => {
