@@ -18,7 +18,7 @@ export function CostBasisEditor({ projectId }: { projectId: string }) {
   const q = useQuery({ queryKey: ["costs", projectId], queryFn: () => fetchJson<CostsAnswer>(url).then((r) => r.costs) });
   if (q.isPending) return <p className="text-ink-soft">Loading the cost basis…</p>;
   if (q.isError) return <FormMessage kind="error">Could not load the cost basis.</FormMessage>;
-  return <CostBasisForm key={q.data.updatedAt ?? "default"} url={url} projectId={projectId} data={q.data} />;
+  return <CostBasisForm url={url} projectId={projectId} data={q.data} />;
 }
 
 function CostBasisForm({ url, projectId, data }: { url: string; projectId: string; data: CostsAnswer["costs"] }) {
