@@ -2,6 +2,8 @@ import { describe, expect, it } from "vitest";
 import { costObjectiveOf, defaultCostBasis, installedCost, standardSizesOf } from "@/lib/costs/cost-basis";
 import { withCosting } from "@/lib/costs/candidate-costing";
 import { costBasisSchema } from "@/lib/schemas/costs";
+import { inventoryVesselSchema } from "@/lib/schemas/inventory";
+import { DEMO_COST_BASIS, DEMO_INVENTORY } from "@/db/seed-inventory";
 
 describe("the default cost basis", () => {
   it("is valid, and every number says where it comes from", () => {
@@ -30,6 +32,13 @@ describe("the default cost basis", () => {
     const r = costBasisSchema.safeParse(bad);
     expect(r.success).toBe(false);
     expect(r.error!.issues[0].path.join(".")).toBe("vessels.PFR.n");
+  });
+});
+
+describe("the demo data", () => {
+  it("holds a valid cost basis and valid vessels", () => {
+    expect(costBasisSchema.safeParse(DEMO_COST_BASIS).success).toBe(true);
+    for (const v of DEMO_INVENTORY) expect(inventoryVesselSchema.safeParse(v).success, v.tag).toBe(true);
   });
 });
 
