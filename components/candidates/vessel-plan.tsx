@@ -40,8 +40,8 @@ export function VesselPlan({ plan, installedCost, unit }: { plan: TrainPlan | nu
                         {formatVolume(s.volumeNeeded, unit)}
                         {s.slots.length > 1 ? <span className="text-ink-soft"> ({s.slots.length} × {formatVolume(s.volumeEach, unit)})</span> : null}
                       </td>
-                      <td>{reused.length ? reused.map((x) => `${x.tag} (${formatVolume(x.volume, unit)})`).join(", ") : <span className="text-ink-faint">none</span>}</td>
-                      <td className="num whitespace-nowrap">{bought.length ? `new: ${bought.length} × ${formatVolume(bought[0].volume, unit)}` : <span className="text-ink-faint">nothing</span>}</td>
+                      <td>{reused.length ? reused.map((x) => `${x.tag} (${formatVolume(x.volume, unit)})`).join(", ") : <span className="text-ink-soft">none</span>}</td>
+                      <td className="num whitespace-nowrap">{bought.length ? `new: ${bought.length} × ${formatVolume(bought[0].volume, unit)}` : <span className="text-ink-soft">nothing</span>}</td>
                       <td className="num">{formatNumber(s.cost, 4)}</td>
                     </tr>
                   );

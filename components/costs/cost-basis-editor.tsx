@@ -47,8 +47,13 @@ function CostBasisForm({ url, projectId, data }: { url: string; projectId: strin
   const input = (k: string, label: string, cls = "w-28", hint?: string) => {
     const id = `c-${k.replace(/\./g, "-")}`;
     return (
-      <Field id={id} label={label} error={errors[k]} hint={hint}>
-        <input id={id} className={`input ${cls}`} value={form[k]} onChange={set(k)} readOnly={readOnly} aria-invalid={!!errors[k]} aria-describedby={errors[k] ? `${id}-error` : undefined} />
+      <Field id={id} label={label} error={errors[k]}>
+        <input id={id} className={`input ${cls}`} value={form[k]} onChange={set(k)} readOnly={readOnly} aria-invalid={!!errors[k]} aria-describedby={errors[k] ? `${id}-error` : hint ? `${id}-hint` : undefined} />
+        {hint && !errors[k] ? (
+          <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
+            {hint}
+          </p>
+        ) : null}
       </Field>
     );
   };

@@ -69,7 +69,7 @@ export function InventoryScreen() {
                     <td className="num">{formatNumber(v.volume, 4)}</td>
                     <td>{v.available ? <span className="badge border-accent-200 bg-accent-50 text-accent-800">✓ available</span> : <span className="badge border-line">in use</span>}</td>
                     <td className="num">{formatNumber(v.reuseCost, 4)}</td>
-                    <td>{v.location || <span className="text-ink-faint">—</span>}</td>
+                    <td>{v.location || <span className="text-ink-soft">—</span>}</td>
                     {permissions.manage ? (
                       <td className="whitespace-nowrap">
                         <button type="button" className="btn-quiet py-0.5" onClick={() => change.mutate({ id: v.id, body: { available: !v.available } })} aria-label={`Mark ${v.tag} ${v.available ? "in use" : "available"}`}>

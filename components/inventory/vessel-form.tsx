@@ -57,7 +57,7 @@ export function VesselForm({ onSaved }: { onSaved: () => void }) {
             <UnitOptions kind="volume" />
           </select>
         </Field>
-        <Field id="v-reuseCost" label="Reuse cost" error={errors.reuseCost} hint="Moving, inspection, re-piping">
+        <Field id="v-reuseCost" label="Reuse cost (moving, inspection, re-piping)" error={errors.reuseCost}>
           <input id="v-reuseCost" className="input num w-28" inputMode="decimal" value={f.reuseCost} onChange={set("reuseCost")} aria-invalid={!!errors.reuseCost} />
         </Field>
         <Field id="v-location" label="Location" error={errors.location}>
