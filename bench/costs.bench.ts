@@ -39,7 +39,7 @@ function time(label: string, fn: () => number, runs = 25) {
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
-  console.log(`  ${label.padEnd(52)} median ${times[Math.floor(runs / 2)].toFixed(2).padStart(7)} ms   max ${times[runs - 1].toFixed(2).padStart(7)} ms   (last plan reused ${reused})`);
+  console.log(`  ${label.padEnd(58)} median ${times[Math.floor(runs / 2)].toFixed(2).padStart(7)} ms   max ${times[runs - 1].toFixed(2).padStart(7)} ms   (last plan reused ${reused})`);
 }
 
 console.log("Least-cost reuse of idle vessels (MILP, javascript-lp-solver); median and max of 25 runs after 3 warm-ups; goal < 1 s");
@@ -59,4 +59,4 @@ for (const { inv: i, st } of trains) {
   each.push(performance.now() - t0);
 }
 each.sort((a, b) => a - b);
-console.log(`  ${"40 random trains (5 stages, 1–2 parallel), 30 vessels".padEnd(52)} median ${each[20].toFixed(2).padStart(7)} ms   max ${each[39].toFixed(2).padStart(7)} ms`);
+console.log(`  ${"40 random trains (5 stages, 1–2 parallel), 30 vessels".padEnd(58)} median ${each[20].toFixed(2).padStart(7)} ms   max ${each[39].toFixed(2).padStart(7)} ms`);
