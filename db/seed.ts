@@ -9,6 +9,7 @@ import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
 import { bestObjective, candidateRows } from "@/lib/sweeps/run-chunk";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
+import { seedDemoInventory } from "./seed-inventory";
 
 /** The demo scenario: an invented fine-chemicals company and a second, unrelated team. */
 export const DEMO_PASSWORD = "seriatim-demo-2026";
@@ -125,6 +126,7 @@ export async function seedDemoData(db: Database): Promise<void> {
       await tx.insert(kineticsVersions).values({ modelId: model.id, version: 1, spec: k.spec, note: k.note, createdBy: project.createdBy });
     }
     await seedDemoSweep(tx, projectRows.find((p) => p.name === DEMO_KINETICS[0].project)!);
+    await seedDemoInventory(tx);
   });
 }
 

@@ -19,8 +19,10 @@ import {
   tokenCreateSchema,
 } from "./schemas/sweeps";
 import { fitRequestSchema, fitSaveSchema } from "./schemas/fits";
+import { costBasisSchema, rateRequestSchema } from "./schemas/costs";
+import { inventoryVesselSchema, inventoryVesselUpdateSchema } from "./schemas/inventory";
 
-type Method = "get" | "post" | "patch" | "delete";
+type Method = "get" | "post" | "put" | "patch" | "delete";
 
 interface Endpoint {
   method: Method;
@@ -78,6 +80,15 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "post", path: "/api/tokens", summary: "Create a personal API token; shown once", body: tokenCreateSchema, status: 201 },
   { method: "delete", path: "/api/tokens/{tokenId}", summary: "Revoke a personal API token", status: 204 },
   { method: "get", path: "/api/openapi.json", summary: "This document", public: true },
+  { method: "get", path: "/api/projects/{projectId}/costs", summary: "A project's cost basis (the defaults until one is saved), its standard sizes and the sweep objective it gives" },
+  { method: "put", path: "/api/projects/{projectId}/costs", summary: "Save a project's cost basis: correlations with sources, currency and year, standard sizes, largest vessel, installation factor", body: costBasisSchema },
+  { method: "post", path: "/api/projects/{projectId}/rate", summary: "Rate a fixed train: stage-by-stage conversion and the largest feed of A that still reaches the target", body: rateRequestSchema },
+  { method: "get", path: "/api/inventory", summary: "The team's idle vessels" },
+  { method: "post", path: "/api/inventory", summary: "Add an idle vessel (volume in m3)", body: inventoryVesselSchema, status: 201 },
+  { method: "get", path: "/api/inventory/{vesselId}", summary: "One idle vessel" },
+  { method: "patch", path: "/api/inventory/{vesselId}", summary: "Change an idle vessel", body: inventoryVesselUpdateSchema },
+  { method: "delete", path: "/api/inventory/{vesselId}", summary: "Remove an idle vessel", status: 204 },
+  { method: "post", path: "/api/inventory/import", summary: "Upload a CSV or XLSX of vessels (multipart: file, accept=true|false): preview with row problems, or import; 201 when imported" },
 ];
 
 const errorSchema = {

@@ -16,6 +16,7 @@ import { formatNumber, formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
 import { PinForm } from "./pin-form";
 import { StageTable } from "./stage-table";
+import { VesselPlan } from "./vessel-plan";
 import { TemperatureProfile } from "./temperature-profile";
 
 export function CandidateView({ candidateId, canPin }: { candidateId: string; canPin: boolean }) {
@@ -125,6 +126,7 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
         </h2>
         <StageTable stages={c.stages} unit={unit} caption={`Stages of rank ${c.rank}`} />
       </section>
+      <VesselPlan plan={c.inventoryPlan} installedCost={c.installedCost} unit={unit} />
       <Cautions warnings={warnings} />
     </div>
   );

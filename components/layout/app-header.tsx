@@ -19,7 +19,7 @@ export interface HeaderProps {
 
 export function AppHeader({ userName, userEmail, teamId, teamName, role, teams }: HeaderProps) {
   const pathname = usePathname();
-  const nav = [{ href: "/", label: "Projects" }, ...(role === "admin" ? [{ href: "/team", label: "Members" }] : [])];
+  const nav = [{ href: "/", label: "Projects" }, { href: "/inventory", label: "Inventory" }, ...(role === "admin" ? [{ href: "/team", label: "Members" }] : [])];
 
   async function switchTeam(next: string) {
     await fetchJson("/api/me/team", { method: "POST", json: { teamId: next } });

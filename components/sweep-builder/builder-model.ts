@@ -39,6 +39,9 @@ export const builderValuesSchema = z.object({
   standardSizes: z.string(),
   sizeUnit: z.string(),
   maxVessel: z.string(),
+  /** Installed cost = purchase × this factor; blank for purchase cost only. */
+  installationFactor: z.string(),
+  reuseInventory: z.boolean(),
   grid: z.array(axis),
 });
 export type BuilderValues = z.infer<typeof builderValuesSchema>;
@@ -77,6 +80,8 @@ export function defaultBuilderValues(kineticsVersionId = ""): BuilderValues {
     standardSizes: "",
     sizeUnit: "m3",
     maxVessel: "",
+    installationFactor: "",
+    reuseInventory: false,
     grid: [],
   };
 }
@@ -182,6 +187,8 @@ export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; 
     };
   }
 
+  const costing = costingIn(v, issues);
+
   const grid: SweepCreate["grid"] = [];
   v.grid.forEach((a, i) => {
     const preset = GRID_FIELDS.find((g) => g.field === a.field);
@@ -199,10 +206,21 @@ export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; 
   });
 
   if (issues.length || target === undefined || !train) return { body: null, issues };
-  const raw = { ...(v.name.trim() ? { name: v.name.trim() } : {}), kineticsVersionId: v.kineticsVersionId, target: { conversion: target }, train, objective, grid };
+  const raw = { ...(v.name.trim() ? { name: v.name.trim() } : {}), kineticsVersionId: v.kineticsVersionId, target: { conversion: target }, train, objective, grid, ...(costing ? { costing } : {}) };
   const parsed = sweepCreateSchema.safeParse(raw);
   if (!parsed.success) return { body: null, issues: parsed.error.issues.map((i) => ({ path: builderPathOf(i.path.join(".")), message: i.message })) };
   return { body: parsed.data, issues: [] };
+}
+
+/** The sweep's costing (installation factor, reuse) when the cost objective has a factor. */
+function costingIn(v: BuilderValues, issues: BuilderIssue[]): SweepCreate["costing"] {
+  if (v.objective !== "cost") return undefined;
+  const factor = numberIn(v.installationFactor ?? "", "installationFactor", issues, false);
+  if (factor === undefined) {
+    if (v.reuseInventory) issues.push({ path: "installationFactor", message: "Reuse compares installed costs: give the installation factor" });
+    return undefined;
+  }
+  return { installationFactor: factor, reuseInventory: !!v.reuseInventory };
 }
 
 /** A request field path (from zod or the server) → the builder field that shows it. */
@@ -223,6 +241,8 @@ export function builderPathOf(path: string): string {
   if (path.startsWith("objective.standardSizes")) return "standardSizes";
   if (path.startsWith("objective.maxVesselVolume")) return "maxVessel";
   if (path.startsWith("objective")) return "objective";
+  if (path.startsWith("costing.reuse")) return "reuseInventory";
+  if (path.startsWith("costing")) return "installationFactor";
   return "";
 }
 

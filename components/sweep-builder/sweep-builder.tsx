@@ -10,6 +10,7 @@ import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { CostBasisOptions } from "./cost-basis-options";
 import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-model";
 
 export interface VersionOption {
@@ -188,6 +189,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
             {v.objective === "cost" ? (
               <div className="space-y-3">
                 <p className="text-xs text-ink-soft">Each vessel costs a + b·S^n with S its volume in m³, in the currency of your choice.</p>
+                <CostBasisOptions projectId={projectId} />
                 {(["CSTR", "PFR"] as const).map((t) => (
                   <fieldset key={t} className="flex flex-wrap items-start gap-3">
                     <legend className="field-label">{t} vessel</legend>

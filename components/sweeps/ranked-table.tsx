@@ -6,6 +6,7 @@ import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFe
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { formatNumber, formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
+import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
 import type { CandidateRow } from "./types";
 import type { OptionalColumn, SortKey, SweepViewState } from "./view-state";
@@ -22,6 +23,8 @@ const SORT_OF: Record<string, SortKey> = {
   totalCost: "totalCost",
   ratioToPfr: "ratioToPfr",
   stages: "stageCount",
+  installedCost: "installedCost",
+  reused: "reused",
 };
 
 export const COLUMN_TITLES: Record<OptionalColumn, string> = {
@@ -30,6 +33,7 @@ export const COLUMN_TITLES: Record<OptionalColumn, string> = {
   ratioToPfr: "× single PFR",
   stages: "Stages (volume, outlet X)",
   feasible: "Feasibility",
+  ...COST_COLUMN_TITLES,
 };
 
 interface Props {
@@ -96,6 +100,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
           cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4)}</span>,
         }),
         helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span> }),
+        ...costColumns(),
         helper.accessor("ratioToPfr", { header: "× single PFR", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3)}×`}</span> }),
         helper.accessor("stages", {
           header: "Stages (volume, outlet X)",

@@ -1,4 +1,5 @@
 /** Shapes of the JSON API's sweep and candidate answers, as the screens read them. */
+import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { StagePlot, StageResult, StageType } from "@/lib/engine/types";
 
 export type SweepStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled";
@@ -77,6 +78,10 @@ export interface CandidateRow {
   reason: string | null;
   stages: StoredStage[];
   levenspiel?: StagePlot[];
+  /** Installed cost (purchase × installation factor, less reuse) when the sweep was costed. */
+  installedCost?: number | null;
+  /** Vessels reused from the inventory. */
+  reused?: number;
 }
 
 export interface CandidatePage {
@@ -92,4 +97,5 @@ export interface CandidateDetail extends Omit<CandidateRow, "sequenceKey" | "rea
   scenario: { index: number; overrides: Record<string, number>; reference: ScenarioReference | null };
   levenspiel: StagePlot[];
   differences: { volumeOverBest: number | null; costOverBest: number | null };
+  inventoryPlan?: TrainPlan | null;
 }

@@ -5,11 +5,11 @@ import { useCallback, useMemo } from "react";
 import { isVolumeUnit, type VolumeUnit } from "@/lib/charts/volume-units";
 
 /** Columns the server sorts by (lib/schemas/sweeps.ts SORTABLE_COLUMNS; not imported, to keep zod out of the page). */
-export const SORT_KEYS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence"] as const;
+export const SORT_KEYS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused"] as const;
 export type SortKey = (typeof SORT_KEYS)[number];
 export const PAGE_SIZES = [25, 50, 100] as const;
 /** Columns the reader may hide. */
-export const OPTIONAL_COLUMNS = ["chart", "totalCost", "ratioToPfr", "stages", "feasible"] as const;
+export const OPTIONAL_COLUMNS = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused"] as const;
 export type OptionalColumn = (typeof OPTIONAL_COLUMNS)[number];
 
 /** Everything a link to the sweep page carries: scenario, sort, filters, page, columns and units. */

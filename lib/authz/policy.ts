@@ -35,7 +35,12 @@ export type Action =
   | "pin.read"
   | "pin.create"
   | "pin.review"
-  | "token.manage";
+  | "token.manage"
+  | "cost.read"
+  | "cost.update"
+  | "inventory.read"
+  | "inventory.manage"
+  | "train.rate";
 
 const EVERYONE = ROLES;
 const AUTHORS: readonly Role[] = ["admin", "manager", "engineer"];
@@ -69,6 +74,11 @@ export const POLICY: Record<Action, readonly Role[]> = {
   "pin.create": AUTHORS,
   "pin.review": ["admin", "manager"],
   "token.manage": EVERYONE,
+  "cost.read": EVERYONE,
+  "cost.update": AUTHORS,
+  "inventory.read": EVERYONE,
+  "inventory.manage": AUTHORS,
+  "train.rate": AUTHORS,
 };
 
 /** Actions an engineer may take only on records they created. */
@@ -112,6 +122,7 @@ function describe(action: Action): string {
     cancel: "cancel",
     review: "review",
     manage: "manage",
+    rate: "rate",
   };
   const plural = verb === "list" ? `${entity}s` : `this ${entity}`;
   return verb === "create" ? `create a ${entity}` : `${verbs[verb] ?? verb} ${plural}`;

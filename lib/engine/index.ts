@@ -8,3 +8,4 @@ export { EngineError, type EngineErrorCode } from "./errors";
 export { GAS_CONSTANT } from "./arrhenius";
 export { MAX_STAGES } from "./sequences";
 export type * from "./types";
+export { toSI, DIM } from "./units";

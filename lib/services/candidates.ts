@@ -5,6 +5,9 @@ import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
 
+/** Vessels a candidate reuses from the inventory (0 without a plan). */
+const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedCount')::int, 0)`;
+
 const SORT_COLUMNS = {
   rank: [candidates.rank],
   totalVolume: [candidates.totalVolume],
@@ -12,6 +15,8 @@ const SORT_COLUMNS = {
   stageCount: [candidates.stageCount, candidates.rank],
   ratioToPfr: [candidates.ratioToPfr],
   sequence: [candidates.stageCount, candidates.sequenceKey],
+  installedCost: [candidates.installedCost],
+  reused: [reusedCount],
 } as const;
 
 const summaryColumns = {
@@ -25,6 +30,8 @@ const summaryColumns = {
   ratioToPfr: candidates.ratioToPfr,
   reason: candidates.reason,
   stages: candidates.stages,
+  installedCost: candidates.installedCost,
+  reused: reusedCount.mapWith(Number),
 };
 
 /** One scenario's ranked candidates, sorted, filtered and paged in the database. */
@@ -103,6 +110,8 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
     feasible: c.feasible,
     totalVolume: c.totalVolume,
     totalCost: c.totalCost,
+    installedCost: c.installedCost,
+    inventoryPlan: c.inventoryPlan,
     stageCount: c.stageCount,
     ratioToPfr: c.ratioToPfr,
     stages: c.stages,

@@ -12,6 +12,7 @@ import type { SweepCreate } from "@/lib/schemas/sweeps";
 import { toBadRequest } from "@/lib/sweeps/engine-bridge";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
+import { sweepCostingFor } from "./sweep-costing";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
 
 /** Most scenarios one sweep may hold (SWEEP_MAX_SCENARIOS, default 2,000). */
@@ -66,6 +67,7 @@ interface NewSweep {
   baseSpec: Record<string, unknown>;
   grid: GridAxis[];
   rerunOf?: string;
+  inventory?: Record<string, unknown>[] | null;
 }
 
 async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
@@ -86,6 +88,7 @@ async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
         total: all.length,
         jobIds: jobs.map((j) => j.id),
         rerunOf: s.rerunOf ?? null,
+        inventory: s.inventory ?? null,
         submittedBy: s.actor.userId,
       })
       .returning();
@@ -123,8 +126,10 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
       fields: { grid: [`${total} scenarios; at most ${maxScenarios()}`] },
     });
   }
-  const baseSpec = { ...kv.version.spec, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
-  checkScenarios(baseSpec, input.grid, expandGrid(input.grid));
+  const { costing, inventory } = await sweepCostingFor(db, actor, input);
+  const engineSpec = { ...kv.version.spec, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
+  checkScenarios(engineSpec, input.grid, expandGrid(input.grid));
+  const baseSpec = costing ? { ...engineSpec, costing } : engineSpec;
   return insertSweepWithJobs({
     actor,
     projectId,
@@ -132,6 +137,7 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
     name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
     baseSpec,
     grid: input.grid,
+    inventory,
   });
 }
 
@@ -191,6 +197,7 @@ export async function rerunSweep(db: Database, actor: Actor, sweepId: string) {
     baseSpec: s.baseSpec,
     grid: s.grid as GridAxis[],
     rerunOf: s.id,
+    inventory: s.inventory,
   });
   return sweepView(sweep);
 }

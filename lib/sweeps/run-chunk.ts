@@ -5,6 +5,7 @@ import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema-sweeps";
 import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
 import type { SweepChunkPayload } from "@/lib/jobs/queues";
 import { appLink, sendMail } from "@/lib/mail";
+import { engineSpecOf, withCosting } from "@/lib/costs/candidate-costing";
 import { applyOverrides } from "./grid";
 
 type Outcome =
@@ -74,7 +75,7 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
   const outcomes: Outcome[] = [];
   for (const s of pending) {
     if (shouldStop()) break;
-    const spec = applyOverrides(sweep.baseSpec, s.overrides) as unknown as DesignSpec;
+    const spec = applyOverrides(engineSpecOf(sweep.baseSpec), s.overrides) as unknown as DesignSpec;
     try {
       outcomes.push({ scenarioId: s.id, result: designTrains(spec) });
     } catch (err) {
@@ -91,7 +92,7 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
       let failed = 0;
       for (const o of outcomes) {
         if ("result" in o) {
-          const rows = candidateRows(sweep.id, o.scenarioId, o.result);
+          const rows = withCosting(candidateRows(sweep.id, o.scenarioId, o.result), sweep);
           for (let i = 0; i < rows.length; i += 500) await tx.insert(candidates).values(rows.slice(i, i + 500)).onConflictDoNothing();
         }
         const updated = await tx

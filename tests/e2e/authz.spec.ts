@@ -205,7 +205,55 @@ const ROWS: Row[] = [
     call: async (c) => c.delete(`/api/tokens/${await newEngineerTokenId()}`),
     expect: { admin: 404, manager: 404, engineer: 204, viewer: 404, otherTeam: 404, anonymous: 401 },
   },
+  // Cost basis, inventory and rating.
+  { route: "GET /api/projects/:id/costs", call: (c) => c.get(`/api/projects/${ids.project}/costs`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "PUT /api/projects/:id/costs (the basis as it is)",
+    call: async (c) => c.put(`/api/projects/${ids.project}/costs`, { data: await currentCostBasis() }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/projects/:id/rate",
+    call: (c) => c.post(`/api/projects/${ids.project}/rate`, { data: { kineticsVersionId: ids.version, stages: [{ type: "CSTR", volume: "10 L" }], target: 0.5 } }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/inventory", call: (c) => c.get("/api/inventory"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },
+  {
+    route: "POST /api/inventory",
+    call: (c) => c.post("/api/inventory", { data: { tag: `M-${Math.random().toString(36).slice(2)}`, type: "CSTR", volume: 1 } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 201, anonymous: 401 },
+  },
+  { route: "GET /api/inventory/:id", call: async (c) => c.get(`/api/inventory/${await demoVesselId()}`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "PATCH /api/inventory/:id",
+    call: async (c) => c.patch(`/api/inventory/${await demoVesselId()}`, { data: { available: true } }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "DELETE /api/inventory/:id (a fresh vessel each time)",
+    call: async (c) => c.delete(`/api/inventory/${await newVesselId()}`),
+    expect: { admin: 204, manager: 204, engineer: 204, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/inventory/import (preview)",
+    call: (c) => c.post("/api/inventory/import", { multipart: { file: { name: "v.csv", mimeType: "text/csv", buffer: Buffer.from("tag,type,volume\nP-1,CSTR,1\n") }, accept: "false" } }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 200, anonymous: 401 },
+  },
 ];
+
+async function currentCostBasis(): Promise<unknown> {
+  return ((await (await ctx.engineer.get(`/api/projects/${ids.project}/costs`)).json()) as { costs: { basis: unknown } }).costs.basis;
+}
+
+async function demoVesselId(): Promise<string> {
+  const list = (await (await ctx.engineer.get("/api/inventory")).json()) as { vessels: { id: string; tag: string }[] };
+  return list.vessels.find((v) => v.tag === "R-302")!.id;
+}
+
+async function newVesselId(): Promise<string> {
+  const res = await ctx.engineer.post("/api/inventory", { data: { tag: `DEL-${Math.random().toString(36).slice(2)}`, type: "PFR", volume: 0.5 } });
+  return ((await res.json()) as { vessel: { id: string } }).vessel.id;
+}
 
 for (const row of ROWS) {
   for (const caller of CALLERS) {

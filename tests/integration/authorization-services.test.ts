@@ -8,11 +8,15 @@ import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
-import { rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
+import { inventoryVessels, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
-import { pinnedDesigns } from "@/db/schema-sweeps";
+import { kineticsModels, kineticsVersions, pinnedDesigns } from "@/db/schema-sweeps";
 import { getDesignReport } from "@/lib/reports/design-report";
 import { exportCandidates } from "@/lib/services/candidate-export";
+import { DEMO_COST_BASIS } from "@/db/seed-inventory";
+import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
+import { createVessel, deleteVessel, getVessel, importInventory, listInventory, updateVessel } from "@/lib/services/inventory";
+import { rateFixedTrain } from "@/lib/services/rating";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -33,6 +37,8 @@ let managersProject: string;
 let viewerId: string;
 let datasetVersionId: string;
 let demoPin: { id: string; sweepId: string };
+let vesselId: string;
+let kineticsVersionId: string;
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -44,6 +50,12 @@ beforeAll(async () => {
   viewerId = actors.viewer.userId;
   const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
   engineersProject = p.id;
+  [{ id: vesselId }] = await t.db.select({ id: inventoryVessels.id }).from(inventoryVessels).where(eq(inventoryVessels.tag, "R-302"));
+  [{ id: kineticsVersionId }] = await t.db
+    .select({ id: kineticsVersions.id })
+    .from(kineticsVersions)
+    .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
+    .where(eq(kineticsModels.projectId, p.id));
   managersProject = (await createProject(t.db, actors.manager, { name: "Manager's own study", description: "" })).id;
   // A dataset version written straight to the tables (the upload is another feature's route).
   const [ds] = await t.db.insert(rateDatasets).values({ teamId: actors.engineer.teamId, projectId: engineersProject, name: "Matrix rates", createdBy: actors.engineer.userId }).returning();
@@ -93,6 +105,35 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
   { name: "read the design report of a proposed pin", run: (a) => getDesignReport(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
   { name: "export a scenario's candidates", run: (a) => exportCandidates(t.db, a, demoPin.sweepId, 0, { sort: "rank", dir: "asc" }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
+  // Cost basis, inventory and rating (GET/PUT /api/projects/:id/costs, /api/inventory…, POST /api/projects/:id/rate).
+  { name: "read a project's cost basis", run: (a) => getCostBasis(t.db, a, engineersProject), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "not_found" } },
+  { name: "save a project's cost basis", run: (a) => saveCostBasis(t.db, a, engineersProject, DEMO_COST_BASIS), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  { name: "list the inventory", run: (a) => listInventory(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "ok" } },
+  { name: "read an inventory vessel", run: (a) => getVessel(t.db, a, vesselId), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "not_found" } },
+  {
+    name: "add an inventory vessel",
+    run: (a) => createVessel(t.db, a, { tag: `X-${a.role}-${Math.random()}`, type: "CSTR", volume: 1, available: true, reuseCost: 0, location: "", note: "" }),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "ok" },
+  },
+  { name: "change an inventory vessel", run: (a) => updateVessel(t.db, a, vesselId, { available: true }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  {
+    name: "remove an inventory vessel",
+    run: async (a) => {
+      const v = await createVessel(t.db, actors.admin, { tag: `D-${a.role}-${Math.random()}`, type: "PFR", volume: 1, available: true, reuseCost: 0, location: "", note: "" });
+      await deleteVessel(t.db, a, v.id);
+    },
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
+  },
+  {
+    name: "preview an inventory file",
+    run: (a) => importInventory(t.db, a, { name: "v.csv", data: new TextEncoder().encode("tag,type,volume\nP-1,CSTR,1\n").buffer as ArrayBuffer }, false),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "ok" },
+  },
+  {
+    name: "rate a fixed train",
+    run: (a) => rateFixedTrain(t.db, a, engineersProject, { kineticsVersionId, stages: [{ type: "CSTR", volume: 0.01 }], target: 0.5 }),
+    expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
+  },
 ];
 
 describe("authorisation matrix over the services", () => {

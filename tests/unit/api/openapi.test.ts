@@ -18,7 +18,7 @@ function servedEndpoints(): string[] {
     if (rel.startsWith("api/auth/")) continue; // Auth.js's own protocol
     const apiPath = "/" + rel.replace(/\[(\w+)\]/g, "{$1}");
     const src = readFileSync(file, "utf8");
-    for (const m of src.matchAll(/export (?:const|async function|function) (GET|POST|PATCH|DELETE)\b/g)) out.push(`${m[1].toLowerCase()} ${apiPath}`);
+    for (const m of src.matchAll(/export (?:const|async function|function) (GET|POST|PUT|PATCH|DELETE)\b/g)) out.push(`${m[1].toLowerCase()} ${apiPath}`);
   }
   return out.sort();
 }

@@ -18,7 +18,7 @@ describe("the permission table", () => {
 
   it("lets viewers only read", () => {
     const allowed = (Object.keys(POLICY) as Action[]).filter((a) => can(actor("viewer"), a));
-    expect(allowed.sort()).toEqual(["pin.read", "project.list", "project.read", "token.manage"]);
+    expect(allowed.sort()).toEqual(["cost.read", "inventory.read", "pin.read", "project.list", "project.read", "token.manage"]);
   });
 
   it("limits engineers to changing their own projects", () => {

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { ProjectCostLinks } from "@/components/costs/project-cost-links";
 import { AuditList, type AuditRow } from "@/components/audit/audit-list";
 import { Cautions } from "@/components/cautions/cautions";
 import { PinsPanel, type PinRow } from "@/components/project/pins-panel";
@@ -66,6 +67,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         <div>
           <h1 data-testid="project-title">{project.name}</h1>
           <p className="mt-1 max-w-3xl text-ink-soft">{project.description || "No purpose written yet."}</p>
+          <ProjectCostLinks projectId={project.id} canRate={can(actor, "train.rate")} />
         </div>
         {project.archivedAt ? <span className="badge border-line">archived</span> : null}
       </div>

@@ -1,0 +1,105 @@
+"use client";
+
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
+import { FormMessage } from "@/components/ui/field";
+import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { formatNumber } from "@/lib/charts/volume-units";
+import { InventoryUpload } from "./inventory-upload";
+import { VesselForm } from "./vessel-form";
+
+export interface Vessel {
+  id: string;
+  tag: string;
+  type: "CSTR" | "PFR";
+  volume: number;
+  available: boolean;
+  reuseCost: number;
+  location: string;
+  note: string;
+}
+
+/** The team's idle vessels: list, add, mark in use or available, remove, and import from a file. */
+export function InventoryScreen() {
+  const client = useQueryClient();
+  const q = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: Vessel[]; permissions: { manage: boolean } }>("/api/inventory") });
+  const [error, setError] = useState<string>();
+  const refresh = () => client.invalidateQueries({ queryKey: ["inventory"] });
+  const change = useMutation({
+    mutationFn: (a: { id: string; body?: Partial<Vessel>; remove?: boolean }) =>
+      a.remove ? fetchJson(`/api/inventory/${a.id}`, { method: "DELETE" }) : fetchJson(`/api/inventory/${a.id}`, { method: "PATCH", json: a.body }),
+    onSuccess: () => {
+      setError(undefined);
+      return refresh();
+    },
+    onError: (e) => setError(e instanceof ApiError ? e.message : "Could not reach the server."),
+  });
+
+  if (q.isPending) return <p className="text-ink-soft">Loading the inventory…</p>;
+  if (q.isError) return <FormMessage kind="error">Could not load the inventory.</FormMessage>;
+  const { vessels, permissions } = q.data;
+  return (
+    <div className="space-y-5">
+      <section className="card overflow-hidden" aria-labelledby="inv-title">
+        <h2 id="inv-title" className="border-b border-line px-3 py-2">
+          Idle vessels <span className="text-sm font-normal text-ink-soft">({vessels.length})</span>
+        </h2>
+        {vessels.length === 0 ? (
+          <p className="px-3 py-4 text-ink-soft">No vessels yet.</p>
+        ) : (
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Idle vessels table">
+            <table className="table-dense" data-testid="inventory-table">
+              <caption className="sr-only">The team&apos;s idle vessels</caption>
+              <thead>
+                <tr>
+                  <th scope="col">Tag</th>
+                  <th scope="col">Type</th>
+                  <th scope="col">Volume, m³</th>
+                  <th scope="col">Status</th>
+                  <th scope="col">Reuse cost</th>
+                  <th scope="col">Location</th>
+                  {permissions.manage ? <th scope="col">Actions</th> : null}
+                </tr>
+              </thead>
+              <tbody>
+                {vessels.map((v) => (
+                  <tr key={v.id} data-testid="inventory-row">
+                    <td className="font-medium">{v.tag}</td>
+                    <td>{v.type}</td>
+                    <td className="num">{formatNumber(v.volume, 4)}</td>
+                    <td>{v.available ? <span className="badge border-accent-200 bg-accent-50 text-accent-800">✓ available</span> : <span className="badge border-line">in use</span>}</td>
+                    <td className="num">{formatNumber(v.reuseCost, 4)}</td>
+                    <td>{v.location || <span className="text-ink-soft">—</span>}</td>
+                    {permissions.manage ? (
+                      <td className="whitespace-nowrap">
+                        <button type="button" className="btn-quiet py-0.5" onClick={() => change.mutate({ id: v.id, body: { available: !v.available } })} aria-label={`Mark ${v.tag} ${v.available ? "in use" : "available"}`}>
+                          {v.available ? "Mark in use" : "Mark available"}
+                        </button>{" "}
+                        <button type="button" className="btn-danger py-0.5" onClick={() => change.mutate({ id: v.id, remove: true })} aria-label={`Remove ${v.tag}`}>
+                          Remove
+                        </button>
+                      </td>
+                    ) : null}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+        {error ? (
+          <div className="p-3">
+            <FormMessage kind="error">{error}</FormMessage>
+          </div>
+        ) : null}
+      </section>
+      {permissions.manage ? (
+        <div className="grid gap-5 lg:grid-cols-2">
+          <VesselForm onSaved={refresh} />
+          <InventoryUpload onImported={refresh} />
+        </div>
+      ) : (
+        <p className="text-sm text-ink-soft">Your role reads the inventory but does not change it.</p>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,166 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import { useState } from "react";
+import { Cautions } from "@/components/cautions/cautions";
+import { FormMessage } from "@/components/ui/field";
+import { UnitOptions } from "@/components/ui/unit-options";
+import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { toSI } from "@/lib/units/display";
+import { RatingResultView, type RatingAnswer } from "./rating-result";
+
+interface VesselOption {
+  id: string;
+  tag: string;
+  type: "CSTR" | "PFR";
+  volume: number;
+  available: boolean;
+}
+
+type StageRow = { key: number; source: "new" | "inventory"; type: "CSTR" | "PFR"; volume: string; unit: string; vesselId: string };
+
+let next = 1;
+const newRow = (type: "CSTR" | "PFR" = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
+
+/** Rate a fixed train: stages by type and volume or from the inventory, a target, and the results with cautions. */
+export function RateTrainForm({ projectId, versions }: { projectId: string; versions: { id: string; label: string }[] }) {
+  const inventory = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: VesselOption[] }>("/api/inventory") });
+  const [versionId, setVersionId] = useState(versions[0]?.id ?? "");
+  const [rows, setRows] = useState<StageRow[]>([newRow()]);
+  const [target, setTarget] = useState("0.9");
+  const [errors, setErrors] = useState<Record<string, string>>({});
+  const [message, setMessage] = useState<string>();
+  const [result, setResult] = useState<RatingAnswer>();
+  const [busy, setBusy] = useState(false);
+  const update = (key: number, patch: Partial<StageRow>) => setRows((rs) => rs.map((r) => (r.key === key ? { ...r, ...patch } : r)));
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    setMessage(undefined);
+    setBusy(true);
+    const stages = rows.map((r) => {
+      if (r.source === "inventory") return { inventoryVesselId: r.vesselId };
+      const n = Number(r.volume);
+      return { type: r.type, volume: r.volume.trim() !== "" && Number.isFinite(n) ? toSI("volume", n, r.unit) : r.volume };
+    });
+    try {
+      const res = await fetchJson<{ rating: RatingAnswer }>(`/api/projects/${projectId}/rate`, {
+        method: "POST",
+        json: { kineticsVersionId: versionId, stages, target: target.trim() !== "" && Number.isFinite(Number(target)) ? Number(target) : target },
+      });
+      setErrors({});
+      setResult(res.rating);
+    } catch (err) {
+      setResult(undefined);
+      if (!(err instanceof ApiError)) return setMessage("Could not reach the server.");
+      setErrors(Object.fromEntries(Object.entries(err.fields).map(([k, m]) => [k, m.join(" ")])));
+      setMessage(err.message);
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const err = (k: string) => (errors[k] ? <p className="field-error" id={`${k}-error`} role="alert">{errors[k]}</p> : null);
+  const vessels = inventory.data?.vessels ?? [];
+
+  return (
+    <div className="space-y-5">
+      <form className="card space-y-4 p-4" onSubmit={submit} noValidate aria-label="Rate a fixed train">
+        <div className="flex flex-wrap gap-4">
+          <div>
+            <label htmlFor="r-version" className="field-label">
+              Kinetics version
+            </label>
+            <select id="r-version" className="input w-auto" value={versionId} onChange={(e) => setVersionId(e.target.value)}>
+              {versions.map((v) => (
+                <option key={v.id} value={v.id}>
+                  {v.label}
+                </option>
+              ))}
+            </select>
+            {err("kineticsVersionId")}
+          </div>
+          <div>
+            <label htmlFor="r-target" className="field-label">
+              Target conversion
+            </label>
+            <input id="r-target" className="input num w-24" inputMode="decimal" value={target} onChange={(e) => setTarget(e.target.value)} aria-invalid={!!errors.target} />
+            {err("target")}
+          </div>
+        </div>
+        <fieldset className="space-y-2">
+          <legend className="field-label">Stages, in flow order</legend>
+          {rows.map((r, i) => (
+            <div key={r.key} className="flex flex-wrap items-end gap-2 rounded border border-line p-2" role="group" aria-label={`Stage ${i + 1}`} data-testid="rate-stage">
+              <span className="num w-6 pb-2 font-medium">{i + 1}</span>
+              <div>
+                <label htmlFor={`r-src-${r.key}`} className="field-label">
+                  Vessel
+                </label>
+                <select id={`r-src-${r.key}`} className="input w-auto" value={r.source} onChange={(e) => update(r.key, { source: e.target.value as StageRow["source"] })}>
+                  <option value="new">By type and volume</option>
+                  <option value="inventory">From the inventory</option>
+                </select>
+              </div>
+              {r.source === "new" ? (
+                <>
+                  <div>
+                    <label htmlFor={`r-type-${r.key}`} className="field-label">
+                      Type
+                    </label>
+                    <select id={`r-type-${r.key}`} className="input w-auto" value={r.type} onChange={(e) => update(r.key, { type: e.target.value as StageRow["type"] })}>
+                      <option value="CSTR">CSTR</option>
+                      <option value="PFR">PFR</option>
+                    </select>
+                  </div>
+                  <div>
+                    <label htmlFor={`r-volume-${r.key}`} className="field-label">
+                      Volume
+                    </label>
+                    <input id={`r-volume-${r.key}`} className="input num w-24" inputMode="decimal" value={r.volume} onChange={(e) => update(r.key, { volume: e.target.value })} aria-invalid={!!errors[`stages.${i}.volume`]} />
+                  </div>
+                  <div>
+                    <label htmlFor={`r-unit-${r.key}`} className="field-label">
+                      Unit
+                    </label>
+                    <select id={`r-unit-${r.key}`} className="input w-auto" value={r.unit} onChange={(e) => update(r.key, { unit: e.target.value })}>
+                      <UnitOptions kind="volume" />
+                    </select>
+                  </div>
+                </>
+              ) : (
+                <div>
+                  <label htmlFor={`r-vessel-${r.key}`} className="field-label">
+                    Inventory vessel
+                  </label>
+                  <select id={`r-vessel-${r.key}`} className="input w-auto" value={r.vesselId} onChange={(e) => update(r.key, { vesselId: e.target.value })}>
+                    <option value="">Choose…</option>
+                    {vessels.map((v) => (
+                      <option key={v.id} value={v.id}>
+                        {v.tag} · {v.type} · {v.volume} m³{v.available ? "" : " (in use)"}
+                      </option>
+                    ))}
+                  </select>
+                </div>
+              )}
+              <button type="button" className="btn-quiet" onClick={() => setRows((rs) => rs.filter((x) => x.key !== r.key))} disabled={rows.length === 1} aria-label={`Remove stage ${i + 1}`}>
+                Remove
+              </button>
+              <div className="w-full">{err(`stages.${i}.volume`) ?? err(`stages.${i}.inventoryVesselId`) ?? err(`stages.${i}`)}</div>
+            </div>
+          ))}
+          {err("stages")}
+          <button type="button" className="btn-quiet" onClick={() => setRows((rs) => [...rs, newRow()])} disabled={rows.length >= 8}>
+            Add a stage
+          </button>
+        </fieldset>
+        {message ? <FormMessage kind="error">{message}</FormMessage> : null}
+        <button type="submit" className="btn-primary" disabled={busy || !versionId}>
+          Rate the train
+        </button>
+      </form>
+      {result ? <RatingResultView result={result} /> : null}
+      {!result ? <Cautions warnings={[]} /> : null}
+    </div>
+  );
+}

@@ -1,0 +1,73 @@
+"use client";
+
+import { useState } from "react";
+import { useFormContext, useWatch } from "react-hook-form";
+import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
+import { fetchJson } from "@/lib/client/fetch-json";
+import type { BuilderValues } from "./builder-model";
+
+interface CostsAnswer {
+  costs: {
+    basis: { vessels: Record<"CSTR" | "PFR", { a: number; b: number; n: number }>; currency: string; basisYear: number; installationFactor: { value: number } };
+    standardSizes: number[] | null;
+    isDefault: boolean;
+  };
+}
+
+/** Cost-objective extras of the sweep builder: prefill from the project's cost basis, installation factor, reuse of idle vessels. */
+export function CostBasisOptions({ projectId }: { projectId: string }) {
+  const { register, setValue, formState, control } = useFormContext<BuilderValues>();
+  const reuse = useWatch({ control, name: "reuseInventory" });
+  const [status, setStatus] = useState<string>();
+  const err = (p: string) => messageAt(formState.errors, p);
+
+  const useProjectBasis = async () => {
+    setStatus("Loading the project's cost basis…");
+    try {
+      const { costs } = await fetchJson<CostsAnswer>(`/api/projects/${projectId}/costs`);
+      const opts = { shouldValidate: true, shouldDirty: true };
+      for (const t of ["CSTR", "PFR"] as const) {
+        const c = costs.basis.vessels[t];
+        setValue(`vessel${t}`, { a: String(c.a), b: String(c.b), n: String(c.n) }, opts);
+      }
+      setValue("sizeUnit", "m3", opts);
+      setValue("standardSizes", costs.standardSizes ? costs.standardSizes.join(", ") : "", opts);
+      const max = (costs.basis as { maxVesselVolume?: number | null }).maxVesselVolume;
+      setValue("maxVessel", max === null || max === undefined ? "" : String(max), opts);
+      setValue("installationFactor", String(costs.basis.installationFactor.value), opts);
+      setStatus(`Filled from the project's cost basis (${costs.basis.currency}, ${costs.basis.basisYear}${costs.isDefault ? ", defaults: not yet saved for this project" : ""}).`);
+    } catch {
+      setStatus("Could not read the project's cost basis.");
+    }
+  };
+
+  return (
+    <div className="space-y-3 rounded border border-line p-3">
+      <div className="flex flex-wrap items-center gap-3">
+        <button type="button" className="btn-quiet" onClick={useProjectBasis} data-testid="use-project-costs">
+          Use the project&apos;s cost basis
+        </button>
+        <p className="text-xs text-ink-soft" role="status">
+          {status}
+        </p>
+      </div>
+      <div className="flex flex-wrap items-start gap-4">
+        <div>
+          <label htmlFor="s-installationFactor" className="field-label">
+            Installation factor (installed = purchase × factor)
+          </label>
+          <input id="s-installationFactor" className="input num w-24" inputMode="decimal" autoComplete="off" aria-invalid={!!err("installationFactor")} {...register("installationFactor")} />
+          <ErrorText id="s-installationFactor" message={err("installationFactor")} />
+        </div>
+        <label className="mt-6 flex items-center gap-1.5 text-sm">
+          <input type="checkbox" {...register("reuseInventory")} aria-describedby="s-reuse-hint" /> Reuse idle vessels from the inventory
+        </label>
+      </div>
+      {reuse ? (
+        <p id="s-reuse-hint" className="text-xs text-ink-soft">
+          The team&apos;s available vessels are copied into the sweep when you submit; each feasible train is equipped at least installed cost from them and new vessels.
+        </p>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,24 @@
+import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures } from "@tanstack/react-table";
+import { formatNumber } from "@/lib/charts/volume-units";
+import type { CandidateRow } from "./types";
+
+export const COST_COLUMN_TITLES = { installedCost: "Installed cost", reused: "Reused" } as const;
+
+// The same features as the ranked table, so these columns fit its column list.
+const helper = createColumnHelper<ReturnType<typeof tableFeatures<{ rowSortingFeature: typeof rowSortingFeature; columnVisibilityFeature: typeof columnVisibilityFeature }>>, CandidateRow>();
+
+const costed = (c: CandidateRow) => c.installedCost !== null && c.installedCost !== undefined;
+
+/** The ranked table's cost columns: installed cost, and the count of vessels reused from the inventory. */
+export function costColumns() {
+  return [
+    helper.accessor("installedCost", {
+      header: COST_COLUMN_TITLES.installedCost,
+      cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span>,
+    }),
+    helper.accessor("reused", {
+      header: COST_COLUMN_TITLES.reused,
+      cell: (i) => <span className="num">{costed(i.row.original) ? (i.getValue() ?? 0) : "—"}</span>,
+    }),
+  ];
+}

@@ -1,0 +1,66 @@
+import { z } from "zod";
+import { uuidSchema } from "./foundation";
+
+const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
+const source = z.string().trim().min(1, "Say where the number comes from, or write \"from memory\"").max(300, "Use at most 300 characters");
+
+/** One correlation: purchase cost = a + b·S^n, S the volume of one vessel in m3. */
+export const correlationSchema = z.strictObject({
+  a: finite.min(0, "a must be >= 0"),
+  b: finite.min(0, "b must be >= 0"),
+  n: finite.gt(0, "n must be above 0").max(3, "n must be at most 3"),
+  source,
+});
+
+/** Which volumes one can buy: R10 preferred numbers in a range, a list, or any size (m3). */
+export const sizePolicySchema = z.discriminatedUnion(
+  "mode",
+  [
+    z
+      .strictObject({ mode: z.literal("r10"), min: finite.gt(0, "min must be above 0"), max: finite.gt(0, "max must be above 0") })
+      .refine((s) => s.max >= s.min, { message: "max must be at least min", path: ["max"] }),
+    z.strictObject({ mode: z.literal("custom"), values: z.array(finite.gt(0, "Sizes must be above 0")).min(1, "Give at least one size").max(200, "At most 200 sizes") }),
+    z.strictObject({ mode: z.literal("any") }),
+  ],
+  { error: "mode must be r10, custom or any" },
+);
+
+/** A project's cost basis; volumes in m3, money in `currency` of `basisYear`. */
+export const costBasisSchema = z.strictObject({
+  vessels: z.strictObject({ CSTR: correlationSchema, PFR: correlationSchema }),
+  currency: z.string().trim().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, e.g. USD"),
+  basisYear: z.int("Year must be a whole number").min(1950, "Year must be 1950 or later").max(2100, "Year must be 2100 or earlier"),
+  sizes: sizePolicySchema,
+  /** Largest single vessel, m3; null for no limit. */
+  maxVesselVolume: finite.gt(0, "The maximum vessel volume must be above 0").nullable(),
+  installationFactor: z.strictObject({ value: finite.min(1, "An installation factor is at least 1").max(10, "An installation factor is at most 10"), source }),
+});
+export type CostBasis = z.infer<typeof costBasisSchema>;
+
+/** The costing a sweep records beside its engine spec (baseSpec.costing). */
+export const sweepCostingSchema = z.strictObject({
+  installationFactor: finite.min(1, "An installation factor is at least 1").max(10, "An installation factor is at most 10"),
+  currency: z.string().trim().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, e.g. USD").optional(),
+  reuseInventory: z.boolean().default(false),
+});
+export type SweepCosting = z.infer<typeof sweepCostingSchema>;
+
+const volumeQuantity = z.union([finite.gt(0, "A volume must be above 0"), z.string().trim().min(1, "Give a volume, e.g. 2.5 m3")]);
+
+export const rateRequestSchema = z.strictObject({
+  kineticsVersionId: uuidSchema,
+  stages: z
+    .array(
+      z.union(
+        [
+          z.strictObject({ type: z.enum(["CSTR", "PFR"], { error: "type must be CSTR or PFR" }), volume: volumeQuantity }),
+          z.strictObject({ inventoryVesselId: uuidSchema }),
+        ],
+        { error: "Give a type and volume, or an inventory vessel" },
+      ),
+    )
+    .min(1, "Give at least one stage")
+    .max(8, "At most 8 stages"),
+  target: z.number({ error: "Target conversion is required" }).gt(0, "Conversion must be above 0").lt(1, "Conversion must be below 1"),
+});
+export type RateRequest = z.infer<typeof rateRequestSchema>;

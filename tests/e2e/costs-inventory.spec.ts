@@ -1,0 +1,106 @@
+import AxeBuilder from "@axe-core/playwright";
+import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
+import { signedInContext } from "./fixtures";
+import { createModel, firstProjectId } from "./sweep-fixtures";
+
+let engineer: APIRequestContext;
+let browserCtx: BrowserContext;
+let projectId: string;
+let versionId: string;
+let modelLabel: string;
+const tag = `E2E-${Date.now().toString(36)}`;
+
+test.beforeAll(async ({ browser }) => {
+  engineer = await signedInContext("engineer");
+  projectId = await firstProjectId(engineer);
+  modelLabel = `Costs kinetics ${Date.now()}`;
+  versionId = (await createModel(engineer, projectId, modelLabel)).version.id;
+  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+});
+test.afterAll(async () => {
+  await browserCtx.close();
+  await engineer.dispose();
+});
+
+async function expectAccessible(page: Page) {
+  const result = await new AxeBuilder({ page }).analyze();
+  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+}
+
+test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where", async () => {
+  test.setTimeout(120_000);
+  const page = await browserCtx.newPage();
+
+  // 1. The project's cost basis, from the project page.
+  await page.goto(`/projects/${projectId}`);
+  await page.getByTestId("project-costs-link").click();
+  await expect(page.getByRole("heading", { name: "Cost basis", level: 1 })).toBeVisible();
+  const exponent = page.getByLabel("n (size exponent)").first();
+  await exponent.fill("zero");
+  await page.getByRole("button", { name: "Save cost basis" }).click();
+  await expect(page.locator("#c-vessels-CSTR-n-error")).toContainText("Must be a number");
+  await exponent.fill("0.6");
+  await page.getByLabel("Installation factor (installed cost = purchase × factor)").fill("3.5");
+  await page.getByRole("button", { name: "Save cost basis" }).click();
+  await expect(page.getByText("Cost basis saved.")).toBeVisible();
+  await expectAccessible(page);
+
+  // 2. An idle vessel, from the header's Inventory link.
+  await page.getByRole("link", { name: "Inventory" }).click();
+  await expect(page.getByRole("heading", { name: "Inventory", level: 1 })).toBeVisible();
+  await page.getByLabel("Tag").fill(tag);
+  await page.getByLabel("Type").selectOption("CSTR");
+  await page.getByLabel("Volume", { exact: true }).fill("30");
+  await page.getByLabel("Unit").selectOption("L");
+  await page.getByLabel("Reuse cost").fill("0");
+  await page.getByRole("button", { name: "Add vessel" }).click();
+  await expect(page.getByTestId("inventory-row").filter({ hasText: tag })).toContainText("0.03");
+  await expectAccessible(page);
+
+  // 3. A cost sweep that reuses idle vessels, prefilled from the project's basis.
+  await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
+  await page.getByLabel("Least vessel cost").check();
+  await page.getByTestId("use-project-costs").click();
+  await expect(page.getByText(/Filled from the project's cost basis/)).toBeVisible();
+  await expect(page.locator("#s-installationFactor")).toHaveValue("3.5");
+  await page.getByLabel("Reuse idle vessels from the inventory").check();
+  await page.getByRole("button", { name: "Submit sweep" }).click();
+  await expect(page).toHaveURL(/\/sweeps\/[0-9a-f-]{36}/);
+  await expect(page.getByTestId("sweep-status")).toHaveText("Finished", { timeout: 60_000 });
+
+  // Most reused first (sorted by the server), then the candidate's vessel plan.
+  await page.getByTestId("sort-reused").click();
+  await expect(page).toHaveURL(/sort=reused/);
+  await page.getByTestId("sort-reused").click();
+  await expect(page).toHaveURL(/dir=desc/);
+  await page.getByTestId("candidate-link").first().click();
+  const plan = page.getByTestId("vessel-plan-table");
+  await expect(plan).toBeVisible();
+  await expect(plan).toContainText(tag);
+  await expect(page.getByTestId("vessel-plan-saving")).toContainText("saving");
+  await expectAccessible(page);
+});
+
+test("rate a fixed train: conversion, largest feed and cautions", async () => {
+  const page = await browserCtx.newPage();
+  await page.goto(`/projects/${projectId}`);
+  await page.getByTestId("project-rate-link").click();
+  await expect(page.getByRole("heading", { name: "Rate a fixed train", level: 1 })).toBeVisible();
+  await page.getByLabel("Kinetics version").selectOption({ label: `${modelLabel} · v1` });
+  await page.getByLabel("Target conversion").fill("0.8");
+  const first = page.getByTestId("rate-stage").first();
+  await first.getByLabel("Volume").fill("10");
+  await first.getByLabel("Unit").selectOption("L");
+  await page.getByRole("button", { name: "Add a stage" }).click();
+  const second = page.getByTestId("rate-stage").nth(1);
+  await second.getByLabel("Vessel", { exact: true }).selectOption("inventory");
+  await second.getByLabel("Inventory vessel").selectOption({ label: "R-301 · CSTR · 0.025 m³" });
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  await expect(page.getByTestId("rating-result")).toBeVisible();
+  await expect(page.getByTestId("rating-stages")).toContainText("R-301");
+  await expect(page.getByTestId("rating-largest-feed")).toContainText("mol/s");
+  await expect(page.getByText(/space time/)).toBeVisible();
+  await expect(page.getByTestId("cautions")).toBeVisible();
+  await expectAccessible(page);
+});
