@@ -27,6 +27,8 @@ export type Action =
   | "audit.read"
   | "kinetics.read"
   | "kinetics.create"
+  | "dataset.read"
+  | "dataset.create"
   | "sweep.read"
   | "sweep.create"
   | "sweep.cancel"
@@ -57,6 +59,8 @@ export const POLICY: Record<Action, readonly Role[]> = {
   "audit.read": ["admin", "manager"],
   "kinetics.read": AUTHORS,
   "kinetics.create": AUTHORS,
+  "dataset.read": AUTHORS,
+  "dataset.create": AUTHORS,
   "sweep.read": AUTHORS,
   "sweep.create": AUTHORS,
   "sweep.cancel": AUTHORS,
