@@ -115,3 +115,17 @@ describe("XLSX uploads", () => {
     expect((await parseRateXlsx(csvBytes, toColumnMapping(mapping))).problems[0].message).toBe("The file is not a readable XLSX workbook");
   });
 });
+
+describe("first guess of the column mapping", () => {
+  it("reads roles and units from usual headers", async () => {
+    const { guessMapping } = await import("@/lib/datasets/guess-mapping");
+    expect(guessMapping(["X", "rate (mol/L/min)", "T (degC)", "operator"])).toEqual({
+      columns: { X: "conversion", "rate (mol/L/min)": "rate", "T (degC)": "temperature", operator: "ignore" },
+      units: { rate: "mol/(L min)", temperature: "degC" },
+    });
+    expect(guessMapping(["C_A (mmol/L)", "C_R (mmol/L)", "-rA (kmol/m3/h)", "T (K)"])).toEqual({
+      columns: { "C_A (mmol/L)": "concA", "C_R (mmol/L)": "concR", "-rA (kmol/m3/h)": "rate", "T (K)": "temperature" },
+      units: { concA: "mmol/L", concR: "mmol/L", rate: "kmol/(m3 h)", temperature: "K" },
+    });
+  });
+});
