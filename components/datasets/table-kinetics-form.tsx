@@ -101,7 +101,7 @@ export function TableKineticsForm({ projectId, versionId, defaultName, feedConcA
           </div>
         </Field>
         {temperatures.length ? (
-          <Field id={`${ids}-t`} label="Rows at (feed temperature)" error={fieldError("feed.temperature")} hint="A rate table holds at the temperature it was measured at.">
+          <Field id={`${ids}-t`} label="Rows at (feed temperature)" error={fieldError("feed.temperature")}>
             <select id={`${ids}-t`} className="input" value={temperature} onChange={(e) => setTemperature(e.target.value)}>
               {temperatures.map((t) => (
                 <option key={t} value={String(t)}>
@@ -109,6 +109,7 @@ export function TableKineticsForm({ projectId, versionId, defaultName, feedConcA
                 </option>
               ))}
             </select>
+            <p className="mt-1 text-xs text-ink-soft">A rate table holds at the temperature it was measured at.</p>
           </Field>
         ) : null}
       </div>

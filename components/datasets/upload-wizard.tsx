@@ -89,7 +89,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
         <h2 id={`${ids}-file`} className="text-base font-semibold">
           1. File
         </h2>
-        <Field id={`${ids}-input`} label="CSV or XLSX file" hint="First row: column headers. XLSX: the first worksheet is read. At most 2 MB and 20,000 rows.">
+        <Field id={`${ids}-input`} label="CSV or XLSX file">
           <input
             id={`${ids}-input`}
             type="file"
@@ -97,6 +97,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
             className="input"
             onChange={(e) => void chooseFile(e.target.files?.[0] ?? null)}
           />
+          <p className="mt-1 text-xs text-ink-soft">First row: column headers. XLSX: the first worksheet is read. At most 2 MB and 20,000 rows.</p>
         </Field>
         {file ? (
           <p className="text-sm text-ink-soft" data-testid="chosen-file">
@@ -139,7 +140,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                     </td>
                     <td>
                       {role === "ignore" ? (
-                        <span className="text-ink-faint">—</span>
+                        <span className="text-ink-soft">—</span>
                       ) : (
                         <select aria-label={`Unit of column "${h}"`} className="input w-auto" value={mapping.units[role] ?? DEFAULT_UNITS[role]} onChange={(e) => setUnit(role, e.target.value)}>
                           {datasetUnitOptions(ROLE_UNIT_KIND[role]).map((o) => (
@@ -214,7 +215,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                   <input id={`${ids}-name`} className="input" value={name} onChange={(e) => setName(e.target.value)} required minLength={2} maxLength={120} />
                 </Field>
               ) : null}
-              <Field id={`${ids}-feed`} label={`Feed concentration of A${usesConcA ? "" : " (optional)"}`} hint="Converts concentrations of A to conversion, X = 1 − C_A/C_A0." error={acceptError?.fields.feedConcA?.join(" ")}>
+              <Field id={`${ids}-feed`} label={`Feed concentration of A${usesConcA ? "" : " (optional)"}`} error={acceptError?.fields.feedConcA?.join(" ")}>
                 <div className="flex gap-2">
                   <input id={`${ids}-feed`} className="input num min-w-0 flex-1" inputMode="decimal" value={feedConc} onChange={(e) => setFeedConc(e.target.value)} />
                   <select aria-label="Feed concentration unit" className="input w-auto" value={feedUnit} onChange={(e) => setFeedUnit(e.target.value)}>
@@ -225,6 +226,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                     ))}
                   </select>
                 </div>
+                <p className="mt-1 text-xs text-ink-soft">Converts concentrations of A to conversion, X = 1 − C_A/C_A0.</p>
               </Field>
               <Field id={`${ids}-note`} label="Note (optional)">
                 <input id={`${ids}-note`} className="input" value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />
@@ -277,7 +279,7 @@ function PreviewTable({ lines, columns }: { lines: PreviewLine[]; columns: strin
                   const cellBad = l.problems.some((pr) => pr.column === c);
                   return (
                     <td key={c} className={`num ${cellBad ? "font-semibold text-red-800 underline decoration-dotted" : ""}`}>
-                      {l.cells[c] === "" ? <span className="text-ink-faint">(empty)</span> : l.cells[c]}
+                      {l.cells[c] === "" ? <span className="italic">(empty)</span> : l.cells[c]}
                     </td>
                   );
                 })}
