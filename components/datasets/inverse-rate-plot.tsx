@@ -26,9 +26,11 @@ export function InverseRatePlot({ points }: { points: RatePoint[] }) {
   const summary = `Scatter plot of 1/(−rA) against conversion: ${points.length} points${groups.size > 1 ? ` at ${groups.size} temperatures` : ""}, 1/(−rA) from ${formatNumber(Math.min(...ys))} to ${formatNumber(Math.max(...ys))} m³·s/mol.`;
   return (
     <figure className="space-y-1">
-      <div className="h-80" role="img" aria-label={summary} data-testid="inverse-rate-plot">
+      <div className="h-80" data-testid="inverse-rate-plot">
         <ResponsiveScatterPlot
           data={data}
+          role="img"
+          ariaLabel={summary}
           margin={{ top: 16, right: 120, bottom: 48, left: 72 }}
           xScale={{ type: "linear", min: 0, max: "auto" }}
           yScale={{ type: "linear", min: 0, max: "auto" }}

@@ -78,7 +78,7 @@ test("an engineer uploads bench rates, fixes the bad rows, accepts them and uses
   await expect(rows.locator("tbody tr").first()).toContainText("67");
   await page.getByLabel("Show the rate in").selectOption("mol/(m3 s)");
   await expect(rows.locator("tbody tr").first()).toContainText("122.4"); // 7.344 × 1000/60, exact unit factors
-  await expect(page.getByTestId("inverse-rate-plot")).toHaveAttribute("aria-label", /10 points/);
+  await expect(page.getByTestId("inverse-rate-plot").getByRole("img", { name: /1\/\(−rA\) against conversion: 10 points/ })).toBeVisible();
   await expect(page.getByRole("link", { name: "Fit a rate law" })).toHaveAttribute("href", /\/fit\?version=1$/);
   await expect(page.getByRole("link", { name: "Upload a new version" })).toBeVisible();
   await page.screenshot({ path: `${SHOTS}/dataset-page.png`, fullPage: true });
