@@ -113,7 +113,7 @@ describe("XLSX uploads", () => {
     expect((await parseRateXlsx(many, toColumnMapping(mapping))).problems[0].message).toBe(`The file has ${UPLOAD_LIMITS.rows + 1} rows; at most ${UPLOAD_LIMITS.rows} are accepted`);
     const csvBytes = new TextEncoder().encode("X,rate\n0,1\n");
     expect((await parseRateXlsx(csvBytes, toColumnMapping(mapping))).problems[0].message).toBe("The file is not a readable XLSX workbook");
-  });
+  }, 60_000); // writing and reading a 20,001-row workbook takes seconds on a busy machine
 });
 
 describe("first guess of the column mapping", () => {
