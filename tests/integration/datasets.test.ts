@@ -1,4 +1,5 @@
 import { readFileSync } from "node:fs";
+import ExcelJS from "exceljs";
 import { and, count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemoData } from "@/db/seed";
@@ -119,6 +120,21 @@ describe("rate-data uploads", () => {
     const bad = await refusal(addDatasetVersion(t.db, engineer, datasetId, { upload: upload("ester-bench-with-errors.csv"), note: "" }));
     expect(bad.status).toBe(400);
     expect((await getDataset(t.db, engineer, datasetId)).versions).toHaveLength(2);
+  });
+
+  it("accepts an XLSX workbook through the same checks", async () => {
+    const wb = new ExcelJS.Workbook();
+    const ws = wb.addWorksheet("bench");
+    ws.addRow(["C_A (mol/L)", "rate (mol/L/min)", "T (degC)"]);
+    ws.addRow([1, 6, 67]);
+    ws.addRow([0.5, { formula: "6*0.25", result: 1.5 }, 67]);
+    const bytes = new Uint8Array(await wb.xlsx.writeBuffer());
+    const mapping: DatasetMapping = { columns: { "C_A (mol/L)": "concA", "rate (mol/L/min)": "rate", "T (degC)": "temperature" }, units: { concA: "mol/L", rate: "mol/(L min)", temperature: "degC" } };
+    const { version } = await createDataset(t.db, engineer, projectId, { name: "Workbook", upload: { fileName: "bench.xlsx", format: "xlsx", bytes, mapping }, feedConcA: 1000, note: "" });
+    expect(version).toMatchObject({ format: "xlsx", rowCount: 2, feedConcA: 1000 });
+    const stored = await getDatasetVersion(t.db, engineer, version.id);
+    expect(stored.rows.map((r) => r.concA)).toEqual([1000, 500]); // 1 mol/L = 1000 mol/m³
+    expect(stored.rows[1].rate).toBeCloseTo(25, 12); // 1.5 mol/(L·min) = 1500/60 mol/(m³·s)
   });
 
   it("answers a bad mapping with a 400 naming the field", async () => {
