@@ -94,10 +94,10 @@ export function DatasetView({ projectId, dataset, versions, selected, canCreate,
                 <tr>
                   <th scope="col">#</th>
                   {has("conversion") ? <th scope="col">X</th> : null}
-                  {has("concA") ? <th scope="col">C_A ({concDef.label})</th> : null}
-                  {has("concR") ? <th scope="col">C_R ({concDef.label})</th> : null}
+                  {has("concA") ? <th scope="col" className="normal-case tracking-normal">C_A ({concDef.label})</th> : null}
+                  {has("concR") ? <th scope="col" className="normal-case tracking-normal">C_R ({concDef.label})</th> : null}
                   {has("temperature") ? <th scope="col">T (°C)</th> : null}
-                  <th scope="col">−rA ({rateDef.label})</th>
+                  <th scope="col" className="normal-case tracking-normal">−rA ({rateDef.label})</th>
                 </tr>
               </thead>
               <tbody>

@@ -126,7 +126,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                 const role = mapping.columns[h] ?? "ignore";
                 return (
                   <tr key={h}>
-                    <th scope="row" className="font-medium">
+                    <th scope="row" className="font-medium normal-case tracking-normal">
                       {h}
                     </th>
                     <td>
@@ -262,7 +262,7 @@ function PreviewTable({ lines, columns }: { lines: PreviewLine[]; columns: strin
           <tr>
             <th scope="col">Line</th>
             {columns.map((c) => (
-              <th scope="col" key={c}>
+              <th scope="col" key={c} className="normal-case tracking-normal">
                 {c}
               </th>
             ))}
