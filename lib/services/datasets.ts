@@ -32,8 +32,9 @@ export interface DatasetPreview {
 function toPreview(upload: Upload, t: ParsedTable): DatasetPreview {
   const byLine = new Map<number, PreviewLine["problems"]>();
   const fileProblems: RowProblem[] = [];
+  const dataLines = new Set(t.lines.map((l) => l.line));
   for (const p of t.problems) {
-    if (t.lines.some((l) => l.line === p.line)) {
+    if (dataLines.has(p.line)) {
       const list = byLine.get(p.line) ?? [];
       list.push({ column: p.column, message: p.message });
       byLine.set(p.line, list);
