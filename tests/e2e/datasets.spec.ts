@@ -1,12 +1,14 @@
 import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type Page } from "@playwright/test";
+import { expect as baseExpect, test, type Page } from "@playwright/test";
 import { DEMO_PASSWORD, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 const SHOTS = "test-results/screens";
 mkdirSync(SHOTS, { recursive: true });
 const FIXTURES = "tests/fixtures/datasets";
+// Server pages and previews can take several seconds while other jobs share the machine.
+const expect = baseExpect.configure({ timeout: 20_000 });
 
 async function signInAsEngineer(page: Page) {
   await page.setViewportSize({ width: 1280, height: 900 });
@@ -26,6 +28,7 @@ test("an engineer uploads bench rates, fixes the bad rows, accepts them and uses
   test.setTimeout(120_000);
   await signInAsEngineer(page);
   await page.getByRole("link", { name: "Ester line 3 revamp" }).click();
+  await expect(page.getByTestId("project-title")).toHaveText("Ester line 3 revamp");
   const rateData = page.getByRole("region", { name: "Rate data" });
   await expect(rateData.getByTestId("datasets-table")).toContainText("Bench runs at 67 °C");
   await rateData.getByRole("link", { name: "Upload rate data" }).click();
