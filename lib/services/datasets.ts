@@ -191,14 +191,14 @@ export async function createTableKinetics(db: Database, actor: Actor, versionId:
     reaction: { ...(input.stoichiometry ? { stoichiometry: input.stoichiometry } : {}), phase, rate: law, thermal: { mode: "isothermal" } },
   };
   const note = input.note ?? `Measured rate table: ${dataset.name} v${version.version} (${law.conversion.length} points)`;
-  const source = { datasetVersionId: version.id, kind: "table" as const };
+  const source = { datasetVersionId: version.id, kind: "table" as const, fit: null };
   if (input.modelId) {
     const model = await requireTeamModel(db, actor, input.modelId);
     if (model.projectId !== dataset.projectId) throw new AppError("bad_request", "That kinetics model belongs to another project", { fields: { modelId: ["Choose a model of this dataset's project"] } });
-    const kv = await addKineticsVersion(db, actor, model.id, { spec, note }, source);
+    const kv = await addKineticsVersion(db, actor, model.id, { spec, note, source });
     return { model, version: kv };
   }
-  return createKineticsModel(db, actor, dataset.projectId, { name: input.modelName!, spec, note }, source);
+  return createKineticsModel(db, actor, dataset.projectId, { name: input.modelName!, spec, note, source });
 }
 
 /** The kinetics versions made from a dataset's versions (for its page). */

@@ -1,13 +1,24 @@
 import { and, desc, eq, max } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { projects } from "@/db/schema";
-import { kineticsSources } from "@/db/schema-design-basis";
 import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
+import { kineticsSources } from "@/db/schema-design-basis";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { checkKinetics } from "@/lib/sweeps/engine-bridge";
 import { recordAudit } from "./audit";
+
+/** Where a version came from, saved in the same transaction as the version (optional). */
+export interface KineticsVersionSource {
+  datasetVersionId: string;
+  kind: "table" | "fit";
+  fit: Record<string, unknown> | null;
+}
+
+async function insertSource(tx: Executor, kineticsVersionId: string, source: KineticsVersionSource | undefined) {
+  if (source) await tx.insert(kineticsSources).values({ kineticsVersionId, ...source });
+}
 
 /** A project of the actor's team, or 404 (also for another team's id). */
 export async function requireTeamProject(db: Executor, actor: Actor, projectId: string) {
@@ -16,20 +27,7 @@ export async function requireTeamProject(db: Executor, actor: Actor, projectId: 
   return p;
 }
 
-/** Where a version came from when it was derived from a dataset version; written in the version's transaction. */
-export interface KineticsSourceInput {
-  datasetVersionId: string;
-  kind: "table" | "fit";
-  fit?: Record<string, unknown> | null;
-}
-
-async function recordSource(tx: Executor, kineticsVersionId: string, source: KineticsSourceInput | undefined) {
-  if (!source) return null;
-  const [row] = await tx.insert(kineticsSources).values({ kineticsVersionId, datasetVersionId: source.datasetVersionId, kind: source.kind, fit: source.fit ?? null }).returning();
-  return row;
-}
-
-export async function createKineticsModel(db: Database, actor: Actor, projectId: string, input: { name: string; spec: KineticsSpec; note: string }, source?: KineticsSourceInput) {
+export async function createKineticsModel(db: Database, actor: Actor, projectId: string, input: { name: string; spec: KineticsSpec; note: string; source?: KineticsVersionSource }) {
   const project = await requireTeamProject(db, actor, projectId);
   assertCan(actor, "kinetics.create", project, "project");
   checkKinetics(input.spec);
@@ -39,11 +37,13 @@ export async function createKineticsModel(db: Database, actor: Actor, projectId:
       .insert(kineticsVersions)
       .values({ modelId: model.id, version: 1, spec: input.spec as Record<string, unknown>, note: input.note, createdBy: actor.userId })
       .returning();
-    await recordSource(tx, version.id, source);
-    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.created", entityType: "project", entityId: projectId, details: { model: model.name, modelId: model.id, version: 1, ...(source ? { source: source.kind, datasetVersionId: source.datasetVersionId } : {}) } });
+    await insertSource(tx, version.id, input.source);
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.created", entityType: "project", entityId: projectId, details: { model: model.name, modelId: model.id, version: 1, ...sourceDetails(input.source) } });
     return { model, version };
   });
 }
+
+const sourceDetails = (source: KineticsVersionSource | undefined) => (source ? { source: { kind: source.kind, datasetVersionId: source.datasetVersionId } } : {});
 
 export async function requireTeamModel(db: Executor, actor: Actor, modelId: string) {
   const [m] = await db.select().from(kineticsModels).where(and(eq(kineticsModels.id, modelId), eq(kineticsModels.teamId, actor.teamId)));
@@ -52,7 +52,7 @@ export async function requireTeamModel(db: Executor, actor: Actor, modelId: stri
 }
 
 /** Editing a model makes a new version; earlier versions (and sweeps that ran on them) stay as they were. */
-export async function addKineticsVersion(db: Database, actor: Actor, modelId: string, input: { spec: KineticsSpec; note: string }, source?: KineticsSourceInput) {
+export async function addKineticsVersion(db: Database, actor: Actor, modelId: string, input: { spec: KineticsSpec; note: string; source?: KineticsVersionSource }) {
   const model = await requireTeamModel(db, actor, modelId);
   assertCan(actor, "kinetics.create", { teamId: model.teamId }, "kinetics model");
   checkKinetics(input.spec);
@@ -64,8 +64,8 @@ export async function addKineticsVersion(db: Database, actor: Actor, modelId: st
       .insert(kineticsVersions)
       .values({ modelId, version: (latest ?? 0) + 1, spec: input.spec as Record<string, unknown>, note: input.note, createdBy: actor.userId })
       .returning();
-    await recordSource(tx, version.id, source);
-    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.version_added", entityType: "project", entityId: model.projectId, details: { model: model.name, modelId, version: version.version, ...(source ? { source: source.kind, datasetVersionId: source.datasetVersionId } : {}) } });
+    await insertSource(tx, version.id, input.source);
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.version_added", entityType: "project", entityId: model.projectId, details: { model: model.name, modelId, version: version.version, ...sourceDetails(input.source) } });
     return version;
   });
 }

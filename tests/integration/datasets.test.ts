@@ -199,7 +199,7 @@ describe("rate-data uploads", () => {
   it("writes no kinetics version when its source row cannot be written (one transaction)", async () => {
     const before = await counts();
     const spec = { feed: { flowA: 0.02, concA: 1000 }, reaction: { rate: { law: "table" as const, conversion: [0, 0.5], rate: [10, 5] } } };
-    await expect(createKineticsModel(t.db, engineer, projectId, { name: "Orphan table", spec, note: "" }, { datasetVersionId: "00000000-0000-4000-8000-000000000000", kind: "table" })).rejects.toThrow();
+    await expect(createKineticsModel(t.db, engineer, projectId, { name: "Orphan table", spec, note: "", source: { datasetVersionId: "00000000-0000-4000-8000-000000000000", kind: "table", fit: null } })).rejects.toThrow();
     expect(await counts()).toEqual(before);
     expect(await t.db.select().from(kineticsModels).where(eq(kineticsModels.name, "Orphan table"))).toEqual([]);
   });
