@@ -2,6 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { fileURLToPath } from "node:url";
 import type { Database, Executor } from "./client";
 import { memberships, projects, teams, users, type Role } from "./schema";
+import { seedDemoDatasets } from "./seed-datasets";
 import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, scenarios, sweeps } from "./schema-sweeps";
 import { designTrains, type DesignSpec } from "@/lib/engine";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
@@ -127,6 +128,7 @@ export async function seedDemoData(db: Database): Promise<void> {
     }
     await seedDemoSweep(tx, projectRows.find((p) => p.name === DEMO_KINETICS[0].project)!);
     await seedDemoInventory(tx);
+    await seedDemoDatasets(tx, projectRows);
   });
 }
 

@@ -21,6 +21,7 @@ import {
 import { fitRequestSchema, fitSaveSchema } from "./schemas/fits";
 import { costBasisSchema, rateRequestSchema } from "./schemas/costs";
 import { inventoryVesselSchema, inventoryVesselUpdateSchema } from "./schemas/inventory";
+import { createFormDoc, previewFormDoc, tableKineticsSchema, versionFormDoc } from "./schemas/datasets";
 
 type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -29,6 +30,8 @@ interface Endpoint {
   path: string;
   summary: string;
   body?: z.ZodType;
+  /** A multipart/form-data body (file uploads). */
+  form?: z.ZodType;
   query?: z.ZodObject;
   /** Success status. */
   status?: number;
@@ -79,6 +82,13 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/tokens", summary: "Your personal API tokens (never the tokens themselves)" },
   { method: "post", path: "/api/tokens", summary: "Create a personal API token; shown once", body: tokenCreateSchema, status: 201 },
   { method: "delete", path: "/api/tokens/{tokenId}", summary: "Revoke a personal API token", status: 204 },
+  { method: "post", path: "/api/projects/{projectId}/datasets/preview", summary: "Read an uploaded CSV or XLSX of measured rates with a column mapping: rows in SI and problems per row; stores nothing", form: previewFormDoc },
+  { method: "get", path: "/api/projects/{projectId}/datasets", summary: "Rate datasets of a project, with their latest version" },
+  { method: "post", path: "/api/projects/{projectId}/datasets", summary: "Create a rate dataset (version 1) from a clean upload; a file with bad rows is refused", form: createFormDoc, status: 201 },
+  { method: "get", path: "/api/datasets/{datasetId}", summary: "A rate dataset with every version (without rows)" },
+  { method: "post", path: "/api/datasets/{datasetId}/versions", summary: "Add a version to a rate dataset from a clean upload", form: versionFormDoc, status: 201 },
+  { method: "get", path: "/api/dataset-versions/{versionId}", summary: "One dataset version: SI rows and the mapping they were read with" },
+  { method: "post", path: "/api/dataset-versions/{versionId}/table-kinetics", summary: "Use a dataset version as a measured rate table: creates a kinetics model or a new version of one", body: tableKineticsSchema, status: 201 },
   { method: "get", path: "/api/openapi.json", summary: "This document", public: true },
   { method: "get", path: "/api/projects/{projectId}/costs", summary: "A project's cost basis (the defaults until one is saved), its standard sizes and the sweep objective it gives" },
   { method: "put", path: "/api/projects/{projectId}/costs", summary: "Save a project's cost basis: correlations with sources, currency and year, standard sizes, largest vessel, installation factor", body: costBasisSchema },
@@ -121,6 +131,7 @@ export function buildOpenApiDocument(serverUrl: string) {
       ...(e.public ? { security: [] } : {}),
       parameters: [...params, ...query],
       ...(e.body ? { requestBody: { required: true, content: { "application/json": { schema: jsonSchema(e.body) } } } } : {}),
+      ...(e.form ? { requestBody: { required: true, content: { "multipart/form-data": { schema: jsonSchema(e.form) } } } } : {}),
       responses: {
         [String(e.status ?? 200)]: { description: "Success" },
         "400": { description: "Invalid input; error.fields names each bad field", content: { "application/json": { schema: errorSchema } } },

@@ -239,7 +239,49 @@ const ROWS: Row[] = [
     call: (c) => c.post("/api/inventory/import", { multipart: { file: { name: "v.csv", mimeType: "text/csv", buffer: Buffer.from("tag,type,volume\nP-1,CSTR,1\n") }, accept: "false" } }),
     expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 200, anonymous: 401 },
   },
+  { route: "GET /api/projects/:id/datasets", call: (c) => c.get(`/api/projects/${ids.project}/datasets`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/projects/:id/datasets/preview",
+    call: (c) => c.post(`/api/projects/${ids.project}/datasets/preview`, { multipart: uploadForm() }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/projects/:id/datasets",
+    call: (c) => c.post(`/api/projects/${ids.project}/datasets`, { multipart: { ...uploadForm(), name: `Matrix ${Math.random()}` } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/datasets/:id", call: async (c) => c.get(`/api/datasets/${(await demoDataset()).datasetId}`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/datasets/:id/versions",
+    call: async (c) => c.post(`/api/datasets/${(await demoDataset()).datasetId}/versions`, { multipart: uploadForm() }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  { route: "GET /api/dataset-versions/:id", call: async (c) => c.get(`/api/dataset-versions/${(await demoDataset()).versionId}`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 } },
+  {
+    route: "POST /api/dataset-versions/:id/table-kinetics",
+    call: async (c) => c.post(`/api/dataset-versions/${(await demoDataset()).versionId}/table-kinetics`, { data: { modelName: `Matrix table ${Math.random()}`, feed: { flowA: 0.02, concA: 1000, temperature: 340.15 } } }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
 ];
+
+/** A small clean CSV upload with its mapping, as the upload screen sends it. */
+function uploadForm() {
+  return {
+    file: { name: "matrix.csv", mimeType: "text/csv", buffer: Buffer.from("X,rate\n0,2\n0.5,1\n") },
+    mapping: JSON.stringify({ columns: { X: "conversion", rate: "rate" }, units: { rate: "mol/(m3 s)" } }),
+  };
+}
+
+let demoIds: { datasetId: string; versionId: string } | null = null;
+/** The seeded single-temperature demo dataset (its latest version starts at X = 0). */
+async function demoDataset() {
+  if (demoIds) return demoIds;
+  const list = (await (await ctx.engineer.get(`/api/projects/${ids.project}/datasets`)).json()) as { datasets: { id: string; name: string }[] };
+  const d = list.datasets.find((x) => x.name.startsWith("Bench runs at 67"))!;
+  const dataset = (await (await ctx.engineer.get(`/api/datasets/${d.id}`)).json()) as { dataset: { versions: { id: string; version: number }[] } };
+  demoIds = { datasetId: d.id, versionId: dataset.dataset.versions.find((v) => v.version === 1)!.id };
+  return demoIds;
+}
 
 async function currentCostBasis(): Promise<unknown> {
   return ((await (await ctx.engineer.get(`/api/projects/${ids.project}/costs`)).json()) as { costs: { basis: unknown } }).costs.basis;

@@ -6,6 +6,7 @@ import { loadActor } from "@/lib/authz/actor";
 import { POLICY, type Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
+import { addDatasetVersion, createDataset, createTableKinetics, getDataset as getDatasetService, getDatasetVersion, listDatasets as listDatasetsService, previewDataset } from "@/lib/services/datasets";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
 import { inventoryVessels, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
@@ -172,4 +173,33 @@ describe("authorisation matrix over the services", () => {
   it("the policy table covers every action with at least one role", () => {
     for (const [action, roles] of Object.entries(POLICY)) expect(roles.length, action).toBeGreaterThan(0);
   });
+});
+
+describe("authorisation matrix over the rate-data services", () => {
+  const file = (name: string) => ({ fileName: name, format: "csv" as const, bytes: new TextEncoder().encode("X,rate\n0,2\n0.5,1\n"), mapping: { columns: { X: "conversion" as const, rate: "rate" as const }, units: {} } });
+  const demo = async () => {
+    const [d] = await listDatasetsService(t.db, actors.engineer, engineersProject);
+    const dataset = await getDatasetService(t.db, actors.engineer, d.id);
+    return { datasetId: d.id, versionId: dataset.versions[0].id };
+  };
+  const DATASET_MATRIX: { name: string; run: (a: Actor) => Promise<unknown> }[] = [
+    { name: "list rate datasets", run: (a) => listDatasetsService(t.db, a, engineersProject) },
+    { name: "read a rate dataset", run: async (a) => getDatasetService(t.db, a, (await demo()).datasetId) },
+    { name: "read a dataset version", run: async (a) => getDatasetVersion(t.db, a, (await demo()).versionId) },
+    { name: "preview an upload", run: (a) => previewDataset(t.db, a, engineersProject, file("p.csv")) },
+    { name: "create a rate dataset", run: (a) => createDataset(t.db, a, engineersProject, { name: `By ${a.role} ${Math.random()}`, upload: file("c.csv"), note: "" }) },
+    { name: "add a dataset version", run: async (a) => addDatasetVersion(t.db, a, (await demo()).datasetId, { upload: file("v.csv"), note: "" }) },
+    {
+      name: "use a dataset version as a measured rate table",
+      run: async (a) => createTableKinetics(t.db, a, (await demo()).versionId, { modelName: `Table by ${a.role} ${Math.random()}`, feed: { flowA: 0.02, concA: 1000, temperature: 340.15 } }),
+    },
+  ];
+  const expected: Record<Who, Outcome> = { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" };
+  for (const row of DATASET_MATRIX) {
+    for (const who of Object.keys(EMAILS) as Who[]) {
+      it(`${row.name} as ${who} → ${expected[who]}`, async () => {
+        expect(await outcomeOf(() => row.run(actors[who]))).toBe(expected[who]);
+      });
+    }
+  }
 });

@@ -2,11 +2,13 @@ import Link from "next/link";
 import { ProjectCostLinks } from "@/components/costs/project-cost-links";
 import { AuditList, type AuditRow } from "@/components/audit/audit-list";
 import { Cautions } from "@/components/cautions/cautions";
+import { DatasetsPanel, type DatasetRow } from "@/components/datasets/datasets-panel";
 import { PinsPanel, type PinRow } from "@/components/project/pins-panel";
 import { SweepsList, type SweepRow } from "@/components/project/sweeps-list";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
 import { listAuditEntries } from "@/lib/services/audit";
+import { listDatasets } from "@/lib/services/datasets";
 import { listKineticsModels } from "@/lib/services/kinetics";
 import { listPins } from "@/lib/services/pins";
 import { listSweeps } from "@/lib/services/sweeps";
@@ -28,6 +30,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
     can(actor, "sweep.read") ? listSweeps(db, actor, project.id) : null,
     listPins(db, actor, project.id),
   ]);
+  const datasets = can(actor, "dataset.read") ? await listDatasets(db, actor, project.id) : null;
   const names = await userNames(pins.flatMap((p) => [p.pinnedBy, p.reviewerId ?? ""]));
   const versions = await kineticsVersionLabels(actor.teamId, pins.map((p) => p.kineticsVersionId));
   const pinRows: PinRow[] = pins.map((p) => {
@@ -117,6 +120,8 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
         ) : null}
         {sweeps ? <SweepsList projectId={project.id} initial={wire<SweepRow[]>(sweeps)} canCreate={can(actor, "sweep.create") && models.length > 0} /> : null}
       </div>
+
+      {datasets ? <DatasetsPanel projectId={project.id} datasets={wire<DatasetRow[]>(datasets)} canUpload={can(actor, "dataset.create")} /> : null}
 
       <PinsPanel pins={pinRows} viewerOnly={actor.role === "viewer"} />
       {pinRows.length ? <Cautions /> : null}

@@ -1,0 +1,53 @@
+import Link from "next/link";
+
+export interface DatasetRow {
+  id: string;
+  name: string;
+  latestVersion: { version: number; rowCount: number; fileName: string; createdAt: string } | null;
+}
+
+const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+/** The "Rate data" section of a project page: its measured-rate datasets and the way to upload one. */
+export function DatasetsPanel({ projectId, datasets, canUpload }: { projectId: string; datasets: DatasetRow[]; canUpload: boolean }) {
+  return (
+    <section className="card overflow-hidden" aria-labelledby="datasets-title">
+      <div className="flex items-center justify-between border-b border-line px-3 py-2">
+        <h2 id="datasets-title">Rate data</h2>
+        {canUpload ? (
+          <Link href={`/projects/${projectId}/datasets/new`} className="btn-primary py-1">
+            Upload rate data
+          </Link>
+        ) : null}
+      </div>
+      {datasets.length === 0 ? (
+        <p className="px-3 py-6 text-center text-ink-soft">No measured rates yet{canUpload ? ": upload a CSV or XLSX file from the bench." : "."}</p>
+      ) : (
+        <table className="table-dense" data-testid="datasets-table">
+          <thead>
+            <tr>
+              <th scope="col">Dataset</th>
+              <th scope="col">Latest</th>
+              <th scope="col">Rows</th>
+              <th scope="col">Uploaded (UTC)</th>
+            </tr>
+          </thead>
+          <tbody>
+            {datasets.map((d) => (
+              <tr key={d.id}>
+                <td className="font-medium">
+                  <Link href={`/projects/${projectId}/datasets/${d.id}`} className="hover:underline">
+                    {d.name}
+                  </Link>
+                </td>
+                <td className="num">v{d.latestVersion?.version ?? "—"}</td>
+                <td className="num">{d.latestVersion?.rowCount ?? "—"}</td>
+                <td className="num whitespace-nowrap">{d.latestVersion ? fmt.format(new Date(d.latestVersion.createdAt)) : "—"}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </section>
+  );
+}

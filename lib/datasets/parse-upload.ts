@@ -1,0 +1,45 @@
+import type { DatasetMapping } from "@/lib/schemas/datasets";
+import { parseRateCsv, type ColumnMapping, type ParsedTable } from "./rate-table";
+import { parseRateXlsx } from "./rate-xlsx";
+import { datasetUnit, DEFAULT_UNITS, VALUE_ROLES } from "./units";
+
+export type UploadFormat = "csv" | "xlsx";
+
+/** What the user sent: the file's name and bytes, and how to read its columns. */
+export interface Upload {
+  fileName: string;
+  format: UploadFormat;
+  bytes: Uint8Array;
+  mapping: DatasetMapping;
+}
+
+/** The format from the file name; null for anything we do not read. */
+export function formatOf(fileName: string): UploadFormat | null {
+  const ext = /\.([a-z0-9]+)$/i.exec(fileName)?.[1]?.toLowerCase();
+  return ext === "csv" || ext === "txt" ? "csv" : ext === "xlsx" ? "xlsx" : null;
+}
+
+/** The user's unit choices as SI factor and offset per role (roles without a choice use the defaults). */
+export function toColumnMapping(m: DatasetMapping): ColumnMapping {
+  const toSI: ColumnMapping["toSI"] = {};
+  for (const role of VALUE_ROLES) {
+    const def = datasetUnit(role, m.units[role] ?? DEFAULT_UNITS[role])!;
+    toSI[role] = { factor: def.factor, offset: def.offset ?? 0 };
+  }
+  return { columns: m.columns, toSI };
+}
+
+/** Parses an upload of either format with the one row validator. */
+export async function parseUpload(u: Upload): Promise<ParsedTable> {
+  const mapping = toColumnMapping(u.mapping);
+  if (u.format === "xlsx") return parseRateXlsx(u.bytes, mapping);
+  return parseRateCsv(new TextDecoder("utf-8").decode(u.bytes), mapping);
+}
+
+/** A stored row: SI values only, without the line number (the shape the fitting reads). */
+export function storedRow(r: { conversion?: number; concA?: number; concR?: number; temperature?: number; rate: number }): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const k of ["conversion", "concA", "concR", "temperature"] as const) if (r[k] !== undefined) out[k] = r[k];
+  out.rate = r.rate;
+  return out;
+}
