@@ -8,3 +8,5 @@ export { EngineError, type EngineErrorCode } from "./errors";
 export { GAS_CONSTANT } from "./arrhenius";
 export { MAX_STAGES } from "./sequences";
 export type * from "./types";
+export { normaliseRatingSpec } from "./normalise-spec";
+export { rateTrainOutlet } from "./lean-rating";
