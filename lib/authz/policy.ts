@@ -33,7 +33,8 @@ export type Action =
   | "pin.read"
   | "pin.create"
   | "pin.review"
-  | "token.manage";
+  | "token.manage"
+  | "robustness.create";
 
 const EVERYONE = ROLES;
 const AUTHORS: readonly Role[] = ["admin", "manager", "engineer"];
@@ -65,6 +66,8 @@ export const POLICY: Record<Action, readonly Role[]> = {
   "pin.create": AUTHORS,
   "pin.review": ["admin", "manager"],
   "token.manage": EVERYONE,
+  // Reading a run follows its subject: sweep.read for a candidate's, pin.read for a pinned design's.
+  "robustness.create": AUTHORS,
 };
 
 /** Actions an engineer may take only on records they created. */
