@@ -74,36 +74,42 @@ async function createRun(db: Database, actor: Actor, subject: Subject, input: Ro
       throw err;
     }
   }
-  const boss = inline ? null : await getBoss();
-  const run = await withTransaction(async (tx, client) => {
-    const [r] = await tx
-      .insert(robustnessRuns)
-      .values({
-        teamId: subject.teamId,
-        projectId: subject.projectId,
-        candidateId: subject.candidateId,
-        pinId: subject.pinId,
-        request,
-        status: inline ? "succeeded" : "queued",
-        result: result as unknown as Record<string, unknown> | null,
-        createdBy: actor.userId,
-        finishedAt: inline ? new Date() : null,
-      })
-      .returning();
-    if (boss) {
-      const jobId = await boss.send(QUEUES.robustness, { runId: r.id } satisfies RobustnessPayload, { db: bossDbFor(client) });
-      await tx.update(robustnessRuns).set({ jobId }).where(eq(robustnessRuns.id, r.id));
-      await client.query("select pg_notify($1, $2)", [WAKE_CHANNEL, r.id]);
-    }
-    await recordAudit(tx, {
-      teamId: actor.teamId,
-      actorId: actor.userId,
-      action: inline ? "robustness.rated" : "robustness.queued",
-      entityType: "project",
-      entityId: subject.projectId,
-      details: { runId: r.id, candidateId: subject.candidateId, pinId: subject.pinId, samples: input.samples, fields: input.uncertain.map((u) => u.field) },
+  const values = {
+    teamId: subject.teamId,
+    projectId: subject.projectId,
+    candidateId: subject.candidateId,
+    pinId: subject.pinId,
+    request,
+    status: inline ? ("succeeded" as const) : ("queued" as const),
+    result: result as unknown as Record<string, unknown> | null,
+    createdBy: actor.userId,
+    finishedAt: inline ? new Date() : null,
+  };
+  const audit = (runId: string) => ({
+    teamId: actor.teamId,
+    actorId: actor.userId,
+    action: inline ? "robustness.rated" : "robustness.queued",
+    entityType: "project",
+    entityId: subject.projectId,
+    details: { runId, candidateId: subject.candidateId, pinId: subject.pinId, samples: input.samples, fields: input.uncertain.map((u) => u.field) },
+  });
+  if (inline) {
+    const run = await db.transaction(async (tx) => {
+      const [r] = await tx.insert(robustnessRuns).values(values).returning();
+      await recordAudit(tx, audit(r.id));
+      return r;
     });
-    return r;
+    return runView(run);
+  }
+  const boss = await getBoss();
+  const run = await withTransaction(async (tx, client) => {
+    const [r] = await tx.insert(robustnessRuns).values(values).returning();
+    // The job is written by this same transaction: no queued run without its job.
+    const jobId = await boss.send(QUEUES.robustness, { runId: r.id } satisfies RobustnessPayload, { db: bossDbFor(client) });
+    const [withJob] = await tx.update(robustnessRuns).set({ jobId }).where(eq(robustnessRuns.id, r.id)).returning();
+    await client.query("select pg_notify($1, $2)", [WAKE_CHANNEL, r.id]);
+    await recordAudit(tx, audit(r.id));
+    return withJob;
   });
   return runView(run);
 }
