@@ -8,6 +8,8 @@ import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
+import { pinnedDesigns } from "@/db/schema-sweeps";
+import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -26,6 +28,9 @@ const actors = {} as Record<Who, Actor>;
 let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
+let demoPin: { id: string; candidateId: string };
+let candidateRunId: string;
+const UNCERTAIN = { uncertain: [{ field: "reaction.rate.k" as const, kind: "plusMinus" as const, fraction: 0.2 }], samples: 20, seed: 1 };
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -38,6 +43,9 @@ beforeAll(async () => {
   const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
   engineersProject = p.id;
   managersProject = (await createProject(t.db, actors.manager, { name: "Manager's own study", description: "" })).id;
+  const [pin] = await t.db.select().from(pinnedDesigns);
+  demoPin = { id: pin.id, candidateId: pin.candidateId! };
+  candidateRunId = (await createCandidateRun(t.db, actors.engineer, demoPin.candidateId, UNCERTAIN)).id;
 });
 afterAll(() => t.drop());
 
@@ -70,6 +78,12 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
   { name: "list members", run: (a) => listMembers(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
   { name: "change a member's role", run: (a) => updateMemberRole(t.db, a, viewerId, "viewer"), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "list invitations", run: (a) => listOpenInvitations(t.db, a), expect: { admin: "ok", manager: "forbidden", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
+  // Robustness runs: a candidate's follow sweep.read; the demo pin is proposed, so hidden from viewers.
+  { name: "rate a candidate under uncertainty", run: (a) => createCandidateRun(t.db, a, demoPin.candidateId, UNCERTAIN), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  { name: "list a candidate's robustness runs", run: (a) => listCandidateRuns(t.db, a, demoPin.candidateId), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  { name: "rate a pinned design under uncertainty", run: (a) => createPinRun(t.db, a, demoPin.id, UNCERTAIN), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
+  { name: "list a pinned design's robustness runs", run: (a) => listPinRuns(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
+  { name: "read a candidate's robustness run", run: (a) => getRun(t.db, a, candidateRunId), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
 ];
 
