@@ -17,6 +17,7 @@ import {
   sweepCreateSchema,
   tokenCreateSchema,
 } from "./schemas/sweeps";
+import { robustnessCreateSchema } from "./schemas/robustness";
 
 type Method = "get" | "post" | "patch" | "delete";
 
@@ -66,6 +67,11 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/projects/{projectId}/pins", summary: "Pinned designs of a project (viewers: approved only)" },
   { method: "get", path: "/api/pins/{pinId}", summary: "A pinned design with its frozen candidate and spec" },
   { method: "post", path: "/api/pins/{pinId}/review", summary: "Approve or reject a proposed design (managers)", body: reviewSchema },
+  { method: "post", path: "/api/candidates/{candidateId}/robustness", summary: "Rate a candidate's train by Monte Carlo under uncertain inputs (201 done, 202 queued)", body: robustnessCreateSchema, status: 201 },
+  { method: "get", path: "/api/candidates/{candidateId}/robustness", summary: "A candidate's robustness runs, newest first, and the numeric inputs it offers" },
+  { method: "post", path: "/api/pins/{pinId}/robustness", summary: "Rate a pinned design's train by Monte Carlo under uncertain inputs (201 done, 202 queued)", body: robustnessCreateSchema, status: 201 },
+  { method: "get", path: "/api/pins/{pinId}/robustness", summary: "A pinned design's robustness runs, newest first, and the numeric inputs it offers" },
+  { method: "get", path: "/api/robustness/{runId}", summary: "One robustness run: queued, running, succeeded (with P5/P50/P95 and the probability of missing the target) or failed" },
   { method: "get", path: "/api/tokens", summary: "Your personal API tokens (never the tokens themselves)" },
   { method: "post", path: "/api/tokens", summary: "Create a personal API token; shown once", body: tokenCreateSchema, status: 201 },
   { method: "delete", path: "/api/tokens/{tokenId}", summary: "Revoke a personal API token", status: 204 },
