@@ -42,8 +42,10 @@ export function RobustnessResult({ result: r }: { result: RobustnessRunResult })
       </p>
       <div className="grid gap-3 md:grid-cols-[3fr_2fr]">
         <figure className="m-0">
-          <div role="img" aria-label={`Cumulative distribution of the outlet conversion. ${resultSummary(r)}`} style={{ height: 220 }} data-testid="robustness-chart">
+          <div style={{ height: 220 }} data-testid="robustness-chart">
             <ResponsiveLine
+              role="img"
+              ariaLabel={`Cumulative distribution of the outlet conversion. ${resultSummary(r)}`}
               data={[{ id: "Share of samples at or below", data: points }]}
               margin={{ top: 10, right: 16, bottom: 42, left: 56 }}
               xScale={{ type: "linear", min: lo - pad, max: hi + pad }}
