@@ -12,6 +12,7 @@ const SORT_COLUMNS = {
   stageCount: [candidates.stageCount, candidates.rank],
   ratioToPfr: [candidates.ratioToPfr],
   sequence: [candidates.stageCount, candidates.sequenceKey],
+  probabilityMeet: [candidates.probabilityMeet],
 } as const;
 
 const summaryColumns = {
@@ -23,6 +24,7 @@ const summaryColumns = {
   totalVolume: candidates.totalVolume,
   totalCost: candidates.totalCost,
   ratioToPfr: candidates.ratioToPfr,
+  probabilityMeet: candidates.probabilityMeet,
   reason: candidates.reason,
   stages: candidates.stages,
 };

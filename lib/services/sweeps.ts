@@ -11,6 +11,8 @@ import { designSpecSchema } from "@/lib/schemas/sweep-spec";
 import type { SweepCreate } from "@/lib/schemas/sweeps";
 import { toBadRequest } from "@/lib/sweeps/engine-bridge";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
+import { checkUncertainFields, trainSpec } from "@/lib/robustness/train";
+import type { SweepRobustness } from "@/lib/schemas/robustness";
 import { recordAudit } from "./audit";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
 
@@ -66,6 +68,8 @@ interface NewSweep {
   baseSpec: Record<string, unknown>;
   grid: GridAxis[];
   rerunOf?: string;
+  /** Also rate every feasible train under uncertainty (sweeps.robustness). */
+  robustness?: SweepRobustness | null;
 }
 
 async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
@@ -83,6 +87,7 @@ async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
         name: s.name,
         baseSpec: s.baseSpec,
         grid: s.grid,
+        robustness: s.robustness ?? null,
         total: all.length,
         jobIds: jobs.map((j) => j.id),
         rerunOf: s.rerunOf ?? null,
@@ -125,6 +130,7 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
   }
   const baseSpec = { ...kv.version.spec, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
   checkScenarios(baseSpec, input.grid, expandGrid(input.grid));
+  if (input.robustness) checkUncertainFields(trainSpec(baseSpec, []), input.robustness.uncertain, "robustness.uncertain");
   return insertSweepWithJobs({
     actor,
     projectId,
@@ -132,6 +138,7 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
     name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
     baseSpec,
     grid: input.grid,
+    robustness: input.robustness ?? null,
   });
 }
 
@@ -190,6 +197,7 @@ export async function rerunSweep(db: Database, actor: Actor, sweepId: string) {
     name: `${s.name} (re-run)`,
     baseSpec: s.baseSpec,
     grid: s.grid as GridAxis[],
+    robustness: s.robustness as SweepRobustness | null,
     rerunOf: s.id,
   });
   return sweepView(sweep);
