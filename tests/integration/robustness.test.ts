@@ -5,7 +5,8 @@ import { closeDb } from "@/db/client";
 import { seedDemoData } from "@/db/seed";
 import { auditEntries, users } from "@/db/schema";
 import { robustnessRuns } from "@/db/schema-design-basis";
-import { pinnedDesigns } from "@/db/schema-sweeps";
+import { candidates, pinnedDesigns, scenarios, sweeps } from "@/db/schema-sweeps";
+import { projects } from "@/db/schema";
 import type { DesignSpec } from "@/lib/engine";
 import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
@@ -13,6 +14,11 @@ import { AppError } from "@/lib/errors";
 import { getBoss } from "@/lib/jobs/boss";
 import { rateUnderUncertainty } from "@/lib/robustness/monte-carlo";
 import { trainSpec } from "@/lib/robustness/train";
+import { candidateQuerySchema } from "@/lib/schemas/sweeps";
+import { listCandidates } from "@/lib/services/candidates";
+import { createKineticsModel } from "@/lib/services/kinetics";
+import { createSweep } from "@/lib/services/sweeps";
+import { applyOverrides } from "@/lib/sweeps/grid";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
@@ -128,5 +134,37 @@ describe("robustness runs", () => {
     expect((await refusal(() => getRun(t.db, otherTeam, any.id))).code).toBe("not_found");
     expect((await refusal(() => getRun(t.db, viewer, any.id))).code).toBe("not_found");
     expect((await refusal(() => createPinRun(t.db, viewer, pin.id, { uncertain: kPlusMinus20, samples: 10, seed: 1 }))).code).toBe("not_found");
+  });
+
+  it("a sweep with robustness stores probabilityMeet on every feasible candidate, and sorting by it works", async () => {
+    workers.push(await startWorkerProcess(t.url));
+    const [{ id: projectId }] = await t.db.select({ id: projects.id }).from(projects).where(eq(projects.name, "Ester line 3 revamp"));
+    // First order, isothermal liquid: an invented case.
+    const spec = { feed: { flowA: 0.02, concA: 1000, temperature: 330 }, reaction: { rate: { law: "power" as const, k: 0.002, orders: { A: 1 } } } };
+    const { version } = await createKineticsModel(t.db, engineer, projectId, { name: "First order, robustness sweep", spec, note: "" });
+    const robustness = { uncertain: kPlusMinus20, samples: 200, seed: 9 };
+    const bad = await refusal(() =>
+      createSweep(t.db, engineer, projectId, { kineticsVersionId: version.id, target: { conversion: 0.9 }, train: { maxStages: 2 }, grid: [], robustness: { ...robustness, uncertain: [{ field: "reaction.rate.km", kind: "plusMinus", fraction: 0.1 }] } }),
+    );
+    expect(Object.keys(bad.fields ?? {})).toEqual(["robustness.uncertain.0.field"]);
+
+    const sweep = await createSweep(t.db, engineer, projectId, { kineticsVersionId: version.id, target: { conversion: 0.9 }, train: { maxStages: 3, types: ["CSTR", "PFR"] }, grid: [], robustness });
+    await waitFor(async () => ((await t.db.select().from(sweeps).where(eq(sweeps.id, sweep.id)))[0].status === "succeeded" ? true : null), 120_000, "the sweep");
+    const [scenario] = await t.db.select().from(scenarios).where(eq(scenarios.sweepId, sweep.id));
+    const rows = await t.db.select().from(candidates).where(eq(candidates.scenarioId, scenario.id));
+    const feasible = rows.filter((c) => c.feasible);
+    expect(feasible.length).toBeGreaterThan(3);
+    for (const c of feasible) {
+      // Reference: the library's Monte Carlo on the same train, seed and target.
+      const train = trainSpec(applyOverrides(sweep.baseSpec, scenario.overrides) as unknown as DesignSpec, c.stages);
+      const direct = rateUnderUncertainty({ spec: train, uncertain: kPlusMinus20, target: 0.9, samples: 200, seed: 9 });
+      expect(c.probabilityMeet).toBe(1 - direct.probabilityOfMissingTarget);
+    }
+    // Each optimum is sized to meet the target exactly at the nominal k, so about half the draws (k below nominal) miss.
+    for (const c of feasible) expect(c.probabilityMeet!).toBeGreaterThan(0.3);
+    const page = await listCandidates(t.db, engineer, sweep.id, 0, candidateQuerySchema.parse({ sort: "probabilityMeet", dir: "desc" }));
+    const shown = page.items.filter((c) => c.feasible).map((c) => c.probabilityMeet as number);
+    expect(shown).toEqual([...shown].sort((a, b) => b - a));
+    expect(shown).toHaveLength(feasible.length);
   });
 });
