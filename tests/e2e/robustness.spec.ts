@@ -12,8 +12,8 @@ test.beforeAll(async ({ browser }) => {
   engineer = await signedInContext("engineer");
   projectId = await firstProjectId(engineer);
   // The demo data's finished sweep has its best train at the design point pinned for review.
-  const pins = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string; sweepId: string; candidateId: string }[] };
-  pin = pins.pins[pins.pins.length - 1];
+  const pins = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string; sweepId: string; candidateId: string; note: string }[] };
+  pin = pins.pins.find((p) => p.note.includes("(demo)"))!;
   browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
 });
 test.afterAll(async () => {
@@ -33,7 +33,7 @@ test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the cha
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
-  await expect(panel).toBeVisible();
+  await expect(panel).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("Input").selectOption("reaction.rate.k");
   await panel.getByLabel("Distribution").selectOption("plusMinus");
   await panel.getByLabel("± %").fill("20");
@@ -66,6 +66,7 @@ test("a bad range is refused beside its field and nothing runs", async () => {
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
+  await expect(panel.getByLabel("± %")).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("± %").fill("150");
   await panel.getByTestId("robustness-run").click();
   await expect(panel.getByTestId("uncertain-0").getByRole("alert")).toContainText("fraction must be below 1");
