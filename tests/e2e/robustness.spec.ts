@@ -73,3 +73,19 @@ test("a bad range is refused beside its field and nothing runs", async () => {
   expect(await runs()).toBe(before);
   await page.close();
 });
+
+test("pinned design: a run above 2,000 samples is queued, polled and shown when the worker is done", async () => {
+  const page = await browserCtx.newPage();
+  await page.goto(`/projects/${projectId}`);
+  const item = page.getByTestId("pin").filter({ hasText: "(demo)" });
+  await item.getByRole("button", { name: "Robustness" }).click();
+  const panel = item.getByRole("region", { name: "Robustness of this pinned design" });
+  await expect(panel.getByLabel("± %")).toBeVisible({ timeout: 30_000 });
+  await panel.getByLabel("Samples").fill("3000");
+  await panel.getByLabel("Seed").fill("5");
+  await panel.getByTestId("robustness-run").click();
+  await expect(panel.getByTestId("robustness-waiting")).toBeVisible();
+  await expect(panel.getByTestId("robustness-summary")).toContainText("3,000 samples (seed 5)", { timeout: 60_000 });
+  await expectAccessible(page);
+  await page.close();
+});
