@@ -74,7 +74,9 @@ interface NewSweep {
 
 async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
   const all = expandGrid(s.grid);
-  const ranges = chunkRanges(all.length, chunkSizeFor(all.length));
+  // Rating every train under uncertainty multiplies a scenario's work by its samples: one scenario
+  // per job, and a longer expiry so a slow but live worker is not taken for a dead one.
+  const ranges = chunkRanges(all.length, s.robustness ? 1 : chunkSizeFor(all.length));
   const jobs = ranges.map((r) => ({ id: randomUUID(), ...r }));
   const boss = await getBoss();
   return withTransaction(async (tx, client) => {
@@ -99,7 +101,12 @@ async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
     }
     // The jobs are written by this same transaction: no sweep without its jobs, no job without its sweep.
     await boss.insert(
-      jobs.map((j) => ({ id: j.id, name: QUEUES.sweepChunk, data: { sweepId: sweep.id, from: j.from, to: j.to } satisfies SweepChunkPayload })),
+      jobs.map((j) => ({
+        id: j.id,
+        name: QUEUES.sweepChunk,
+        data: { sweepId: sweep.id, from: j.from, to: j.to } satisfies SweepChunkPayload,
+        ...(s.robustness ? { expireInSeconds: 30 * 60 } : {}),
+      })),
       { db: bossDbFor(client) },
     );
     await client.query("select pg_notify($1, $2)", [WAKE_CHANNEL, sweep.id]);
