@@ -22,6 +22,7 @@ import { fitRequestSchema, fitSaveSchema } from "./schemas/fits";
 import { costBasisSchema, rateRequestSchema } from "./schemas/costs";
 import { inventoryVesselSchema, inventoryVesselUpdateSchema } from "./schemas/inventory";
 import { createFormDoc, previewFormDoc, tableKineticsSchema, versionFormDoc } from "./schemas/datasets";
+import { robustnessCreateSchema } from "./schemas/robustness";
 
 type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -79,6 +80,11 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/pins/{pinId}/export.json", summary: "The design report of a pinned design as JSON, with the cautions (attachment)" },
   { method: "get", path: "/api/pins/{pinId}/export.csv", summary: "The stage table of a pinned design as CSV, units in the headers (attachment)" },
   { method: "get", path: "/api/sweeps/{sweepId}/scenarios/{index}/candidates/export", summary: "Every candidate of one scenario as CSV or JSON, sorted and filtered as the ranked table", query: candidateExportQuerySchema },
+  { method: "post", path: "/api/candidates/{candidateId}/robustness", summary: "Rate a candidate's train by Monte Carlo under uncertain inputs (201 done, 202 queued)", body: robustnessCreateSchema, status: 201 },
+  { method: "get", path: "/api/candidates/{candidateId}/robustness", summary: "A candidate's robustness runs, newest first, and the numeric inputs it offers" },
+  { method: "post", path: "/api/pins/{pinId}/robustness", summary: "Rate a pinned design's train by Monte Carlo under uncertain inputs (201 done, 202 queued)", body: robustnessCreateSchema, status: 201 },
+  { method: "get", path: "/api/pins/{pinId}/robustness", summary: "A pinned design's robustness runs, newest first, and the numeric inputs it offers" },
+  { method: "get", path: "/api/robustness/{runId}", summary: "One robustness run: queued, running, succeeded (with P5/P50/P95 and the probability of missing the target) or failed" },
   { method: "get", path: "/api/tokens", summary: "Your personal API tokens (never the tokens themselves)" },
   { method: "post", path: "/api/tokens", summary: "Create a personal API token; shown once", body: tokenCreateSchema, status: 201 },
   { method: "delete", path: "/api/tokens/{tokenId}", summary: "Revoke a personal API token", status: 204 },

@@ -2,6 +2,7 @@ import PgBoss from "pg-boss";
 import pg from "pg";
 import { createDb } from "@/db/client";
 import { ensureQueues, WAKE_CHANNEL } from "@/lib/jobs/queues";
+import { registerRobustness } from "./jobs/robustness";
 import { registerSweepChunk, type WorkerState } from "./jobs/sweep-chunk";
 import { registerSystemPing } from "./jobs/system-ping";
 
@@ -26,11 +27,15 @@ export async function startWorker(databaseUrl: string, log: (msg: string, extra?
   const state: WorkerState = { stopping: false };
   await registerSystemPing(boss);
   const sweepWorker = await registerSweepChunk(boss, createDb(pool), state, log);
+  const robustnessWorker = await registerRobustness(boss, createDb(pool), log);
 
   // Wake at once when the app queues jobs, instead of waiting for the next poll.
   const listener = new pg.Client({ connectionString: databaseUrl, application_name: "seriatim-worker-listen" });
   await listener.connect();
-  listener.on("notification", () => boss.notifyWorker(sweepWorker));
+  listener.on("notification", () => {
+    boss.notifyWorker(sweepWorker);
+    boss.notifyWorker(robustnessWorker);
+  });
   listener.on("error", (err) => log("listener error", err));
   await listener.query(`LISTEN ${WAKE_CHANNEL}`);
 

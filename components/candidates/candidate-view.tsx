@@ -14,6 +14,7 @@ import type { CandidateDetail, SweepView } from "@/components/sweeps/types";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber, formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { PinForm } from "./pin-form";
 import { StageTable } from "./stage-table";
 import { VesselPlan } from "./vessel-plan";
@@ -119,6 +120,13 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
           </div>
         </div>
       )}
+
+      {c.feasible ? (
+        <section className="card p-4" aria-labelledby="robustness-title">
+          <h2 id="robustness-title">Robustness</h2>
+          <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
+        </section>
+      ) : null}
 
       <section className="card overflow-hidden" aria-labelledby="stages-title">
         <h2 id="stages-title" className="border-b border-line px-3 py-2">

@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { reviewSchema } from "@/lib/schemas/sweeps";
@@ -53,7 +54,7 @@ export function PinsPanel({ pins, viewerOnly }: { pins: PinRow[]; viewerOnly: bo
       ) : (
         <ol className="divide-y divide-line" data-testid="pins-list">
           {pins.map((p) => (
-            <PinItem key={p.id} pin={p} isCurrent={p.id === current?.id} />
+            <PinItem key={p.id} pin={p} isCurrent={p.id === current?.id} canRun={!viewerOnly} />
           ))}
         </ol>
       )}
@@ -61,9 +62,10 @@ export function PinsPanel({ pins, viewerOnly }: { pins: PinRow[]; viewerOnly: bo
   );
 }
 
-function PinItem({ pin, isCurrent }: { pin: PinRow; isCurrent: boolean }) {
+function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; canRun: boolean }) {
   const s = STATE[pin.state];
   const [showSpec, setShowSpec] = useState(false);
+  const [showRobustness, setShowRobustness] = useState(false);
   const reaction = pin.spec.reaction as { thermal?: { mode: string; adiabaticRise?: unknown; maxTemperature?: unknown } } | undefined;
   return (
     <li className="space-y-2 px-3 py-3" data-testid="pin" data-state={pin.state}>
@@ -108,6 +110,9 @@ function PinItem({ pin, isCurrent }: { pin: PinRow; isCurrent: boolean }) {
           {pin.sweep ? <> · sweep {pin.sweep.name}</> : null}{" "}
           <button type="button" className="ml-1 text-xs text-accent-700 underline" aria-expanded={showSpec} onClick={() => setShowSpec((x) => !x)}>
             {showSpec ? "Hide the spec" : "Show the spec"}
+          </button>{" "}
+          <button type="button" className="ml-1 text-xs text-accent-700 underline" aria-expanded={showRobustness} onClick={() => setShowRobustness((x) => !x)}>
+            {showRobustness ? "Hide robustness" : "Robustness"}
           </button>
         </dd>
         {pin.reviewerName ? (
@@ -120,6 +125,11 @@ function PinItem({ pin, isCurrent }: { pin: PinRow; isCurrent: boolean }) {
           </>
         ) : null}
       </dl>
+      {showRobustness ? (
+        <section className="rounded border border-line p-3" aria-label="Robustness of this pinned design">
+          <RobustnessPanel base={`/api/pins/${pin.id}`} canRun={canRun} />
+        </section>
+      ) : null}
       {showSpec ? <pre className="max-h-64 overflow-auto rounded bg-paper p-2 text-xs">{JSON.stringify(pin.spec, null, 2)}</pre> : null}
       <Cautions compact warnings={thermalWarnings({ thermal: reaction?.thermal, stageTemperatures: pin.stageTemperatures })} />
       {pin.canReview && pin.state === "proposed" ? <ReviewForm pinId={pin.id} /> : null}

@@ -7,6 +7,7 @@ import { useMemo, useState } from "react";
 import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
+import { SWEEP_OPTION_OFF, SweepRobustnessOption, sweepOptionValue } from "@/components/robustness/sweep-option";
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
@@ -39,6 +40,8 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
   const { register, control, formState, setValue, setError } = form;
   const v = useWatch({ control }) as BuilderValues;
   const [formError, setFormError] = useState<string>();
+  const [uncertainty, setUncertainty] = useState(SWEEP_OPTION_OFF);
+  const uncertaintyValue = sweepOptionValue(uncertainty);
   const grid = useFieldArray({ control, name: "grid" });
   const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
@@ -46,8 +49,10 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
 
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(undefined);
+    if (uncertaintyValue.error) return setFormError(`Uncertainty: ${uncertaintyValue.error}`);
     try {
-      const res = await fetchJson<{ sweep: { id: string } }>(`/api/projects/${projectId}/sweeps`, { method: "POST", json: body });
+      const json = uncertaintyValue.value ? { ...body, robustness: uncertaintyValue.value } : body;
+      const res = await fetchJson<{ sweep: { id: string } }>(`/api/projects/${projectId}/sweeps`, { method: "POST", json });
       router.push(`/projects/${projectId}/sweeps/${res.sweep.id}`);
     } catch (e) {
       if (!(e instanceof ApiError)) return setFormError("Could not reach the server; nothing was submitted.");
@@ -295,6 +300,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
             ) : null}
             <ErrorText id="s-grid" message={err("grid")} />
           </fieldset>
+          <SweepRobustnessOption state={uncertainty} onChange={setUncertainty} error={uncertaintyValue.error} />
         </div>
 
         <aside className="lg:sticky lg:top-4 lg:self-start">

@@ -22,6 +22,7 @@ const SORT_OF: Record<string, SortKey> = {
   totalVolume: "totalVolume",
   totalCost: "totalCost",
   ratioToPfr: "ratioToPfr",
+  probabilityMeet: "probabilityMeet",
   stages: "stageCount",
   installedCost: "installedCost",
   reused: "reused",
@@ -102,6 +103,11 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span> }),
         ...costColumns(),
         helper.accessor("ratioToPfr", { header: "× single PFR", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3)}×`}</span> }),
+        helper.accessor((r) => r.probabilityMeet ?? null, {
+          id: "probabilityMeet",
+          header: "P(meet target)",
+          cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${(100 * (i.getValue() as number)).toFixed(1)} %`}</span>,
+        }),
         helper.accessor("stages", {
           header: "Stages (volume, outlet X)",
           cell: (i) => (
@@ -134,7 +140,9 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
     const col = Object.entries(SORT_OF).find(([, k]) => k === view.sort)?.[0] ?? "rank";
     return [{ id: col, desc: view.dir === "desc" }];
   }, [view.sort, view.dir]);
-  const columnVisibility = useMemo(() => Object.fromEntries(view.hidden.map((c) => [c, false])), [view.hidden]);
+  // "P(meet target)" shows only for a sweep that also rated its trains under uncertainty.
+  const rated = rows?.some((r) => r.probabilityMeet !== null && r.probabilityMeet !== undefined) ?? false;
+  const columnVisibility = useMemo(() => ({ ...Object.fromEntries(view.hidden.map((c) => [c, false])), probabilityMeet: rated }), [view.hidden, rated]);
 
   const table = useTable({
     features,

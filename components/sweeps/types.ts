@@ -75,6 +75,8 @@ export interface CandidateRow {
   totalVolume: number | null;
   totalCost: number | null;
   ratioToPfr: number | null;
+  /** Probability of meeting the target under the sweep's uncertain inputs, when it asked for them. */
+  probabilityMeet?: number | null;
   reason: string | null;
   stages: StoredStage[];
   levenspiel?: StagePlot[];

@@ -40,7 +40,8 @@ export type Action =
   | "cost.update"
   | "inventory.read"
   | "inventory.manage"
-  | "train.rate";
+  | "train.rate"
+  | "robustness.create";
 
 const EVERYONE = ROLES;
 const AUTHORS: readonly Role[] = ["admin", "manager", "engineer"];
@@ -79,6 +80,8 @@ export const POLICY: Record<Action, readonly Role[]> = {
   "inventory.read": EVERYONE,
   "inventory.manage": AUTHORS,
   "train.rate": AUTHORS,
+  // Reading a run follows its subject: sweep.read for a candidate's, pin.read for a pinned design's.
+  "robustness.create": AUTHORS,
 };
 
 /** Actions an engineer may take only on records they created. */

@@ -9,3 +9,5 @@ export { GAS_CONSTANT } from "./arrhenius";
 export { MAX_STAGES } from "./sequences";
 export type * from "./types";
 export { toSI, DIM } from "./units";
+export { normaliseRatingSpec } from "./normalise-spec";
+export { rateTrainOutlet } from "./lean-rating";

@@ -9,6 +9,8 @@ export const QUEUES = {
   sweepChunk: "sweep-chunk",
   /** Chunks that failed every retry end here; their sweep is marked failed. */
   sweepChunkDead: "sweep-chunk-dead",
+  /** One Monte Carlo rating too large to run inside its request. */
+  robustness: "robustness",
 } as const;
 
 /** Postgres NOTIFY channel that wakes idle workers when jobs are queued. */
@@ -24,6 +26,9 @@ export const sweepChunkPayload = z.strictObject({
   to: z.int().min(1),
 });
 export type SweepChunkPayload = z.infer<typeof sweepChunkPayload>;
+
+export const robustnessPayload = z.strictObject({ runId: z.uuid() });
+export type RobustnessPayload = z.infer<typeof robustnessPayload>;
 
 /** Queue settings, from the environment so tests can shorten the expiry of a killed worker's job. */
 export function sweepQueueOptions(): PgBoss.Queue {
@@ -41,4 +46,6 @@ export async function ensureQueues(boss: PgBoss): Promise<void> {
   await boss.createQueue(QUEUES.systemPing);
   await boss.createQueue(QUEUES.sweepChunkDead);
   await boss.createQueue(QUEUES.sweepChunk, sweepQueueOptions());
+  // 100,000 samples of a slow train take minutes; a dead worker's run is retried once after expiry.
+  await boss.createQueue(QUEUES.robustness, { name: QUEUES.robustness, retryLimit: 1, retryDelay: 1, expireInSeconds: 15 * 60 });
 }

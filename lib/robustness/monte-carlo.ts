@@ -1,6 +1,6 @@
 import { uniformFloat64 } from "pure-rand/distribution/uniformFloat64";
 import { xoroshiro128plus } from "pure-rand/generator/xoroshiro128plus";
-import { EngineError, rateTrain, type RatingSpec } from "@/lib/engine";
+import { EngineError, normaliseRatingSpec, rateTrainOutlet, type RatingSpec } from "@/lib/engine";
 import { applyOverrides } from "@/lib/sweeps/grid";
 
 /** How one numeric input of the rating spec is uncertain. */
@@ -56,12 +56,16 @@ const quantile = (sorted: number[], p: number) => {
 
 /**
  * Rates the fixed train for `samples` draws of its uncertain inputs (xoroshiro128+ seeded,
- * so a seed gives the same answer everywhere) and summarises the outlet conversion.
+ * so a seed gives the same answer everywhere) and summarises the outlet conversion. Each sample is
+ * rated by the engine's lean path (rateTrainOutlet), which equals rateTrain's outlet to about 1e-9.
+ * @throws EngineError when the spec itself cannot be read (a unit), before any sample.
  */
 export function rateUnderUncertainty(req: RobustnessRequest): RobustnessResult {
   const rng = xoroshiro128plus(req.seed);
   const draw = () => uniformFloat64(rng);
-  const base = req.uncertain.map((u) => (u.kind === "plusMinus" ? valueAt(req.spec, u.field) : 0));
+  // Units are parsed once here; each sample then overrides SI numbers (and ±fractions apply to SI values).
+  const spec = normaliseRatingSpec(req.spec);
+  const base = req.uncertain.map((u) => (u.kind === "plusMinus" ? valueAt(spec, u.field) : 0));
   const outcomes: number[] = [];
   let refused = 0;
   let misses = 0;
@@ -73,7 +77,7 @@ export function rateUnderUncertainty(req: RobustnessRequest): RobustnessResult {
       else overrides[u.field] = base[i] * (1 + u.fraction * (2 * draw() - 1));
     });
     try {
-      const x = rateTrain(applyOverrides(req.spec, overrides)).conversionOut;
+      const x = rateTrainOutlet(applyOverrides(spec, overrides));
       outcomes.push(x);
       if (x < req.target) misses++;
     } catch (err) {

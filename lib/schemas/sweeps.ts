@@ -2,6 +2,7 @@ import { z } from "zod";
 import { designSpecSchema } from "./sweep-spec";
 import { uuidSchema } from "./foundation";
 import { sweepCostingSchema } from "./costs";
+import { sweepRobustnessSchema } from "./robustness";
 
 const spec = designSpecSchema.shape;
 
@@ -49,11 +50,13 @@ export const sweepCreateSchema = z
     grid: z.array(gridAxisSchema).max(4, "Vary at most 4 fields").default([]),
     /** Installation factor and reuse of idle vessels (cost objective only). */
     costing: sweepCostingSchema.optional(),
+    /** Also rate every feasible train under uncertainty; fills each candidate's probabilityMeet. */
+    robustness: sweepRobustnessSchema.optional(),
   })
   .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each field may be varied once", path: ["grid"] });
 export type SweepCreate = z.infer<typeof sweepCreateSchema>;
 
-export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused"] as const;
+export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused", "probabilityMeet"] as const;
 
 export const candidateQuerySchema = z.strictObject({
   sort: z.enum(SORTABLE_COLUMNS, { error: `sort must be one of ${SORTABLE_COLUMNS.join(", ")}` }).default("rank"),

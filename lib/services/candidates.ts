@@ -17,6 +17,7 @@ const SORT_COLUMNS = {
   sequence: [candidates.stageCount, candidates.sequenceKey],
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
+  probabilityMeet: [candidates.probabilityMeet],
 } as const;
 
 const summaryColumns = {
@@ -28,6 +29,7 @@ const summaryColumns = {
   totalVolume: candidates.totalVolume,
   totalCost: candidates.totalCost,
   ratioToPfr: candidates.ratioToPfr,
+  probabilityMeet: candidates.probabilityMeet,
   reason: candidates.reason,
   stages: candidates.stages,
   installedCost: candidates.installedCost,

@@ -11,6 +11,8 @@ import { designSpecSchema } from "@/lib/schemas/sweep-spec";
 import type { SweepCreate } from "@/lib/schemas/sweeps";
 import { toBadRequest } from "@/lib/sweeps/engine-bridge";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
+import { checkUncertainFields, trainSpec } from "@/lib/robustness/train";
+import type { SweepRobustness } from "@/lib/schemas/robustness";
 import { recordAudit } from "./audit";
 import { sweepCostingFor } from "./sweep-costing";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
@@ -68,11 +70,15 @@ interface NewSweep {
   grid: GridAxis[];
   rerunOf?: string;
   inventory?: Record<string, unknown>[] | null;
+  /** Also rate every feasible train under uncertainty (sweeps.robustness). */
+  robustness?: SweepRobustness | null;
 }
 
 async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
   const all = expandGrid(s.grid);
-  const ranges = chunkRanges(all.length, chunkSizeFor(all.length));
+  // Rating every train under uncertainty multiplies a scenario's work by its samples: one scenario
+  // per job, and a longer expiry so a slow but live worker is not taken for a dead one.
+  const ranges = chunkRanges(all.length, s.robustness ? 1 : chunkSizeFor(all.length));
   const jobs = ranges.map((r) => ({ id: randomUUID(), ...r }));
   const boss = await getBoss();
   return withTransaction(async (tx, client) => {
@@ -85,6 +91,7 @@ async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
         name: s.name,
         baseSpec: s.baseSpec,
         grid: s.grid,
+        robustness: s.robustness ?? null,
         total: all.length,
         jobIds: jobs.map((j) => j.id),
         rerunOf: s.rerunOf ?? null,
@@ -97,7 +104,12 @@ async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
     }
     // The jobs are written by this same transaction: no sweep without its jobs, no job without its sweep.
     await boss.insert(
-      jobs.map((j) => ({ id: j.id, name: QUEUES.sweepChunk, data: { sweepId: sweep.id, from: j.from, to: j.to } satisfies SweepChunkPayload })),
+      jobs.map((j) => ({
+        id: j.id,
+        name: QUEUES.sweepChunk,
+        data: { sweepId: sweep.id, from: j.from, to: j.to } satisfies SweepChunkPayload,
+        ...(s.robustness ? { expireInSeconds: 30 * 60 } : {}),
+      })),
       { db: bossDbFor(client) },
     );
     await client.query("select pg_notify($1, $2)", [WAKE_CHANNEL, sweep.id]);
@@ -129,6 +141,7 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
   const { costing, inventory } = await sweepCostingFor(db, actor, input);
   const engineSpec = { ...kv.version.spec, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
   checkScenarios(engineSpec, input.grid, expandGrid(input.grid));
+  if (input.robustness) checkUncertainFields(trainSpec(engineSpec, []), input.robustness.uncertain, "robustness.uncertain");
   const baseSpec = costing ? { ...engineSpec, costing } : engineSpec;
   return insertSweepWithJobs({
     actor,
@@ -138,6 +151,7 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
     baseSpec,
     grid: input.grid,
     inventory,
+    robustness: input.robustness ?? null,
   });
 }
 
@@ -196,6 +210,7 @@ export async function rerunSweep(db: Database, actor: Actor, sweepId: string) {
     name: `${s.name} (re-run)`,
     baseSpec: s.baseSpec,
     grid: s.grid as GridAxis[],
+    robustness: s.robustness as SweepRobustness | null,
     rerunOf: s.id,
     inventory: s.inventory,
   });

@@ -6,10 +6,12 @@ import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@
 import type { SweepChunkPayload } from "@/lib/jobs/queues";
 import { appLink, sendMail } from "@/lib/mail";
 import { engineSpecOf, withCosting } from "@/lib/costs/candidate-costing";
+import { probabilitiesMeet } from "@/lib/robustness/sweep-ranking";
+import type { SweepRobustness } from "@/lib/schemas/robustness";
 import { applyOverrides } from "./grid";
 
 type Outcome =
-  | { scenarioId: string; result: DesignResult }
+  | { scenarioId: string; result: DesignResult; meet: (number | null)[] }
   | { scenarioId: string; error: { message: string; path: string | null; code: string } };
 
 const ACTIVE = ["queued", "running"] as const;
@@ -77,7 +79,8 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
     if (shouldStop()) break;
     const spec = applyOverrides(engineSpecOf(sweep.baseSpec), s.overrides) as unknown as DesignSpec;
     try {
-      outcomes.push({ scenarioId: s.id, result: designTrains(spec) });
+      const result = designTrains(spec);
+      outcomes.push({ scenarioId: s.id, result, meet: probabilitiesMeet(spec, result, sweep.robustness as SweepRobustness | null) });
     } catch (err) {
       if (!(err instanceof EngineError)) throw err;
       outcomes.push({ scenarioId: s.id, error: { message: err.message, path: err.path || null, code: err.code } });
@@ -92,7 +95,7 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
       let failed = 0;
       for (const o of outcomes) {
         if ("result" in o) {
-          const rows = withCosting(candidateRows(sweep.id, o.scenarioId, o.result), sweep);
+          const rows = withCosting(candidateRows(sweep.id, o.scenarioId, o.result), sweep).map((r, i) => ({ ...r, probabilityMeet: o.meet[i] }));
           for (let i = 0; i < rows.length; i += 500) await tx.insert(candidates).values(rows.slice(i, i + 500)).onConflictDoNothing();
         }
         const updated = await tx

@@ -39,6 +39,14 @@ async function newPinId(): Promise<string> {
   return ((await res.json()) as { pin: { id: string } }).pin.id;
 }
 
+const ROBUSTNESS = { uncertain: [{ field: "reaction.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 50, seed: 1 };
+
+async function newRunId(): Promise<string> {
+  const res = await ctx.engineer.post(`/api/candidates/${ids.candidates[0]}/robustness`, { data: ROBUSTNESS });
+  expect(res.status()).toBe(201);
+  return ((await res.json()) as { run: { id: string } }).run.id;
+}
+
 async function newEngineerTokenId(): Promise<string> {
   const res = await ctx.engineer.post("/api/tokens", { data: { name: "matrix" } });
   return ((await res.json()) as { token: { id: string } }).token.id;
@@ -196,6 +204,31 @@ const ROWS: Row[] = [
   {
     route: "GET /api/sweeps/:id/scenarios/:index/candidates/export",
     call: (c) => c.get(`/api/sweeps/${ids.sweep}/scenarios/0/candidates/export?format=csv`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/candidates/:id/robustness",
+    call: (c) => c.post(`/api/candidates/${ids.candidates[0]}/robustness`, { data: ROBUSTNESS }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "GET /api/candidates/:id/robustness",
+    call: (c) => c.get(`/api/candidates/${ids.candidates[0]}/robustness`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "POST /api/pins/:id/robustness (a proposed pin: hidden from viewers)",
+    call: (c) => c.post(`/api/pins/${ids.pin}/robustness`, { data: ROBUSTNESS }),
+    expect: { admin: 201, manager: 201, engineer: 201, viewer: 404, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "GET /api/pins/:id/robustness",
+    call: (c) => c.get(`/api/pins/${ids.pin}/robustness`),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 404, otherTeam: 404, anonymous: 401 },
+  },
+  {
+    route: "GET /api/robustness/:id (a candidate's run)",
+    call: async (c) => c.get(`/api/robustness/${await newRunId()}`),
     expect: { admin: 200, manager: 200, engineer: 200, viewer: 403, otherTeam: 404, anonymous: 401 },
   },
   { route: "GET /api/tokens", call: (c) => c.get("/api/tokens"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },

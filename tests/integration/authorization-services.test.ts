@@ -18,6 +18,7 @@ import { DEMO_COST_BASIS } from "@/db/seed-inventory";
 import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
 import { createVessel, deleteVessel, getVessel, importInventory, listInventory, updateVessel } from "@/lib/services/inventory";
 import { rateFixedTrain } from "@/lib/services/rating";
+import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -37,9 +38,11 @@ let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
 let datasetVersionId: string;
-let demoPin: { id: string; sweepId: string };
+let demoPin: { id: string; sweepId: string; candidateId: string };
 let vesselId: string;
 let kineticsVersionId: string;
+let candidateRunId: string;
+const UNCERTAIN = { uncertain: [{ field: "reaction.rate.k" as const, kind: "plusMinus" as const, fraction: 0.2 }], samples: 20, seed: 1 };
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -64,7 +67,8 @@ beforeAll(async () => {
   const [dv] = await t.db.insert(rateDatasetVersions).values({ datasetId: ds.id, version: 1, fileName: "m.csv", format: "csv", mapping: {}, rows, rowCount: rows.length, createdBy: actors.engineer.userId }).returning();
   datasetVersionId = dv.id;
   const [pin] = await t.db.select().from(pinnedDesigns).where(eq(pinnedDesigns.projectId, engineersProject));
-  demoPin = { id: pin.id, sweepId: pin.sweepId! };
+  demoPin = { id: pin.id, sweepId: pin.sweepId!, candidateId: pin.candidateId! };
+  candidateRunId = (await createCandidateRun(t.db, actors.engineer, demoPin.candidateId, UNCERTAIN)).id;
 });
 afterAll(() => t.drop());
 
@@ -105,6 +109,12 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
   },
   { name: "read the design report of a proposed pin", run: (a) => getDesignReport(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
   { name: "export a scenario's candidates", run: (a) => exportCandidates(t.db, a, demoPin.sweepId, 0, { sort: "rank", dir: "asc" }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  // Robustness runs: a candidate's follow sweep.read; the demo pin is proposed, so hidden from viewers.
+  { name: "rate a candidate under uncertainty", run: (a) => createCandidateRun(t.db, a, demoPin.candidateId, UNCERTAIN), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  { name: "list a candidate's robustness runs", run: (a) => listCandidateRuns(t.db, a, demoPin.candidateId), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
+  { name: "rate a pinned design under uncertainty", run: (a) => createPinRun(t.db, a, demoPin.id, UNCERTAIN), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
+  { name: "list a pinned design's robustness runs", run: (a) => listPinRuns(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
+  { name: "read a candidate's robustness run", run: (a) => getRun(t.db, a, candidateRunId), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
   { name: "read the audit trail", run: (a) => listAuditEntries(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
   // Cost basis, inventory and rating (GET/PUT /api/projects/:id/costs, /api/inventory…, POST /api/projects/:id/rate).
   { name: "read a project's cost basis", run: (a) => getCostBasis(t.db, a, engineersProject), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "ok", otherTeam: "not_found" } },

@@ -1,0 +1,26 @@
+import type PgBoss from "pg-boss";
+import type { Database } from "@/db/client";
+import { QUEUES, robustnessPayload } from "@/lib/jobs/queues";
+import { markRobustnessFailed, runRobustnessJob } from "@/lib/robustness/run-job";
+
+/**
+ * One Monte Carlo run per job. A run the engine refuses ends failed at once (a retry would refuse it
+ * again); a crash is retried by pg-boss and the last attempt marks the run failed.
+ */
+export async function registerRobustness(boss: PgBoss, db: Database, log: (m: string, x?: unknown) => void): Promise<string> {
+  return boss.work(QUEUES.robustness, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    const parsed = robustnessPayload.safeParse(job.data);
+    if (!parsed.success) {
+      log(`job ${job.id}: invalid payload`, parsed.error.issues);
+      throw new Error("invalid robustness payload");
+    }
+    try {
+      return { ...(await runRobustnessJob(db, parsed.data)), worker: process.pid };
+    } catch (err) {
+      const message = err instanceof Error ? err.message.split("\n")[0] : String(err);
+      log(`queue ${QUEUES.robustness} job ${job.id} (run ${parsed.data.runId}, attempt ${job.retryCount + 1}/${job.retryLimit + 1}): ${message}`);
+      if (job.retryCount >= job.retryLimit) await markRobustnessFailed(db, parsed.data.runId, message);
+      throw err;
+    }
+  });
+}
