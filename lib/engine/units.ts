@@ -1,3 +1,4 @@
+import type { Unit } from "mathjs";
 import { EngineError } from "./errors";
 import { mathInstance } from "./math-instance";
 import type { Quantity } from "./types";
@@ -16,10 +17,19 @@ export const DIM = {
   none: null,
 } as const;
 
-function parseQuantity(text: string, path: string) {
+const RECIPROCAL = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*1\s*\/\s*([\w\s*^.()-]+)$/;
+
+/**
+ * Reads "2 mol/L" and also "0.06 1/min" or "3 1/(L h)": mathjs takes no number inside a unit,
+ * so a reciprocal unit is read as number / (1 unit).
+ */
+function parseQuantity(text: string, path: string): Unit {
   const math = mathInstance();
   try {
-    return math.unit(text.trim());
+    const m = RECIPROCAL.exec(text.trim());
+    if (!m) return math.unit(text.trim()) as Unit;
+    const inner = m[2].trim().replace(/^\((.*)\)$/, "$1");
+    return math.divide(Number(m[1]), math.unit(`1 ${inner}`)) as unknown as Unit;
   } catch (err) {
     const why = err instanceof Error ? err.message : String(err);
     throw new EngineError("invalid-unit", `${path}: cannot read "${text}" as a quantity (${why})`, path);
@@ -45,11 +55,18 @@ export function toSI(value: Quantity, dimension: Dimension, path: string): numbe
   }
   const q = parseQuantity(trimmed, path);
   const math = mathInstance();
-  const expected = math.unit(dimension);
+  // "1/s" holds a number, which math.unit refuses: compare and convert in its reciprocal form.
+  const target = dimension.startsWith("1/") ? `${dimension.slice(2).trim()}^-1` : dimension;
+  const expected = math.unit(target);
   if (!q.equalBase(expected)) {
     throw new EngineError("invalid-unit", `${path}: "${value}" is not in units of ${dimension}`, path);
   }
-  return finiteOrThrow(q.toNumber(dimension), path);
+  try {
+    return finiteOrThrow(q.toNumber(target), path);
+  } catch (err) {
+    if (err instanceof EngineError) throw err;
+    throw new EngineError("invalid-unit", `${path}: cannot convert "${value}" to ${dimension}`, path);
+  }
 }
 
 /**
