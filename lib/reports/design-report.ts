@@ -350,7 +350,11 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
       .limit(1),
     userNames(db, [pin.pinnedBy, pin.reviewerId]),
   ]);
-  const plan = obj(candidate?.inventoryPlan);
+  // The pin's frozen copy wins; pins made before it held costing fall back to the candidate row.
+  const frozen = pin.candidate as { installedCost?: number | null; inventoryPlan?: Record<string, unknown> | null };
+  const costing =
+    frozen.installedCost != null ? { installedCost: frozen.installedCost ?? null, inventoryPlan: frozen.inventoryPlan ?? null } : candidate ? { installedCost: candidate.installedCost, inventoryPlan: candidate.inventoryPlan ?? null } : null;
+  const plan = obj(costing?.inventoryPlan);
   const vesselIds = (Array.isArray(plan.assignments) ? plan.assignments : []).map((a) => str(obj(a).vesselId)).filter((id): id is string => !!id);
   return buildDesignReport({
     pin,
@@ -358,7 +362,7 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
     names: people,
     kinetics: kinetics ?? null,
     source: source ? { ...source, fit: source.fit ?? null } : null,
-    candidate: candidate ? { installedCost: candidate.installedCost, inventoryPlan: candidate.inventoryPlan ?? null } : null,
+    candidate: costing,
     costSettings: costSettings ?? null,
     robustness: robustness?.result ? { id: robustness.id, request: robustness.request, result: robustness.result, finishedAt: robustness.finishedAt } : null,
     inventoryTags: await inventoryTags(db, actor.teamId, vesselIds),

@@ -9,6 +9,10 @@ export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
     totalVolume: c.totalVolume,
     totalCost: c.totalCost,
     ratioToPfr: c.ratioToPfr,
+    // Costing and uncertainty as ranked, so the pin keeps them even if its sweep is deleted.
+    installedCost: c.installedCost,
+    inventoryPlan: c.inventoryPlan,
+    probabilityMeet: c.probabilityMeet,
     stages: c.stages.map((s, i) => ({ ...s, levenspiel: c.levenspiel[i] })),
     scenario: { index: scenario.index, overrides: scenario.overrides, reference: scenario.reference },
     sweep: { id: sweep.id, name: sweep.name },
