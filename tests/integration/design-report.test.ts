@@ -84,10 +84,10 @@ describe("design report of the demo pin", () => {
     const closedForm = ((0.02 / (1e-4 * 1000 ** 2)) * Math.log((1.2 - 0.9) / (1.2 * (1 - 0.9)))) / (1.2 - 1);
     expect(r.references.singlePFR! / closedForm).toBeGreaterThan(0.995);
     expect(r.references.singlePFR! / closedForm).toBeLessThan(1.005);
-    // Without rows in the other tables, their sections say "not recorded".
+    // Without rows in the other tables, their sections say "not recorded"; the demo project has a cost basis.
     expect(r.source.recorded).toBe(false);
     expect(r.robustness.recorded).toBe(false);
-    expect(r.costs.settings.recorded).toBe(false);
+    expect(r.costs.settings.recorded).toBe(true);
     expect(r.costs.inventoryPlan.recorded).toBe(false);
     expect(r.cautions.general).toEqual([...CAUTION_TEXTS]);
   });
@@ -142,11 +142,16 @@ describe("design report of the demo pin", () => {
       kind: "fit",
       fit: { kind: "power", formula: "−rA = k·C_A^n", parameters: [{ name: "k", value: 1.02e-4, standardError: 3.1e-6, interval95: [9.5e-5, 1.09e-4] }], rSquared: 0.9934, residualSumOfSquares: 1.2e-5 },
     });
+    // Invented figures standing in for a project's own cost basis (replaces the demo basis).
+    const settings = { CSTR: { a: 12000, b: 41000, n: 0.6, source: "vendor quote 2026-03" }, PFR: { a: 8000, b: 30000, n: 0.62, source: "in-house database" }, currency: "EUR", basisYear: 2026, installationFactor: 3.1 };
     await t.db.insert(projectCostSettings).values({
       projectId,
       teamId: pin.teamId,
-      settings: { CSTR: { a: 12000, b: 41000, n: 0.6, source: "vendor quote 2026-03" }, PFR: { a: 8000, b: 30000, n: 0.62, source: "in-house database" }, currency: "EUR", basisYear: 2026, installationFactor: 3.1 },
+      settings,
       updatedBy: by,
+    }).onConflictDoUpdate({
+      target: projectCostSettings.projectId,
+      set: { settings, updatedBy: by },
     });
     const [vessel] = await t.db.insert(inventoryVessels).values({ teamId: pin.teamId, tag: "R-107", type: "PFR", volume: 0.002, reuseCost: 1500, createdBy: by }).returning();
     await t.db
