@@ -4,8 +4,10 @@ import type { Database, Executor } from "./client";
 import { memberships, projects, teams, users, type Role } from "./schema";
 import { seedDemoDatasets } from "./seed-datasets";
 import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, scenarios, sweeps } from "./schema-sweeps";
+import { robustnessRuns } from "./schema-design-basis";
 import { designTrains, type DesignSpec } from "@/lib/engine";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
+import { rateRobustness, trainSpec } from "@/lib/robustness/train";
 import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
 import { bestObjective, candidateRows } from "@/lib/sweeps/run-chunk";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
@@ -177,7 +179,7 @@ async function seedDemoSweep(tx: Executor, project: typeof projects.$inferSelect
   if (!pinSource) return;
   const [c] = await tx.select().from(candidates).where(eq(candidates.id, pinSource.candidateId));
   const [sc] = await tx.select().from(scenarios).where(eq(scenarios.id, c.scenarioId));
-  await tx.insert(pinnedDesigns).values({
+  const [pin] = await tx.insert(pinnedDesigns).values({
     teamId: project.teamId,
     projectId: project.id,
     sweepId: sweep.id,
@@ -188,6 +190,22 @@ async function seedDemoSweep(tx: Executor, project: typeof projects.$inferSelect
     note: "Least volume at the design feed of 0.02 mol/s and X = 0.9 (demo).",
     pinnedBy: project.createdBy,
     pinnedAt: at,
+  }).returning();
+  // The manager's first question, answered before review: what if k is 20 % off? (demo run)
+  const spec = applyOverrides(baseSpec, sc.overrides);
+  const train = trainSpec(spec, c.stages);
+  const request = { uncertain: [{ field: "reaction.rate.k" as const, kind: "plusMinus" as const, fraction: 0.2 }], target: 0.9, samples: 2000, seed: 2026 };
+  await tx.insert(robustnessRuns).values({
+    teamId: project.teamId,
+    projectId: project.id,
+    candidateId: c.id,
+    pinId: pin.id,
+    request: { ...request, train },
+    status: "succeeded",
+    result: rateRobustness(train, request) as unknown as Record<string, unknown>,
+    createdBy: project.createdBy,
+    createdAt: at,
+    finishedAt: at,
   });
 }
 
