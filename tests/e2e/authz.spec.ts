@@ -253,7 +253,7 @@ const ROWS: Row[] = [
   { route: "GET /api/inventory", call: (c) => c.get("/api/inventory"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },
   {
     route: "POST /api/inventory",
-    call: (c) => c.post("/api/inventory", { data: { tag: `M-${Math.random().toString(36).slice(2)}`, type: "CSTR", volume: 1 } }),
+    call: (c) => c.post("/api/inventory", { data: { tag: `M-${Math.random().toString(36).slice(2)}`, type: "CSTR", volume: 1, available: false } }),
     expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 201, anonymous: 401 },
   },
   { route: "GET /api/inventory/:id", call: async (c) => c.get(`/api/inventory/${await demoVesselId()}`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 404, anonymous: 401 } },
@@ -325,8 +325,10 @@ async function demoVesselId(): Promise<string> {
   return list.vessels.find((v) => v.tag === "R-302")!.id;
 }
 
+// Matrix vessels are marked unavailable, so the ones a refused delete leaves behind never
+// enter another spec's sweep with reuse.
 async function newVesselId(): Promise<string> {
-  const res = await ctx.engineer.post("/api/inventory", { data: { tag: `DEL-${Math.random().toString(36).slice(2)}`, type: "PFR", volume: 0.5 } });
+  const res = await ctx.engineer.post("/api/inventory", { data: { tag: `DEL-${Math.random().toString(36).slice(2)}`, type: "PFR", volume: 0.5, available: false } });
   return ((await res.json()) as { vessel: { id: string } }).vessel.id;
 }
 
