@@ -80,13 +80,18 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   await page.getByRole("link", { name: "Fit a rate law" }).click();
   await expect(page.getByTestId("fit-title")).toHaveText(`Fit a rate law to ${datasetName} v1`);
   await page.getByRole("checkbox", { name: /^Power law -rA/ }).check();
-  await page.getByRole("checkbox", { name: /^Saturation -rA/ }).check();
+  await page.getByRole("checkbox", { name: /^Reversible first order -rA/ }).check();
   // One temperature only: the Arrhenius law has nothing to fit its activation energy to.
   await page.getByRole("checkbox", { name: /^Power law with Arrhenius/ }).uncheck();
+  await page.getByRole("checkbox", { name: /^Saturation -rA/ }).uncheck();
   await page.getByRole("button", { name: "Fit", exact: true }).click();
   const comparison = page.getByTestId("fit-comparison");
   await expect(comparison.getByTestId("fit-row-power")).toBeVisible();
-  await expect(comparison.getByTestId("fit-row-saturation")).toBeVisible();
+  await expect(comparison.getByTestId("fit-row-reversible")).toBeVisible();
+  await expect(comparison.locator("tbody tr")).toHaveCount(2);
+  // The rates fall faster than first order with conversion, so the power law fits closer: it heads the R² order.
+  await comparison.getByRole("button", { name: /^R²/ }).click();
+  await expect(comparison.locator("tbody tr").first()).toHaveAttribute("data-testid", "fit-row-power");
   await page.getByRole("radio", { name: "Show plots of the power law" }).check();
   const save = page.getByTestId("save-fit-form");
   await expect(save.getByRole("heading", { name: "Save the power law as kinetics" })).toBeVisible();
