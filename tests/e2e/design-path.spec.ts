@@ -121,6 +121,10 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   await page.getByTestId("candidate-link").first().click();
   await expect(page).toHaveURL(/\/candidates\//);
   await expect(page.getByTestId("stage-table")).toBeVisible();
+  await expect(page.getByTestId("candidate-title")).toContainText("Rank 1");
+  // The train as the candidate page draws it (stage badges), written the way the report writes it.
+  const train = ((await page.getByTestId("candidate-title").textContent()) ?? "").match(/CSTR|PFR/g)?.join(" → ") ?? "";
+  expect(train).toMatch(/^(CSTR|PFR)( → (CSTR|PFR))?$/);
   await page.getByLabel("Note for the reviewer").fill(note);
   await page.getByTestId("pin-button").click();
   await expect(page.getByTestId("pin-done")).toBeVisible();
@@ -144,8 +148,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   await expect(pinned.getByTestId("pin-state")).toHaveText(/approved/);
   await pinned.getByTestId("pin-report").click();
   await expect(page).toHaveURL(/\/pins\/[0-9a-f-]{36}\/report$/);
-  const train = (await page.getByTestId("report-train").textContent())?.trim() ?? "";
-  expect(train).toMatch(/^(CSTR|PFR)( → (CSTR|PFR))?$/);
+  await expect(page.getByTestId("report-train")).toHaveText(train);
   const report = page.getByTestId("design-report");
   await expect(report).toContainText(`${modelName}, version 1`);
   await expect(report).toContainText(`${datasetName}, version 1 (ester-bench.csv, 10 rows)`);
@@ -158,7 +161,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("report-pdf").click()]);
   expect(download.suggestedFilename()).toMatch(/\.pdf$/);
   const text = await pdfText(readFileSync((await download.path())!));
-  expect(text).toContain(train);
+  expect(text).toContain(`Sequence ${train}`);
   expect(text).toContain(modelName);
   expect(text).toContain(datasetName);
   expect(text).toContain("ester-bench.csv");
