@@ -161,18 +161,37 @@ function uncertainLines(list: unknown): WordLine[] {
   });
 }
 
+/** A cost-basis entry in words: sizes, limits and factors read as an engineer would write them. */
+function costLine(key: string, v: unknown): WordLine {
+  const o = obj(v);
+  if (key === "sizes") {
+    if (o.mode === "r10") return { label: "Standard sizes", value: `ISO 3 R10 preferred numbers from ${o.min} to ${o.max} m³` };
+    if (o.mode === "custom") return { label: "Standard sizes", value: `${(Array.isArray(o.values) ? o.values : []).join(", ")} m³` };
+    if (o.mode === "any") return { label: "Standard sizes", value: "any size" };
+  }
+  if (key === "maxVesselVolume") return { label: "Largest single vessel", value: v == null ? "no limit" : `${v} m³ (a larger stage is split into identical parallel vessels)` };
+  if (key === "installationFactor") {
+    const value = typeof v === "number" ? v : num(o.value);
+    const source = str(o.source);
+    return { label: "Installation factor", value: `${value ?? "—"} × purchase cost${source ? ` (${source})` : ""}` };
+  }
+  return { label: key, value: Array.isArray(v) ? v.join(", ") : typeof v === "object" && v !== null ? JSON.stringify(v) : String(v) };
+}
+
 function costSettingsSection(row: ReportInputs["costSettings"]): DesignReport["costs"]["settings"] {
   if (!row) return { recorded: false };
   const s = row.settings;
+  // The cost basis keeps correlations under "vessels"; older rows kept them at the top level.
+  const vessels = obj(s.vessels);
   const correlations = (["CSTR", "PFR"] as const)
-    .filter((t) => s[t])
+    .filter((t) => vessels[t] ?? s[t])
     .map((t) => {
-      const c = obj(s[t]);
+      const c = obj(vessels[t] ?? s[t]);
       return { type: t, a: num(c.a), b: num(c.b), n: num(c.n), source: str(c.source) ?? "not given" };
     });
   const other: WordLine[] = Object.entries(s)
-    .filter(([k]) => !["CSTR", "PFR", "currency", "basisYear"].includes(k))
-    .map(([k, v]) => ({ label: k, value: Array.isArray(v) ? v.join(", ") : typeof v === "object" ? JSON.stringify(v) : String(v) }));
+    .filter(([k]) => !["vessels", "CSTR", "PFR", "currency", "basisYear"].includes(k))
+    .map(([k, v]) => costLine(k, v));
   return { recorded: true, currency: str(s.currency), basisYear: num(s.basisYear), correlations, other, updatedAt: row.updatedAt.toISOString() };
 }
 

@@ -89,6 +89,12 @@ describe("design report of the demo pin", () => {
     // The seed rates the demo pin with k ± 20 % (2,000 samples, seed 2026).
     expect(r.robustness.recorded).toBe(true);
     expect(r.costs.settings.recorded).toBe(true);
+    if (r.costs.settings.recorded) {
+      // The demo basis keeps its correlations under "vessels"; both types and the sizes read in words.
+      expect(r.costs.settings.correlations.map((c) => [c.type, c.n])).toEqual([["CSTR", 0.6], ["PFR", 0.6]]);
+      expect(r.costs.settings.other.find((l) => l.label === "Standard sizes")?.value).toBe("ISO 3 R10 preferred numbers from 0.001 to 1 m³");
+      expect(r.costs.settings.other.map((l) => l.value).join(" ")).not.toContain("{");
+    }
     expect(r.costs.inventoryPlan.recorded).toBe(false);
     expect(r.cautions.general).toEqual([...CAUTION_TEXTS]);
   });
