@@ -34,11 +34,11 @@ test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the cha
   await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel).toBeVisible({ timeout: 30_000 });
-  await panel.getByLabel("Input").selectOption("reaction.rate.k");
-  await panel.getByLabel("Distribution").selectOption("plusMinus");
-  await panel.getByLabel("± %").fill("20");
-  await panel.getByLabel("Samples").fill("1500");
-  await panel.getByLabel("Seed").fill("42");
+  await panel.getByLabel("Input", { exact: true }).selectOption("reaction.rate.k");
+  await panel.getByLabel("Distribution", { exact: true }).selectOption("plusMinus");
+  await panel.getByLabel("± %", { exact: true }).fill("20");
+  await panel.getByLabel("Samples", { exact: true }).fill("1500");
+  await panel.getByLabel("Seed", { exact: true }).fill("42");
   await panel.getByTestId("robustness-run").click();
 
   const result = panel.getByTestId("robustness-result");
@@ -66,8 +66,8 @@ test("a bad range is refused beside its field and nothing runs", async () => {
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
-  await expect(panel.getByLabel("± %")).toBeVisible({ timeout: 30_000 });
-  await panel.getByLabel("± %").fill("150");
+  await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
+  await panel.getByLabel("± %", { exact: true }).fill("150");
   await panel.getByTestId("robustness-run").click();
   await expect(panel.getByTestId("uncertain-0").getByRole("alert")).toContainText("fraction must be below 1");
   expect(await runs()).toBe(before);
@@ -80,9 +80,9 @@ test("pinned design: a run above 2,000 samples is queued, polled and shown when 
   const item = page.getByTestId("pin").filter({ hasText: "(demo)" });
   await item.getByRole("button", { name: "Robustness" }).click();
   const panel = item.getByRole("region", { name: "Robustness of this pinned design" });
-  await expect(panel.getByLabel("± %")).toBeVisible({ timeout: 30_000 });
-  await panel.getByLabel("Samples").fill("3000");
-  await panel.getByLabel("Seed").fill("5");
+  await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
+  await panel.getByLabel("Samples", { exact: true }).fill("3000");
+  await panel.getByLabel("Seed", { exact: true }).fill("5");
   await panel.getByTestId("robustness-run").click();
   await expect(panel.getByTestId("robustness-waiting")).toBeVisible();
   await expect(panel.getByTestId("robustness-summary")).toContainText("3,000 samples (seed 5)", { timeout: 60_000 });
