@@ -26,7 +26,16 @@ export function stageTableCsv(report: DesignReport): string {
 type Export = Awaited<ReturnType<typeof exportCandidates>>;
 
 /** Units of the ranked list's numbers, for the JSON export and the CSV headers. */
-export const CANDIDATE_UNITS = { totalVolume: "m3", totalCost: "currency of the cost basis", ratioToPfr: "-", stageVolumes: "m3", stageConversionsOut: "-" } as const;
+export const CANDIDATE_UNITS = {
+  totalVolume: "m3",
+  totalCost: "currency of the cost basis",
+  installedCost: "currency of the cost basis",
+  reusedVessels: "-",
+  probabilityMeet: "-",
+  ratioToPfr: "-",
+  stageVolumes: "m3",
+  stageConversionsOut: "-",
+} as const;
 
 export function candidateRowsForExport(data: Export) {
   return data.items.map((c) => ({
@@ -36,6 +45,9 @@ export function candidateRowsForExport(data: Export) {
     feasible: c.feasible,
     totalVolume: c.totalVolume,
     totalCost: c.totalCost,
+    installedCost: c.installedCost,
+    reusedVessels: c.reused,
+    probabilityMeet: c.probabilityMeet,
     ratioToPfr: c.ratioToPfr,
     stageVolumes: c.stages.map((s) => Number(s.volume)),
     stageConversionsOut: c.stages.map((s) => Number(s.conversionOut)),
@@ -45,7 +57,7 @@ export function candidateRowsForExport(data: Export) {
 
 /** Every candidate of a scenario; one row each. */
 export function candidatesCsv(sweepId: string, data: Export): string {
-  const fields = ["rank", "sequence", "stage count", "feasible", "total volume (m3)", "total cost (currency of the cost basis)", "ratio to single PFR (-)", "stage volumes (m3)", "stage outlet conversions (-)", "reason"];
+  const fields = ["rank", "sequence", "stage count", "feasible", "total volume (m3)", "total cost (currency of the cost basis)", "installed cost (currency of the cost basis)", "reused idle vessels", "probability of meeting the target (-)", "ratio to single PFR (-)", "stage volumes (m3)", "stage outlet conversions (-)", "reason"];
   const rows = candidateRowsForExport(data).map((c) => [
     c.rank,
     c.sequence,
@@ -53,6 +65,9 @@ export function candidatesCsv(sweepId: string, data: Export): string {
     c.feasible ? "yes" : "no",
     cell(c.totalVolume),
     cell(c.totalCost),
+    cell(c.installedCost),
+    c.reusedVessels,
+    cell(c.probabilityMeet),
     cell(c.ratioToPfr),
     c.stageVolumes.join(" | "),
     c.stageConversionsOut.join(" | "),

@@ -226,6 +226,9 @@ describe("exports", () => {
       expect(row.sequence).toBe(c.sequence.join("-"));
       expect(row.rank).toBe(c.rank);
       expect(row["total volume (m3)"]).toBe(c.totalVolume ?? null);
+      expect(row["installed cost (currency of the cost basis)"]).toBe(c.installedCost ?? null);
+      expect(row["reused idle vessels"]).toBe(c.reused);
+      expect(row["probability of meeting the target (-)"]).toBe(c.probabilityMeet ?? null);
       expect(String(row["stage volumes (m3)"]).split(" | ").map(Number)).toEqual(c.stages.map((s) => Number(s.volume)));
     });
   });
