@@ -74,7 +74,9 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
   await expect(page).toHaveURL(/sort=reused/);
   await page.getByTestId("sort-reused").click();
   await expect(page).toHaveURL(/dir=desc/);
-  await page.getByTestId("candidate-link").first().click();
+  // Trains reusing one vessel tie; the first with a stirred tank is the one our idle CSTR equips
+  // (reuse cost 0, so the least-cost plan always takes it when it fits).
+  await page.getByTestId("candidate-row").filter({ hasText: "CSTR" }).first().getByTestId("candidate-link").click();
   const plan = page.getByTestId("vessel-plan-table");
   await expect(plan).toBeVisible();
   await expect(plan).toContainText(tag);
