@@ -1,6 +1,7 @@
-import { and, desc, eq, getTableColumns, max } from "drizzle-orm";
+import { and, desc, eq, getTableColumns, max, sql } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { kineticsSources, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
+import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { parseUpload, storedRow, type Upload } from "@/lib/datasets/parse-upload";
 import type { ParsedTable, RowProblem } from "@/lib/datasets/rate-table";
@@ -202,12 +203,26 @@ export async function createTableKinetics(db: Database, actor: Actor, versionId:
 }
 
 /** The kinetics versions made from a dataset's versions (for its page). */
+/** The kinetics versions made from a dataset's versions (as a measured table or a fit), newest first. */
 export async function listDatasetSources(db: Database, actor: Actor, datasetId: string) {
   const dataset = await requireTeamDataset(db, actor, datasetId);
   assertCan(actor, "dataset.read", dataset, "dataset");
   return db
-    .select({ kineticsVersionId: kineticsSources.kineticsVersionId, datasetVersionId: kineticsSources.datasetVersionId, kind: kineticsSources.kind })
+    .select({
+      kineticsVersionId: kineticsSources.kineticsVersionId,
+      datasetVersionId: kineticsSources.datasetVersionId,
+      datasetVersion: rateDatasetVersions.version,
+      kind: kineticsSources.kind,
+      law: sql<string | null>`${kineticsSources.fit}->>'kind'`,
+      modelId: kineticsModels.id,
+      modelName: kineticsModels.name,
+      kineticsVersion: kineticsVersions.version,
+      createdAt: kineticsVersions.createdAt,
+    })
     .from(kineticsSources)
     .innerJoin(rateDatasetVersions, eq(rateDatasetVersions.id, kineticsSources.datasetVersionId))
-    .where(eq(rateDatasetVersions.datasetId, datasetId));
+    .innerJoin(kineticsVersions, eq(kineticsVersions.id, kineticsSources.kineticsVersionId))
+    .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
+    .where(and(eq(rateDatasetVersions.datasetId, datasetId), eq(kineticsModels.teamId, actor.teamId)))
+    .orderBy(desc(kineticsVersions.createdAt), desc(kineticsVersions.version));
 }

@@ -97,4 +97,8 @@ test("an engineer uploads bench rates, fixes the bad rows, accepts them and uses
   await created.click();
   await expect(page.getByTestId("kinetics-title")).toHaveText(`${name} table`);
   await expect(page.getByTestId("versions-table")).toContainText("table");
+  // Back on the dataset page, the kinetics made from it are listed.
+  await page.goBack();
+  await page.reload();
+  await expect(page.getByTestId("dataset-sources")).toContainText(`${name} table, version 1 — measured rate table from version 1`);
 });

@@ -13,7 +13,7 @@ import type { Upload } from "@/lib/datasets/parse-upload";
 import { designTrains, type DesignSpec } from "@/lib/engine";
 import { AppError } from "@/lib/errors";
 import { datasetCreateFieldsSchema, type DatasetMapping } from "@/lib/schemas/datasets";
-import { addDatasetVersion, createDataset, createTableKinetics, getDataset, getDatasetVersion, listDatasets, previewDataset } from "@/lib/services/datasets";
+import { addDatasetVersion, createDataset, createTableKinetics, getDataset, getDatasetVersion, listDatasetSources, listDatasets, previewDataset } from "@/lib/services/datasets";
 import { createKineticsModel } from "@/lib/services/kinetics";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
@@ -178,6 +178,12 @@ describe("rate-data uploads", () => {
 
     const again = await createTableKinetics(t.db, engineer, (await getDataset(t.db, engineer, datasetId)).versions[0].id, { modelId: model.id, feed });
     expect(again.version.version).toBe(2);
+    // The dataset page lists both kinetics versions made from it, newest first.
+    const made = await listDatasetSources(t.db, engineer, datasetId);
+    expect(made.map((m) => [m.modelName, m.kineticsVersion, m.kind])).toEqual([
+      ["Bench table, 67 °C", 2, "table"],
+      ["Bench table, 67 °C", 1, "table"],
+    ]);
     const [other] = await t.db.select().from(projects).where(eq(projects.name, "Lactone pilot unit"));
     const [otherModel] = await t.db.select().from(kineticsModels).where(eq(kineticsModels.projectId, other.id));
     const wrongProject = await refusal(createTableKinetics(t.db, engineer, v1Id, { modelId: otherModel.id, feed }));

@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DatasetView } from "@/components/datasets/dataset-view";
 import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
@@ -6,7 +7,7 @@ import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
 import type { StoredRateRow } from "@/lib/datasets/table-law";
 import { uuidSchema } from "@/lib/schemas/foundation";
-import { getDataset, getDatasetVersion } from "@/lib/services/datasets";
+import { getDataset, getDatasetVersion, listDatasetSources } from "@/lib/services/datasets";
 import { listKineticsModels } from "@/lib/services/kinetics";
 import { loadProjectPage, orNotFound } from "../../project-data";
 
@@ -25,6 +26,7 @@ export default async function DatasetPage({ params, searchParams }: { params: Pr
   const version = await getDatasetVersion(db, actor, meta.id);
   const canCreate = can(actor, "dataset.create") && can(actor, "kinetics.create");
   const models = canCreate ? (await listKineticsModels(db, actor, project.id)).map((m) => ({ id: m.id, name: m.name })) : [];
+  const sources = await listDatasetSources(db, actor, dataset.id);
 
   return (
     <div className="space-y-4">
@@ -46,6 +48,23 @@ export default async function DatasetPage({ params, searchParams }: { params: Pr
         canCreate={canCreate}
         models={models}
       />
+      <section className="card space-y-2 p-4" aria-labelledby="dataset-sources">
+        <h2 id="dataset-sources">Kinetics made from this dataset</h2>
+        {sources.length ? (
+          <ul className="list-disc space-y-1 pl-5" data-testid="dataset-sources">
+            {sources.map((s) => (
+              <li key={s.kineticsVersionId}>
+                <Link className="underline" href={`/projects/${project.id}/kinetics/${s.modelId}`}>
+                  {s.modelName}, version {s.kineticsVersion}
+                </Link>{" "}
+                — {s.kind === "fit" ? `fitted${s.law ? ` (${s.law.replace(/-/g, " ")} law)` : ""}` : "measured rate table"} from version {s.datasetVersion}
+              </li>
+            ))}
+          </ul>
+        ) : (
+          <p className="text-ink-soft">None yet: use a version as a measured rate table, or fit a rate law and save it as kinetics.</p>
+        )}
+      </section>
     </div>
   );
 }
