@@ -1,6 +1,10 @@
 import { randomUUID } from "node:crypto";
 import pg from "pg";
+import { eq } from "drizzle-orm";
 import { createDb, type Database } from "@/db/client";
+import { users } from "@/db/schema";
+import { loadActor } from "@/lib/authz/actor";
+import type { Actor } from "@/lib/authz/policy";
 
 export interface TestDatabase {
   db: Database;
@@ -41,4 +45,10 @@ export async function createTestDatabase(opts: { empty?: boolean } = {}): Promis
       await admin((c) => c.query(`drop database if exists ${name} with (force)`));
     },
   };
+}
+
+/** The actor of a seeded user, by e-mail, in their active team. */
+export async function actorByEmail(db: Database, email: string): Promise<Actor> {
+  const [user] = await db.select().from(users).where(eq(users.email, email));
+  return (await loadActor(db, user.id))!;
 }

@@ -2,12 +2,11 @@ import type { ChildProcess } from "node:child_process";
 import { and, eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db/client";
-import { projects, users } from "@/db/schema";
+import { projects } from "@/db/schema";
 import { inventoryVessels, projectCostSettings } from "@/db/schema-design-basis";
 import { candidates, sweeps } from "@/db/schema-sweeps";
 import { seedDemoData } from "@/db/seed";
 import { DEMO_COST_BASIS, DEMO_INVENTORY } from "@/db/seed-inventory";
-import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
 import { costObjectiveOf } from "@/lib/costs/cost-basis";
 import type { TrainPlan } from "@/lib/costs/train-plan";
@@ -20,7 +19,7 @@ import { createVessel, deleteVessel, importInventory, listInventory, updateVesse
 import { createKineticsModel } from "@/lib/services/kinetics";
 import { rateFixedTrain } from "@/lib/services/rating";
 import { createSweep } from "@/lib/services/sweeps";
-import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+import { actorByEmail, createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
 
 let t: TestDatabase;
@@ -49,7 +48,7 @@ beforeAll(async () => {
   process.env.DATABASE_URL = t.url;
   Object.assign(process.env, FAST_RECOVERY_ENV);
   await seedDemoData(t.db);
-  const byEmail = async (email: string) => (await loadActor(t.db, (await t.db.select().from(users).where(eq(users.email, email)))[0].id))!;
+  const byEmail = (email: string) => actorByEmail(t.db, email);
   eng = await byEmail("eli.engineer@brightwater.example");
   viewer = await byEmail("vic.viewer@brightwater.example");
   kestrel = await byEmail("kai.admin@kestrel.example");

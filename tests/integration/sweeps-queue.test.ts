@@ -3,17 +3,16 @@ import { and, eq, sql } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db/client";
 import { seedDemoData } from "@/db/seed";
-import { projects, users } from "@/db/schema";
+import { projects } from "@/db/schema";
 import { candidates, pinnedDesigns, scenarios, sweeps } from "@/db/schema-sweeps";
 import { designTrains, type DesignSpec } from "@/lib/engine";
-import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
 import { getBoss } from "@/lib/jobs/boss";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { addKineticsVersion, createKineticsModel } from "@/lib/services/kinetics";
 import { cancelSweep, createSweep } from "@/lib/services/sweeps";
 import { getPin, pinCandidate } from "@/lib/services/pins";
-import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+import { actorByEmail, createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
 
 // Second-order liquid kinetics, k C_A C_B with 20 % excess B: an invented demo case.
@@ -41,7 +40,7 @@ beforeAll(async () => {
   process.env.DATABASE_URL = t.url;
   Object.assign(process.env, FAST_RECOVERY_ENV);
   await seedDemoData(t.db);
-  const byEmail = async (email: string) => (await loadActor(t.db, (await t.db.select().from(users).where(eq(users.email, email)))[0].id))!;
+  const byEmail = (email: string) => actorByEmail(t.db, email);
   actor = await byEmail("eli.engineer@brightwater.example");
   manager = await byEmail("marta.manager@brightwater.example");
   [{ id: projectId }] = await t.db.select({ id: projects.id }).from(projects).where(eq(projects.name, "Ester line 3 revamp"));
