@@ -19,7 +19,9 @@ const globalForDb = globalThis as unknown as { seriatimPool?: pg.Pool; seriatimD
 
 export function getPool(): pg.Pool {
   if (!globalForDb.seriatimPool) {
-    const pool = new pg.Pool({ connectionString: getEnv().DATABASE_URL, max: 10 });
+    // A connection timeout, so that while the server is down or restarting requests fail
+    // fast (the health route answers 503) instead of queueing without end.
+    const pool = new pg.Pool({ connectionString: getEnv().DATABASE_URL, max: 10, connectionTimeoutMillis: 5_000 });
     // An idle connection the server closed (restart, failover) must not crash the process;
     // the pool replaces it on the next checkout.
     pool.on("error", (err) => console.error("database pool: idle connection lost", err.message));

@@ -29,17 +29,39 @@ if (stale) {
 }
 
 // Run in this process tree with tsx as a loader, so signals reach the orchestrator directly.
-const child = spawn(process.execPath, ["--import", "tsx", path.join(root, "scripts", `${command}.ts`), ...process.argv.slice(3)], {
+// The IPC channel carries our own stop requests (see below) and tells the orchestrator
+// when we are gone.
+const script = path.join(root, "scripts", `${command}.ts`);
+const child = spawn(process.execPath, ["--import", "tsx", script, ...process.argv.slice(3)], {
   cwd: root,
-  stdio: "inherit",
+  stdio: command === "start" ? ["inherit", "inherit", "inherit", "ipc"] : "inherit",
   env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" },
 });
-// Ctrl-C reaches the whole foreground group; the child does the orderly shutdown.
-for (const sig of ["SIGINT", "SIGTERM"]) process.on(sig, () => child.kill(sig === "SIGTERM" ? "SIGTERM" : "SIGINT"));
-child.on("exit", (code, signal) => process.exit(code ?? (signal ? 1 : 0)));
-// `npm start` runs us under `sh -c`; when npm is told to stop it ends the shell, not us.
-// Treat a vanished parent like SIGTERM so nothing is left running.
+for (const stream of [process.stdout, process.stderr]) stream.on("error", () => {});
+
+// A signal to the whole process group reaches the orchestrator directly; one sent to npm
+// alone reaches only npm, which passes it on to us. Either way we ask the orchestrator to
+// stop over IPC rather than with a second signal, which it would read as "force it".
+// (`npm test` has no IPC channel and stops on the first signal, so it gets the signal.)
+let asked = false;
+const askToStop = (sig = "SIGTERM") => {
+  if (asked) return;
+  asked = true;
+  if (child.connected) child.send("stop", () => {});
+  else child.kill(sig);
+};
+for (const sig of ["SIGINT", "SIGTERM", "SIGHUP"]) process.on(sig, () => askToStop(sig));
+child.on("exit", (code, signal) => {
+  // An orchestrator that died without its orderly stop (kill -9, a crash) may have left
+  // services running; stop them by their recorded pids.
+  if (command === "start" && signal === "SIGKILL") {
+    spawnSync(process.execPath, ["--import", "tsx", path.join(root, "scripts", "stop-stale.ts")], { cwd: root, stdio: "inherit" });
+  }
+  process.exit(code ?? (signal ? 1 : 0));
+});
+// `npm start` runs us under `sh -c`; when npm is told to stop it may end without telling us.
+// Treat a vanished parent like a stop request so nothing is left running.
 const parent = process.ppid;
 setInterval(() => {
-  if (process.ppid !== parent) child.kill("SIGTERM");
+  if (process.ppid !== parent) askToStop();
 }, 1000).unref();

@@ -13,36 +13,75 @@ import { runMigrations } from "../db/migrate";
 import { DEMO_PASSWORD, DEMO_USERS, seedDemoData } from "../db/seed";
 import { buildIsStale, runNextBuild } from "./lib/build";
 import { createDatabase, isPortFree, startPersistentCluster, type Cluster } from "./lib/postgres";
-import { startService, stopService, waitForHttp, type Managed } from "./lib/processes";
+import { SupervisedService, startService, waitForHttp } from "./lib/processes";
+import { removeRunFile, stopStaleServices, writeRunFile } from "./lib/run-file";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const dataRoot = path.join(root, ".data");
 const t0 = Date.now();
 const step = (msg: string) => console.log(`› ${msg}  (${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+// A closed terminal (SIGHUP) makes writes to it fail; the stop must go on regardless.
+for (const stream of [process.stdout, process.stderr]) stream.on("error", () => {});
 
 const port = Number(process.env.PORT ?? 3000);
 const smtpPort = Number(process.env.MAIL_FAKE_SMTP_PORT ?? 2525);
 const mailHttpPort = Number(process.env.MAIL_FAKE_HTTP_PORT ?? 2580);
 const pgPort = Number(process.env.SERIATIM_PG_PORT ?? 54329);
+const marker = (file: string) => path.join(root, file);
 
 let cluster: Cluster | undefined;
-const services: Managed[] = [];
+const services: SupervisedService[] = [];
 let shuttingDown = false;
+let directSignals = 0;
 
+function recordRun(): void {
+  writeRunFile(root, {
+    supervisor: { pid: process.pid, marker: marker("scripts/start.ts") },
+    services: services.filter((s) => s.pid).map((s) => ({ name: s.name, pid: s.pid!, marker: root })),
+    dataDir: cluster?.dataDir,
+  });
+}
+
+/** The orderly stop: web, worker and mail fake together, then PostgreSQL last. */
 async function shutdown(code: number): Promise<never> {
   if (!shuttingDown) {
     shuttingDown = true;
-    console.log("\n› stopping…");
-    for (const s of [...services].reverse()) await stopService(s);
+    console.log("\n› stopping… (a second Ctrl-C forces it)");
+    await Promise.all([...services].reverse().map((s) => s.stop()));
     if (cluster) {
       cluster.stop();
       console.log("  PostgreSQL stopped");
     }
+    removeRunFile(root);
+    process.exit(code);
   }
-  process.exit(code);
+  // A second caller waits for the first stop to finish.
+  return new Promise<never>(() => {});
 }
-process.on("SIGINT", () => void shutdown(0));
-process.on("SIGTERM", () => void shutdown(0));
+
+/** No waiting: kill every service outright and stop PostgreSQL in immediate mode. */
+function forceStop(): never {
+  console.log("\n› forced stop");
+  for (const s of services) s.kill();
+  cluster?.stop("immediate");
+  removeRunFile(root);
+  process.exit(130);
+}
+
+// A signal sent to the whole process group reaches us directly, and the bootstrap forwards
+// its own copy as an IPC message, never as a signal: so only a second *signal* (a human
+// pressing Ctrl-C twice) forces the stop; the forwarded duplicate merely asks for one.
+for (const sig of ["SIGINT", "SIGTERM", "SIGHUP"] as const) {
+  process.on(sig, () => {
+    directSignals++;
+    if (directSignals > 1 && shuttingDown) forceStop();
+    void shutdown(0);
+  });
+}
+process.on("message", (m) => {
+  if (m === "stop") void shutdown(0);
+});
+process.on("disconnect", () => void shutdown(0));
 
 /** A per-installation secret, kept with the data so sessions survive restarts. */
 function authSecret(): string {
@@ -54,6 +93,7 @@ function authSecret(): string {
 }
 
 async function main() {
+  await stopStaleServices(root, (m) => step(m));
   for (const [name, p] of [
     ["web (PORT)", port],
     ["mail fake SMTP (MAIL_FAKE_SMTP_PORT)", smtpPort],
@@ -68,6 +108,7 @@ async function main() {
   } else {
     step(`starting the project-local PostgreSQL cluster on 127.0.0.1:${pgPort}`);
     cluster = await startPersistentCluster(path.join(dataRoot, "postgres"), pgPort);
+    recordRun();
     databaseUrl = await createDatabase(cluster.serverUrl, "seriatim");
   }
 
@@ -99,21 +140,26 @@ async function main() {
     step("production build is up to date");
   }
 
-  const tsx = [process.execPath, "--import", "tsx"];
+  if (shuttingDown) return;
+  // Each service watches us (parent-watch.cjs) and stops itself if we die without stopping it.
+  const node = (script: string) => [process.execPath, ["--require", marker("scripts/lib/parent-watch.cjs"), "--import", "tsx", marker(script)]] as const;
+  const serviceEnv = { ...env, SERIATIM_SUPERVISOR_PID: String(process.pid) };
+  const supervise = (name: string, [cmd, args]: readonly [string, readonly string[]]) => {
+    const s = new SupervisedService(name, () => startService(name, cmd, [...args], serviceEnv, root), recordRun);
+    services.push(s);
+    return s;
+  };
   step("starting mail fake, worker and web");
-  services.push(startService("mail", tsx[0], [...tsx.slice(1), "scripts/mail-fake.ts"], env, root));
-  services.push(startService("worker", tsx[0], [...tsx.slice(1), "worker/index.ts"], env, root));
-  const web = startService("web", path.join(root, "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", String(port)], env, root);
-  services.push(web);
-  for (const s of services) {
-    void s.exited.then((code) => {
-      if (!shuttingDown) {
-        console.error(`${s.name} exited unexpectedly (code ${code}); stopping everything`);
-        void shutdown(1);
-      }
-    });
-  }
-  await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000, () => web.child.exitCode === null);
+  supervise("mail fake", node("scripts/mail-fake.ts"));
+  supervise("worker", node("worker/index.ts"));
+  const nextBin = path.join(root, "node_modules", "next", "dist", "bin", "next");
+  const web = supervise("web app", [
+    process.execPath,
+    ["--require", marker("scripts/lib/parent-watch.cjs"), nextBin, "start", "-H", "127.0.0.1", "-p", String(port)],
+  ]);
+  recordRun();
+  await waitForHttp(`http://127.0.0.1:${port}/api/health`, 120_000, () => web.restarts === 0 && web.current.child.exitCode === null);
+  if (shuttingDown) return;
 
   const width = Math.max(...DEMO_USERS.map((u) => u.email.length));
   console.log(`
@@ -121,12 +167,13 @@ async function main() {
 
     App          ${appUrl}
     Local mail   http://127.0.0.1:${mailHttpPort}/   (sign-in links and invitations land here)
-    Database     ${databaseUrl.replace(/:[^:@/]+@/, ":***@")}
+    Database     ${databaseUrl.replace(/:[^:@/]+@/, ":***@")}${cluster ? `\n    Cluster      ${cluster.dataDir}` : ""}
 
   Demo sign-ins (password ${DEMO_PASSWORD}):
 ${DEMO_USERS.map((u) => `    ${u.email.padEnd(width)}  ${u.role.padEnd(8)}  ${u.team}`).join("\n")}
 
-  Ctrl-C stops the app, the worker, the mail fake${cluster ? " and PostgreSQL" : ""}.
+  A worker or web app that dies is started again. Ctrl-C (or SIGTERM, or closing the
+  terminal) stops the app, the worker, the mail fake${cluster ? " and then PostgreSQL" : ""}.
 `);
 }
 

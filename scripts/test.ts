@@ -10,6 +10,7 @@ import pg from "pg";
 import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
 import { seedDemoData } from "../db/seed";
+import { buildIsStale } from "./lib/build";
 import { createDatabase, ensurePostgresBinaries, freePort, startThrowawayCluster, type Cluster } from "./lib/postgres";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
@@ -101,7 +102,7 @@ function readJson<T>(file: string): T | undefined {
 function countTests(): { passed: number; failed: number } {
   let passed = 0;
   let failed = 0;
-  for (const f of ["unit.json", "integration.json"]) {
+  for (const f of ["unit.json", "integration.json", "system.json"]) {
     const r = readJson<{ numPassedTests: number; numFailedTests: number }>(path.join(results, f));
     passed += r?.numPassedTests ?? 0;
     failed += r?.numFailedTests ?? 0;
@@ -112,7 +113,7 @@ function countTests(): { passed: number; failed: number } {
   return { passed, failed };
 }
 
-const STEP_NAMES = ["typecheck", "lint", "unit", "integration", "build", "e2e"];
+const STEP_NAMES = ["typecheck", "lint", "unit", "integration", "build", "e2e", "system"];
 // `npm test -- unit integration` runs only the named steps (for daily work); plain `npm test` runs all.
 const only = process.argv.slice(2);
 const unknown = only.filter((s) => !STEP_NAMES.includes(s));
@@ -136,6 +137,7 @@ async function main(): Promise<number> {
   };
   process.on("SIGINT", () => (cleanup(), process.exit(130)));
   process.on("SIGTERM", () => (cleanup(), process.exit(143)));
+  process.on("SIGHUP", () => (cleanup(), process.exit(129)));
 
   const steps: StepResult[] = [];
   try {
@@ -159,31 +161,39 @@ async function main(): Promise<number> {
         }),
       );
     }
-    // The browser tests need a production build; `npm test -- e2e` builds too.
-    if (wanted("build") || wanted("e2e")) {
+    // The browser and system tests need a production build; `npm test -- e2e` builds too,
+    // `npm test -- system` only when the build is missing or stale.
+    if (wanted("build") || wanted("e2e") || wanted("system")) {
       await withBuildLock(async () => {
-        const build = run("build", bin("next"), ["build"], { NODE_ENV: "production" });
-        steps.push(build);
-        if (!wanted("e2e")) return;
-        if (build.ok) {
-          const e2eUrl = await createDatabase(serverUrl, "seriatim_e2e");
-          await runMigrations(e2eUrl);
-          const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });
-          await seedDemoData(createDb(pool));
-          await pool.end();
-          steps.push(
-            // E2E_FILES="tests/e2e/a.spec.ts tests/e2e/b.spec.ts" runs only those files (daily work).
-            run("e2e", bin("playwright"), ["test", ...(process.env.E2E_FILES ?? "").split(/\s+/).filter(Boolean)], {
-              DATABASE_URL: e2eUrl,
-              E2E_PORT: String(await freePort()),
-              MAIL_FAKE_SMTP_PORT: String(await freePort()),
-              MAIL_FAKE_HTTP_PORT: String(await freePort()),
-              E2E_JSON_REPORT: path.join(results, "e2e.json"),
-              CHROMIUM_PATH: CHROMIUM,
-            }),
-          );
-        } else {
-          steps.push({ name: "e2e", ok: false, seconds: 0, note: "not run: the build failed" });
+        const mustBuild = wanted("build") || wanted("e2e") || buildIsStale(root);
+        const build: StepResult = mustBuild ? run("build", bin("next"), ["build"], { NODE_ENV: "production" }) : { name: "build", ok: true, seconds: 0, note: "up to date" };
+        if (mustBuild) steps.push(build);
+        if (wanted("e2e")) {
+          if (build.ok) {
+            const e2eUrl = await createDatabase(serverUrl, "seriatim_e2e");
+            await runMigrations(e2eUrl);
+            const pool = new pg.Pool({ connectionString: e2eUrl, max: 2 });
+            await seedDemoData(createDb(pool));
+            await pool.end();
+            steps.push(
+              // E2E_FILES="tests/e2e/a.spec.ts tests/e2e/b.spec.ts" runs only those files (daily work).
+              run("e2e", bin("playwright"), ["test", ...(process.env.E2E_FILES ?? "").split(/\s+/).filter(Boolean)], {
+                DATABASE_URL: e2eUrl,
+                E2E_PORT: String(await freePort()),
+                MAIL_FAKE_SMTP_PORT: String(await freePort()),
+                MAIL_FAKE_HTTP_PORT: String(await freePort()),
+                E2E_JSON_REPORT: path.join(results, "e2e.json"),
+                CHROMIUM_PATH: CHROMIUM,
+              }),
+            );
+          } else {
+            steps.push({ name: "e2e", ok: false, seconds: 0, note: "not run: the build failed" });
+          }
+        }
+        // `npm start` in a fresh clone of the repository, using this build (tests/system).
+        if (wanted("system")) {
+          if (build.ok) steps.push(run("system", bin("vitest"), ["run", "--project", "system", ...vitestJson("system.json"), ...vitestFiles]));
+          else steps.push({ name: "system", ok: false, seconds: 0, note: "not run: the build failed" });
         }
       });
     }
@@ -198,7 +208,7 @@ async function main(): Promise<number> {
   console.log(`  total ${((Date.now() - t0) / 1000).toFixed(1)} s; throwaway cluster removed`);
   console.log(`tests: ${passed} passed, ${failed} failed`);
   // A run that was meant to execute tests but executed none has failed too.
-  const ranTests = steps.some((s) => ["unit", "integration", "e2e"].includes(s.name));
+  const ranTests = steps.some((s) => ["unit", "integration", "e2e", "system"].includes(s.name));
   return failedSteps === 0 && failed === 0 && (passed > 0 || !ranTests) ? 0 : 1;
 }
 

@@ -10,13 +10,21 @@ const globalForBoss = globalThis as unknown as { seriatimBoss?: Promise<PgBoss> 
  * scheduling here (the workers do that).
  */
 export function getBoss(): Promise<PgBoss> {
-  globalForBoss.seriatimBoss ??= (async () => {
-    const boss = new PgBoss({ connectionString: getEnv().DATABASE_URL, supervise: false, schedule: false, max: 3, application_name: "seriatim-web" });
-    boss.on("error", (err) => console.error("pg-boss (web) error", err));
-    await boss.start();
-    await ensureQueues(boss);
-    return boss;
-  })();
+  if (!globalForBoss.seriatimBoss) {
+    const starting = (async () => {
+      const boss = new PgBoss({ connectionString: getEnv().DATABASE_URL, supervise: false, schedule: false, max: 3, application_name: "seriatim-web" });
+      // Logged, never fatal: pg-boss re-makes its connections after a database restart.
+      boss.on("error", (err) => console.error("pg-boss (web) error", err.message));
+      await boss.start();
+      await ensureQueues(boss);
+      return boss;
+    })();
+    // A start that failed (database down) is not kept: the next request tries again.
+    starting.catch(() => {
+      if (globalForBoss.seriatimBoss === starting) globalForBoss.seriatimBoss = undefined;
+    });
+    globalForBoss.seriatimBoss = starting;
+  }
   return globalForBoss.seriatimBoss;
 }
 

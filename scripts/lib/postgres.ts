@@ -4,6 +4,7 @@
  * binaries directly: no Docker engine runs on these machines.
  */
 import { execFileSync, spawnSync } from "node:child_process";
+import { createHash } from "node:crypto";
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, rmSync, chownSync, statSync } from "node:fs";
 import { createServer } from "node:net";
 import { tmpdir } from "node:os";
@@ -17,7 +18,8 @@ export interface Cluster {
   serverUrl: string;
   port: number;
   dataDir: string;
-  stop(): void;
+  /** "fast" ends sessions cleanly; "immediate" is for a forced stop. */
+  stop(mode?: "fast" | "immediate"): void;
 }
 
 function findPgBin(): string | undefined {
@@ -102,12 +104,36 @@ function startServer(bin: string, dataDir: string, port: number, extra: string[]
   });
 }
 
-function stopServer(bin: string, dataDir: string): void {
+function stopServer(bin: string, dataDir: string, mode: "fast" | "immediate" = "fast"): void {
   try {
-    runPg(bin, "pg_ctl", ["-D", dataDir, "-m", "fast", "-w", "stop"], { quiet: true });
+    runPg(bin, "pg_ctl", ["-D", dataDir, "-m", mode, "-w", "stop"], { quiet: true });
   } catch {
     // already stopped
   }
+}
+
+/** Stops the server of `dataDir` if one runs there (a stale one left by a crashed start). */
+export function stopClusterAt(dataDir: string, mode: "fast" | "immediate" = "fast"): void {
+  const bin = findPgBin();
+  if (bin && existsSync(path.join(dataDir, "postmaster.pid"))) stopServer(bin, dataDir, mode);
+}
+
+/** `pg_ctl restart -m fast` on a running cluster, keeping its options (used by the system tests). */
+export function restartClusterAt(dataDir: string): void {
+  const bin = findPgBin();
+  if (!bin) throw new Error("PostgreSQL server binaries are missing");
+  runPg(bin, "pg_ctl", ["-D", dataDir, "-m", "fast", "-w", "-t", "60", "-l", path.join(dataDir, "..", "server.log"), "restart"], { quiet: true });
+}
+
+/**
+ * Where the persistent cluster of a checkout lives: inside it, or, when the postgres user
+ * cannot enter the checkout (a folder under /root, a private temp folder), in a folder of
+ * its own under /var/tmp named by a hash of the checkout's full path.
+ */
+export function clusterBaseFor(root: string): string {
+  if (reachableByPostgres(root)) return root;
+  const key = createHash("sha256").update(path.resolve(root)).digest("hex").slice(0, 16);
+  return path.join("/var/tmp", `seriatim-${key}`);
 }
 
 function initCluster(bin: string, dataDir: string): void {
@@ -137,14 +163,9 @@ export async function createDatabase(serverUrl: string, name: string): Promise<s
  */
 export async function startPersistentCluster(root: string, port: number): Promise<Cluster> {
   const bin = ensurePostgresBinaries();
-  let base = root;
+  mkdirSync(root, { recursive: true });
+  const base = clusterBaseFor(root);
   mkdirSync(base, { recursive: true });
-  if (!reachableByPostgres(base)) {
-    // The repository sits under a folder the postgres user cannot enter (e.g. /root):
-    // keep the cluster in a fixed place outside it instead.
-    base = path.join("/var/tmp", `seriatim-${Buffer.from(root).toString("hex").slice(-16)}`);
-    mkdirSync(base, { recursive: true });
-  }
   giveToPostgres(base);
   const dataDir = path.join(base, "data");
   if (!existsSync(path.join(dataDir, "PG_VERSION"))) initCluster(bin, dataDir);
@@ -153,7 +174,12 @@ export async function startPersistentCluster(root: string, port: number): Promis
     throw new Error(`Port ${port} on 127.0.0.1 is taken. Set SERIATIM_PG_PORT to another port, or DATABASE_URL to a server.`);
   }
   startServer(bin, dataDir, port, []);
-  return { serverUrl: `postgres://postgres@127.0.0.1:${port}/`, port, dataDir, stop: () => stopServer(bin, dataDir) };
+  return {
+    serverUrl: `postgres://postgres@127.0.0.1:${port}/`,
+    port,
+    dataDir,
+    stop: (mode: "fast" | "immediate" = "fast") => stopServer(bin, dataDir, mode),
+  };
 }
 
 /** A throwaway cluster in a temporary folder on a free port (`npm test`); stop() removes it. */
