@@ -23,6 +23,18 @@ export default defineConfig({
           hookTimeout: 60000,
         },
       },
+      {
+        extends: true,
+        test: {
+          // `npm start` in a fresh clone, signals, a killed worker, a database restart.
+          name: "system",
+          include: ["tests/system/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 300000,
+          hookTimeout: 120000,
+        },
+      },
     ],
   },
 });

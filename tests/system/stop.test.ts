@@ -1,0 +1,86 @@
+/**
+ * The stop path of `npm start`: every signal a terminal, a supervisor or a human sends, to
+ * npm alone or to its whole process group, stops the web app, the worker, the mail fake and
+ * PostgreSQL, frees the ports, and a next start works.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { cloneCheckout, portsFree, postmasterPid, processesOf, recordedPids, startProduct, waitFor, type Checkout } from "./harness";
+
+let checkout: Checkout;
+const timings: string[] = [];
+
+beforeAll(async () => {
+  checkout = await cloneCheckout();
+});
+
+afterAll(() => {
+  // Whatever a failed case left running goes with the clone.
+  for (const p of processesOf(checkout)) {
+    try {
+      process.kill(p.pid, "SIGKILL");
+    } catch {
+      // gone
+    }
+  }
+  checkout.remove();
+  console.log(`time from the signal to every process gone:\n${timings.join("\n")}`);
+});
+
+async function expectAllGone(since: number, label: string) {
+  await waitFor(async () => processesOf(checkout).length === 0, 30_000, `every process of ${label} to end`);
+  timings.push(`  ${label}: ${((Date.now() - since) / 1000).toFixed(1)} s`);
+  expect(processesOf(checkout)).toEqual([]);
+  expect(await portsFree(checkout)).toEqual([]);
+}
+
+describe("npm start stops everything it started", () => {
+  const cases = (["SIGINT", "SIGTERM", "SIGHUP"] as const).flatMap((signal) => (["the process group", "npm alone"] as const).map((to) => ({ signal, to })));
+
+  it.each(cases)("$signal to $to", async ({ signal, to }) => {
+    const run = await startProduct(checkout);
+    const pids = recordedPids(checkout);
+    expect(Object.keys(pids).sort()).toEqual(["mail fake", "web app", "worker"]);
+    const postmaster = postmasterPid(checkout.dataDir!);
+    expect(postmaster).toBeGreaterThan(0);
+    const running = processesOf(checkout).map((p) => p.pid);
+    for (const pid of [...Object.values(pids), postmaster!, run.npm.pid!]) expect(running).toContain(pid);
+
+    const t = Date.now();
+    process.kill(to === "npm alone" ? run.npm.pid! : -run.npm.pid!, signal);
+    await expectAllGone(t, `${signal} to ${to}`);
+    await run.exited;
+    if (to === "the process group") expect(run.output()).not.toContain("forced stop");
+    expect(run.output()).toContain("PostgreSQL stopped");
+  });
+
+  it("a second Ctrl-C forces the stop", async () => {
+    const run = await startProduct(checkout);
+    const t = Date.now();
+    process.kill(-run.npm.pid!, "SIGINT");
+    await waitFor(async () => run.output().includes("stopping…"), 30_000, "the stop to begin");
+    process.kill(-run.npm.pid!, "SIGINT");
+    await expectAllGone(t, "SIGINT twice to the process group");
+    expect(run.output()).toContain("forced stop");
+  });
+
+  it("a start after the orchestrator was killed outright stops what it left and runs", async () => {
+    const first = await startProduct(checkout);
+    const left = recordedPids(checkout);
+    const supervisor = processesOf(checkout).find((p) => p.cmdline.includes("scripts/start.ts"))!;
+    expect(supervisor).toBeDefined();
+    const t = Date.now();
+    process.kill(supervisor.pid, "SIGKILL");
+    // Its services notice they lost their parent; the bootstrap stops the cluster.
+    await expectAllGone(t, "SIGKILL to the orchestrator");
+    await first.exited;
+
+    const second = await startProduct(checkout);
+    const now = recordedPids(checkout);
+    for (const name of Object.keys(left)) expect(now[name]).not.toBe(left[name]);
+    const res = await fetch(`http://127.0.0.1:${checkout.ports.web}/api/health`);
+    expect(res.status).toBe(200);
+    const t2 = Date.now();
+    process.kill(-second.npm.pid!, "SIGTERM");
+    await expectAllGone(t2, "SIGTERM to the process group after a restart");
+  });
+});
