@@ -4,7 +4,7 @@
  * stops what was left, by those pids only, and only after /proc shows that the pid still is
  * that service of this checkout (a recycled pid belongs to someone else).
  */
-import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, readlinkSync, renameSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { signalGroup } from "./processes";
 import { stopClusterAt } from "./postgres";
@@ -45,9 +45,23 @@ export function cmdlineOf(pid: number): string {
   }
 }
 
-/** True when `pid` is alive and its command line still carries `marker` (a path in this checkout). */
+function cwdOf(pid: number): string {
+  try {
+    return readlinkSync(`/proc/${pid}/cwd`);
+  } catch {
+    return "";
+  }
+}
+
+/**
+ * True when `pid` is alive and still is what we recorded: its command line carries `marker`
+ * (a path in this checkout), or, for a process that renames itself (next-server), its working
+ * directory is that path.
+ */
 export function isStill(pid: number, marker: string): boolean {
-  return pid > 0 && cmdlineOf(pid).includes(marker);
+  if (pid <= 0) return false;
+  const cmdline = cmdlineOf(pid);
+  return cmdline !== "" && (cmdline.includes(marker) || cwdOf(pid) === marker);
 }
 
 async function waitGone(pid: number, marker: string, ms: number): Promise<boolean> {
