@@ -3,7 +3,7 @@
 // exist: installs them (npm ci) when node_modules is missing or older than the lockfile,
 // then hands over to the TypeScript orchestration in scripts/start.ts or scripts/test.ts.
 import { spawn, spawnSync } from "node:child_process";
-import { existsSync, statSync } from "node:fs";
+import { existsSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -59,9 +59,30 @@ child.on("exit", (code, signal) => {
   }
   process.exit(code ?? (signal ? 1 : 0));
 });
-// `npm start` runs us under `sh -c`; when npm is told to stop it may end without telling us.
-// Treat a vanished parent like a stop request so nothing is left running.
+// `npm start` runs us under `sh -c`; npm passes SIGINT and SIGTERM on, but dies of SIGHUP
+// without a word, and the shell between us stays. So watch npm as well as our parent, and
+// treat either vanishing like a stop request, so nothing is left running.
 const parent = process.ppid;
+const npm = process.env.npm_lifecycle_event ? parentOf(parent) : undefined;
 setInterval(() => {
-  if (process.ppid !== parent) askToStop();
+  if (process.ppid !== parent || (npm && !alive(npm))) askToStop();
 }, 1000).unref();
+
+function parentOf(pid) {
+  try {
+    // /proc/PID/stat: "pid (comm) state ppid …"; comm may hold spaces, so read after the last ")".
+    const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+    return Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]) || undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function alive(pid) {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}

@@ -33,8 +33,11 @@ let cluster: Cluster | undefined;
 const services: SupervisedService[] = [];
 let shuttingDown = false;
 let directSignals = 0;
+// Only a start that got past the check for a running instance may remove the record.
+let ownsRunFile = false;
 
 function recordRun(): void {
+  ownsRunFile = true;
   writeRunFile(root, {
     supervisor: { pid: process.pid, marker: marker("scripts/start.ts") },
     services: services.filter((s) => s.pid).map((s) => ({ name: s.name, pid: s.pid!, marker: root })),
@@ -52,7 +55,7 @@ async function shutdown(code: number): Promise<never> {
       cluster.stop();
       console.log("  PostgreSQL stopped");
     }
-    removeRunFile(root);
+    if (ownsRunFile) removeRunFile(root);
     process.exit(code);
   }
   // A second caller waits for the first stop to finish.
@@ -64,7 +67,7 @@ function forceStop(): never {
   console.log("\n› forced stop");
   for (const s of services) s.kill();
   cluster?.stop("immediate");
-  removeRunFile(root);
+  if (ownsRunFile) removeRunFile(root);
   process.exit(130);
 }
 

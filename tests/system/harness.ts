@@ -129,3 +129,20 @@ export function postmasterPid(dataDir: string): number | undefined {
     return undefined;
   }
 }
+
+/** Ends whatever of the clone still runs (after a failed case): SIGTERM to all, SIGKILL to the rest. */
+export async function killAll(checkout: Checkout): Promise<void> {
+  const send = (sig: NodeJS.Signals) => {
+    for (const p of processesOf(checkout)) {
+      try {
+        process.kill(p.pid, sig);
+      } catch {
+        // gone
+      }
+    }
+  };
+  if (processesOf(checkout).length === 0) return;
+  send("SIGTERM");
+  await waitFor(async () => processesOf(checkout).length === 0, 20_000, "the leftovers to stop").catch(() => send("SIGKILL"));
+  await waitFor(async () => processesOf(checkout).length === 0, 10_000, "the leftovers to die");
+}

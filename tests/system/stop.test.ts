@@ -3,8 +3,8 @@
  * npm alone or to its whole process group, stops the web app, the worker, the mail fake and
  * PostgreSQL, frees the ports, and a next start works.
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { cloneCheckout, portsFree, postmasterPid, processesOf, recordedPids, startProduct, waitFor, type Checkout } from "./harness";
+import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
+import { cloneCheckout, killAll, portsFree, postmasterPid, processesOf, recordedPids, startProduct, waitFor, type Checkout } from "./harness";
 
 let checkout: Checkout;
 const timings: string[] = [];
@@ -13,15 +13,13 @@ beforeAll(async () => {
   checkout = await cloneCheckout();
 });
 
-afterAll(() => {
-  // Whatever a failed case left running goes with the clone.
-  for (const p of processesOf(checkout)) {
-    try {
-      process.kill(p.pid, "SIGKILL");
-    } catch {
-      // gone
-    }
-  }
+// A case that failed half-way must not leave its instance to the next one.
+afterEach(async () => {
+  await killAll(checkout);
+});
+
+afterAll(async () => {
+  await killAll(checkout);
   checkout.remove();
   console.log(`time from the signal to every process gone:\n${timings.join("\n")}`);
 });

@@ -7,7 +7,7 @@
 import pg from "pg";
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { restartClusterAt } from "../../scripts/lib/postgres";
-import { cloneCheckout, processesOf, recordedPids, startProduct, waitFor, type Checkout, type Running } from "./harness";
+import { cloneCheckout, killAll, processesOf, recordedPids, startProduct, waitFor, type Checkout, type Running } from "./harness";
 
 // Invented demo kinetics: second-order liquid esterification with 20 % excess B.
 const KINETICS = {
@@ -39,13 +39,7 @@ afterAll(async () => {
     }
     await waitFor(async () => processesOf(checkout).length === 0, 30_000, "the product to stop").catch(() => {});
   }
-  for (const p of processesOf(checkout)) {
-    try {
-      process.kill(p.pid, "SIGKILL");
-    } catch {
-      // gone
-    }
-  }
+  await killAll(checkout);
   checkout.remove();
 });
 
