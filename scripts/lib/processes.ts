@@ -81,6 +81,8 @@ export class SupervisedService {
     this.startedAt = Date.now();
     void m.exited.then(({ code, signal }) => {
       if (this.stopped || this.current !== m) return;
+      // Whatever it had started in its group (esbuild's service, say) goes with it.
+      if (m.child.pid) signalGroup(m.child.pid, "SIGKILL");
       if (Date.now() - this.startedAt > STABLE_MS) this.delayMs = FIRST_DELAY_MS;
       const how = signal ? `signal ${signal}` : `code ${code}`;
       console.error(`${this.name} exited unexpectedly (${how}); starting it again in ${(this.delayMs / 1000).toFixed(0)} s`);

@@ -34,7 +34,7 @@ async function expectAllGone(since: number, label: string) {
 describe("npm start stops everything it started", () => {
   const cases = (["SIGINT", "SIGTERM", "SIGHUP"] as const).flatMap((signal) => (["the process group", "npm alone"] as const).map((to) => ({ signal, to })));
 
-  it.each(cases)("$signal to $to", async ({ signal, to }) => {
+  for (const { signal, to } of cases) it(`${signal} to ${to}`, async () => {
     const run = await startProduct(checkout);
     const pids = recordedPids(checkout);
     expect(Object.keys(pids).sort()).toEqual(["mail fake", "web app", "worker"]);

@@ -80,7 +80,7 @@ async function signIn(base: string, email: string, password: string) {
 it("a killed worker and a database restart mid-sweep: every candidate exactly once, the web app always answering", async () => {
   run = await startProduct(checkout, {
     // A dead worker's job comes back within seconds (the defaults are minutes).
-    SWEEP_JOB_EXPIRE_SECONDS: "5",
+    SWEEP_JOB_EXPIRE_SECONDS: "10",
     QUEUE_MAINTENANCE_SECONDS: "1",
     SWEEP_JOB_RETRY_DELAY_SECONDS: "1",
     SWEEP_JOB_RETRY_LIMIT: "8",
