@@ -43,6 +43,19 @@ export function sweepQueueOptions(): PgBoss.Queue {
 
 /** Creates every queue (idempotent); both the app and the worker call it on start. */
 export async function ensureQueues(boss: PgBoss): Promise<void> {
+  // The web app and each worker create the queues as they start; on a new database two of
+  // them doing it at once can deadlock in PostgreSQL (40P01). The loser simply tries again.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await createQueues(boss);
+    } catch (err) {
+      if ((err as { code?: string }).code !== "40P01" || attempt >= 5) throw err;
+      await new Promise((r) => setTimeout(r, 100 * attempt));
+    }
+  }
+}
+
+async function createQueues(boss: PgBoss): Promise<void> {
   await boss.createQueue(QUEUES.systemPing);
   await boss.createQueue(QUEUES.sweepChunkDead);
   await boss.createQueue(QUEUES.sweepChunk, sweepQueueOptions());

@@ -3,7 +3,7 @@
  * npm alone or to its whole process group, stops the web app, the worker, the mail fake and
  * PostgreSQL, frees the ports, and a next start works.
  */
-import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, afterEach, beforeAll, describe, expect, it, onTestFailed } from "vitest";
 import { cloneCheckout, killAll, portsFree, postmasterPid, processesOf, recordedPids, startProduct, waitFor, type Checkout } from "./harness";
 
 let checkout: Checkout;
@@ -36,6 +36,7 @@ describe("npm start stops everything it started", () => {
 
   for (const { signal, to } of cases) it(`${signal} to ${to}`, async () => {
     const run = await startProduct(checkout);
+    onTestFailed(() => console.log(`npm start said:\n${run.output()}`));
     const pids = recordedPids(checkout);
     expect(Object.keys(pids).sort()).toEqual(["mail fake", "web app", "worker"]);
     const postmaster = postmasterPid(checkout.dataDir!);

@@ -5,7 +5,7 @@
  * process throughout) answered every health check.
  */
 import pg from "pg";
-import { afterAll, beforeAll, expect, it } from "vitest";
+import { afterAll, beforeAll, expect, it, onTestFailed } from "vitest";
 import { restartClusterAt } from "../../scripts/lib/postgres";
 import { cloneCheckout, killAll, processesOf, recordedPids, startProduct, waitFor, type Checkout, type Running } from "./harness";
 
@@ -85,6 +85,7 @@ it("a killed worker and a database restart mid-sweep: every candidate exactly on
     SWEEP_JOB_RETRY_DELAY_SECONDS: "1",
     SWEEP_JOB_RETRY_LIMIT: "8",
   });
+  onTestFailed(() => console.log(`npm start said:\n${run!.output().split("\n").slice(-120).join("\n")}`));
   const base = `http://127.0.0.1:${checkout.ports.web}`;
   const started = recordedPids(checkout);
   const webPid = started["web app"];
