@@ -22,10 +22,7 @@ export function getPool(): pg.Pool {
     // A connection timeout, so that while the server is down or restarting requests fail
     // fast (the health route answers 503) instead of queueing without end.
     const pool = new pg.Pool({ connectionString: getEnv().DATABASE_URL, max: 10, connectionTimeoutMillis: 5_000 });
-    // An idle connection the server closed (restart, failover) must not crash the process;
-    // the pool replaces it on the next checkout.
-    pool.on("error", (err) => console.error("database pool: idle connection lost", err.message));
-    globalForDb.seriatimPool = pool;
+    globalForDb.seriatimPool = survivesRestarts(pool, (m) => console.error(`database pool: ${m}`));
   }
   return globalForDb.seriatimPool;
 }
@@ -33,6 +30,18 @@ export function getPool(): pg.Pool {
 export function getDb(): Database {
   globalForDb.seriatimDb ??= createDb(getPool());
   return globalForDb.seriatimDb;
+}
+
+/**
+ * A connection the server closes (restart, failover) must not crash the process. The pool
+ * handles idle connections with its 'error' event; a connection checked out between two
+ * queries (inside a transaction) has no listener of its own, so every new one gets one.
+ * Its next query then fails, the transaction rolls back, and the pool replaces it.
+ */
+export function survivesRestarts(pool: pg.Pool, log: (msg: string) => void): pg.Pool {
+  pool.on("error", (err) => log(`idle connection lost: ${err.message}`));
+  pool.on("connect", (client) => client.on("error", (err) => log(`connection lost: ${err.message}`)));
+  return pool;
 }
 
 /** A transaction handle or the database itself: query helpers accept either. */

@@ -1,6 +1,6 @@
 import PgBoss from "pg-boss";
 import pg from "pg";
-import { createDb } from "@/db/client";
+import { createDb, survivesRestarts } from "@/db/client";
 import { ensureQueues, WAKE_CHANNEL } from "@/lib/jobs/queues";
 import { registerRobustness } from "./jobs/robustness";
 import { registerSweepChunk, type WorkerState } from "./jobs/sweep-chunk";
@@ -20,13 +20,15 @@ export async function startWorker(databaseUrl: string, log: (msg: string, extra?
     // How soon a dead worker's job is noticed after its expiry.
     maintenanceIntervalSeconds: Number(process.env.QUEUE_MAINTENANCE_SECONDS ?? 30),
   });
-  boss.on("error", (err) => log("pg-boss error", err));
+  // Logged, never fatal: pg-boss re-makes its connections after a database restart.
+  boss.on("error", (err) => log(`queue: ${err.message}`));
   await boss.start();
   await ensureQueues(boss);
-  const pool = new pg.Pool({ connectionString: databaseUrl, max: 3, application_name: "seriatim-worker-db", connectionTimeoutMillis: 10_000 });
-  // An idle connection the server closed (a restart) must not end the process; the pool
-  // makes a new one on the next checkout, and the job in hand fails and is retried.
-  pool.on("error", (err) => log(`database connection lost: ${err.message}`));
+  // A database restart must not end the process: the job in hand fails and is retried.
+  const pool = survivesRestarts(
+    new pg.Pool({ connectionString: databaseUrl, max: 3, application_name: "seriatim-worker-db", connectionTimeoutMillis: 10_000 }),
+    (m) => log(`database: ${m}`),
+  );
   const state: WorkerState = { stopping: false };
   await registerSystemPing(boss);
   const sweepWorker = await registerSweepChunk(boss, createDb(pool), state, log);
