@@ -6,6 +6,21 @@ if (!url) {
   process.exit(1);
 }
 
+// pg-boss lets some of its own writes fail unobserved (marking a job failed while the
+// database restarts, say). A lost connection is no reason to die: the job comes back after
+// its expiry. Anything else still ends the process, and `npm start` starts a fresh one.
+const CONNECTION_LOST = /^(57P|08)|^(ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT)$/;
+process.on("unhandledRejection", (reason) => {
+  const code = String((reason as { code?: unknown })?.code ?? "");
+  const message = reason instanceof Error ? reason.message : String(reason);
+  if (CONNECTION_LOST.test(code) || /Connection terminated|timeout exceeded when trying to connect/.test(message)) {
+    console.error(`worker ${process.pid}: database unreachable (${message}); carrying on`);
+    return;
+  }
+  console.error(`worker ${process.pid}: unhandled rejection`, reason);
+  process.exit(1);
+});
+
 try {
   const worker = await startWorker(url, (msg, extra) => console.error(`worker ${process.pid}: ${msg}`, extra ?? ""));
   console.log(`worker ${process.pid}: listening for jobs`);
