@@ -1,6 +1,6 @@
 import { z } from "zod";
 import type { DesignSpec, RatingSpec } from "../engine/types";
-import { keyText, text } from "./text";
+import { keyText, multilineText, text } from "./text";
 
 /** A number in SI units or a string with a unit ("2 mol/L"). */
 const quantity = z.union([z.number(), text().min(1).max(100, "Use at most 100 characters")]);
@@ -26,7 +26,7 @@ const rate = z.discriminatedUnion("law", [
     activationEnergy: quantity.optional(),
     referenceTemperature: quantity.optional(),
   }),
-  z.strictObject({ law: z.literal("expression"), expression: text().max(2000, "Use at most 2000 characters"), parameters: z.record(keyText().max(40, "Use at most 40 characters"), quantity).optional() }),
+  z.strictObject({ law: z.literal("expression"), expression: multilineText().max(2000, "Use at most 2000 characters"), parameters: z.record(keyText().max(40, "Use at most 40 characters"), quantity).optional() }),
   z.strictObject({ law: z.literal("table"), conversion: z.array(z.number()), rate: z.array(z.number()) }),
 ]);
 
