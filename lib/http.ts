@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import type { z } from "zod";
-import { AppError, validationError } from "./errors";
+import { AppError, validationError, type FieldErrors } from "./errors";
+import { hasControlCharacter, MAX_QUERY_STRING, MAX_QUERY_VALUE, TEXT_MESSAGES } from "./schemas/text";
 
 /** Wraps a route handler so every failure leaves as a JSON error with the right status. */
 export function route<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
@@ -42,14 +43,40 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.out
 
 export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
 /** A uuid path parameter; anything else is "not found" (never a 500 from the database). */
 export async function uuidParam<K extends string>(ctx: { params: Promise<Record<K, string>> }, key: K, what: string): Promise<string> {
   const value = (await ctx.params)[key];
-  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value)) throw new AppError("not_found", `No such ${what}`);
+  if (typeof value !== "string" || !UUID.test(value)) throw new AppError("not_found", `No such ${what}`);
   return value;
 }
 
-/** Query-string parameters validated by a schema: 400 naming each bad parameter. */
+/**
+ * Query-string parameters validated by a schema: 400 naming each bad parameter. Whatever the
+ * schema, an over-long query string, an over-long value or a control character is refused
+ * first, so nothing malformed reaches a query.
+ */
 export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.output<S> {
-  return parseWith(schema, Object.fromEntries(new URL(req.url).searchParams));
+  return parseWith(schema, queryValues(req));
+}
+
+/** The query string as name → value (the last of repeated names), checked for length and control characters. */
+export function queryValues(req: Request): Record<string, string> {
+  const url = new URL(req.url);
+  if (url.search.length > MAX_QUERY_STRING) {
+    throw new AppError("bad_request", `The address is too long: at most ${MAX_QUERY_STRING} characters after "?"`, { fields: { "(query)": ["Too long"] } });
+  }
+  const values: Record<string, string> = {};
+  const fields: FieldErrors = {};
+  for (const [name, value] of url.searchParams) {
+    const key = hasControlCharacter(name) || name.length > 100 ? "(query)" : name;
+    if (key === "(query)") (fields[key] ??= []).push("A parameter name is malformed");
+    else if (value.length > MAX_QUERY_VALUE) (fields[key] ??= []).push(`Use at most ${MAX_QUERY_VALUE} characters`);
+    else if (hasControlCharacter(value)) (fields[key] ??= []).push(TEXT_MESSAGES.singleLineControl);
+    else values[name] = value;
+  }
+  const names = Object.keys(fields);
+  if (names.length) throw new AppError("bad_request", `Invalid input: ${names.join(", ")}`, { fields });
+  return values;
 }

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { auditQuerySchema } from "./schemas/audit";
 import { candidateExportQuerySchema } from "./schemas/report-exports";
 import {
   invitationAcceptSchema,
@@ -55,7 +56,7 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "post", path: "/api/team/invitations", summary: "Invite by e-mail (admins)", body: invitationCreateSchema, status: 201 },
   { method: "delete", path: "/api/team/invitations/{invitationId}", summary: "Revoke an invitation (admins)", status: 204 },
   { method: "post", path: "/api/invitations/accept", summary: "Accept an invitation: creates the account", body: invitationAcceptSchema, status: 201, public: true },
-  { method: "get", path: "/api/audit", summary: "The team's audit trail (?entityType=&entityId=)" },
+  { method: "get", path: "/api/audit", summary: "The team's audit trail (?entityType=&entityId=)", query: auditQuerySchema },
   { method: "get", path: "/api/projects/{projectId}/kinetics", summary: "Kinetics models of a project, with their latest version" },
   { method: "post", path: "/api/projects/{projectId}/kinetics", summary: "Create a kinetics model (version 1)", body: kineticsModelCreateSchema, status: 201 },
   { method: "get", path: "/api/kinetics/{modelId}", summary: "A kinetics model with every version" },

@@ -1,8 +1,9 @@
 import { z } from "zod";
 import { uuidSchema } from "./foundation";
+import { text } from "./text";
 
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
-const source = z.string().trim().min(1, "Say where the number comes from, or write \"from memory\"").max(300, "Use at most 300 characters");
+const source = text().trim().min(1, "Say where the number comes from, or write \"from memory\"").max(300, "Use at most 300 characters");
 
 /** One correlation: purchase cost = a + b·S^n, S the volume of one vessel in m3. */
 export const correlationSchema = z.strictObject({
@@ -28,7 +29,7 @@ export const sizePolicySchema = z.discriminatedUnion(
 /** A project's cost basis; volumes in m3, money in `currency` of `basisYear`. */
 export const costBasisSchema = z.strictObject({
   vessels: z.strictObject({ CSTR: correlationSchema, PFR: correlationSchema }),
-  currency: z.string().trim().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, e.g. USD"),
+  currency: text().trim().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, e.g. USD"),
   basisYear: z.int("Year must be a whole number").min(1950, "Year must be 1950 or later").max(2100, "Year must be 2100 or earlier"),
   sizes: sizePolicySchema,
   /** Largest single vessel, m3; null for no limit. */
@@ -40,12 +41,12 @@ export type CostBasis = z.infer<typeof costBasisSchema>;
 /** The costing a sweep records beside its engine spec (baseSpec.costing). */
 export const sweepCostingSchema = z.strictObject({
   installationFactor: finite.min(1, "An installation factor is at least 1").max(10, "An installation factor is at most 10"),
-  currency: z.string().trim().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, e.g. USD").optional(),
+  currency: text().trim().regex(/^[A-Z]{3}$/, "Use a three-letter currency code, e.g. USD").optional(),
   reuseInventory: z.boolean().default(false),
 });
 export type SweepCosting = z.infer<typeof sweepCostingSchema>;
 
-const volumeQuantity = z.union([finite.gt(0, "A volume must be above 0"), z.string().trim().min(1, "Give a volume, e.g. 2.5 m3")]);
+const volumeQuantity = z.union([finite.gt(0, "A volume must be above 0"), text().trim().min(1, "Give a volume, e.g. 2.5 m3").max(100, "Use at most 100 characters")]);
 
 export const rateRequestSchema = z.strictObject({
   kineticsVersionId: uuidSchema,

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { COLUMN_ROLES, DATASET_UNITS } from "@/lib/datasets/units";
 import { uuidSchema } from "./foundation";
+import { keyText, multilineText, text } from "./text";
 
 const unitOf = (kind: keyof typeof DATASET_UNITS, what: string) => {
   const keys = Object.keys(DATASET_UNITS[kind]) as [string, ...string[]];
@@ -13,7 +14,7 @@ const unitOf = (kind: keyof typeof DATASET_UNITS, what: string) => {
  */
 export const datasetMappingSchema = z.strictObject({
   columns: z
-    .record(z.string().trim().min(1, "A column name is empty").max(200), z.enum(COLUMN_ROLES, { error: `Role must be one of ${COLUMN_ROLES.join(", ")}` }))
+    .record(keyText().trim().min(1, "A column name is empty").max(200, "Use at most 200 characters"), z.enum(COLUMN_ROLES, { error: `Role must be one of ${COLUMN_ROLES.join(", ")}` }))
     .refine((c) => Object.keys(c).length <= 100, "At most 100 columns"),
   units: z
     .strictObject({
@@ -27,8 +28,8 @@ export const datasetMappingSchema = z.strictObject({
 });
 export type DatasetMapping = z.infer<typeof datasetMappingSchema>;
 
-export const datasetNameSchema = z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
-const note = z.string().trim().max(2000, "Use at most 2000 characters").default("");
+export const datasetNameSchema = text({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
+const note = multilineText().trim().max(2000, "Use at most 2000 characters").default("");
 
 /** Feed concentration of A, mol/m3, for data given as concentrations. Form fields arrive as text. */
 const feedConcA = z.coerce
@@ -59,9 +60,9 @@ export const tableKineticsSchema = z
       concA: z.number({ error: "Feed concentration of A is required (mol/m³)" }).positive("Feed concentration of A must be above 0").finite(),
       temperature: z.number({ error: "Temperature must be a number (K)" }).positive("Temperature must be above 0 K").finite().optional(),
     }),
-    stoichiometry: z.record(z.string().regex(/^[A-Za-z][A-Za-z0-9_]*$/, "Use a species name such as A or R"), z.number().finite()).optional(),
+    stoichiometry: z.record(keyText().regex(/^[A-Za-z][A-Za-z0-9_]*$/, "Use a species name such as A or R"), z.number().finite()).optional(),
     phase: z.enum(["liquid", "gas"]).optional(),
-    note: z.string().trim().max(2000, "Use at most 2000 characters").optional(),
+    note: multilineText().trim().max(2000, "Use at most 2000 characters").optional(),
   })
   .refine((b) => (b.modelName === undefined) !== (b.modelId === undefined), { message: "Give either a new model name or the model to add a version to", path: ["modelName"] });
 export type TableKineticsInput = z.infer<typeof tableKineticsSchema>;

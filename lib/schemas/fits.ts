@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { designSpecSchema } from "./sweep-spec";
 import { uuidSchema } from "./foundation";
+import { keyText, multilineText, text } from "./text";
 
 /** Rate laws the fitter knows, in the order the screen lists them. */
 export const FIT_LAWS = ["power", "reversible", "saturation", "saturation-inhibition", "power-arrhenius"] as const;
@@ -38,7 +39,7 @@ export const fitRequestSchema = z.strictObject({
 });
 export type FitRequest = z.infer<typeof fitRequestSchema>;
 
-const modelName = z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
+const modelName = text({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
 const spec = designSpecSchema.shape;
 
 /** POST /api/dataset-versions/:versionId/kinetics: refit one law and save it as a kinetics version. */
@@ -51,9 +52,9 @@ export const fitSaveSchema = z
     modelId: uuidSchema.optional(),
     feed: spec.feed,
     feedConcA: feedConcA.optional(),
-    stoichiometry: z.record(z.string(), z.number({ error: "Must be a number" }).finite()).optional(),
+    stoichiometry: z.record(keyText().max(40, "Use at most 40 characters"), z.number({ error: "Must be a number" }).finite()).optional(),
     phase: z.enum(["liquid", "gas"], { error: "phase must be liquid or gas" }).optional(),
-    note: z.string().trim().max(2000, "Use at most 2000 characters").default(""),
+    note: multilineText().trim().max(2000, "Use at most 2000 characters").default(""),
   })
   .refine((b) => (b.modelName === undefined) !== (b.modelId === undefined), {
     message: "Give either a new model name or an existing model, not both",

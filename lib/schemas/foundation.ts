@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ROLES } from "@/lib/authz/policy";
+import { multilineText, text } from "./text";
 
 /** Shared by the server (route handlers, actions) and the client forms. */
 export const emailSchema = z
@@ -21,8 +22,8 @@ export const newPasswordSchema = z
   .min(10, "Use at least 10 characters")
   .max(200, "Use at most 200 characters");
 
-const projectName = z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
-const projectDescription = z.string({ error: "Purpose must be text" }).trim().max(2000, "Use at most 2000 characters");
+const projectName = text({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
+const projectDescription = multilineText({ error: "Purpose must be text" }).trim().max(2000, "Use at most 2000 characters");
 
 export const projectCreateSchema = z.object({ name: projectName, description: projectDescription.default("") });
 export type ProjectCreate = z.infer<typeof projectCreateSchema>;
@@ -47,8 +48,8 @@ export type InvitationCreate = z.infer<typeof invitationCreateSchema>;
 export const memberUpdateSchema = z.object({ role: roleSchema }).strict();
 
 export const invitationAcceptSchema = z.object({
-  token: z.string({ error: "The invitation token is missing" }).min(20, "The invitation token is malformed").max(200),
-  name: z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120),
+  token: text({ error: "The invitation token is missing" }).min(20, "The invitation token is malformed").max(200),
+  name: text({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120),
   password: newPasswordSchema,
 });
 export type InvitationAccept = z.infer<typeof invitationAcceptSchema>;

@@ -1,15 +1,16 @@
 import { z } from "zod";
+import { multilineText, text } from "./text";
 
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 const fields = {
-  tag: z.string({ error: "Tag is required" }).trim().min(1, "Tag is required").max(60, "Use at most 60 characters"),
+  tag: text({ error: "Tag is required" }).trim().min(1, "Tag is required").max(60, "Use at most 60 characters"),
   type: z.enum(["CSTR", "PFR"], { error: "type must be CSTR or PFR" }),
   volume: finite.gt(0, "Volume must be above 0").max(1e4, "Volume must be at most 10,000 m3"),
   available: z.boolean({ error: "available must be true or false" }),
   reuseCost: finite.min(0, "Reuse cost must be >= 0"),
-  location: z.string().trim().max(120, "Use at most 120 characters"),
-  note: z.string().trim().max(2000, "Use at most 2000 characters"),
+  location: text().trim().max(120, "Use at most 120 characters"),
+  note: multilineText().trim().max(2000, "Use at most 2000 characters"),
 };
 
 /** An idle vessel as the API takes it: volume in m3, reuse cost in the team's money. */

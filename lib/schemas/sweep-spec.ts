@@ -1,10 +1,11 @@
 import { z } from "zod";
 import type { DesignSpec, RatingSpec } from "../engine/types";
+import { keyText, multilineText, text } from "./text";
 
 /** A number in SI units or a string with a unit ("2 mol/L"). */
-const quantity = z.union([z.number(), z.string().min(1)]);
+const quantity = z.union([z.number(), text().min(1).max(100, "Use at most 100 characters")]);
 const stageType = z.enum(["CSTR", "PFR"]);
-const numberMap = z.record(z.string(), z.number());
+const numberMap = z.record(keyText().max(40, "Use at most 40 characters"), z.number());
 
 const reverse = z.strictObject({ k: quantity, orders: numberMap, activationEnergy: quantity.optional() });
 
@@ -25,7 +26,7 @@ const rate = z.discriminatedUnion("law", [
     activationEnergy: quantity.optional(),
     referenceTemperature: quantity.optional(),
   }),
-  z.strictObject({ law: z.literal("expression"), expression: z.string(), parameters: z.record(z.string(), quantity).optional() }),
+  z.strictObject({ law: z.literal("expression"), expression: multilineText().max(2000, "Use at most 2000 characters"), parameters: z.record(keyText().max(40, "Use at most 40 characters"), quantity).optional() }),
   z.strictObject({ law: z.literal("table"), conversion: z.array(z.number()), rate: z.array(z.number()) }),
 ]);
 

@@ -3,6 +3,7 @@ import { designSpecSchema } from "./sweep-spec";
 import { uuidSchema } from "./foundation";
 import { sweepCostingSchema } from "./costs";
 import { sweepRobustnessSchema } from "./robustness";
+import { multilineText, text } from "./text";
 
 const spec = designSpecSchema.shape;
 
@@ -10,8 +11,8 @@ const spec = designSpecSchema.shape;
 export const kineticsSpecSchema = z.strictObject({ feed: spec.feed, reaction: spec.reaction });
 export type KineticsSpec = z.infer<typeof kineticsSpecSchema>;
 
-const modelName = z.string({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
-const note = z.string().trim().max(2000, "Use at most 2000 characters");
+const modelName = text({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
+const note = multilineText().trim().max(2000, "Use at most 2000 characters");
 
 export const kineticsModelCreateSchema = z.strictObject({ name: modelName, spec: kineticsSpecSchema, note: note.default("") });
 export const kineticsVersionCreateSchema = z.strictObject({ spec: kineticsSpecSchema, note: note.default("") });
@@ -22,8 +23,8 @@ export const kineticsPreviewSchema = z.strictObject({
   targetConversion: z.number().gt(0, "Conversion must be above 0").lt(1, "Conversion must be below 1").optional(),
 });
 
-const fieldPath = z
-  .string({ error: "Field path is required" })
+const fieldPath = text({ error: "Field path is required" })
+  .max(200, "Use at most 200 characters")
   .regex(/^[A-Za-z_]\w*(\.[A-Za-z_]\w*)+$/, "Use a dot path into the spec, e.g. feed.flowA or target.conversion");
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
@@ -42,7 +43,7 @@ export const gridAxisSchema = z.union([
 
 export const sweepCreateSchema = z
   .strictObject({
-    name: z.string().trim().min(1).max(120, "Use at most 120 characters").optional(),
+    name: text().trim().min(1, "Name the sweep").max(120, "Use at most 120 characters").optional(),
     kineticsVersionId: uuidSchema,
     target: spec.target,
     train: spec.train,
@@ -62,8 +63,8 @@ export const candidateQuerySchema = z.strictObject({
   sort: z.enum(SORTABLE_COLUMNS, { error: `sort must be one of ${SORTABLE_COLUMNS.join(", ")}` }).default("rank"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   feasible: z.enum(["true", "false"]).optional(),
-  contains: z
-    .string()
+  contains: text()
+    .max(100, "Use at most 100 characters")
     .regex(/^(CSTR|PFR)(-(CSTR|PFR))*$/, "contains is a run of stage types joined by '-', e.g. CSTR-PFR")
     .optional(),
   stages: z.coerce.number().int().min(1).max(8).optional(),
@@ -74,8 +75,8 @@ export const candidateQuerySchema = z.strictObject({
 export type CandidateQuery = z.infer<typeof candidateQuerySchema>;
 
 export const compareQuerySchema = z.strictObject({
-  ids: z
-    .string({ error: "ids is required" })
+  ids: text({ error: "ids is required" })
+    .max(200, "Compare at most 4 candidates")
     .transform((s) => s.split(",").filter(Boolean))
     .pipe(z.array(uuidSchema).min(2, "Compare at least 2 candidates").max(4, "Compare at most 4 candidates")),
 });
@@ -83,7 +84,7 @@ export const compareQuerySchema = z.strictObject({
 export const pinCreateSchema = z.strictObject({ note: note.default("") });
 export const reviewSchema = z.strictObject({
   decision: z.enum(["approve", "reject"], { error: "decision must be approve or reject" }),
-  comment: z.string().trim().min(1, "Say why").max(2000),
+  comment: multilineText({ error: "Say why" }).trim().min(1, "Say why").max(2000, "Use at most 2000 characters"),
 });
 
-export const tokenCreateSchema = z.strictObject({ name: z.string().trim().min(1, "Name the token").max(80) });
+export const tokenCreateSchema = z.strictObject({ name: text({ error: "Name the token" }).trim().min(1, "Name the token").max(80, "Use at most 80 characters") });

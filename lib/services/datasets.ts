@@ -9,6 +9,7 @@ import { tableLawFromRows, type StoredRateRow } from "@/lib/datasets/table-law";
 import { AppError, notFound } from "@/lib/errors";
 import type { TableKineticsInput } from "@/lib/schemas/datasets";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
+import { fileNameProblem } from "@/lib/schemas/text";
 import { recordAudit } from "./audit";
 import { addKineticsVersion, createKineticsModel, requireTeamModel, requireTeamProject } from "./kinetics";
 
@@ -82,6 +83,12 @@ interface VersionInput {
   note: string;
 }
 
+/** A file name PostgreSQL cannot store (NUL, a broken character) is refused before any write. */
+function assertStorableFileName(upload: Upload): void {
+  const problem = fileNameProblem(upload.fileName);
+  if (problem) throw new AppError("bad_request", problem, { fields: { file: [problem] } });
+}
+
 const versionValues = (datasetId: string, version: number, actor: Actor, input: VersionInput, rows: Record<string, number>[]) => ({
   datasetId,
   version,
@@ -99,6 +106,7 @@ const versionValues = (datasetId: string, version: number, actor: Actor, input: 
 export async function createDataset(db: Database, actor: Actor, projectId: string, input: VersionInput & { name: string }) {
   const project = await requireTeamProject(db, actor, projectId);
   assertCan(actor, "dataset.create", project, "project");
+  assertStorableFileName(input.upload);
   const rows = await cleanRows(input.upload);
   return db.transaction(async (tx) => {
     const [dataset] = await tx.insert(rateDatasets).values({ teamId: actor.teamId, projectId, name: input.name, createdBy: actor.userId }).returning();
@@ -118,6 +126,7 @@ async function requireTeamDataset(db: Executor, actor: Actor, datasetId: string)
 export async function addDatasetVersion(db: Database, actor: Actor, datasetId: string, input: VersionInput) {
   const dataset = await requireTeamDataset(db, actor, datasetId);
   assertCan(actor, "dataset.create", dataset, "dataset");
+  assertStorableFileName(input.upload);
   const rows = await cleanRows(input.upload);
   return db.transaction(async (tx) => {
     // Lock the dataset row so two uploads at once get consecutive numbers.

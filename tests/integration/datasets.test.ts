@@ -99,6 +99,17 @@ describe("rate-data uploads", () => {
     expect(await counts()).toEqual(before);
   });
 
+  it("refuses a file name PostgreSQL cannot store (NUL, a lone surrogate), naming the file, writing nothing", async () => {
+    const before = await counts();
+    for (const fileName of ["ester-bench\u0000.csv", "ester-bench-\uD800.csv"]) {
+      const err = await refusal(createDataset(t.db, engineer, projectId, { name: "Should not exist", upload: { ...upload("ester-bench.csv"), fileName }, note: "" }));
+      expect(err.status).toBe(400);
+      expect(Object.keys(err.fields ?? {})).toEqual(["file"]);
+      expect(err.message).toMatch(/^The file name: /);
+    }
+    expect(await counts()).toEqual(before);
+  });
+
   let datasetId: string;
   let v1Id: string;
   it("accepts the corrected file as version 1 and a second upload as version 2, each with an audit entry", async () => {
