@@ -1,26 +1,32 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { getEnv } from "@/lib/env";
-import { formatBytes, jsonBodyLimit, UPLOAD_BYTES } from "./body-limits";
+import { jsonBodyLimit, UPLOAD_BYTES } from "./body-limits";
+import { bodyTooLarge } from "./read-body";
 import { allowedOrigins, checkWrite, expectedBodyType, STATE_CHANGING, type Refusal } from "./same-origin";
 import { NON_DOCUMENT_CSP, newNonce, pageCsp } from "./security-headers";
 
 let origins: Set<string> | undefined;
 
-function refuse(r: Refusal): NextResponse {
-  const fields = r.status === 403 ? undefined : { "(body)": [r.message] };
-  const res = NextResponse.json({ error: { code: r.code, message: r.message, ...(fields ? { fields } : {}) } }, { status: r.status });
+function answer(body: unknown, status: number): NextResponse {
+  const res = NextResponse.json(body, { status });
   res.headers.set("Content-Security-Policy", NON_DOCUMENT_CSP);
   return res;
 }
 
+function refuse(r: Refusal): NextResponse {
+  const fields = r.status === 403 ? undefined : { "(body)": [r.message] };
+  return answer({ error: { code: r.code, message: r.message, ...(fields ? { fields } : {}) } }, r.status);
+}
+
 /** A body that declares more bytes than its route reads is refused before it is read. */
-function declaredTooLarge(req: NextRequest): Refusal | null {
-  const declared = Number(req.headers.get("content-length") ?? 0);
-  if (!STATE_CHANGING.has(req.method) || !req.nextUrl.pathname.startsWith("/api/")) return null;
+function declaredTooLarge(req: NextRequest): NextResponse | null {
   const path = req.nextUrl.pathname;
+  if (!STATE_CHANGING.has(req.method) || !path.startsWith("/api/")) return null;
+  const declared = Number(req.headers.get("content-length") ?? 0);
   const limit = expectedBodyType(path) === "application/json" ? jsonBodyLimit(path) : UPLOAD_BYTES;
-  if (declared <= limit) return null;
-  return { status: 413, code: "payload_too_large", message: `The request body is ${formatBytes(declared)}; this request takes at most ${formatBytes(limit)}` };
+  if (!(declared > limit)) return null;
+  const err = bodyTooLarge(limit, declared);
+  return answer(err.toJSON(), err.status);
 }
 
 /**
@@ -30,8 +36,10 @@ function declaredTooLarge(req: NextRequest): Refusal | null {
  */
 export function guardRequest(req: NextRequest): NextResponse {
   origins ??= allowedOrigins(getEnv().APP_URL);
-  const refusal = checkWrite({ method: req.method, pathname: req.nextUrl.pathname, headers: req.headers }, origins) ?? declaredTooLarge(req);
+  const refusal = checkWrite({ method: req.method, pathname: req.nextUrl.pathname, headers: req.headers }, origins);
   if (refusal) return refuse(refusal);
+  const tooLarge = declaredTooLarge(req);
+  if (tooLarge) return tooLarge;
 
   if (req.nextUrl.pathname.startsWith("/api/")) {
     const res = NextResponse.next();
