@@ -34,8 +34,8 @@ export interface WriteRequest {
 }
 
 export interface Refusal {
-  status: 403 | 413 | 415;
-  code: "forbidden" | "payload_too_large" | "unsupported_media_type";
+  status: 403 | 415;
+  code: "forbidden" | "unsupported_media_type";
   message: string;
 }
 
