@@ -11,6 +11,10 @@ const sans = localFont({
   display: "swap",
 });
 
+// Every page is rendered per request, never prerendered: the Content-Security-Policy's script
+// nonce (proxy.ts) is new for each request, and a prerendered page's scripts would lack it.
+export const dynamic = "force-dynamic";
+
 export const metadata: Metadata = {
   title: { default: "Seriatim", template: "%s · Seriatim" },
   description: "Reactor train design: sweep, rank and approve CSTR and PFR trains.",

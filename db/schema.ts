@@ -56,6 +56,27 @@ export const sessions = pgTable("sessions", {
   expires: timestamp("expires", { mode: "date", withTimezone: true }).notNull(),
 });
 
+/**
+ * One row per sign-in; the session cookie (a signed JWT) carries the row's id, and every request
+ * checks the row, so a session can be ended before its cookie expires: at sign-out, when the
+ * member is removed from a team. (Auth.js's own `sessions` table above is unused: sessions are
+ * JWTs.)
+ */
+export const signInSessions = pgTable(
+  "sign_in_sessions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    endedAt: timestamp("ended_at", { withTimezone: true }),
+    /** Why it ended: "signed out" or "removed from team". */
+    endReason: text("end_reason"),
+  },
+  (t) => [index("sign_in_sessions_user_idx").on(t.userId)],
+);
+
 export const verificationTokens = pgTable(
   "verification_tokens",
   {

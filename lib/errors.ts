@@ -3,19 +3,23 @@ import type { z } from "zod";
 /** Every refusal the app answers with; the code decides the HTTP status. */
 export type ErrorCode =
   | "bad_request"
+  | "unsupported_media_type"
   | "unauthorized"
   | "forbidden"
   | "not_found"
   | "conflict"
+  | "payload_too_large"
   | "rate_limited"
   | "internal";
 
 export const STATUS_BY_CODE: Record<ErrorCode, number> = {
   bad_request: 400,
+  unsupported_media_type: 415,
   unauthorized: 401,
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  payload_too_large: 413,
   rate_limited: 429,
   internal: 500,
 };

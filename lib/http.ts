@@ -1,6 +1,8 @@
 import { NextResponse } from "next/server";
 import type { z } from "zod";
 import { AppError, validationError, type FieldErrors } from "./errors";
+import { jsonBodyLimit } from "./http/body-limits";
+import { readBodyText } from "./http/read-body";
 import { hasControlCharacter, MAX_QUERY_STRING, MAX_QUERY_VALUE, TEXT_MESSAGES } from "./schemas/text";
 
 /** Wraps a route handler so every failure leaves as a JSON error with the right status. */
@@ -24,11 +26,16 @@ export function toResponse(err: unknown): Response {
   return NextResponse.json({ error: { code: "internal", message: "Something went wrong on our side; nothing was saved." } }, { status: 500 });
 }
 
-/** Reads and validates a JSON body: 400 naming each bad field, never a 500. */
-export async function readJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.output<S>> {
+/**
+ * Reads and validates a JSON body: 400 naming each bad field, never a 500. The body is read as
+ * it streams in and refused with 413 past its route's limit (lib/http/body-limits.ts), so an
+ * oversized body is never held whole.
+ */
+export async function readJson<S extends z.ZodType>(req: Request, schema: S, opts: { maxBytes?: number } = {}): Promise<z.output<S>> {
+  const text = await readBodyText(req, opts.maxBytes ?? jsonBodyLimit(new URL(req.url).pathname));
   let body: unknown;
   try {
-    body = await req.json();
+    body = JSON.parse(text);
   } catch {
     throw new AppError("bad_request", "The body must be JSON", { fields: { "(body)": ["Malformed JSON"] } });
   }

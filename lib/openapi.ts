@@ -115,7 +115,7 @@ const errorSchema = {
       type: "object",
       required: ["code", "message"],
       properties: {
-        code: { type: "string", enum: ["bad_request", "unauthorized", "forbidden", "not_found", "conflict", "rate_limited", "internal"] },
+        code: { type: "string", enum: ["bad_request", "unsupported_media_type", "unauthorized", "forbidden", "not_found", "conflict", "payload_too_large", "rate_limited", "internal"] },
         message: { type: "string" },
         fields: { type: "object", additionalProperties: { type: "array", items: { type: "string" } }, description: "Field path → messages" },
       },

@@ -1,3 +1,4 @@
+import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { fromCubicMetres, VOLUME_LABEL } from "@/lib/charts/volume-units";
 import { describeOverrides } from "./scenario-picker";
@@ -37,10 +38,10 @@ export async function exportCandidatesCsv(sweepId: string, view: SweepViewState,
     onProgress?.(rows.length, res.total);
     if (res.items.length < EXPORT_PAGE || rows.length >= res.total) break;
   }
-  const preface = `# scenario ${view.scenario + 1}: ${overrides}; preliminary sizing from ideal-reactor models, check under local codes\n`;
   // papaparse loads only when someone exports, not with the page.
   const { unparse } = await import("papaparse");
-  return preface + unparse(rows);
+  const preface = `# scenario ${view.scenario + 1}: ${commentText(overrides)}; preliminary sizing from ideal-reactor models, check under local codes\n`;
+  return preface + unparse(rows, SAFE_UNPARSE);
 }
 
 export function downloadText(filename: string, text: string) {

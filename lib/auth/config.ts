@@ -9,7 +9,15 @@ import { getEnv } from "@/lib/env";
 import { appLink, sendMail } from "@/lib/mail";
 import { passwordSignInSchema } from "@/lib/schemas/foundation";
 import { verifyAgainstNothing, verifyPassword } from "./password";
+import { endSession, isSessionId, startSession } from "./sign-in-sessions";
 import { recordSignInAttempt } from "./throttle";
+
+declare module "next-auth" {
+  interface Session {
+    /** The sign-in row this cookie belongs to (lib/auth/sign-in-sessions.ts). */
+    sessionId?: string;
+  }
+}
 
 async function findUserByEmail(email: string) {
   const [user] = await getDb().select().from(users).where(eq(users.email, email.toLowerCase()));
@@ -89,9 +97,22 @@ export const { handlers, auth, signIn, signOut } = NextAuth(() => {
         const sameApp = target.origin === new URL(baseUrl).origin || target.origin === new URL(getEnv().APP_URL).origin;
         return sameApp ? toAppUrl(url) : getEnv().APP_URL;
       },
+      // Each sign-in gets a row; its id travels in the cookie and is checked on every request.
+      async jwt({ token, user, trigger }) {
+        if ((trigger === "signIn" || trigger === "signUp") && user?.id) token.sid = await startSession(getDb(), user.id);
+        return token;
+      },
       session({ session, token }) {
         if (token.sub) session.user.id = token.sub;
+        if (isSessionId(token.sid)) session.sessionId = token.sid;
         return session;
+      },
+    },
+    events: {
+      // The cookie is cleared by Auth.js; ending the row makes any copy of it worthless too.
+      async signOut(message) {
+        const sid = "token" in message ? message.token?.sid : undefined;
+        if (isSessionId(sid)) await endSession(getDb(), sid, "signed out");
       },
     },
   };

@@ -1,6 +1,6 @@
-import { asc, eq } from "drizzle-orm";
+import { asc, eq, type SQL } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { memberships, teams, users } from "@/db/schema";
+import { memberships, signInSessions, teams, users } from "@/db/schema";
 import type { Actor } from "./policy";
 
 export interface TeamChoice {
@@ -23,13 +23,16 @@ export async function listTeamsOfUser(db: Executor, userId: string): Promise<Tea
  * The actor for a signed-in user, read fresh from the database on every request (one query)
  * so a changed or removed membership takes effect at once. `preferredTeamId` (from the team
  * switcher or an API token) is honoured only when the user really is a member of that team.
+ * `session`, for a browser session, is the condition its sign-in row must meet
+ * (lib/auth/sign-in-sessions.ts): joined into the same query, so an ended session finds no actor.
  */
-export async function loadActor(db: Executor, userId: string, preferredTeamId?: string): Promise<Actor | null> {
-  const rows = await db
+export async function loadActor(db: Executor, userId: string, preferredTeamId?: string, session?: SQL): Promise<Actor | null> {
+  const base = db
     .select({ email: users.email, name: users.name, teamId: teams.id, teamName: teams.name, role: memberships.role })
     .from(users)
     .innerJoin(memberships, eq(memberships.userId, users.id))
-    .innerJoin(teams, eq(teams.id, memberships.teamId))
+    .innerJoin(teams, eq(teams.id, memberships.teamId));
+  const rows = await (session ? base.innerJoin(signInSessions, session) : base)
     .where(eq(users.id, userId))
     .orderBy(asc(memberships.createdAt), asc(teams.name));
   const chosen = rows.find((r) => r.teamId === preferredTeamId) ?? rows[0];

@@ -3,11 +3,15 @@
  * unit in every header, the cautions in a leading "#" comment line.
  */
 import Papa from "papaparse";
+import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import type { exportCandidates } from "@/lib/services/candidate-export";
 import type { DesignReport } from "./design-report";
 import { STAGE_COLUMNS, VESSEL_SIZE_COLUMN } from "./report-format";
 
 const PREFACE = "# preliminary sizing from ideal-reactor models; heat removal, runaway and pressure relief need their own studies; check under local codes";
+
+/** A leading "# " line carrying user text, safe to open in a spreadsheet (see commentText). */
+const commentLine = (text: string) => `# ${commentText(text)}`;
 
 const cell = (v: unknown) => (v === null || v === undefined || (typeof v === "number" && !Number.isFinite(v)) ? "" : v);
 
@@ -20,7 +24,8 @@ export function stageTableCsv(report: DesignReport): string {
     return row;
   });
   const fields = [...STAGE_COLUMNS.map((c) => c.csv), VESSEL_SIZE_COLUMN.csv];
-  return `# ${report.project.name}: ${report.train.label}, pinned design ${report.pin.id} (${report.pin.state})\n${PREFACE}\n${Papa.unparse({ fields, data: rows.map((r) => fields.map((f) => r[f])) })}\n`;
+  const title = commentLine(`${report.project.name}: ${report.train.label}, pinned design ${report.pin.id} (${report.pin.state})`);
+  return `${title}\n${PREFACE}\n${Papa.unparse({ fields, data: rows.map((r) => fields.map((f) => r[f])) }, SAFE_UNPARSE)}\n`;
 }
 
 type Export = Awaited<ReturnType<typeof exportCandidates>>;
@@ -76,5 +81,6 @@ export function candidatesCsv(sweepId: string, data: Export): string {
   const overrides = Object.entries(data.scenario.overrides)
     .map(([k, v]) => `${k} = ${v}`)
     .join(", ");
-  return `# sweep ${sweepId}, scenario ${data.scenario.index + 1}${overrides ? ` (${overrides})` : ""}: ${data.total} candidates\n${PREFACE}\n${Papa.unparse({ fields, data: rows })}\n`;
+  const title = commentLine(`sweep ${sweepId}, scenario ${data.scenario.index + 1}${overrides ? ` (${overrides})` : ""}: ${data.total} candidates`);
+  return `${title}\n${PREFACE}\n${Papa.unparse({ fields, data: rows }, SAFE_UNPARSE)}\n`;
 }

@@ -3,6 +3,7 @@ import { and, asc, eq, gt, isNull } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { invitations, memberships, teams, users, type Role } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
+import { endUserSessions } from "@/lib/auth/sign-in-sessions";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";
@@ -41,7 +42,10 @@ async function lockMembership(tx: Executor, actor: Actor, userId: string) {
   return m;
 }
 
-/** Changes a member's role; the team always keeps at least one admin. */
+/**
+ * Changes a member's role; the team always keeps at least one admin. The member's sessions go
+ * on: loadActor reads the role afresh on every request, so the new role applies to the next one.
+ */
 export async function updateMemberRole(db: Database, actor: Actor, userId: string, role: Role) {
   assertCan(actor, "member.update");
   return db.transaction(async (tx) => {
@@ -75,7 +79,9 @@ export async function removeMember(db: Database, actor: Actor, userId: string): 
       throw new AppError("conflict", "The team must keep at least one admin");
     }
     await tx.delete(memberships).where(and(eq(memberships.teamId, actor.teamId), eq(memberships.userId, userId)));
-    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "member.removed", entityType: "user", entityId: userId, details: { role: m.role } });
+    // Signed out everywhere at once, not when the cookie expires (in other teams too: they sign in again).
+    const sessionsEnded = await endUserSessions(tx, userId, "removed from team");
+    await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "member.removed", entityType: "user", entityId: userId, details: { role: m.role, sessionsEnded } });
   });
 }
 

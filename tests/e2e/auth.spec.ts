@@ -1,5 +1,5 @@
-import { expect, test, request as playwrightRequest } from "@playwright/test";
-import { baseURL, DEMO_PASSWORD, firstLink, lastMailId, postCredentials, USERS, waitForMail } from "./fixtures";
+import { expect, test } from "@playwright/test";
+import { apiContext, baseURL, DEMO_PASSWORD, firstLink, lastMailId, postCredentials, USERS, waitForMail } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 test("password sign-in shows the user, team and role in the header", async ({ page }) => {
@@ -71,7 +71,7 @@ test("a link request for an unknown address looks the same and sends nothing", a
 });
 
 test("ten failed sign-ins for one address get 429 with a clear message, in the API and on screen", async ({ page }) => {
-  const ctx = await playwrightRequest.newContext({ baseURL });
+  const ctx = await apiContext();
   const email = "throttle.target@brightwater.example";
   for (let i = 0; i < 10; i++) {
     const res = await postCredentials(ctx, email, `wrong-${i}`);

@@ -53,9 +53,17 @@ export async function postCredentials(ctx: APIRequestContext, email: string, pas
   });
 }
 
+/**
+ * An API context that behaves like the app's own pages: a browser sends Origin on every
+ * state-changing request, and proxy.ts refuses a cookie-carrying write that names no page.
+ */
+export function apiContext(opts: { headers?: Record<string, string>; storageState?: Awaited<ReturnType<APIRequestContext["storageState"]>> } = {}): Promise<APIRequestContext> {
+  return playwrightRequest.newContext({ baseURL, storageState: opts.storageState, extraHTTPHeaders: { origin: baseURL, ...opts.headers } });
+}
+
 /** A request context holding a signed-in session of one demo user. */
 export async function signedInContext(who: Who | "anonymous"): Promise<APIRequestContext> {
-  const ctx = await playwrightRequest.newContext({ baseURL });
+  const ctx = await apiContext();
   if (who !== "anonymous") {
     const res = await postCredentials(ctx, USERS[who], DEMO_PASSWORD);
     const body = (await res.json()) as { url?: string };

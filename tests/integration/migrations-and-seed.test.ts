@@ -8,7 +8,7 @@ import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 const journal = JSON.parse(readFileSync("drizzle/meta/_journal.json", "utf8")) as { entries: { tag: string }[] };
 const TABLES = [
-  ...["users", "accounts", "sessions", "verification_tokens", "teams", "memberships", "projects", "invitations", "audit_entries", "sign_in_attempts"],
+  ...["users", "accounts", "sessions", "verification_tokens", "teams", "memberships", "projects", "invitations", "audit_entries", "sign_in_attempts", "sign_in_sessions"],
   ...["kinetics_models", "kinetics_versions", "sweeps", "scenarios", "candidates", "pinned_designs", "api_tokens"],
   ...["rate_datasets", "rate_dataset_versions", "kinetics_sources", "project_cost_settings", "inventory_vessels", "robustness_runs"],
 ];
