@@ -1,4 +1,5 @@
 import Papa from "papaparse";
+import { AppError } from "@/lib/errors";
 import { tooManyRows as rowLimitMessage, type Cell } from "@/lib/datasets/rate-table";
 import { readFirstWorksheet } from "@/lib/datasets/xlsx-sheet";
 import { inventoryVesselSchema, type InventoryVesselInput } from "@/lib/schemas/inventory";
@@ -149,8 +150,15 @@ function checkHeaders(headers: string[], read: () => ParsedInventory): ParsedInv
   return read();
 }
 
-/** Reads a CSV or XLSX file by its name. */
+/** Reads a CSV or XLSX file by its name; a file refused as a whole (over a limit, unreadable) is a 400 naming the file. */
 export async function parseInventoryFile(name: string, data: ArrayBuffer | Uint8Array): Promise<ParsedInventory> {
+  const parsed = await readInventoryFile(name, data);
+  const whole = parsed.problems.filter((p) => p.row === 0).map((p) => p.message);
+  if (whole.length) throw new AppError("bad_request", whole.join("; "), { fields: { file: whole } });
+  return parsed;
+}
+
+async function readInventoryFile(name: string, data: ArrayBuffer | Uint8Array): Promise<ParsedInventory> {
   if (data.byteLength > UPLOAD_LIMITS.bytes) return refusedFile(`The file is larger than ${UPLOAD_LIMITS.bytes / 1e6} MB`);
   if (/\.xlsx$/i.test(name)) return parseInventoryXlsx(data);
   if (/\.(csv|txt)$/i.test(name)) return parseInventoryCsv(new TextDecoder().decode(data));

@@ -62,7 +62,8 @@ function inflate(zip: yauzl.ZipFile, entry: yauzl.Entry | undefined, onText: (te
           stop(e);
         }
       });
-      stream.on("error", stop);
+      // yauzl stops a part that inflates past the size its archive declares: a lying archive.
+      stream.on("error", (e) => stop(/too many bytes/i.test(String(e)) ? tooBig() : e));
       stream.on("end", () => {
         if (stopped) return;
         try {
