@@ -35,11 +35,12 @@ export async function readMultipart(req: Request, textFields: readonly string[],
   if (Number.isFinite(declared) && declared > maxBody) throw fileTooLarge();
   if (!req.body) throw bad("file", fileHint);
 
+  // busboy signals "limit" on reaching fileSize, so one byte more than allowed is what trips it.
   let parser: busboy.Busboy;
   try {
     parser = busboy({
       headers: { "content-type": contentType },
-      limits: { fileSize: UPLOAD_LIMITS.bytes, files: 2, fields: textFields.length + 4, parts: textFields.length + 6, fieldSize: FIELD_BYTES, fieldNameSize: 200 },
+      limits: { fileSize: UPLOAD_LIMITS.bytes + 1, files: 2, fields: textFields.length + 4, parts: textFields.length + 6, fieldSize: FIELD_BYTES, fieldNameSize: 200 },
     });
   } catch {
     throw bad("(body)", formHint);
@@ -54,6 +55,8 @@ export async function readMultipart(req: Request, textFields: readonly string[],
 
   parser.on("file", (name, stream, info) => {
     part++;
+    // A body that ends inside the file errors its stream as well as the form: one refusal, below.
+    stream.on("error", () => fail(bad("(body)", `The form is incomplete or malformed. ${formHint}`)));
     if (!name) fail(bad("(body)", `Part ${part} of the form has no name`));
     else if (name !== "file") fail(textFields.includes(name) ? bad(name, `${name} must be text, not a file`) : bad(name, `Unknown part ${name}`));
     else if (file) fail(bad("file", "Send one file at a time"));
