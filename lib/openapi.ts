@@ -114,7 +114,7 @@ const errorSchema = {
       type: "object",
       required: ["code", "message"],
       properties: {
-        code: { type: "string", enum: ["bad_request", "unauthorized", "forbidden", "not_found", "conflict", "rate_limited", "internal"] },
+        code: { type: "string", enum: ["bad_request", "unauthorized", "forbidden", "not_found", "conflict", "payload_too_large", "rate_limited", "internal"] },
         message: { type: "string" },
         fields: { type: "object", additionalProperties: { type: "array", items: { type: "string" } }, description: "Field path → messages" },
       },
@@ -144,6 +144,7 @@ export function buildOpenApiDocument(serverUrl: string) {
         "401": { description: "Not signed in, or the API token is not valid" },
         "403": { description: "Your role does not allow this" },
         "404": { description: "No such record in your team" },
+        ...(e.form || e.path === "/api/inventory/import" ? { "413": { description: "The file is over the upload size limit; error.fields.file says so", content: { "application/json": { schema: errorSchema } } } } : {}),
       },
     };
   }
