@@ -84,6 +84,10 @@ async function watched(health: APIRequestContext, send: () => Promise<{ status: 
 }
 
 function expectBounded(r: Awaited<ReturnType<typeof watched>>) {
+  // The figures go into the report beside the test, for the record; the assertions below are the safety limits.
+  const slowestHealth = Math.max(...r.answers.map((a) => a.seconds));
+  test.info().annotations.push({ type: "measured", description: `${r.status} in ${r.seconds.toFixed(2)} s, server memory +${r.growthMB.toFixed(1)} MB, ${r.answers.length} health answers, slowest ${slowestHealth.toFixed(2)} s` });
+  console.log(`  measured: ${test.info().title}: ${r.status} in ${r.seconds.toFixed(2)} s, server memory +${r.growthMB.toFixed(1)} MB, ${r.answers.length} health answers, slowest ${slowestHealth.toFixed(2)} s`);
   expect(r.seconds).toBeLessThan(SAFETY_SECONDS);
   expect(r.growthMB).toBeLessThan(SAFETY_GROWTH_MB);
   expect(r.answers.length).toBeGreaterThan(0);
