@@ -152,6 +152,9 @@ async function readDateStyles(zip: WorkbookZip, path: string): Promise<Set<numbe
   return dates;
 }
 
+/** Column letters as a spreadsheet shows them (28 → "AB"). */
+const letters = (n: number): string => (n > 26 ? letters(Math.floor((n - 1) / 26)) : "") + String.fromCharCode(65 + ((n - 1) % 26));
+
 /** Column number of a cell reference ("AB12" → 28); 0 when there is none. */
 function columnOf(ref: string): number {
   let col = 0;
@@ -205,7 +208,7 @@ async function readSheet(zip: WorkbookZip, path: string, ctx: SheetContext): Pro
       } else if (tag === "c" && row) {
         col = attrs.r ? columnOf(attrs.r) : lastCol + 1;
         if (col < 1) throw new WorkbookRefused(UNREADABLE);
-        if (col > UPLOAD_LIMITS.sheetColumns) throw new WorkbookRefused(`The worksheet has a cell in column ${formatLimit(col)}; columns past ${UPLOAD_LIMITS.sheetColumns} are not read`);
+        if (col > UPLOAD_LIMITS.sheetColumns) throw new WorkbookRefused(`The worksheet has a cell in column ${letters(col)}; columns past ${letters(UPLOAD_LIMITS.sheetColumns)} are not read`);
         lastCol = col;
         cell = { type: attrs.t ?? "n", style: Number(attrs.s ?? 0) };
       } else if (cell) {
