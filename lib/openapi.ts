@@ -145,6 +145,7 @@ export function buildOpenApiDocument(serverUrl: string) {
         "401": { description: "Not signed in, or the API token is not valid" },
         "403": { description: "Your role does not allow this" },
         "404": { description: "No such record in your team" },
+        ...(e.form || e.path === "/api/inventory/import" ? { "413": { description: "The file is over the upload size limit; error.fields.file says so", content: { "application/json": { schema: errorSchema } } } } : {}),
       },
     };
   }

@@ -1,6 +1,9 @@
-import ExcelJS from "exceljs";
 import Papa from "papaparse";
+import { AppError } from "@/lib/errors";
+import { tooManyRows as rowLimitMessage, type Cell } from "@/lib/datasets/rate-table";
+import { readFirstWorksheet } from "@/lib/datasets/xlsx-sheet";
 import { inventoryVesselSchema, type InventoryVesselInput } from "@/lib/schemas/inventory";
+import { UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
 import { UNITS } from "@/lib/units/display";
 
 /** A row of an inventory file that could not be read, with the column at fault. */
@@ -55,13 +58,20 @@ function volumeOf(cell: string, unitCell: string): { value?: number; problem?: {
   return { value: Number(m[1]) * factor };
 }
 
-/** Reads records (header → text) into vessels, one problem per bad cell; row numbers count the header as 1. */
-export function readInventoryRecords(records: Record<string, string>[]): ParsedInventory {
+/** The whole file refused, named as the file's problem (row 0). */
+const refusedFile = (message: string): ParsedInventory => ({ vessels: [], problems: [{ row: 0, field: "file", message }] });
+const tooManyRows = (n: number) => refusedFile(rowLimitMessage(n));
+
+/**
+ * Reads records (header → text) into vessels, one problem per bad cell; row numbers count the
+ * header as 1 (a record's own `rowOf` number when given, as a worksheet numbers its rows).
+ */
+export function readInventoryRecords(records: Record<string, string>[], rowOf: (i: number) => number = (i) => i + 2): ParsedInventory {
   const vessels: ParsedInventory["vessels"] = [];
   const problems: RowProblem[] = [];
   const seen = new Map<string, number>();
   records.forEach((raw, i) => {
-    const row = i + 2;
+    const row = rowOf(i);
     const cells: Record<string, string> = {};
     for (const [h, v] of Object.entries(raw)) {
       const f = fieldOf(h);
@@ -99,28 +109,38 @@ export function readInventoryRecords(records: Record<string, string>[]): ParsedI
 }
 
 export function parseInventoryCsv(text: string): ParsedInventory {
-  const out = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ""), { header: true, skipEmptyLines: "greedy" });
-  return checkHeaders(out.meta.fields ?? [], () => readInventoryRecords(out.data));
+  if (text.length > UPLOAD_LIMITS.bytes) return refusedFile(`The file is larger than ${UPLOAD_LIMITS.bytes / 1e6} MB`);
+  // Row by row, keeping no more than the limit: past it rows are only counted for the message.
+  const records: Record<string, string>[] = [];
+  let count = 0;
+  let fields: string[] = [];
+  Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ""), {
+    header: true,
+    skipEmptyLines: "greedy",
+    step: (r) => {
+      fields = r.meta.fields ?? fields;
+      if (++count <= UPLOAD_LIMITS.rows) records.push(r.data);
+    },
+  });
+  if (count > UPLOAD_LIMITS.rows) return tooManyRows(count);
+  return checkHeaders(fields, () => readInventoryRecords(records));
 }
 
-export async function parseInventoryXlsx(data: ArrayBuffer): Promise<ParsedInventory> {
-  const wb = new ExcelJS.Workbook();
-  try {
-    await wb.xlsx.load(data);
-  } catch {
-    return { vessels: [], problems: [{ row: 0, field: "file", message: "The file is not a readable XLSX workbook" }] };
-  }
-  const sheet = wb.worksheets[0];
-  if (!sheet) return { vessels: [], problems: [{ row: 0, field: "file", message: "The workbook has no sheet" }] };
-  const text = (c: ExcelJS.Cell) => (c.value === null || c.value === undefined ? "" : typeof c.value === "object" && "result" in c.value ? String(c.value.result ?? "") : c.text);
-  const headers: string[] = [];
-  sheet.getRow(1).eachCell({ includeEmpty: true }, (c, col) => (headers[col - 1] = text(c)));
-  const records: Record<string, string>[] = [];
-  for (let r = 2; r <= sheet.rowCount; r++) {
-    const row = sheet.getRow(r);
-    records.push(Object.fromEntries(headers.map((h, i) => [h, text(row.getCell(i + 1))])));
-  }
-  return checkHeaders(headers, () => readInventoryRecords(records));
+/** A worksheet cell as the text the inventory reads (a formula without a saved result reads as blank). */
+const cellText = (c: Cell | undefined) => (!c || c.kind === "empty" || (c.kind === "error" && c.text.startsWith("=")) ? "" : c.text);
+
+/** Reads the first worksheet within the upload limits: row 1 the headers, later rows the vessels. */
+export async function parseInventoryXlsx(data: ArrayBuffer | Uint8Array): Promise<ParsedInventory> {
+  const read = await readFirstWorksheet(data instanceof Uint8Array ? data : new Uint8Array(data));
+  if ("refused" in read) return refusedFile(read.refused === "The workbook has no worksheet" ? "The workbook has no sheet" : read.refused);
+  const { rows, dataRows } = read.sheet;
+  if (dataRows > UPLOAD_LIMITS.rows) return tooManyRows(dataRows);
+  const head = rows[0]?.row === 1 ? rows[0].cells : new Map<number, Cell>();
+  const width = Math.max(0, ...head.keys());
+  const headers = Array.from({ length: width }, (_, i) => cellText(head.get(i + 1)));
+  const body = rows.filter((r) => r.row > 1);
+  const records = body.map((r) => Object.fromEntries(headers.map((h, i) => [h, cellText(r.cells.get(i + 1))])));
+  return checkHeaders(headers, () => readInventoryRecords(records, (i) => body[i].row));
 }
 
 function checkHeaders(headers: string[], read: () => ParsedInventory): ParsedInventory {
@@ -130,8 +150,16 @@ function checkHeaders(headers: string[], read: () => ParsedInventory): ParsedInv
   return read();
 }
 
-/** Reads a CSV or XLSX file by its name. */
-export async function parseInventoryFile(name: string, data: ArrayBuffer): Promise<ParsedInventory> {
+/** Reads a CSV or XLSX file by its name; a file refused as a whole (over a limit, unreadable) is a 400 naming the file. */
+export async function parseInventoryFile(name: string, data: ArrayBuffer | Uint8Array): Promise<ParsedInventory> {
+  const parsed = await readInventoryFile(name, data);
+  const whole = parsed.problems.filter((p) => p.row === 0).map((p) => p.message);
+  if (whole.length) throw new AppError("bad_request", whole.join("; "), { fields: { file: whole } });
+  return parsed;
+}
+
+async function readInventoryFile(name: string, data: ArrayBuffer | Uint8Array): Promise<ParsedInventory> {
+  if (data.byteLength > UPLOAD_LIMITS.bytes) return refusedFile(`The file is larger than ${UPLOAD_LIMITS.bytes / 1e6} MB`);
   if (/\.xlsx$/i.test(name)) return parseInventoryXlsx(data);
   if (/\.(csv|txt)$/i.test(name)) return parseInventoryCsv(new TextDecoder().decode(data));
   return { vessels: [], problems: [{ row: 0, field: "file", message: "Upload a .csv or .xlsx file" }] };

@@ -1,3 +1,4 @@
+import { AppError } from "@/lib/errors";
 import type { DatasetMapping } from "@/lib/schemas/datasets";
 import { parseRateCsv, type ColumnMapping, type ParsedTable } from "./rate-table";
 import { parseRateXlsx } from "./rate-xlsx";
@@ -29,11 +30,17 @@ export function toColumnMapping(m: DatasetMapping): ColumnMapping {
   return { columns: m.columns, toSI };
 }
 
-/** Parses an upload of either format with the one row validator. */
+/**
+ * Parses an upload of either format with the one row validator. A file refused as a whole (over
+ * a limit, not a workbook) is a 400 naming the file; problems of rows and of the mapping come back
+ * for the preview to show.
+ */
 export async function parseUpload(u: Upload): Promise<ParsedTable> {
   const mapping = toColumnMapping(u.mapping);
-  if (u.format === "xlsx") return parseRateXlsx(u.bytes, mapping);
-  return parseRateCsv(new TextDecoder("utf-8").decode(u.bytes), mapping);
+  const t = u.format === "xlsx" ? await parseRateXlsx(u.bytes, mapping) : parseRateCsv(new TextDecoder("utf-8").decode(u.bytes), mapping);
+  const whole = t.problems.filter((p) => p.line === 0).map((p) => p.message);
+  if (whole.length) throw new AppError("bad_request", whole.join("; "), { fields: { file: whole } });
+  return t;
 }
 
 /** A stored row: SI values only, without the line number (the shape the fitting reads). */

@@ -1,4 +1,5 @@
 import Papa from "papaparse";
+import { formatLimit, UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
 import type { ColumnRole, ValueRole } from "./units";
 
 export type { ColumnRole } from "./units";
@@ -56,7 +57,10 @@ export interface RawRecord {
   cells: Record<string, Cell>;
 }
 
-export const UPLOAD_LIMITS = { bytes: 2_000_000, rows: 20_000 };
+export { UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
+
+/** The one row-limit message of every upload. */
+export const tooManyRows = (n: number) => `The file has ${formatLimit(n)} rows; at most ${formatLimit(UPLOAD_LIMITS.rows)} are accepted`;
 
 export const tooLarge = (bytes: number): RowProblem => ({ line: 0, column: null, message: `The file is ${(bytes / 1e6).toFixed(1)} MB; it is larger than ${UPLOAD_LIMITS.bytes / 1e6} MB` });
 
@@ -83,9 +87,7 @@ export function validateRecords(headers: string[], records: RawRecord[], mapping
   if (!roles.some(([, r]) => r === "rate")) problems.push({ line: 1, column: null, message: "Choose the column that holds the measured rate" });
   if (!roles.some(([, r]) => r === "conversion" || r === "concA")) problems.push({ line: 1, column: null, message: "Choose a column of conversion or of the concentration of A" });
   if (problems.length) return refused(headers, problems, records.length);
-  if (records.length > UPLOAD_LIMITS.rows) {
-    return refused(headers, [{ line: 0, column: null, message: `The file has ${records.length} rows; at most ${UPLOAD_LIMITS.rows} are accepted` }], records.length);
-  }
+  if (records.length > UPLOAD_LIMITS.rows) return refused(headers, [{ line: 0, column: null, message: tooManyRows(records.length) }], records.length);
 
   const rows: ParsedRow[] = [];
   const seen = new Map<string, number>();
@@ -144,14 +146,25 @@ function csvCell(raw: string | undefined): Cell {
 /** Reads a CSV of measured rates (first line = headers). Nothing is stored here. */
 export function parseRateCsv(text: string, mapping: ColumnMapping): ParsedTable {
   if (text.length > UPLOAD_LIMITS.bytes) return refused([], [tooLarge(text.length)]);
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ""), { header: false, skipEmptyLines: false });
-  const [head = [], ...body] = parsed.data;
-  const headers = head.map((h) => h.trim());
+  let headers: string[] | null = null;
   const records: RawRecord[] = [];
+  let count = 0;
+  let line = 0;
+  // Row by row: past the row limit lines are only counted (for the message), not kept.
   // Line numbers count blank lines too, so they match what the user sees in an editor.
-  body.forEach((fields, i) => {
-    if (fields.every((f) => f.trim() === "")) return;
-    records.push({ line: i + 2, cells: Object.fromEntries(headers.map((h, j) => [h, csvCell(fields[j])])) });
+  Papa.parse<string[]>(text.replace(/^\uFEFF/, ""), {
+    header: false,
+    skipEmptyLines: false,
+    step: ({ data: fields }) => {
+      line++;
+      if (headers === null) return void (headers = fields.map((h) => h.trim()));
+      if (fields.every((f) => f.trim() === "")) return;
+      if (++count > UPLOAD_LIMITS.rows) return;
+      const head = headers;
+      records.push({ line, cells: Object.fromEntries(head.map((h, j) => [h, csvCell(fields[j])])) });
+    },
   });
-  return validateRecords(headers, records, mapping);
+  const head: string[] = headers ?? [];
+  if (count > UPLOAD_LIMITS.rows) return refused(head, [{ line: 0, column: null, message: tooManyRows(count) }], count);
+  return validateRecords(head, records, mapping);
 }

@@ -1,6 +1,7 @@
 import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
 import { parseInventoryCsv, parseInventoryFile } from "@/lib/costs/inventory-file";
+import { AppError } from "@/lib/errors";
 
 describe("reading an inventory file", () => {
   it("reads vessels with units and reports each bad cell by row and column", () => {
@@ -46,8 +47,13 @@ describe("reading an inventory file", () => {
     expect(r.problems).toEqual([{ row: 3, field: "volume", message: '"x" is not a volume' }]);
   });
 
-  it("refuses other file kinds", async () => {
-    const r = await parseInventoryFile("vessels.pdf", new ArrayBuffer(4));
-    expect(r.problems[0].field).toBe("file");
+  it("refuses other file kinds with a 400 naming the file", async () => {
+    const err = await parseInventoryFile("vessels.pdf", new ArrayBuffer(4)).then(
+      () => null,
+      (e: unknown) => e,
+    );
+    expect(err).toBeInstanceOf(AppError);
+    expect((err as AppError).status).toBe(400);
+    expect((err as AppError).fields).toEqual({ file: ["Upload a .csv or .xlsx file"] });
   });
 });
