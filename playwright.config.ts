@@ -48,14 +48,14 @@ export default defineConfig({
       url: `http://127.0.0.1:${mailHttpPort}/api/messages`,
       env,
       reuseExistingServer: false,
-      timeout: 30_000,
+      timeout: 120_000,
     },
     {
       command: `node_modules/.bin/next start -H 127.0.0.1 -p ${port}`,
       url: `${baseURL}/api/health`,
       env: { ...env, NODE_ENV: "production" },
       reuseExistingServer: false,
-      timeout: 60_000,
+      timeout: 120_000,
     },
   ],
 });

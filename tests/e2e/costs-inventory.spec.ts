@@ -75,6 +75,10 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
   await expect(page).toHaveURL(/sort=reused/);
   await page.getByTestId("sort-reused").click();
   await expect(page).toHaveURL(/dir=desc/);
+  // The page shows the previous order until the new rows come: wait for the API's order.
+  const sweepId = /\/sweeps\/([0-9a-f-]{36})/.exec(page.url())![1];
+  const reusedFirst = (await (await engineer.get(`/api/sweeps/${sweepId}/scenarios/0/candidates?sort=reused&dir=desc&pageSize=25`)).json()) as { items: { rank: number }[] };
+  await expect(page.getByTestId("candidate-row").locator("td:nth-child(2)")).toHaveText(reusedFirst.items.map((c) => String(c.rank)));
   // Trains reusing one vessel tie; the first with a stirred tank is the one our idle CSTR equips
   // (reuse cost 0, so the least-cost plan always takes it when it fits).
   await page.getByTestId("candidate-row").filter({ hasText: "CSTR" }).first().getByTestId("candidate-link").click();

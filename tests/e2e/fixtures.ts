@@ -20,13 +20,16 @@ export interface CapturedMail {
   text: string;
 }
 
-/** Waits (30 s by default: the worker may be busy on a loaded machine) for the newest mail to `to` whose id is above `afterId`, read from the SMTP fake. */
-export async function waitForMail(to: string, afterId = 0, timeoutMs = 30_000): Promise<CapturedMail> {
+/**
+ * Waits (30 s by default: the worker may be busy on a loaded machine) for the newest mail to `to`
+ * whose id is above `afterId` and, if given, that `match` accepts, read from the SMTP fake.
+ */
+export async function waitForMail(to: string, afterId = 0, timeoutMs = 30_000, match: (m: CapturedMail) => boolean = () => true): Promise<CapturedMail> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const res = await fetch(`${mailApi}?to=${encodeURIComponent(to)}`);
     const list = (await res.json()) as CapturedMail[];
-    const fresh = list.filter((m) => m.id > afterId);
+    const fresh = list.filter((m) => m.id > afterId && match(m));
     if (fresh.length) return fresh[fresh.length - 1];
     await new Promise((r) => setTimeout(r, 200));
   }
