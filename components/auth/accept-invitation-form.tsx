@@ -9,6 +9,7 @@ import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationAcceptSchema } from "@/lib/schemas/foundation";
 import { signInWithPassword } from "./auth-client";
+import { useHydrated } from "@/components/ui/use-hydrated";
 
 export function AcceptInvitationForm({ token, email }: { token: string; email: string }) {
   const [formError, setFormError] = useState<string>();
@@ -18,6 +19,7 @@ export function AcceptInvitationForm({ token, email }: { token: string; email: s
     defaultValues: { token, name: "", password: "" },
   });
   const { errors, isSubmitting } = form.formState;
+  const hydrated = useHydrated();
 
   const onSubmit = form.handleSubmit(async (values) => {
     setFormError(undefined);
@@ -54,7 +56,7 @@ export function AcceptInvitationForm({ token, email }: { token: string; email: s
         <input id="new-password" type="password" autoComplete="new-password" className="input" aria-invalid={!!errors.password} {...form.register("password")} />
       </Field>
       {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={isSubmitting}>
+      <button type="submit" className="btn-primary w-full justify-center" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? "Creating account…" : "Create account and sign in"}
       </button>
     </form>

@@ -8,11 +8,13 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/foundation";
 import { requestSignInLink, signInWithPassword } from "./auth-client";
+import { useHydrated } from "@/components/ui/use-hydrated";
 
 type Method = "password" | "link";
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
   const [method, setMethod] = useState<Method>("password");
+  const hydrated = useHydrated();
   return (
     <div className="card w-full max-w-sm p-6">
       <div className="mb-5 flex rounded border border-line p-0.5 text-sm" role="tablist" aria-label="Sign-in method">
@@ -23,6 +25,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
             role="tab"
             aria-selected={method === m}
             onClick={() => setMethod(m)}
+            disabled={!hydrated}
             className={`flex-1 rounded px-3 py-1.5 ${method === m ? "bg-accent-600 text-white" : "text-ink-soft hover:text-ink"}`}
           >
             {m === "password" ? "Password" : "E-mail link"}
@@ -41,6 +44,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
 
 function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
   const [formError, setFormError] = useState<string>();
+  const hydrated = useHydrated();
   const form = useForm<z.input<typeof passwordSignInSchema>, unknown, z.output<typeof passwordSignInSchema>>({
     resolver: zodResolver(passwordSignInSchema),
   });
@@ -66,7 +70,7 @@ function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
         <input id="password" type="password" autoComplete="current-password" className="input" aria-invalid={!!errors.password} {...form.register("password")} />
       </Field>
       {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={isSubmitting}>
+      <button type="submit" className="btn-primary w-full justify-center" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? "Signing in…" : "Sign in"}
       </button>
     </form>
@@ -75,6 +79,7 @@ function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
 
 function LinkForm({ callbackUrl }: { callbackUrl: string }) {
   const [sentTo, setSentTo] = useState<string>();
+  const hydrated = useHydrated();
   const [formError, setFormError] = useState<string>();
   const form = useForm<z.input<typeof linkSignInSchema>, unknown, z.output<typeof linkSignInSchema>>({
     resolver: zodResolver(linkSignInSchema),
@@ -104,7 +109,7 @@ function LinkForm({ callbackUrl }: { callbackUrl: string }) {
         <input id="link-email" type="email" autoComplete="username" className="input" aria-invalid={!!errors.email} {...form.register("email")} />
       </Field>
       {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={isSubmitting}>
+      <button type="submit" className="btn-primary w-full justify-center" disabled={!hydrated || isSubmitting}>
         {isSubmitting ? "Sending…" : "Send sign-in link"}
       </button>
     </form>

@@ -7,6 +7,7 @@ import { signOutNow } from "@/components/auth/auth-client";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { Brand } from "./brand";
 import { RoleBadge } from "./role-badge";
+import { useHydrated } from "@/components/ui/use-hydrated";
 
 export interface HeaderProps {
   userName: string;
@@ -19,6 +20,7 @@ export interface HeaderProps {
 
 export function AppHeader({ userName, userEmail, teamId, teamName, role, teams }: HeaderProps) {
   const pathname = usePathname();
+  const hydrated = useHydrated();
   const nav = [{ href: "/", label: "Projects" }, { href: "/inventory", label: "Inventory" }, ...(role === "admin" ? [{ href: "/team", label: "Members" }] : [])];
 
   async function switchTeam(next: string) {
@@ -60,7 +62,7 @@ export function AppHeader({ userName, userEmail, teamId, teamName, role, teams }
           <span className="text-ink" title={userEmail} data-testid="user-name">
             {userName}
           </span>
-          <button type="button" className="btn-quiet py-1" onClick={() => void signOutNow()}>
+          <button type="button" className="btn-quiet py-1" onClick={() => void signOutNow()} disabled={!hydrated}>
             Sign out
           </button>
         </div>

@@ -1,6 +1,6 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { signedInContext } from "./fixtures";
+import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId } from "./sweep-fixtures";
 
 let engineer: APIRequestContext;
@@ -29,11 +29,11 @@ async function expectAccessible(page: Page) {
 }
 
 test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where", async () => {
-  test.setTimeout(120_000);
   const page = await browserCtx.newPage();
 
   // 1. The project's cost basis, from the project page.
   await page.goto(`/projects/${projectId}`);
+  await appReady(page);
   await page.getByTestId("project-costs-link").click();
   await expect(page.getByRole("heading", { name: "Cost basis", level: 1 })).toBeVisible();
   const exponent = page.getByLabel("n (size exponent)").first();
@@ -60,6 +60,7 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
 
   // 3. A cost sweep that reuses idle vessels, prefilled from the project's basis.
   await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
+  await appReady(page);
   await page.getByLabel("Least vessel cost").check();
   await page.getByTestId("use-project-costs").click();
   await expect(page.getByText(/Filled from the project's cost basis/)).toBeVisible();
@@ -74,6 +75,10 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
   await expect(page).toHaveURL(/sort=reused/);
   await page.getByTestId("sort-reused").click();
   await expect(page).toHaveURL(/dir=desc/);
+  // The page shows the previous order until the new rows come: wait for the API's order.
+  const sweepId = /\/sweeps\/([0-9a-f-]{36})/.exec(page.url())![1];
+  const reusedFirst = (await (await engineer.get(`/api/sweeps/${sweepId}/scenarios/0/candidates?sort=reused&dir=desc&pageSize=25`)).json()) as { items: { rank: number }[] };
+  await expect(page.getByTestId("candidate-row").locator("td:nth-child(2)")).toHaveText(reusedFirst.items.map((c) => String(c.rank)));
   // Trains reusing one vessel tie; the first with a stirred tank is the one our idle CSTR equips
   // (reuse cost 0, so the least-cost plan always takes it when it fits).
   await page.getByTestId("candidate-row").filter({ hasText: "CSTR" }).first().getByTestId("candidate-link").click();
@@ -87,6 +92,7 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
 test("rate a fixed train: conversion, largest feed and cautions", async () => {
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}`);
+  await appReady(page);
   await page.getByTestId("project-rate-link").click();
   await expect(page.getByRole("heading", { name: "Rate a fixed train", level: 1 })).toBeVisible();
   await page.getByLabel("Kinetics version").selectOption({ label: `${modelLabel} · v1` });

@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
-import { DEMO_PASSWORD, USERS } from "./fixtures";
+import { appReady, DEMO_PASSWORD, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 const SHOTS = "test-results/screens";
@@ -16,6 +16,7 @@ async function signInAsEngineer(page: Page) {
   await form.open();
   await form.withPassword(USERS.engineer, DEMO_PASSWORD);
   await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible({ timeout: 30_000 });
+  await appReady(page);
 }
 
 async function expectNoSeriousA11yViolations(page: Page) {
@@ -25,7 +26,6 @@ async function expectNoSeriousA11yViolations(page: Page) {
 }
 
 test("an engineer uploads bench rates, fixes the bad rows, accepts them and uses them as a measured rate table", async ({ page }) => {
-  test.setTimeout(120_000);
   await signInAsEngineer(page);
   await page.getByRole("link", { name: "Ester line 3 revamp" }).click();
   await expect(page.getByTestId("project-title")).toHaveText("Ester line 3 revamp");

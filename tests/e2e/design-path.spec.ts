@@ -2,7 +2,7 @@ import { mkdirSync, readFileSync } from "node:fs";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
 import { PDFParse } from "pdf-parse";
 import { CAUTION_TEXTS } from "@/components/cautions/cautions";
-import { DEMO_PASSWORD, USERS, type Who } from "./fixtures";
+import { appReady, DEMO_PASSWORD, USERS, type Who } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 /**
@@ -23,6 +23,7 @@ async function signIn(page: Page, who: Who) {
   await form.open();
   await form.withPassword(USERS[who], DEMO_PASSWORD);
   await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible({ timeout: 60_000 });
+  await appReady(page);
 }
 
 async function pdfText(buf: Buffer): Promise<string> {
@@ -75,6 +76,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
 
   // 3. The dataset from the project page, then the fit screen: two laws, the power law saved as new kinetics.
   await page.goto(projectUrl);
+  await appReady(page);
   await page.getByRole("region", { name: "Rate data" }).getByRole("link", { name: datasetName }).click();
   await expect(page.getByTestId("dataset-title")).toHaveText(datasetName);
   await page.getByRole("link", { name: "Fit a rate law" }).click();
@@ -145,6 +147,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
 
   // 7. The engineer opens the report: it names the train, the kinetics and the fit's source dataset.
   await page.reload();
+  await appReady(page);
   await expect(pinned.getByTestId("pin-state")).toHaveText(/approved/);
   await pinned.getByTestId("pin-report").click();
   await expect(page).toHaveURL(/\/pins\/[0-9a-f-]{36}\/report$/);

@@ -2,7 +2,7 @@ import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
 import { insertDatasetVersion } from "./dataset-fixtures";
-import { DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
+import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 const SHOTS = "test-results/screens";
@@ -21,7 +21,6 @@ const ROWS = Array.from({ length: 12 }, (_, i) => {
 });
 
 test("an engineer fits two laws to a dataset version, compares them and saves one as kinetics", async ({ page }) => {
-  test.setTimeout(90_000);
   const name = `Lipase bench rates ${Date.now()}`;
   const { projectId, datasetId } = await insertDatasetVersion({ email: USERS.engineer, projectName: "Ester line 3 revamp", name, rows: ROWS });
 
@@ -32,6 +31,7 @@ test("an engineer fits two laws to a dataset version, compares them and saves on
   await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
 
   await page.goto(`/projects/${projectId}/datasets/${datasetId}/fit?version=1`);
+  await appReady(page);
   await expect(page.getByTestId("fit-title")).toHaveText(`Fit a rate law to ${name} v1`);
   await expect(page.getByTestId("fit-points")).toContainText("12 points");
   // No temperature column: power and saturation are chosen by default; make it explicit.

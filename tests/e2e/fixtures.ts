@@ -1,4 +1,4 @@
-import { request as playwrightRequest, type APIRequestContext } from "@playwright/test";
+import { expect, request as playwrightRequest, type APIRequestContext, type Page } from "@playwright/test";
 
 export const DEMO_PASSWORD = "seriatim-demo-2026";
 export const USERS = {
@@ -20,13 +20,16 @@ export interface CapturedMail {
   text: string;
 }
 
-/** Waits for the newest mail to `to` whose id is above `afterId`, read from the SMTP fake. */
-export async function waitForMail(to: string, afterId = 0, timeoutMs = 10_000): Promise<CapturedMail> {
+/**
+ * Waits (30 s by default: the worker may be busy on a loaded machine) for the newest mail to `to`
+ * whose id is above `afterId` and, if given, that `match` accepts, read from the SMTP fake.
+ */
+export async function waitForMail(to: string, afterId = 0, timeoutMs = 30_000, match: (m: CapturedMail) => boolean = () => true): Promise<CapturedMail> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const res = await fetch(`${mailApi}?to=${encodeURIComponent(to)}`);
     const list = (await res.json()) as CapturedMail[];
-    const fresh = list.filter((m) => m.id > afterId);
+    const fresh = list.filter((m) => m.id > afterId && match(m));
     if (fresh.length) return fresh[fresh.length - 1];
     await new Promise((r) => setTimeout(r, 200));
   }
@@ -70,4 +73,13 @@ export async function signedInContext(who: Who | "anonymous"): Promise<APIReques
     if (!res.ok() || !body.url || body.url.includes("error=")) throw new Error(`sign-in of ${who} failed: ${res.status()} ${JSON.stringify(body)}`);
   }
   return ctx;
+}
+
+/**
+ * Waits until React has taken over a page loaded in full (page.goto, reload, the redirect after
+ * signing in): the header's Sign out button stays disabled until then. A click or a typed value
+ * before that is lost, and a link clicked then loads the next page in full as well.
+ */
+export async function appReady(page: Page) {
+  await expect(page.getByRole("button", { name: "Sign out" })).toBeEnabled();
 }

@@ -6,10 +6,18 @@ export default async function globalSetup(): Promise<() => Promise<void>> {
     env: { ...process.env, SMTP_URL: `smtp://127.0.0.1:${process.env.MAIL_FAKE_SMTP_PORT ?? 2625}`, APP_URL: `http://127.0.0.1:${process.env.E2E_PORT ?? 3100}` },
     stdio: ["ignore", "pipe", "inherit"],
   });
+  // On a loaded machine compiling the worker and preparing the queues can take a minute.
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error("worker did not start within 30 s")), 30_000);
+    const timer = setTimeout(() => {
+      child.kill("SIGTERM");
+      reject(new Error("worker did not start within 120 s"));
+    }, 120_000);
+    let out: string | null = "";
     child.stdout!.on("data", (d: Buffer) => {
-      if (d.toString().includes("listening for jobs")) {
+      if (out === null) return;
+      out += d.toString();
+      if (out.includes("listening for jobs")) {
+        out = null;
         clearTimeout(timer);
         resolve();
       }

@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { DEMO_PASSWORD, firstLink, lastMailId, signedInContext, USERS, waitForMail } from "./fixtures";
+import { appReady, DEMO_PASSWORD, firstLink, lastMailId, signedInContext, USERS, waitForMail } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 test("an admin invites by e-mail; the link creates the account and signs it in with its role", async ({ page, browser }) => {
@@ -9,6 +9,7 @@ test("an admin invites by e-mail; the link creates the account and signs it in w
   const signIn = new SignInPage(page);
   await signIn.open();
   await signIn.withPassword(USERS.admin, DEMO_PASSWORD);
+  await appReady(page);
   await page.getByRole("link", { name: "Members" }).click();
   const form = page.getByRole("form", { name: "Invite a member" });
   await form.getByLabel("Invite by e-mail").fill("not an address");
@@ -29,6 +30,8 @@ test("an admin invites by e-mail; the link creates the account and signs it in w
   await p.goto(link);
   await expect(p.getByRole("heading", { name: "Join Brightwater Fine Chemicals" })).toBeVisible();
   const accept = p.getByRole("form", { name: "Accept invitation" });
+  // Its button stays disabled until React runs in the page; a name typed before that is lost.
+  await expect(accept.getByRole("button", { name: "Create account and sign in" })).toBeEnabled();
   await accept.getByLabel("Your name").fill("Rosa Ferreira");
   await accept.getByLabel("Password").fill("short");
   await accept.getByRole("button", { name: "Create account and sign in" }).click();

@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { DEMO_PASSWORD, USERS } from "./fixtures";
+import { appReady, DEMO_PASSWORD, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
 test("an engineer creates, renames and archives a project; errors stay beside the field", async ({ page }) => {
@@ -7,6 +7,7 @@ test("an engineer creates, renames and archives a project; errors stay beside th
   await signIn.open();
   await signIn.withPassword(USERS.engineer, DEMO_PASSWORD);
   await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
+  await appReady(page);
 
   const form = page.getByRole("form", { name: "New project" });
   await form.getByLabel("New project").fill("X");
@@ -53,6 +54,7 @@ test("a manager sees the project's audit trail", async ({ page }) => {
   const signIn = new SignInPage(page);
   await signIn.open();
   await signIn.withPassword(USERS.manager, DEMO_PASSWORD);
+  await appReady(page);
   const form = page.getByRole("form", { name: "New project" });
   const name = `Audit trail check ${Date.now()}`;
   await form.getByLabel("New project").fill(name);

@@ -1,6 +1,6 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { signedInContext } from "./fixtures";
+import { appReady, signedInContext } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
 
 let engineer: APIRequestContext;
@@ -32,6 +32,7 @@ const percent = (text: string) => Number(text.replace(/[^0-9.]/g, "")) / 100;
 test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the chart and a text summary", async () => {
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
+  await appReady(page);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("Input", { exact: true }).selectOption("reaction.rate.k");
@@ -65,6 +66,7 @@ test("a bad range is refused beside its field and nothing runs", async () => {
   const before = await runs();
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
+  await appReady(page);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("± %", { exact: true }).fill("150");
@@ -77,6 +79,7 @@ test("a bad range is refused beside its field and nothing runs", async () => {
 test("pinned design: a run above 2,000 samples is queued, polled and shown when the worker is done", async () => {
   const page = await browserCtx.newPage();
   await page.goto(`/projects/${projectId}`);
+  await appReady(page);
   const item = page.getByTestId("pin").filter({ hasText: "(demo)" });
   await item.getByRole("button", { name: "Robustness" }).click();
   const panel = item.getByRole("region", { name: "Robustness of this pinned design" });

@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
-import { DEMO_PASSWORD, signedInContext, USERS, type Who } from "./fixtures";
+import { appReady, DEMO_PASSWORD, signedInContext, USERS, type Who } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 
@@ -14,6 +14,7 @@ async function signIn(page: Page, who: Who) {
   await form.open();
   await form.withPassword(USERS[who], DEMO_PASSWORD);
   await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
+  await appReady(page);
 }
 
 async function expectNoSeriousA11yViolations(page: Page) {
@@ -23,7 +24,6 @@ async function expectNoSeriousA11yViolations(page: Page) {
 }
 
 test("an engineer defines kinetics with a live plot, builds a sweep over a grid and lands on its page", async ({ page }) => {
-  test.setTimeout(90_000);
   await signIn(page, "engineer");
   const name = `Ethyl acetate pilot ${Date.now()}`;
   const create = page.getByRole("form", { name: "New project" });
@@ -86,7 +86,6 @@ test("an engineer defines kinetics with a live plot, builds a sweep over a grid 
 });
 
 test("a manager approves a pinned design on the project page; a viewer sees it approved and cannot edit", async ({ browser }) => {
-  test.setTimeout(90_000);
   const engineer = await signedInContext("engineer");
   const projectId = await firstProjectId(engineer);
   const { version } = await createModel(engineer, projectId, `Screens kinetics ${Date.now()}`);
@@ -101,6 +100,7 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   const managerPage = await (await browser.newContext()).newPage();
   await signIn(managerPage, "manager");
   await managerPage.goto(`/projects/${projectId}`);
+  await appReady(managerPage);
   const pin = managerPage.getByTestId("pin").filter({ hasText: note });
   await expect(pin.getByTestId("pin-state")).toHaveText(/pending review/);
   await expect(pin).toContainText("Eli");

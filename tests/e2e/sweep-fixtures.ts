@@ -25,7 +25,8 @@ export async function submitSweep(ctx: APIRequestContext, projectId: string, ver
   return ((await res.json()) as { sweep: { id: string; total: number } }).sweep;
 }
 
-export async function waitForSweep(ctx: APIRequestContext, sweepId: string, timeoutMs = 30_000) {
+// Generous: the one worker finishes the sweeps queued by earlier specs first, on a shared machine.
+export async function waitForSweep(ctx: APIRequestContext, sweepId: string, timeoutMs = 120_000) {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const { sweep } = (await (await ctx.get(`/api/sweeps/${sweepId}`)).json()) as { sweep: { status: string; progress: { done: number; total: number } } };

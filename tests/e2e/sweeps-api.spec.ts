@@ -25,7 +25,8 @@ test("a sweep through the API: progress, ranked candidates sorted, filtered and 
   expect(sweep.total).toBe(3);
   const done = await waitForSweep(engineer, sweep.id);
   expect(done).toMatchObject({ status: "succeeded", progress: { done: 3, total: 3 } });
-  const mail = await waitForMail(USERS.engineer, before);
+  // Other specs' sweeps may finish meanwhile and mail the engineer too: take this sweep's mail.
+  const mail = await waitForMail(USERS.engineer, before, undefined, (m) => m.text.includes(`/sweeps/${sweep.id}`));
   expect(mail.subject).toContain("Sweep finished");
   expect(mail.text).toContain(`/sweeps/${sweep.id}`);
 
@@ -61,7 +62,7 @@ test("a sweep through the API: progress, ranked candidates sorted, filtered and 
   expect(pinRes.status()).toBe(201);
   const { pin } = (await pinRes.json()) as { pin: { id: string; state: string } };
   expect(pin.state).toBe("proposed");
-  expect((await waitForMail(USERS.manager, mailBeforePin)).subject).toContain("Design pinned for review");
+  expect((await waitForMail(USERS.manager, mailBeforePin, undefined, (m) => m.subject.includes("Design pinned"))).subject).toContain("Design pinned for review");
 
   // Viewers see approved designs only.
   const viewerPins = () => viewer.get(`/api/projects/${projectId}/pins`).then((r) => r.json() as Promise<{ pins: { id: string }[] }>);
@@ -69,7 +70,7 @@ test("a sweep through the API: progress, ranked candidates sorted, filtered and 
   expect((await engineer.post(`/api/pins/${pin.id}/review`, { data: { decision: "approve", comment: "mine" } })).status()).toBe(403);
   const review = await manager.post(`/api/pins/${pin.id}/review`, { data: { decision: "approve", comment: "Within the heat-removal envelope agreed on 2026-11-20" } });
   expect(review.status()).toBe(200);
-  expect((await waitForMail(USERS.engineer, mailBeforePin)).subject).toContain("Design approved");
+  expect((await waitForMail(USERS.engineer, mailBeforePin, undefined, (m) => m.subject.includes("Design approved"))).subject).toContain("Design approved");
   expect((await viewerPins()).pins.map((p) => p.id)).toContain(pin.id);
   expect((await manager.post(`/api/pins/${pin.id}/review`, { data: { decision: "reject", comment: "again" } })).status()).toBe(409);
 });

@@ -5,7 +5,8 @@ export class SignInPage {
 
   async open() {
     await this.page.goto("/signin");
-    await expect(this.page.getByRole("tab", { name: "Password" })).toBeVisible();
+    // The tabs stay disabled until React runs in the page; typing or clicking before that is lost.
+    await expect(this.page.getByRole("tab", { name: "Password" })).toBeEnabled();
   }
 
   async withPassword(email: string, password: string) {
