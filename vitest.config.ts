@@ -19,8 +19,10 @@ export default defineConfig({
           environment: "node",
           globalSetup: ["tests/integration/global-setup.ts"],
           fileParallelism: false,
-          testTimeout: 30000,
-          hookTimeout: 60000,
+          // Generous: these wait for real conditions (a worker process starting, a sweep ending)
+          // on a 2-core machine that CI may be sharing with other jobs; they time nothing.
+          testTimeout: 120000,
+          hookTimeout: 180000,
         },
       },
       {

@@ -8,7 +8,11 @@ export const FAST_RECOVERY_ENV = {
   SWEEP_JOB_RETRY_LIMIT: "2",
 };
 
-/** A real worker process (worker/index.ts) on the given database; resolves once it listens. */
+/**
+ * A real worker process (worker/index.ts) on the given database; resolves once it listens. Loading
+ * it through tsx takes a few seconds on a quiet machine and far longer on a busy one, hence the
+ * two-minute allowance (a wait for a condition, not a timing).
+ */
 export function startWorkerProcess(databaseUrl: string, extraEnv: Record<string, string> = {}): Promise<ChildProcess> {
   const child = spawn(process.execPath, ["--import", "tsx", "worker/index.ts"], {
     env: { ...process.env, ...FAST_RECOVERY_ENV, ...extraEnv, DATABASE_URL: databaseUrl, SMTP_URL: "smtp://127.0.0.1:9" },
@@ -17,7 +21,7 @@ export function startWorkerProcess(databaseUrl: string, extraEnv: Record<string,
   let err = "";
   child.stderr!.on("data", (d: Buffer) => (err += d.toString()));
   return new Promise((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`worker did not start: ${err}`)), 30_000);
+    const timer = setTimeout(() => reject(new Error(`worker did not start within 2 minutes: ${err}`)), 120_000);
     child.stdout!.on("data", (d: Buffer) => {
       if (d.toString().includes("listening for jobs")) {
         clearTimeout(timer);
