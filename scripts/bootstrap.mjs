@@ -59,14 +59,22 @@ child.on("exit", (code, signal) => {
   }
   process.exit(code ?? (signal ? 1 : 0));
 });
-// `npm start` runs us under `sh -c`; npm passes SIGINT and SIGTERM on, but dies of SIGHUP
-// without a word, and the shell between us stays. So watch npm as well as our parent, and
-// treat either vanishing like a stop request, so nothing is left running.
+// npm runs us as `exec node …` (package.json), so npm is our parent and passes SIGINT and
+// SIGTERM on; it dies of SIGHUP without a word. Treat a vanished parent like a stop request,
+// so nothing is left running. (Run through a shell that does not exec, watch npm beyond it.)
 const parent = process.ppid;
-const npm = process.env.npm_lifecycle_event ? parentOf(parent) : undefined;
+const npm = /^(sh|dash|bash)$/.test(commOf(parent)) ? parentOf(parent) : undefined;
 setInterval(() => {
   if (process.ppid !== parent || (npm && !alive(npm))) askToStop();
 }, 1000).unref();
+
+function commOf(pid) {
+  try {
+    return readFileSync(`/proc/${pid}/comm`, "utf8").trim();
+  } catch {
+    return "";
+  }
+}
 
 function parentOf(pid) {
   try {
