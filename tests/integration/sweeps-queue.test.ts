@@ -67,7 +67,7 @@ async function worker(extra: Record<string, string> = {}) {
 }
 
 const sweepRow = async (id: string) => (await t.db.select().from(sweeps).where(eq(sweeps.id, id)))[0];
-const finished = (id: string, timeoutMs = 60_000) =>
+const finished = (id: string, timeoutMs = 100_000) =>
   waitFor(async () => {
     const s = await sweepRow(id);
     return s.status !== "queued" && s.status !== "running" ? s : null;
@@ -123,7 +123,7 @@ describe("sweeps on the queue, with real worker processes", () => {
       train: { maxStages: 5, types: ["CSTR", "PFR"] },
       grid: [{ field: "feed.flowA", from: 0.01, to: 0.05, steps: 60 }],
     });
-    await waitFor(async () => (await sweepRow(sweep.id)).done >= 5, 30_000, "some progress");
+    await waitFor(async () => (await sweepRow(sweep.id)).done >= 5, 60_000, "some progress");
     await stopWorkerProcess(first, "SIGKILL");
     const mid = await sweepRow(sweep.id);
     expect(mid.status).toBe("running");
@@ -149,7 +149,7 @@ describe("sweeps on the queue, with real worker processes", () => {
       train: { maxStages: 5, types: ["CSTR", "PFR"] },
       grid: [{ field: "feed.flowA", from: 0.01, to: 0.05, steps: 400 }],
     });
-    await waitFor(async () => (await sweepRow(sweep.id)).done >= 2, 30_000, "some progress");
+    await waitFor(async () => (await sweepRow(sweep.id)).done >= 2, 60_000, "some progress");
     const view = await cancelSweep(t.db, actor, sweep.id);
     expect(view.status).toBe("cancelled");
     await new Promise((r) => setTimeout(r, 1500));
@@ -186,7 +186,7 @@ describe("sweeps on the queue, with real worker processes", () => {
     const sweep = await createSweep(t.db, actor, projectId, { kineticsVersionId: versionId, target: { conversion: 0.9 }, train: { maxStages: 2 }, grid: [] });
     // Sabotage the stored spec behind the API's back so the engine crashes (not an EngineError).
     await t.pool.query("update sweeps set base_spec = base_spec - 'feed' where id = $1", [sweep.id]);
-    const failed = await finished(sweep.id, 30_000);
+    const failed = await finished(sweep.id, 60_000);
     expect(failed.status).toBe("failed");
     expect(failed.error).toBeTruthy();
   });
