@@ -16,7 +16,8 @@ test("password sign-in shows the user, team and role in the header", async ({ pa
   expect(session?.sameSite).toBe("Lax");
 
   await page.getByRole("button", { name: "Sign out" }).click();
-  await expect(page).toHaveURL(/\/signin/);
+  // Sign-out is three round trips (token, sign-out, page load): on a loaded machine they can take longer than 5 s.
+  await expect(page).toHaveURL(/\/signin/, { timeout: 20_000 });
   await page.goto("/");
   await expect(page).toHaveURL(/\/signin/);
 });
