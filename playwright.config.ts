@@ -28,9 +28,10 @@ export default defineConfig({
   workers: 1,
   retries: 0,
   // CI and the team's machines run this on 2 shared cores next to other builds: pages and the
-  // worker can take many seconds there. These are safety limits, never speed checks; every wait
-  // in the specs is for a condition.
-  timeout: 180_000,
+  // worker can take many seconds there (a two-user screens test took 3 min at load 25, an axe
+  // scan alone 33 s). These are safety limits, never speed checks; every wait in the specs is
+  // for a condition.
+  timeout: 300_000,
   expect: { timeout: 15_000 },
   reporter: [["list"], ["json", { outputFile: process.env.E2E_JSON_REPORT ?? "test-results/e2e.json" }]],
   use: {
