@@ -11,11 +11,11 @@ import type { Actor } from "@/lib/authz/policy";
 import { readUpload } from "@/lib/datasets/read-upload";
 import type { Upload } from "@/lib/datasets/parse-upload";
 import { designTrains, type DesignSpec } from "@/lib/engine";
-import { AppError } from "@/lib/errors";
 import { datasetCreateFieldsSchema, type DatasetMapping } from "@/lib/schemas/datasets";
 import { addDatasetVersion, createDataset, createTableKinetics, getDataset, getDatasetVersion, listDatasetSources, listDatasets, previewDataset } from "@/lib/services/datasets";
 import { createKineticsModel } from "@/lib/services/kinetics";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+import { refusal } from "../helpers/refusal";
 
 const fixture = (name: string) => new Uint8Array(readFileSync(`tests/fixtures/datasets/${name}`));
 const MAPPING: DatasetMapping = {
@@ -39,14 +39,6 @@ async function counts() {
   return { datasets: d.n, versions: v.n, audit: a.n, kinetics: k.n, sources: s.n };
 }
 
-async function refusal(p: Promise<unknown>): Promise<AppError> {
-  const err = await p.then(
-    () => null,
-    (e: unknown) => e,
-  );
-  if (!(err instanceof AppError)) throw new Error(`expected a refusal, got ${String(err)}`);
-  return err;
-}
 
 beforeAll(async () => {
   t = await createTestDatabase();

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { AppError } from "@/lib/errors";
 import { readMultipart } from "@/lib/multipart";
 import { UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
+import { refusal } from "../../helpers/refusal";
 
 const BOUNDARY = "----seriatim-test-boundary";
 const FIELDS = ["mapping", "name"] as const;
@@ -17,14 +17,6 @@ function post(text: string, headers: Record<string, string> = { "content-type": 
   return new Request("http://127.0.0.1/api/upload", { method: "POST", headers, body: text });
 }
 
-async function refusal(p: Promise<unknown>): Promise<AppError> {
-  const e = await p.then(
-    () => null,
-    (err: unknown) => err,
-  );
-  if (!(e instanceof AppError)) throw new Error(`expected a refusal, got ${String(e)}`);
-  return e;
-}
 
 /** A body of `total` bytes served in 64 kB chunks on demand; `pulled` counts what the reader took. */
 function endlessBody(total: number) {

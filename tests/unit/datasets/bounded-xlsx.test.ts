@@ -5,9 +5,9 @@ import { parseUpload, toColumnMapping } from "@/lib/datasets/parse-upload";
 import type { Cell } from "@/lib/datasets/rate-table";
 import { parseRateXlsx } from "@/lib/datasets/rate-xlsx";
 import { readFirstWorksheet } from "@/lib/datasets/xlsx-sheet";
-import { AppError } from "@/lib/errors";
 import { UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
 import { inlineTextWorkbook, inventoryCsv, inventoryWorkbook, sparseLastRowWorkbook, workbookOf, zipBombWorkbook } from "../../helpers/crafted-uploads";
+import { refusal } from "../../helpers/refusal";
 
 const MAPPING = toColumnMapping({ columns: { h1: "conversion", h2: "rate" }, units: {} });
 const MB = 1e6;
@@ -32,14 +32,6 @@ async function watched<T>(work: () => Promise<T>): Promise<{ result: T; growthMB
   }
 }
 
-async function refusal(p: Promise<unknown>): Promise<AppError> {
-  const e = await p.then(
-    () => null,
-    (err: unknown) => err,
-  );
-  if (!(e instanceof AppError)) throw new Error(`expected a refusal, got ${String(e)}`);
-  return e;
-}
 
 describe("XLSX uploads crafted to exhaust the server are refused while reading", () => {
   it("refuses a 2 kB workbook whose one data row is numbered 1,048,576, without allocating the rows between", async () => {
