@@ -130,7 +130,7 @@ describe("the route table of body types", () => {
       if (rel.startsWith("/api/auth")) continue;
       const apiPath = rel.replace(/\[[^\]]+\]/g, "x");
       const src = readFileSync(file, "utf8");
-      const readsFile = /formData\(\)|readUpload\(/.test(src);
+      const readsFile = /formData\(\)|readUpload\(|readMultipart\(/.test(src);
       expect(expectedBodyType(apiPath), apiPath).toBe(readsFile ? "multipart/form-data" : "application/json");
     }
   });
