@@ -1,10 +1,9 @@
 import busboy from "busboy";
 import { AppError } from "@/lib/errors";
 import { fileNameProblem } from "@/lib/schemas/text";
-import { MAX_FILE_MB, UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
+import { fileTooLarge } from "@/lib/http/read-body";
+import { UPLOAD_BODY_BYTES, UPLOAD_LIMITS } from "@/lib/schemas/upload-limits";
 
-/** Room for the text fields and part headers beside the file (a mapping of 100 columns is ~25 kB). */
-const TEXT_ALLOWANCE_BYTES = 256_000;
 /** Longest single text field, bytes. */
 const FIELD_BYTES = 64_000;
 
@@ -16,8 +15,6 @@ export interface MultipartUpload {
 }
 
 const bad = (part: string, message: string) => new AppError("bad_request", message, { fields: { [part]: [message] } });
-const fileTooLarge = () =>
-  new AppError("payload_too_large", `The file is larger than ${MAX_FILE_MB}; split it into smaller files`, { fields: { file: [`The file is larger than ${MAX_FILE_MB}`] } });
 
 /**
  * Reads a multipart/form-data body with one file part (`file`) and the named text parts, within
@@ -31,7 +28,7 @@ export async function readMultipart(req: Request, textFields: readonly string[],
   const formHint = `Send the form as multipart/form-data with the parts file and ${textFields.join(", ")}`;
   if (!/^multipart\/form-data\s*;/i.test(contentType) || !/;\s*boundary=/i.test(contentType)) throw bad("(body)", formHint);
 
-  const maxBody = UPLOAD_LIMITS.bytes + TEXT_ALLOWANCE_BYTES;
+  const maxBody = UPLOAD_BODY_BYTES;
   const declared = Number(req.headers.get("content-length") ?? NaN);
   if (Number.isFinite(declared) && declared > maxBody) throw fileTooLarge();
   if (!req.body) throw bad("file", fileHint);

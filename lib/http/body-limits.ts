@@ -3,6 +3,7 @@
  * declared Content-Length above it before the body is read) and by readJson (counting the bytes
  * as they stream in, for bodies that do not declare their length).
  */
+import { UPLOAD_BODY_BYTES } from "@/lib/schemas/upload-limits";
 
 const KiB = 1024;
 const MiB = 1024 * KiB;
@@ -16,8 +17,8 @@ export const SMALL_JSON_BYTES = 64 * KiB;
  */
 export const SPEC_JSON_BYTES = 2 * MiB;
 
-/** File uploads: the 2 MB file plus the form around it; the upload routes apply the file limit. */
-export const UPLOAD_BYTES = 3 * MiB;
+/** File uploads: the file plus the form around it (lib/schemas/upload-limits.ts). */
+export const UPLOAD_BYTES = UPLOAD_BODY_BYTES;
 
 /** The largest body any route reads; next.config.mjs sizes the proxy's body buffer to it. */
 export const MAX_BODY_BYTES = 4 * MiB;

@@ -1,7 +1,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { getEnv } from "@/lib/env";
 import { jsonBodyLimit, UPLOAD_BYTES } from "./body-limits";
-import { bodyTooLarge } from "./read-body";
+import { bodyTooLarge, fileTooLarge } from "./read-body";
 import { allowedOrigins, checkWrite, expectedBodyType, STATE_CHANGING, type Refusal } from "./same-origin";
 import { NON_DOCUMENT_CSP, newNonce, pageCsp } from "./security-headers";
 
@@ -23,9 +23,10 @@ function declaredTooLarge(req: NextRequest): NextResponse | null {
   const path = req.nextUrl.pathname;
   if (!STATE_CHANGING.has(req.method) || !path.startsWith("/api/")) return null;
   const declared = Number(req.headers.get("content-length") ?? 0);
-  const limit = expectedBodyType(path) === "application/json" ? jsonBodyLimit(path) : UPLOAD_BYTES;
+  const type = expectedBodyType(path);
+  const limit = type === "application/json" ? jsonBodyLimit(path) : UPLOAD_BYTES;
   if (!(declared > limit)) return null;
-  const err = bodyTooLarge(limit, declared);
+  const err = type === "multipart/form-data" ? fileTooLarge() : bodyTooLarge(limit, declared);
   return answer(err.toJSON(), err.status);
 }
 

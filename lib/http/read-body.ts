@@ -1,10 +1,18 @@
 import { AppError } from "@/lib/errors";
 import { formatBytes } from "./body-limits";
+import { MAX_FILE_MB } from "@/lib/schemas/upload-limits";
 
 export function bodyTooLarge(limit: number, declared?: number): AppError {
   const size = declared !== undefined ? `The request body is ${formatBytes(declared)}; ` : "The request body is too large; ";
   return new AppError("payload_too_large", `${size}this request takes at most ${formatBytes(limit)}`, {
     fields: { "(body)": [`At most ${formatBytes(limit)}`] },
+  });
+}
+
+/** An upload over the file limit, named as the file: the same answer whichever check meets it first. */
+export function fileTooLarge(): AppError {
+  return new AppError("payload_too_large", `The file is larger than ${MAX_FILE_MB}; split it into smaller files`, {
+    fields: { file: [`The file is larger than ${MAX_FILE_MB}`] },
   });
 }
 

@@ -22,3 +22,10 @@ export const UPLOAD_LIMITS = {
 /** "2 MB", "20,000": the limits as the messages and screens print them. */
 export const formatLimit = (n: number) => n.toLocaleString("en");
 export const MAX_FILE_MB = `${UPLOAD_LIMITS.bytes / 1e6} MB`;
+
+/**
+ * A whole upload request: the file plus room for the text parts and part headers beside it (a
+ * mapping of 100 columns is ~25 kB). The proxy refuses a larger declared body, the multipart
+ * reader a larger streamed one, with the same answer.
+ */
+export const UPLOAD_BODY_BYTES = UPLOAD_LIMITS.bytes + 256_000;

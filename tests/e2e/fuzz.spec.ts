@@ -140,12 +140,15 @@ test("malformed path ids, query values and sign-in bodies get a 4xx in our error
   const long = await call("admin", "GET", `/api/audit?entityType=${"a".repeat(10_000)}`);
   expect(long.status).toBe(400);
 
-  for (const [type, body] of [["application/json", '{"email":"a@b.example"}'], ["text/plain", "hello"], ["multipart/form-data", "--x--"], [null, ""]] as const) {
+  for (const [type, body] of [["application/json", '{"email":"a@b.example"}'], ["text/plain", "hello"], ["multipart/form-data", "--x--"], [null, undefined]] as const) {
+    // A body of another type is refused by the proxy (415 naming the body) before Auth.js reads
+    // it; a request without a body reaches the sign-in check as an empty form (400 naming both fields).
+    const [status, fields] = type ? [415, ["(body)"]] : [400, ["email", "password"]];
     const res = await call("admin", "POST", "/api/auth/callback/credentials", { ...(type ? { "Content-Type": type } : {}), "X-Auth-Return-Redirect": "1" }, body);
-    expect(res.status, String(type)).toBe(400);
-    expect(Object.keys(JSON.parse(res.body!).error.fields).sort(), String(type)).toEqual(["email", "password"]);
+    expect(res.status, String(type)).toBe(status);
+    expect(Object.keys(JSON.parse(res.body!).error.fields).sort(), String(type)).toEqual(fields);
     const link = await call("admin", "POST", "/api/auth/signin/nodemailer", { ...(type ? { "Content-Type": type } : {}), "X-Auth-Return-Redirect": "1" }, body);
-    expect(link.status, String(type)).toBe(400);
+    expect(link.status, String(type)).toBe(status);
   }
 });
 
