@@ -25,6 +25,8 @@ export const users = pgTable("users", {
   emailVerified: timestamp("email_verified", { mode: "date", withTimezone: true }),
   image: text("image"),
   passwordHash: text("password_hash"),
+  /** How results are shown to this user (lib/units/display-preference.ts DISPLAY_PREFERENCES). */
+  displayUnits: text("display_units").notNull().default("as-typed"),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -1,13 +1,16 @@
 import { AppHeader } from "@/components/layout/app-header";
+import { DisplayUnitsProvider } from "@/components/layout/display-units-context";
 import { getDb } from "@/db/client";
 import { requirePageActor } from "@/lib/auth/session";
 import { listTeamsOfUser } from "@/lib/authz/actor";
+import { getDisplayPreference } from "@/lib/services/display-units";
 
 export const dynamic = "force-dynamic";
 
 export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
   const actor = await requirePageActor();
   const teams = await listTeamsOfUser(getDb(), actor.userId);
+  const displayUnits = await getDisplayPreference(getDb(), actor.userId);
   return (
     <>
       <AppHeader
@@ -18,7 +21,9 @@ export default async function SignedInLayout({ children }: { children: React.Rea
         role={actor.role}
         teams={teams}
       />
-      <main className="mx-auto max-w-6xl px-4 py-6">{children}</main>
+      <main className="mx-auto max-w-6xl px-4 py-6">
+        <DisplayUnitsProvider preference={displayUnits}>{children}</DisplayUnitsProvider>
+      </main>
     </>
   );
 }

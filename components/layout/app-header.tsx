@@ -59,9 +59,9 @@ export function AppHeader({ userName, userEmail, teamId, teamName, role, teams }
             <span className="text-ink-soft" data-testid="team-name">{teamName}</span>
           )}
           <RoleBadge role={role} />
-          <span className="text-ink" title={userEmail} data-testid="user-name">
+          <Link href="/settings" className="text-ink hover:underline" title={`${userEmail}: your settings, including the units results are shown in`} data-testid="user-name">
             {userName}
-          </span>
+          </Link>
           <button type="button" className="btn-quiet py-1" onClick={() => void signOutNow()} disabled={!hydrated}>
             Sign out
           </button>

@@ -1,0 +1,1 @@
+ALTER TABLE "users" ADD COLUMN "display_units" text DEFAULT 'as-typed' NOT NULL;
