@@ -22,7 +22,6 @@ import { TemperatureProfile } from "./temperature-profile";
 
 export function CandidateView({ candidateId, canPin }: { candidateId: string; canPin: boolean }) {
   const params = useSearchParams();
-  const [unit, setUnit] = useUrlUnit();
   const back = params.get("back");
   const q = useQuery({
     queryKey: ["candidate", candidateId],
@@ -34,6 +33,7 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
     queryFn: () => fetchJson<{ sweep: SweepView }>(`/api/sweeps/${sweepId}`).then((r) => r.sweep),
     enabled: !!sweepId,
   });
+  const [unit, setUnit] = useUrlUnit(q.data?.totalVolume ?? null);
 
   if (q.isPending) return <LoadingPanel label="Loading the candidate…" />;
   if (q.isError) return <ErrorPanel error={q.error} what="this candidate" />;

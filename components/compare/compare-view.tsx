@@ -21,7 +21,6 @@ const signed = (v: number | null, text: (n: number) => string) => (v === null ? 
 
 export function CompareView() {
   const params = useSearchParams();
-  const [unit, setUnit] = useUrlUnit();
   const ids = (params.get("ids") ?? "").split(",").filter(Boolean);
   const valid = ids.length >= 2 && ids.length <= 4;
   const q = useQuery({
@@ -31,6 +30,7 @@ export function CompareView() {
   });
   const charts = useMemo(() => (q.data ?? []).map((c) => chartInputs(c.stages, c.levenspiel)), [q.data]);
   const yMax = useMemo(() => (charts.length ? sharedYMax(charts) : undefined), [charts]);
+  const [unit, setUnit] = useUrlUnit(Math.max(0, ...(q.data ?? []).map((c) => c.totalVolume ?? 0)) || null);
 
   if (!valid)
     return (

@@ -1,6 +1,6 @@
 import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import { fetchJson } from "@/lib/client/fetch-json";
-import { fromCubicMetres, VOLUME_LABEL } from "@/lib/charts/volume-units";
+import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { describeOverrides } from "./scenario-picker";
 import type { CandidatePage } from "./types";
 import { candidateQuery, type SweepViewState } from "./view-state";
@@ -8,12 +8,26 @@ import { candidateQuery, type SweepViewState } from "./view-state";
 const EXPORT_PAGE = 500;
 
 /**
+ * Significant digits of every number in the export: 6 is finer than any input a sizing study
+ * starts from (kinetics and feed are rarely known to better than 3), and it keeps binary noise
+ * such as 0.37500000000000006 out of the cells. Ranks, counts and flags are whole and stay so.
+ */
+export const CSV_DIGITS = 6;
+export const csvNumber = (v: number | null | undefined): number | "" => (v === null || v === undefined || !Number.isFinite(v) ? "" : Number(v.toPrecision(CSV_DIGITS)));
+
+/**
  * The scenario's whole ranked list (with the current sort and filters) as CSV, fetched page by
  * page from the candidates endpoint; volumes in the chosen unit, one row per candidate.
  */
-export async function exportCandidatesCsv(sweepId: string, view: SweepViewState, onProgress?: (loaded: number, total: number) => void): Promise<string> {
+export async function exportCandidatesCsv(
+  sweepId: string,
+  view: SweepViewState,
+  opts: { shownUnit: VolumeUnit | null },
+  onProgress?: (loaded: number, total: number) => void,
+): Promise<string> {
   const rows: Record<string, string | number>[] = [];
-  const u = VOLUME_LABEL[view.unit];
+  const shown = opts.shownUnit && opts.shownUnit !== "m3" ? opts.shownUnit : null;
+  const u = shown ? VOLUME_LABEL[shown] : "";
   let overrides = "";
   for (let page = 1; ; page++) {
     const res = await fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${view.scenario}/candidates?${candidateQuery(view, { page, pageSize: EXPORT_PAGE })}`);
@@ -24,14 +38,17 @@ export async function exportCandidatesCsv(sweepId: string, view: SweepViewState,
         sequence: c.sequence.join("-"),
         stages: c.stageCount,
         feasible: c.feasible ? "yes" : "no",
-        [`total volume (${u})`]: c.totalVolume === null ? "" : fromCubicMetres(c.totalVolume, view.unit),
-        "total cost": c.totalCost ?? "",
-        "installed cost": c.installedCost ?? "",
+        // SI columns always, with the unit in the header; the shown-unit columns only when asked.
+        "total volume (m³)": csvNumber(c.totalVolume),
+        ...(shown ? { [`total volume (${u})`]: c.totalVolume === null ? "" : csvNumber(fromCubicMetres(c.totalVolume, shown)) } : {}),
+        "total cost": csvNumber(c.totalCost),
+        "installed cost": csvNumber(c.installedCost),
         "reused idle vessels": c.reused ?? 0,
-        "P(meet target)": c.probabilityMeet ?? "",
-        "ratio to single PFR": c.ratioToPfr ?? "",
-        [`stage volumes (${u})`]: c.stages.map((s) => fromCubicMetres(s.volume, view.unit).toPrecision(6)).join(" | "),
-        "stage outlet conversions": c.stages.map((s) => s.conversionOut.toPrecision(6)).join(" | "),
+        "P(meet target)": csvNumber(c.probabilityMeet),
+        "ratio to single PFR": csvNumber(c.ratioToPfr),
+        "stage volumes (m³)": c.stages.map((s) => csvNumber(s.volume)).join(" | "),
+        ...(shown ? { [`stage volumes (${u})`]: c.stages.map((s) => csvNumber(fromCubicMetres(s.volume, shown))).join(" | ") } : {}),
+        "stage outlet conversions": c.stages.map((s) => csvNumber(s.conversionOut)).join(" | "),
         reason: c.reason ?? "",
       });
     }
@@ -40,7 +57,7 @@ export async function exportCandidatesCsv(sweepId: string, view: SweepViewState,
   }
   // papaparse loads only when someone exports, not with the page.
   const { unparse } = await import("papaparse");
-  const preface = `# scenario ${view.scenario + 1}: ${commentText(overrides)}; preliminary sizing from ideal-reactor models, check under local codes\n`;
+  const preface = `# scenario ${view.scenario + 1}: ${commentText(overrides)}; preliminary sizing from ideal-reactor models, check under local codes; numbers to ${CSV_DIGITS} significant digits\n`;
   return preface + unparse(rows, SAFE_UNPARSE);
 }
 

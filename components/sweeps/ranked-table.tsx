@@ -49,7 +49,8 @@ interface Props {
 }
 
 export function RankedTable({ rows, view, onSort, selected, onToggle, candidateHref, yMax, target }: Props) {
-  const unit: VolumeUnit = view.unit;
+  // The sweep page resolves a null (follow the setting) before passing the view in.
+  const unit: VolumeUnit = view.unit ?? "m3";
   const columns = useMemo(
     () =>
       helper.columns([

@@ -13,12 +13,14 @@ const CONTAINS = ["", "CSTR", "PFR", "CSTR-PFR", "PFR-CSTR", "CSTR-CSTR", "PFR-P
 export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; view: SweepViewState; setView: (p: Partial<SweepViewState>) => void }) {
   const [exporting, setExporting] = useState<string | null>(null);
   const [exportError, setExportError] = useState<string | null>(null);
+  const [withShown, setWithShown] = useState(false);
+  const shownUnit = view.unit ?? "m3";
 
   const onExport = async () => {
     setExportError(null);
     setExporting("Preparing…");
     try {
-      const csv = await exportCandidatesCsv(sweepId, view, (n, total) => setExporting(`${n} / ${total}`));
+      const csv = await exportCandidatesCsv(sweepId, view, { shownUnit: withShown ? shownUnit : null }, (n, total) => setExporting(`${n} / ${total}`));
       downloadText(`sweep-${sweepId.slice(0, 8)}-scenario-${view.scenario + 1}.csv`, csv);
     } catch (e) {
       setExportError(`Export failed: ${e instanceof Error ? e.message : "unknown error"}`);
@@ -60,7 +62,7 @@ export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; vi
           ))}
         </select>
       </div>
-      <UnitSelect id="f-unit" value={view.unit} onChange={(unit) => setView({ unit, page: view.page })} testId="unit-picker" />
+      <UnitSelect id="f-unit" value={shownUnit} onChange={(unit) => setView({ unit, page: view.page })} testId="unit-picker" />
       <div>
         <label htmlFor="f-size" className="field-label">
           Rows
@@ -90,7 +92,11 @@ export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; vi
         </div>
       </fieldset>
       <div className="ml-auto flex flex-col items-end">
-        <div className="flex gap-2">
+        <div className="flex items-center gap-2">
+          <label className="flex items-center gap-1 text-sm">
+            <input type="checkbox" className="size-4 accent-accent-600" checked={withShown} onChange={(e) => setWithShown(e.target.checked)} data-testid="export-shown-units" />
+            Add columns in the units shown
+          </label>
           <button type="button" className="btn-quiet" onClick={onExport} disabled={exporting !== null} data-testid="export-csv">
             {exporting ? `Exporting ${exporting}` : "Export CSV"}
           </button>

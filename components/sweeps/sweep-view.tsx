@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
@@ -22,7 +23,7 @@ const ACTIVE = new Set(["queued", "running"]);
 export function SweepView({ sweepId, projectId, projectName, canSubmit }: { sweepId: string; projectId: string; projectName: string; canSubmit: boolean }) {
   const router = useRouter();
   const qc = useQueryClient();
-  const [view, setView] = useViewState();
+  const [urlView, setView] = useViewState();
   const [selected, setSelected] = useState<string[]>([]);
   const [actionError, setActionError] = useState<string | null>(null);
 
@@ -55,10 +56,10 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
     enabled: !sweep || hasResults,
   });
   // Thumbnails ride along with the page while it is small enough.
-  const withCharts = view.pageSize <= 50 && !view.hidden.includes("chart");
+  const withCharts = urlView.pageSize <= 50 && !urlView.hidden.includes("chart");
   const candidatesQ = useQuery({
-    queryKey: ["candidates", sweepId, view.scenario, candidateQuery(view, { levenspiel: withCharts })],
-    queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${view.scenario}/candidates?${candidateQuery(view, { levenspiel: withCharts })}`),
+    queryKey: ["candidates", sweepId, urlView.scenario, candidateQuery(urlView, { levenspiel: withCharts })],
+    queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${urlView.scenario}/candidates?${candidateQuery(urlView, { levenspiel: withCharts })}`),
     enabled: !sweep || hasResults,
     placeholderData: keepPreviousData,
   });
@@ -76,10 +77,16 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
     onError: (e) => setActionError(refusalText(e, "re-run this sweep", "Re-running needs the engineer, manager or admin role.")),
   });
 
+  // Volumes follow the user's display-unit setting (litres while the largest train on the page is
+  // below 1 m³) unless a unit was picked on this page, which the URL then keeps.
+  const largestVolume = useMemo(() => Math.max(0, ...(candidatesQ.data?.items ?? []).map((r) => r.totalVolume ?? 0)), [candidatesQ.data]);
+  const shownUnits = useDisplayUnits(largestVolume || null);
+  const view = useMemo(() => ({ ...urlView, unit: urlView.unit ?? shownUnits.volume }), [urlView, shownUnits.volume]);
+
   const toggle = useCallback((id: string) => setSelected((s) => (s.includes(id) ? s.filter((x) => x !== id) : s.length >= 4 ? s : [...s, id])), []);
-  const qs = serialiseViewState(view);
+  const qs = serialiseViewState(urlView);
   const back = encodeURIComponent(`/projects/${projectId}/sweeps/${sweepId}${qs ? `?${qs}` : ""}`);
-  const candidateHref = useCallback((id: string) => `/projects/${projectId}/sweeps/${sweepId}/candidates/${id}?unit=${view.unit}&back=${back}`, [projectId, sweepId, view.unit, back]);
+  const candidateHref = useCallback((id: string) => `/projects/${projectId}/sweeps/${sweepId}/candidates/${id}?${urlView.unit ? `unit=${urlView.unit}&` : ""}back=${back}`, [projectId, sweepId, urlView.unit, back]);
 
   const rows = candidatesQ.data?.items;
   const target = sweep?.spec.target?.conversion;
@@ -151,7 +158,7 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
               <div className="flex flex-wrap items-end justify-between gap-3">
                 <h2 id="ranked-title">Ranked trains</h2>
                 <Link
-                  href={`/compare?ids=${selected.join(",")}&unit=${view.unit}`}
+                  href={`/compare?ids=${selected.join(",")}${urlView.unit ? `&unit=${urlView.unit}` : ""}`}
                   aria-disabled={selected.length < 2}
                   onClick={(e) => selected.length < 2 && e.preventDefault()}
                   className={`btn-primary ${selected.length < 2 ? "pointer-events-none opacity-50" : ""}`}

@@ -1,6 +1,7 @@
 "use client";
 
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { isVolumeUnit, VOLUME_LABEL, VOLUME_UNITS, type VolumeUnit } from "@/lib/charts/volume-units";
 
 /** The volume unit picker; `onChange` defaults to keeping the choice in the URL's ?unit=. */
@@ -21,13 +22,17 @@ export function UnitSelect({ id, value, onChange, testId }: { id: string; value:
   );
 }
 
-/** The ?unit= of the current URL and a setter that replaces it. */
-export function useUrlUnit(): [VolumeUnit, (u: VolumeUnit) => void] {
+/**
+ * The ?unit= of the current URL (a per-page override) and a setter that replaces it; without one,
+ * the volume unit of the user's display-unit setting for the largest volume the page shows.
+ */
+export function useUrlUnit(largestVolume?: number | null): [VolumeUnit, (u: VolumeUnit) => void] {
+  const shown = useDisplayUnits(largestVolume);
   const params = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
   const raw = params.get("unit");
-  const unit: VolumeUnit = isVolumeUnit(raw) ? raw : "m3";
+  const unit: VolumeUnit = isVolumeUnit(raw) ? raw : shown.volume;
   const set = (u: VolumeUnit) => {
     const next = new URLSearchParams(params.toString());
     next.set("unit", u);

@@ -23,7 +23,8 @@ export interface SweepViewState {
   page: number;
   pageSize: number;
   hidden: OptionalColumn[];
-  unit: VolumeUnit;
+  /** A volume unit chosen on this page; null follows the user's display-unit setting. */
+  unit: VolumeUnit | null;
 }
 
 const intOr = (v: string | null, fallback: number, min = 0) => {
@@ -46,7 +47,7 @@ export function parseViewState(q: URLSearchParams): SweepViewState {
     page: intOr(q.get("page"), 1, 1),
     pageSize: (PAGE_SIZES as readonly number[]).includes(size) ? size : 25,
     hidden: (q.get("hide") ?? "").split(",").filter((c): c is OptionalColumn => (OPTIONAL_COLUMNS as readonly string[]).includes(c)),
-    unit: isVolumeUnit(q.get("unit")) ? (q.get("unit") as VolumeUnit) : "m3",
+    unit: isVolumeUnit(q.get("unit")) ? (q.get("unit") as VolumeUnit) : null,
   };
 }
 
@@ -62,7 +63,7 @@ export function serialiseViewState(s: SweepViewState): string {
   if (s.page > 1) q.set("page", String(s.page));
   if (s.pageSize !== 25) q.set("size", String(s.pageSize));
   if (s.hidden.length) q.set("hide", s.hidden.join(","));
-  if (s.unit !== "m3") q.set("unit", s.unit);
+  if (s.unit) q.set("unit", s.unit);
   return q.toString();
 }
 
