@@ -1,11 +1,16 @@
 import { StageSwatch } from "@/components/charts/stage-patterns";
 import { StageGlyph } from "@/components/sweeps/stage-badges";
 import type { StoredStage } from "@/components/sweeps/types";
+import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
+import { fromSI, unitLabel } from "@/lib/units/display";
 
 /** Stages of one train: type, conversions, temperatures, volume, residence time, vessels and cost. */
 export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; unit: VolumeUnit; caption: string }) {
   const anyCost = stages.some((s) => s.cost !== null);
+  // Temperatures follow the user's display-unit setting; the engine's values are kelvin.
+  const tUnit = useDisplayUnits().temperature;
+  const t = (k: number) => formatNumber(fromSI("temperature", k, tUnit), 5);
   return (
     <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={caption}>
       <table className="table-dense" data-testid="stage-table">
@@ -14,7 +19,7 @@ export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; u
           <tr>
             <th scope="col">Stage</th>
             <th scope="col">X in → out</th>
-            <th scope="col">T in → out, K</th>
+            <th scope="col">T in → out, {unitLabel("temperature", tUnit)}</th>
             <th scope="col">Volume</th>
             <th scope="col">Residence time, s</th>
             <th scope="col">Vessels</th>
@@ -36,7 +41,7 @@ export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; u
                 {formatNumber(s.conversionIn, 4)} → {formatNumber(s.conversionOut, 4)}
               </td>
               <td className="num whitespace-nowrap">
-                {formatNumber(s.temperatureIn, 5)} → {formatNumber(s.temperatureOut, 5)}
+                {t(s.temperatureIn)} → {t(s.temperatureOut)}
               </td>
               <td className="num whitespace-nowrap">{formatVolume(s.volume, unit, 4)}</td>
               <td className="num">{formatNumber(s.residenceTime, 4)}</td>
