@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { displayUnitsSchema } from "@/lib/schemas/display-units";
 import { auditQuerySchema } from "./schemas/audit";
 import { candidateExportQuerySchema } from "./schemas/report-exports";
 import {
@@ -45,6 +46,8 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "get", path: "/api/health", summary: "200 once the app reaches its database", public: true },
   { method: "get", path: "/api/me", summary: "The signed-in user, active team and role" },
   { method: "post", path: "/api/me/team", summary: "Switch the active team", body: z.object({ teamId: z.uuid() }) },
+  { method: "get", path: "/api/me/display-units", summary: "The units results are shown in for the signed-in user" },
+  { method: "put", path: "/api/me/display-units", summary: "Choose the units results are shown in", body: displayUnitsSchema },
   { method: "get", path: "/api/projects", summary: "Projects of the team (?archived=include)" },
   { method: "post", path: "/api/projects", summary: "Create a project", body: projectCreateSchema, status: 201 },
   { method: "get", path: "/api/projects/{projectId}", summary: "Read a project" },

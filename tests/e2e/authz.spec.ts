@@ -79,6 +79,13 @@ const ROWS: Row[] = [
     call: (c) => c.post("/api/me/team", { data: { teamId: ids.brightwaterTeam } }),
     expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 404, anonymous: 401 },
   },
+  { route: "GET /api/me/display-units", call: (c) => c.get("/api/me/display-units"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },
+  {
+    // Each user sets only their own choice; "as-typed" is the default, so other specs see no change.
+    route: "PUT /api/me/display-units",
+    call: (c) => c.put("/api/me/display-units", { data: { displayUnits: "as-typed" } }),
+    expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 },
+  },
   { route: "GET /api/projects", call: (c) => c.get("/api/projects"), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 200, anonymous: 401 } },
   {
     route: "POST /api/projects",
