@@ -3,8 +3,9 @@ import { Cautions } from "@/components/cautions/cautions";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import type { StoredStage } from "@/components/sweeps/types";
 import type { DesignReport } from "@/lib/reports/design-report";
+import type { DisplayPreference } from "@/lib/units/display-preference";
 import type { WordLine } from "@/lib/reports/kinetics-words";
-import { fmtConversion, fmtDate, fmtMoney, fmtPercent, fmtVolume, sig, STAGE_COLUMNS } from "@/lib/reports/report-format";
+import { fmtConversion, fmtDate, fmtMoney, fmtPercent, fmtVolume, reportUnits, sig, stageColumns } from "@/lib/reports/report-format";
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
   return (
@@ -33,9 +34,11 @@ function Pairs({ lines }: { lines: WordLine[] }) {
 const NotRecorded = ({ children }: { children: React.ReactNode }) => <p className="text-sm text-ink-soft">{children}</p>;
 
 /** The design report on screen and on paper: every section of the report model, in the PDF's order. */
-export function DesignReportView({ report: r }: { report: DesignReport }) {
+export function DesignReportView({ report: r, preference = "si" }: { report: DesignReport; preference?: DisplayPreference }) {
   const cs = r.costs.settings;
   const currency = cs.recorded ? cs.currency : null;
+  const units = reportUnits(r, preference);
+  const STAGE_COLUMNS = stageColumns(units);
   return (
     <article id="design-report" className="space-y-4" data-testid="design-report">
       <header className="space-y-1">
@@ -60,7 +63,7 @@ export function DesignReportView({ report: r }: { report: DesignReport }) {
             { label: "Sequence", value: r.train.label },
             { label: "Target conversion", value: fmtConversion(r.target.conversion) },
             { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
-            { label: "Total volume", value: fmtVolume(r.train.totalVolume) },
+            { label: "Total volume", value: fmtVolume(r.train.totalVolume, units) },
             ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost, currency) }] : []),
             { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : sig(r.train.ratioToPfr, 4) },
           ]}
@@ -167,8 +170,8 @@ export function DesignReportView({ report: r }: { report: DesignReport }) {
           <Pairs
             lines={[
               { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
-              { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR) },
-              { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR) },
+              { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR, units) },
+              { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
               { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${sig(r.references.feedVolumetricFlow, 4)} m³/s` },
             ]}
           />

@@ -4,6 +4,8 @@
  */
 import type { DesignReport, ReportStage } from "./design-report";
 import { sig } from "./kinetics-words";
+import { fromSI, unitLabel } from "@/lib/units/display";
+import { resolveDisplayUnits, type DisplayPreference, type DisplayUnits } from "@/lib/units/display-preference";
 
 export { sig };
 
@@ -14,9 +16,18 @@ export function fmtDate(iso: string | null | undefined): string {
   return iso ? `${dateFmt.format(new Date(iso))} UTC` : "—";
 }
 
-export const fmtVolume = (m3: number | null | undefined) => (m3 === null || m3 === undefined || !Number.isFinite(m3) ? "—" : `${sig(m3, 4)} m³`);
+/** Volume and temperature in the reader's units; without `units`, m³ and K as stored. */
+export const fmtVolume = (m3: number | null | undefined, units?: Pick<DisplayUnits, "volume">) =>
+  m3 === null || m3 === undefined || !Number.isFinite(m3) ? "—" : units ? `${sig(fromSI("volume", m3, units.volume), 4)} ${unitLabel("volume", units.volume)}` : `${sig(m3, 4)} m³`;
 export const fmtConversion = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(4));
-export const fmtKelvin = (t: number | null | undefined) => (t === null || t === undefined || !Number.isFinite(t) ? "—" : `${t.toFixed(1)} K`);
+export const fmtKelvin = (t: number | null | undefined, units?: Pick<DisplayUnits, "temperature">) =>
+  t === null || t === undefined || !Number.isFinite(t) ? "—" : units ? `${fromSI("temperature", t, units.temperature).toFixed(1)} ${unitLabel("temperature", units.temperature)}` : `${t.toFixed(1)} K`;
+
+/** The units a report is shown in: the reader's choice, with the volume picked for the largest volume it shows. */
+export function reportUnits(r: Pick<DesignReport, "train" | "references">, preference: DisplayPreference): DisplayUnits {
+  const largest = Math.max(0, r.train.totalVolume ?? 0, r.references.singleCSTR ?? 0, r.references.singlePFR ?? 0);
+  return resolveDisplayUnits(preference, undefined, { largestVolume: largest || null });
+}
 export const fmtPercent = (p: number | null | undefined) => (p === null || p === undefined || !Number.isFinite(p) ? "—" : `${(p * 100).toFixed(1)} %`);
 export const fmtMoney = (v: number | null | undefined, currency?: string | null) =>
   v === null || v === undefined || !Number.isFinite(v) ? "—" : `${Math.round(v).toLocaleString("en-US")}${currency ? ` ${currency}` : ""}`;
@@ -39,19 +50,22 @@ export interface StageColumn {
   numeric: boolean;
 }
 
-/** The stage table, in order. */
-export const STAGE_COLUMNS: StageColumn[] = [
+/** The stage table, in order; `units` changes what is shown, never the CSV's SI columns. */
+export const stageColumns = (units?: DisplayUnits): StageColumn[] => [
   { heading: "Stage", csv: "stage", raw: (s) => s.index, shown: (s) => String(s.index), numeric: true },
   { heading: "Type", csv: "type", raw: (s) => s.type, shown: (s) => s.type, numeric: false },
   { heading: "X in", csv: "conversion in (-)", raw: (s) => s.conversionIn, shown: (s) => fmtConversion(s.conversionIn), numeric: true },
   { heading: "X out", csv: "conversion out (-)", raw: (s) => s.conversionOut, shown: (s) => fmtConversion(s.conversionOut), numeric: true },
-  { heading: "T in", csv: "temperature in (K)", raw: (s) => s.temperatureIn, shown: (s) => fmtKelvin(s.temperatureIn), numeric: true },
-  { heading: "T out", csv: "temperature out (K)", raw: (s) => s.temperatureOut, shown: (s) => fmtKelvin(s.temperatureOut), numeric: true },
-  { heading: "Volume", csv: "volume (m3)", raw: (s) => s.volume, shown: (s) => fmtVolume(s.volume), numeric: true },
+  { heading: "T in", csv: "temperature in (K)", raw: (s) => s.temperatureIn, shown: (s) => fmtKelvin(s.temperatureIn, units), numeric: true },
+  { heading: "T out", csv: "temperature out (K)", raw: (s) => s.temperatureOut, shown: (s) => fmtKelvin(s.temperatureOut, units), numeric: true },
+  { heading: "Volume", csv: "volume (m3)", raw: (s) => s.volume, shown: (s) => fmtVolume(s.volume, units), numeric: true },
   { heading: "Residence time", csv: "residence time (s)", raw: (s) => s.residenceTime, shown: (s) => fmtResidence(s.residenceTime), numeric: true },
-  { heading: "Vessels", csv: "vessel count", raw: (s) => s.vesselCount, shown: (s) => `${s.vesselCount} × ${fmtVolume(s.vesselSize)}`, numeric: true },
+  { heading: "Vessels", csv: "vessel count", raw: (s) => s.vesselCount, shown: (s) => `${s.vesselCount} × ${fmtVolume(s.vesselSize, units)}`, numeric: true },
   { heading: "Cost", csv: "cost (currency of the cost basis)", raw: (s) => s.cost, shown: (s) => fmtMoney(s.cost), numeric: true },
 ];
+
+/** The stage table as stored (m³, K): the CSV and JSON columns. */
+export const STAGE_COLUMNS: StageColumn[] = stageColumns();
 
 /** CSV-only column: the size of each vessel, m3 (the page shows it inside "Vessels"). */
 export const VESSEL_SIZE_COLUMN = { csv: "vessel size each (m3)", raw: (s: ReportStage) => s.vesselSize };

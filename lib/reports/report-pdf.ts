@@ -10,7 +10,9 @@ import { STAGE_STYLES } from "@/components/charts/stage-patterns";
 import { chartGeometry, ticks, type Point } from "@/lib/charts/levenspiel-geometry";
 import type { DesignReport } from "./design-report";
 import type { WordLine } from "./kinetics-words";
-import { fmtConversion, fmtDate, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, sig, STAGE_COLUMNS } from "./report-format";
+import { fmtConversion, fmtDate, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, sig, stageColumns } from "./report-format";
+import { fromSI, unitLabel } from "@/lib/units/display";
+import type { DisplayUnits } from "@/lib/units/display-preference";
 
 const FONT_DIR = path.join(process.cwd(), "node_modules", "dejavu-fonts-ttf", "ttf");
 let fonts: { regular: Buffer; bold: Buffer } | null = null;
@@ -29,7 +31,7 @@ const FOOTER = 30;
 type Doc = PDFKit.PDFDocument;
 
 /** Renders the report; resolves with the whole file. */
-export function renderReportPdf(report: DesignReport): Promise<Buffer> {
+export function renderReportPdf(report: DesignReport, units?: DisplayUnits): Promise<Buffer> {
   const { regular, bold } = fontFiles();
   const doc = new PDFDocument({
     size: "A4",
@@ -50,11 +52,11 @@ export function renderReportPdf(report: DesignReport): Promise<Buffer> {
 
   header(doc, report);
   cautionsBox(doc, report, "Before you rely on this design");
-  summary(doc, report);
+  summary(doc, report, units);
   levenspiel(doc, report);
-  stageTable(doc, report);
-  if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report);
-  sections(doc, report);
+  stageTable(doc, report, units);
+  if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report, units);
+  sections(doc, report, units);
   ensureSpace(doc, 140);
   cautionsBox(doc, report, "Cautions (repeated)");
   footers(doc, report);
@@ -130,13 +132,13 @@ function cautionsBox(doc: Doc, r: DesignReport, title: string) {
   doc.x = MARGIN;
 }
 
-function summary(doc: Doc, r: DesignReport) {
+function summary(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   heading(doc, "Train");
   pairs(doc, [
     { label: "Sequence", value: r.train.label },
     { label: "Target conversion", value: fmtConversion(r.target.conversion) },
     { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
-    { label: "Total volume", value: fmtVolume(r.train.totalVolume) },
+    { label: "Total volume", value: fmtVolume(r.train.totalVolume, units) },
     ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost) }] : []),
     { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : sig(r.train.ratioToPfr, 4) },
   ]);
@@ -251,20 +253,21 @@ function table(doc: Doc, headings: string[], rows: string[][], widths: number[],
   doc.moveDown(0.3);
 }
 
-function stageTable(doc: Doc, r: DesignReport) {
+function stageTable(doc: Doc, r: DesignReport, units?: DisplayUnits) {
+  const columns = stageColumns(units);
   // Keep a short table on one page with its heading.
   if (r.stages.length <= 8) ensureSpace(doc, 80 + r.stages.length * 26);
   heading(doc, "Stages");
   table(
     doc,
-    STAGE_COLUMNS.map((c) => c.heading),
-    r.stages.map((s) => STAGE_COLUMNS.map((c) => c.shown(s))),
+    columns.map((c) => c.heading),
+    r.stages.map((s) => columns.map((c) => c.shown(s))),
     [36, 36, 40, 40, 46, 46, 56, 70, 76, 44],
-    STAGE_COLUMNS.map((c) => c.numeric),
+    columns.map((c) => c.numeric),
   );
 }
 
-function temperatureProfile(doc: Doc, r: DesignReport) {
+function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   heading(doc, "Temperature profile (adiabatic)");
   const temps = r.stages.flatMap((s) => [s.temperatureIn, s.temperatureOut]).filter(Number.isFinite);
   if (r.thermal.maxTemperature !== null) temps.push(r.thermal.maxTemperature);
@@ -274,23 +277,23 @@ function temperatureProfile(doc: Doc, r: DesignReport) {
   ensureSpace(doc, h + 45);
   const box = { x: MARGIN + 64, y: doc.y + 6, w: width(doc) - 76, h };
   const xMax = Math.min(1, Math.max(...r.stages.map((s) => s.conversionOut)) * 1.05 || 1);
-  const { sx, sy } = axes(doc, box, xMax, lo, hi, "Conversion X", "Temperature, K", (v) => sig(v, 4));
+  const { sx, sy } = axes(doc, box, xMax, lo, hi, "Conversion X", `Temperature, ${units ? unitLabel("temperature", units.temperature) : "K"}`, (v) => sig(units ? fromSI("temperature", v, units.temperature) : v, 4));
   for (const s of r.stages) {
     const style = STAGE_STYLES[(s.index - 1) % STAGE_STYLES.length];
     doc.moveTo(sx(s.conversionIn), sy(s.temperatureIn)).lineTo(sx(s.conversionOut), sy(s.temperatureOut)).lineWidth(1.6).strokeColor(style.stroke).stroke();
     doc.circle(sx(s.conversionOut), sy(s.temperatureOut), 2).fill(style.stroke);
-    doc.font("body").fontSize(7.5).fillColor(INK).text(`${s.index} ${s.type} ${fmtKelvin(s.temperatureOut)}`, sx(s.conversionOut) - 80, sy(s.temperatureOut) - 11, { width: 78, align: "right" });
+    doc.font("body").fontSize(7.5).fillColor(INK).text(`${s.index} ${s.type} ${fmtKelvin(s.temperatureOut, units)}`, sx(s.conversionOut) - 80, sy(s.temperatureOut) - 11, { width: 78, align: "right" });
   }
   if (r.thermal.maxTemperature !== null) {
     const y = sy(r.thermal.maxTemperature);
     doc.moveTo(box.x, y).lineTo(box.x + box.w, y).dash(3, { space: 3 }).lineWidth(0.8).strokeColor("#991b1b").stroke().undash();
-    doc.font("body").fontSize(7.5).fillColor("#991b1b").text(`limit ${fmtKelvin(r.thermal.maxTemperature)}`, box.x + 4, y - 10);
+    doc.font("body").fontSize(7.5).fillColor("#991b1b").text(`limit ${fmtKelvin(r.thermal.maxTemperature, units)}`, box.x + 4, y - 10);
   }
   doc.y = box.y + box.h + 32;
   doc.x = MARGIN;
 }
 
-function sections(doc: Doc, r: DesignReport) {
+function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   heading(doc, "Feed");
   pairs(doc, r.feed);
   heading(doc, "Kinetics");
@@ -323,8 +326,8 @@ function sections(doc: Doc, r: DesignReport) {
   heading(doc, "Equilibrium and references");
   pairs(doc, [
     { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
-    { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR) },
-    { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR) },
+    { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR, units) },
+    { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
     { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${sig(r.references.feedVolumetricFlow, 4)} m³/s` },
   ]);
   heading(doc, "Costs");

@@ -1,4 +1,8 @@
 import { readFileSync } from "node:fs";
+import { PDFParse } from "pdf-parse";
+import type { DesignReport } from "@/lib/reports/design-report";
+import { reportUnits } from "@/lib/reports/report-format";
+import { unitLabel } from "@/lib/units/display";
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { resolveDisplayUnits } from "@/lib/units/display-preference";
@@ -92,4 +96,37 @@ test("engineer and manager see results in the units they chose: ranked table, ca
   const usVolume = resolveDisplayUnits("us-customary", undefined, { largestVolume: largest }).volume === "gal" ? "US gal" : "ft³";
   await expect(mPage.getByTestId("stage-table")).toContainText(usVolume);
   await mCtx.close();
+});
+
+test("the manager reads the demo design report and its PDF in litres and degrees Celsius", async ({ browser }) => {
+  const projectId = await firstProjectId(manager);
+  const pins = (await (await manager.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string }[] };
+  const pinId = pins.pins[0]!.id;
+  const report = ((await (await manager.get(`/api/pins/${pinId}/export.json`)).json()) as { report: DesignReport }).report;
+  const units = reportUnits(report, "si-litres-hours");
+  const volume = unitLabel("volume", units.volume);
+
+  const ctx = await browser.newContext({ storageState: await manager.storageState(), acceptDownloads: true });
+  const page = await ctx.newPage();
+  await chooseUnits(page, /SI with litres and hours/);
+  await page.goto(`/projects/${projectId}/pins/${pinId}/report`);
+  await appReady(page);
+  const table = page.getByTestId("report-stage-table");
+  await expect(table.locator("tbody tr").first()).toContainText(` ${volume}`);
+  await expect(table.locator("tbody tr").first()).toContainText("°C");
+  await expect(table).not.toContainText(" K");
+  await expectAccessible(page);
+
+  // The PDF speaks the same units; its CSV keeps SI with the unit in each header.
+  const pdf = await manager.get(`/api/pins/${pinId}/report.pdf`);
+  expect(pdf.status()).toBe(200);
+  const parser = new PDFParse({ data: new Uint8Array(await pdf.body()) });
+  const text = (await parser.getText()).text.replace(/\s+/g, " ");
+  await parser.destroy();
+  expect(text).toMatch(new RegExp(`Total volume [0-9.,e+-]+ ${volume}`));
+  expect(text).toContain("°C");
+  const csv = await (await manager.get(`/api/pins/${pinId}/export.csv`)).text();
+  expect(csv).toContain("volume (m3)");
+  expect(csv).toContain("temperature in (K)");
+  await ctx.close();
 });

@@ -2,7 +2,8 @@ import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { route, uuidParam } from "@/lib/http";
 import { getDesignReport } from "@/lib/reports/design-report";
-import { reportFileName } from "@/lib/reports/report-format";
+import { reportFileName, reportUnits } from "@/lib/reports/report-format";
+import { getDisplayPreference } from "@/lib/services/display-units";
 import { renderReportPdf } from "@/lib/reports/report-pdf";
 
 // pdfkit reads its font files from disk: the Node runtime, never the edge.
@@ -14,7 +15,8 @@ type Ctx = { params: Promise<{ pinId: string }> };
 export const GET = route<Ctx>(async (_req, ctx) => {
   const actor = await requireActor();
   const report = await getDesignReport(getDb(), actor, await uuidParam(ctx, "pinId", "pinned design"));
-  const pdf = await renderReportPdf(report);
+  // The PDF speaks the reader's units, like the report page; its CSV and JSON stay SI.
+  const pdf = await renderReportPdf(report, reportUnits(report, await getDisplayPreference(getDb(), actor.userId)));
   return new Response(new Uint8Array(pdf), {
     headers: {
       "Content-Type": "application/pdf",

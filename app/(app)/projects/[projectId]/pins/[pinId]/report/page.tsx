@@ -4,6 +4,7 @@ import { ReportActions } from "@/components/reports/report-actions";
 import { DesignReportView } from "@/components/reports/design-report-view";
 import { getDb } from "@/db/client";
 import { getDesignReport } from "@/lib/reports/design-report";
+import { getDisplayPreference } from "@/lib/services/display-units";
 import { uuidSchema } from "@/lib/schemas/foundation";
 import { loadProjectPage, orNotFound } from "../../../project-data";
 import "./report-print.css";
@@ -32,7 +33,7 @@ export default async function DesignReportPage({ params }: { params: Promise<{ p
         </nav>
         <ReportActions pinId={report.pin.id} />
       </div>
-      <DesignReportView report={report} />
+      <DesignReportView report={report} preference={await getDisplayPreference(getDb(), actor.userId)} />
     </div>
   );
 }
