@@ -2,21 +2,27 @@
 
 import { ResponsiveLine } from "@nivo/line";
 import type { StoredStage } from "@/components/sweeps/types";
+import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatNumber } from "@/lib/charts/volume-units";
+import { fromSI, unitLabel } from "@/lib/units/display";
 
 /** Temperature against conversion through the train (adiabatic stages are straight lines in X). */
 export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
+  // Plotted in the user's temperature unit; the stored values are kelvin.
+  const tUnit = useDisplayUnits().temperature;
+  const t = (k: number) => fromSI("temperature", k, tUnit);
+  const tLabel = unitLabel("temperature", tUnit);
   const data = stages.map((s, i) => ({
     id: `Stage ${i + 1} ${s.type}`,
     data: [
-      { x: s.conversionIn, y: s.temperatureIn },
-      { x: s.conversionOut, y: s.temperatureOut },
+      { x: s.conversionIn, y: t(s.temperatureIn) },
+      { x: s.conversionOut, y: t(s.temperatureOut) },
     ],
   }));
-  const temps = stages.flatMap((s) => [s.temperatureIn, s.temperatureOut]);
+  const temps = stages.flatMap((s) => [t(s.temperatureIn), t(s.temperatureOut)]);
   const lo = Math.min(...temps);
   const hi = Math.max(...temps);
-  const label = `Temperature profile: ${stages.map((s, i) => `stage ${i + 1} ${formatNumber(s.temperatureIn, 5)} to ${formatNumber(s.temperatureOut, 5)} K`).join("; ")}`;
+  const label = `Temperature profile: ${stages.map((s, i) => `stage ${i + 1} ${formatNumber(t(s.temperatureIn), 5)} to ${formatNumber(t(s.temperatureOut), 5)} ${tLabel}`).join("; ")}`;
   return (
     <div role="img" aria-label={label} style={{ height: 200 }} data-testid="temperature-profile">
       <ResponsiveLine
@@ -25,7 +31,7 @@ export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
         xScale={{ type: "linear", min: 0, max: "auto" }}
         yScale={{ type: "linear", min: Math.floor(lo - 2), max: Math.ceil(hi + 2) }}
         axisBottom={{ legend: "Conversion X", legendOffset: 32, legendPosition: "middle", tickValues: 5 }}
-        axisLeft={{ legend: "T, K", legendOffset: -46, legendPosition: "middle", tickValues: 4 }}
+        axisLeft={{ legend: `T, ${tLabel}`, legendOffset: -46, legendPosition: "middle", tickValues: 4 }}
         colors={["#136f67", "#b45309", "#3f51b5", "#a21caf", "#4d7c0f", "#854d0e", "#0369a1", "#6d28d9"]}
         pointSize={6}
         enableGridX={false}
