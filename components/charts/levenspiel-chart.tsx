@@ -2,6 +2,7 @@
 
 import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { chartGeometry, interpolate, ticks, type ChartStage, type Point } from "@/lib/charts/levenspiel-geometry";
+import { tickFormatter } from "./tick-format";
 import { formatNumber, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { STAGE_STYLES, StagePattern } from "./stage-patterns";
 
@@ -80,6 +81,9 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
 
   const xTicks = ticks(geo.xMax, 5).filter((t) => t <= geo.xMax);
   const yTicks = ticks(geo.yMax, 4).filter((t) => t <= geo.yMax);
+  // One notation per axis (components/charts/tick-format.ts).
+  const yTick = tickFormatter(yTicks.map((t) => fromCubicMetres(t, volumeUnit)));
+  const xTick = tickFormatter(xTicks);
   const cursorStage = cursor === null ? undefined : geo.stages.find((s) => cursor >= s.conversionIn && cursor <= s.conversionOut);
   const cursorY = cursor === null ? null : interpolate(geo.curve, cursor);
 
@@ -128,7 +132,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
             <g key={`y${t}`}>
               <line x1={m.left} x2={m.left + innerW} y1={sy(t)} y2={sy(t)} stroke="#eef0f3" />
               <text x={m.left - 6} y={sy(t)} dy="0.32em" textAnchor="end" fontSize={11} fill="#4a5565" className="num">
-                {show(t)}
+                {yTick(fromCubicMetres(t, volumeUnit))}
               </text>
             </g>
           ))}
@@ -136,7 +140,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
             <g key={`x${t}`}>
               <line x1={sx(t)} x2={sx(t)} y1={m.top + innerH} y2={m.top + innerH + 4} stroke="#8a94a3" />
               <text x={sx(t)} y={m.top + innerH + 16} textAnchor="middle" fontSize={11} fill="#4a5565" className="num">
-                {formatNumber(t)}
+                {xTick(t)}
               </text>
             </g>
           ))}
