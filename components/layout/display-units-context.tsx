@@ -1,18 +1,30 @@
 "use client";
 
-import { createContext, useContext, useMemo } from "react";
+import { createContext, useContext, useMemo, useState } from "react";
 import type { UnitKind } from "@/lib/units/display";
 import { DEFAULT_DISPLAY_PREFERENCE, resolveDisplayUnits, type DisplayPreference, type DisplayUnits } from "@/lib/units/display-preference";
 
-const DisplayPreferenceContext = createContext<DisplayPreference>(DEFAULT_DISPLAY_PREFERENCE);
+const DisplayPreferenceContext = createContext<{ preference: DisplayPreference; setPreference: (p: DisplayPreference) => void }>({
+  preference: DEFAULT_DISPLAY_PREFERENCE,
+  setPreference: () => {},
+});
 
-/** The signed-in user's display-unit choice, read once by the signed-in layout. */
-export function DisplayUnitsProvider({ preference, children }: { preference: DisplayPreference; children: React.ReactNode }) {
-  return <DisplayPreferenceContext.Provider value={preference}>{children}</DisplayPreferenceContext.Provider>;
+/**
+ * The signed-in user's display-unit choice, read by the signed-in layout. The settings form sets
+ * it here after saving, so client screens follow at once without refreshing the layout.
+ */
+export function DisplayUnitsProvider({ preference: initial, children }: { preference: DisplayPreference; children: React.ReactNode }) {
+  const [preference, setPreference] = useState(initial);
+  const value = useMemo(() => ({ preference, setPreference }), [preference]);
+  return <DisplayPreferenceContext.Provider value={value}>{children}</DisplayPreferenceContext.Provider>;
 }
 
 export function useDisplayPreference(): DisplayPreference {
-  return useContext(DisplayPreferenceContext);
+  return useContext(DisplayPreferenceContext).preference;
+}
+
+export function useSetDisplayPreference(): (p: DisplayPreference) => void {
+  return useContext(DisplayPreferenceContext).setPreference;
 }
 
 /** The units this screen shows its numbers in (see lib/units/display-preference.ts). */

@@ -1,14 +1,14 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { useHydrated } from "@/components/ui/use-hydrated";
+import { useSetDisplayPreference } from "@/components/layout/display-units-context";
 import { DISPLAY_PREFERENCE_LABEL, DISPLAY_PREFERENCES, type DisplayPreference } from "@/lib/units/display-preference";
 
 /** The one place a user chooses the units results are shown in. */
 export function DisplayUnitsForm({ current }: { current: DisplayPreference }) {
-  const router = useRouter();
+  const setShared = useSetDisplayPreference();
   const hydrated = useHydrated();
   const [choice, setChoice] = useState<DisplayPreference>(current);
   const [saved, setSaved] = useState<DisplayPreference>(current);
@@ -23,8 +23,8 @@ export function DisplayUnitsForm({ current }: { current: DisplayPreference }) {
       const r = await fetchJson<{ displayUnits: DisplayPreference }>("/api/me/display-units", { method: "PUT", json: { displayUnits: choice } });
       setSaved(r.displayUnits);
       setStatus("saved");
-      // The layout reads the choice on the server; refresh so every screen follows it.
-      router.refresh();
+      // Client screens follow at once; server-rendered pages read the saved choice on their next load.
+      setShared(r.displayUnits);
     } catch (err) {
       setStatus("error");
       setError(err instanceof ApiError ? err.message : "The choice was not saved; try again.");

@@ -39,7 +39,6 @@ async function chooseUnits(page: Page, label: RegExp) {
   await page.getByRole("radio", { name: label }).check();
   await page.getByRole("button", { name: "Save units" }).click();
   await expect(page.getByTestId("display-units-status")).toContainText("Saved");
-  // Saving refreshes the server-rendered layout; check the page once its title is back.
   await expect(page).toHaveTitle(/Settings/);
   await expectAccessible(page);
 }
