@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
@@ -45,6 +45,11 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
   const grid = useFieldArray({ control, name: "grid" });
   const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
+  // A message from the last submit describes the values then sent; once any field changes it is stale.
+  useEffect(() => {
+    const sub = form.watch(() => setFormError(undefined));
+    return () => sub.unsubscribe();
+  }, [form]);
   const err = (p: string) => messageAt(formState.errors, p);
 
   const onSubmit = form.handleSubmit(async (body) => {
