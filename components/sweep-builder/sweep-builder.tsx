@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { useRouter } from "next/navigation";
-import { useEffect, useMemo, useState } from "react";
+import { useMemo, useState } from "react";
 import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
@@ -46,14 +46,15 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
   const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
   // A message from the last submit describes the values then sent; once any field changes it is stale.
-  useEffect(() => {
-    const sub = form.watch(() => setFormError(undefined));
-    return () => sub.unsubscribe();
-  }, [form]);
+  // A message from the last submit describes the values then sent; once any field changes it goes.
+  const valuesKey = JSON.stringify([v, uncertainty]);
+  const [sentKey, setSentKey] = useState<string>();
+  const shownError = formError !== undefined && sentKey === valuesKey ? formError : undefined;
   const err = (p: string) => messageAt(formState.errors, p);
 
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(undefined);
+    setSentKey(valuesKey);
     if (uncertaintyValue.error) return setFormError(`Uncertainty: ${uncertaintyValue.error}`);
     try {
       const json = uncertaintyValue.value ? { ...body, robustness: uncertaintyValue.value } : body;
@@ -326,7 +327,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
               </dd>
             </dl>
             {count.optimisations === null ? <p className="text-xs text-ink-soft">Complete the fields marked with ✕ to see the count.</p> : null}
-            {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
+            {shownError ? <FormMessage kind="error">{shownError}</FormMessage> : null}
             <button type="submit" className="btn-primary w-full justify-center" disabled={formState.isSubmitting}>
               {formState.isSubmitting ? "Submitting…" : "Submit sweep"}
             </button>

@@ -17,10 +17,12 @@ export function costColumns() {
       cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span>,
     }),
     // With reuse the rank follows the installed cost above; the all-new figure shows what reuse saves.
-    helper.accessor((c) => c.inventoryPlan?.allNewCost ?? null, {
+    helper.accessor((c) => c.allNewCost ?? null, {
       id: "allNewCost",
       header: COST_COLUMN_TITLES.allNewCost,
-      cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(i.getValue(), 4)}</span>,
+      // Sorted in the database by its own columns only; the rank already follows the cost with reuse.
+      enableSorting: false,
+      cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(i.getValue() as number, 4)}</span>,
     }),
     helper.accessor("reused", {
       header: COST_COLUMN_TITLES.reused,
