@@ -15,6 +15,8 @@ export interface LevenspielChartProps {
   compact?: boolean;
   yMax?: number;
   volumeUnit?: VolumeUnit;
+  /** The stages are alternatives drawn over each other (single-vessel references), not one train in series. */
+  alternatives?: boolean;
 }
 
 const MARGIN = { top: 14, right: 16, bottom: 40, left: 64 };
@@ -40,7 +42,7 @@ function useWidth(fallback: number) {
  * filled area under the curve, each stage in its own colour and pattern and labelled with its
  * volume. Inputs in m3; `volumeUnit` is the unit shown. `compact` draws a thumbnail without axes.
  */
-export function LevenspielChart({ curve, stages, target, equilibrium, height, compact = false, yMax, volumeUnit = "m3" }: LevenspielChartProps) {
+export function LevenspielChart({ curve, stages, target, equilibrium, height, compact = false, yMax, volumeUnit = "m3", alternatives = false }: LevenspielChartProps) {
   const uid = useId().replace(/:/g, "");
   const [wrapRef, width] = useWidth(compact ? 120 : 640);
   const [cursor, setCursor] = useState<number | null>(null);
@@ -57,8 +59,10 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
 
   const summary = stages.length
     ? `Levenspiel chart, ${stages.length} stage${stages.length === 1 ? "" : "s"}: ` +
-      geo.stages.map((s) => `stage ${s.index + 1} ${s.type} from X ${formatNumber(s.conversionIn)} to ${formatNumber(s.conversionOut)}, ${show(s.volume)} ${unit}`).join("; ")
+      geo.stages.map((s) => `${alternatives ? `single ${s.type}` : `stage ${s.index + 1} ${s.type}`} from X ${formatNumber(s.conversionIn)} to ${formatNumber(s.conversionOut)}, ${show(s.volume)} ${unit}`).join("; ")
     : "Levenspiel curve, no stages";
+  // Numbering alternatives "1 CSTR", "2 PFR" would read as a two-stage train.
+  const stageName = (s: { index: number; type: string }) => (alternatives ? `Single ${s.type}` : `${s.index + 1} ${s.type}`);
 
   if (compact) {
     return (
@@ -192,7 +196,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
                 data-testid={`chart-label-${s.index + 1}`}
               >
                 <tspan x={cx} dy="-1.1em" fontWeight={600}>
-                  {s.index + 1} {s.type}
+                  {stageName(s)}
                 </tspan>
                 <tspan x={cx} dy="1.2em">
                   {show(s.volume)} {unit}

@@ -65,7 +65,9 @@ export function PreviewPanel({ specJson, target, onTarget, targetError, onEngine
     else if (query.isSuccess) onEngineErrors({}, null);
   }, [err, query.isSuccess, query.data, onEngineErrors]);
 
-  const p = query.data;
+  // A figure from an earlier draft must not stand beside fields that now hold an error.
+  const current = specJson !== null && targetOk && !err;
+  const p = current ? query.data : undefined;
   const spec = specJson ? (JSON.parse(specJson) as KineticsSpec) : null;
   const v0 = spec && typeof spec.feed.flowA === "number" && typeof spec.feed.concA === "number" ? spec.feed.flowA / spec.feed.concA : null;
   const stages = p
@@ -120,7 +122,7 @@ export function PreviewPanel({ specJson, target, onTarget, targetError, onEngine
 
       <div className="relative mt-3 min-h-[320px]" aria-busy={stale}>
         {p && p.curve.length > 1 ? (
-          <LevenspielChart curve={p.curve} stages={stages} target={p.targetConversion} equilibrium={p.equilibriumConversion} volumeUnit={volumeUnit} height={320} />
+          <LevenspielChart curve={p.curve} stages={stages} target={p.targetConversion} equilibrium={p.equilibriumConversion} volumeUnit={volumeUnit} height={320} alternatives />
         ) : query.isPending && request !== null ? (
           <div className="flex h-[320px] items-center justify-center rounded border border-dashed border-line text-ink-soft" role="status">
             Drawing the curve…
@@ -129,7 +131,11 @@ export function PreviewPanel({ specJson, target, onTarget, targetError, onEngine
           <div className="flex h-[320px] flex-col items-center justify-center gap-1 rounded border border-dashed border-line px-6 text-center text-ink-soft" role="status">
             <p className="font-medium text-ink">No plot yet</p>
             <p className="text-sm">
-              {specJson === null ? "Fix the fields marked with ✕ and the plot appears here." : err ? "The engine cannot draw this draft; see the message below." : "Waiting for the draft…"}
+              {specJson === null
+                ? "Waiting for a valid value in every field: fix the fields marked with ✕ and the plot appears here."
+                : !targetOk
+                  ? "Waiting for a valid target X (a number between 0 and 1)."
+                  : err ? "No plot for this draft; see the message below." : "Waiting for the draft…"}
             </p>
           </div>
         )}

@@ -22,6 +22,12 @@ type StageRow = { key: number; source: "new" | "inventory"; type: "CSTR" | "PFR"
 let next = 1;
 const newRow = (type: "CSTR" | "PFR" = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
 
+/**
+ * Largest vessel the engine rates, m3 (its MAX_RATED_VESSEL; components may not import engine values).
+ * Checked here too so a slip like 1e30 m3 is named at the field before anything is sent.
+ */
+const MAX_VESSEL_M3 = 1e9;
+
 /** Rate a fixed train: stages by type and volume or from the inventory, a target, and the results with cautions. */
 export function RateTrainForm({ projectId, versions }: { projectId: string; versions: { id: string; label: string }[] }) {
   const inventory = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: VesselOption[] }>("/api/inventory") });
@@ -43,6 +49,14 @@ export function RateTrainForm({ projectId, versions }: { projectId: string; vers
       const n = Number(r.volume);
       return { type: r.type, volume: r.volume.trim() !== "" && Number.isFinite(n) ? toSI("volume", n, r.unit) : r.volume };
     });
+    const tooLarge = stages.flatMap((s, i) => ("volume" in s && typeof s.volume === "number" && s.volume > MAX_VESSEL_M3 ? [i] : []));
+    if (tooLarge.length) {
+      setResult(undefined);
+      setErrors(Object.fromEntries(tooLarge.map((i) => [`stages.${i}.volume`, `Stage ${i + 1} volume: at most 1e9 m³ (1 km³); check the number and its unit.`])));
+      setMessage("Nothing was rated: a vessel volume is beyond any plausible vessel.");
+      setBusy(false);
+      return;
+    }
     try {
       const res = await fetchJson<{ rating: RatingAnswer }>(`/api/projects/${projectId}/rate`, {
         method: "POST",

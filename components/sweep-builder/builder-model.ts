@@ -133,22 +133,36 @@ function numberIn(text: string, path: string, issues: BuilderIssue[], required =
 }
 
 function listIn(text: string, path: string, issues: BuilderIssue[]): number[] {
-  const parts = text.split(/[,;\s]+/).filter(Boolean);
+  // A doubled separator ("1,,2") is a value left out, not a separator to skip.
+  const parts = text.trim() ? text.trim().split(/\s*[,;]\s*|\s+/) : [];
   const out = parts.map(Number);
   if (parts.length === 0) issues.push({ path, message: "Give at least one value" });
+  else if (parts.some((p) => p === "")) issues.push({ path, message: "A value is missing between two commas" });
   else if (out.some((n) => !Number.isFinite(n))) issues.push({ path, message: "Separate numbers with commas, e.g. 0.01, 0.02, 0.04" });
   return out;
 }
+
+/** Every swept quantity is a positive amount once in base units (kelvin for temperatures). */
+function positiveValues(values: readonly number[], path: string, issues: BuilderIssue[]): void {
+  if (values.some((n) => Number.isFinite(n) && !(n > 0))) issues.push({ path, message: "Every value must be above zero (above absolute zero for a temperature)" });
+}
+
+/** Largest number of stages the engine designs (its MAX_STAGES; components may not import engine values). */
+const MAX_STAGES = 8;
 
 /** The request body of the form, or the issues at form paths that keep it from being one. */
 export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; issues: BuilderIssue[] } {
   const issues: BuilderIssue[] = [];
   if (!v.kineticsVersionId) issues.push({ path: "kineticsVersionId", message: "Choose a kinetics version" });
-  const target = numberIn(v.target, "target", issues);
+  const targetRaw = numberIn(v.target, "target", issues);
+  const target = targetRaw !== undefined && !(targetRaw > 0 && targetRaw < 1) ? undefined : targetRaw;
+  if (targetRaw !== undefined && target === undefined) issues.push({ path: "target", message: "The target conversion is a number between 0 and 1, e.g. 0.9" });
 
   let train: SweepCreate["train"] | undefined;
   if (v.trainMode === "range") {
-    const maxStages = numberIn(v.maxStages, "maxStages", issues);
+    const stagesRaw = numberIn(v.maxStages, "maxStages", issues);
+    const maxStages = stagesRaw !== undefined && Number.isInteger(stagesRaw) && stagesRaw >= 1 && stagesRaw <= MAX_STAGES ? stagesRaw : undefined;
+    if (stagesRaw !== undefined && maxStages === undefined) issues.push({ path: "maxStages", message: `Up to how many stages: a whole number from 1 to ${MAX_STAGES}` });
     const types = [...(v.useCSTR ? (["CSTR"] as const) : []), ...(v.usePFR ? (["PFR"] as const) : [])];
     if (!types.length) issues.push({ path: "useCSTR", message: "Allow at least one stage type" });
     if (maxStages !== undefined) train = { maxStages, types: [...types], ...(v.equalVolume ? { equalVolume: true } : {}) };
@@ -196,11 +210,17 @@ export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; 
     if (!field) issues.push({ path: `grid.${i}.customField`, message: "Give the dot path of a numeric field, e.g. reaction.rate.k" });
     const si = (n: number) => (preset?.kind && a.unit ? toSI(preset.kind, n, a.unit) : n);
     if (a.kind === "values") {
-      grid.push({ field, values: listIn(a.values, `grid.${i}.values`, issues).map(si) });
+      const values = listIn(a.values, `grid.${i}.values`, issues).map(si);
+      positiveValues(values, `grid.${i}.values`, issues);
+      grid.push({ field, values });
     } else {
       const from = numberIn(a.from, `grid.${i}.from`, issues);
       const to = numberIn(a.to, `grid.${i}.to`, issues);
       const steps = numberIn(a.steps, `grid.${i}.steps`, issues);
+      // A log range's own check ("positive ends") comes from the request schema.
+      if (from !== undefined && a.scale !== "log") positiveValues([si(from)], `grid.${i}.from`, issues);
+      if (to !== undefined && a.scale !== "log") positiveValues([si(to)], `grid.${i}.to`, issues);
+      if (steps !== undefined && !(Number.isInteger(steps) && steps >= 1)) issues.push({ path: `grid.${i}.steps`, message: "Steps: a whole number of 1 or more" });
       if (from !== undefined && to !== undefined && steps !== undefined) grid.push({ field, from: si(from), to: si(to), steps, scale: a.scale });
     }
   });

@@ -1,6 +1,6 @@
 "use client";
 
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { fetchJson } from "@/lib/client/fetch-json";
@@ -21,7 +21,7 @@ export function CostBasisOptions({ projectId }: { projectId: string }) {
   const [status, setStatus] = useState<string>();
   const err = (p: string) => messageAt(formState.errors, p);
 
-  const useProjectBasis = async () => {
+  const fillFromProjectBasis = async () => {
     setStatus("Loading the project's cost basis…");
     try {
       const { costs } = await fetchJson<CostsAnswer>(`/api/projects/${projectId}/costs`);
@@ -41,10 +41,21 @@ export function CostBasisOptions({ projectId }: { projectId: string }) {
     }
   };
 
+  // The cost objective starts from the project's own cost basis, never from made-up numbers: fill it
+  // once when the options first show, unless the engineer has already typed vessel costs.
+  const filled = useRef(false);
+  const typed = formState.dirtyFields.vesselCSTR || formState.dirtyFields.vesselPFR;
+  useEffect(() => {
+    if (filled.current || typed) return;
+    filled.current = true;
+    void fillFromProjectBasis();
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- once, on first show
+  }, []);
+
   return (
     <div className="space-y-3 rounded border border-line p-3">
       <div className="flex flex-wrap items-center gap-3">
-        <button type="button" className="btn-quiet" onClick={useProjectBasis} data-testid="use-project-costs">
+        <button type="button" className="btn-quiet" onClick={fillFromProjectBasis} data-testid="use-project-costs">
           Use the project&apos;s cost basis
         </button>
         <p className="text-xs text-ink-soft" role="status">

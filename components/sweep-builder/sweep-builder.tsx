@@ -45,10 +45,16 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
   const grid = useFieldArray({ control, name: "grid" });
   const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
+  // A message from the last submit describes the values then sent; once any field changes it is stale.
+  // A message from the last submit describes the values then sent; once any field changes it goes.
+  const valuesKey = JSON.stringify([v, uncertainty]);
+  const [sentKey, setSentKey] = useState<string>();
+  const shownError = formError !== undefined && sentKey === valuesKey ? formError : undefined;
   const err = (p: string) => messageAt(formState.errors, p);
 
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(undefined);
+    setSentKey(valuesKey);
     if (uncertaintyValue.error) return setFormError(`Uncertainty: ${uncertaintyValue.error}`);
     try {
       const json = uncertaintyValue.value ? { ...body, robustness: uncertaintyValue.value } : body;
@@ -321,7 +327,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
               </dd>
             </dl>
             {count.optimisations === null ? <p className="text-xs text-ink-soft">Complete the fields marked with ✕ to see the count.</p> : null}
-            {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
+            {shownError ? <FormMessage kind="error">{shownError}</FormMessage> : null}
             <button type="submit" className="btn-primary w-full justify-center" disabled={formState.isSubmitting}>
               {formState.isSubmitting ? "Submitting…" : "Submit sweep"}
             </button>

@@ -2,7 +2,7 @@ import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFe
 import { formatNumber } from "@/lib/charts/volume-units";
 import type { CandidateRow } from "./types";
 
-export const COST_COLUMN_TITLES = { installedCost: "Installed cost", reused: "Reused" } as const;
+export const COST_COLUMN_TITLES = { installedCost: "Installed cost", allNewCost: "Installed, all new", reused: "Reused" } as const;
 
 // The same features as the ranked table, so these columns fit its column list.
 const helper = createColumnHelper<ReturnType<typeof tableFeatures<{ rowSortingFeature: typeof rowSortingFeature; columnVisibilityFeature: typeof columnVisibilityFeature }>>, CandidateRow>();
@@ -15,6 +15,14 @@ export function costColumns() {
     helper.accessor("installedCost", {
       header: COST_COLUMN_TITLES.installedCost,
       cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span>,
+    }),
+    // With reuse the rank follows the installed cost above; the all-new figure shows what reuse saves.
+    helper.accessor((c) => c.allNewCost ?? null, {
+      id: "allNewCost",
+      header: COST_COLUMN_TITLES.allNewCost,
+      // Sorted in the database by its own columns only; the rank already follows the cost with reuse.
+      enableSorting: false,
+      cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(i.getValue() as number, 4)}</span>,
     }),
     helper.accessor("reused", {
       header: COST_COLUMN_TITLES.reused,

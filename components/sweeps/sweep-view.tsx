@@ -101,6 +101,9 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
   const objective = sweep.spec.objective?.minimise ?? "volume";
   const scenarios = scenariosQ.data ?? [];
   const grid2 = twoVariedFields(scenarios);
+  // When the target is a grid variable the base value is not what was run: show the grid's range.
+  const swept = scenarios.map((sc) => sc.overrides["target.conversion"]).filter((x): x is number => typeof x === "number");
+  const targetText = swept.length ? `${Math.min(...swept)}–${Math.max(...swept)} (varied)` : (target ?? "—");
   const page = candidatesQ.data;
   const pages = page ? Math.max(1, Math.ceil(page.total / view.pageSize)) : 1;
   const warnings = thermalWarnings({ thermal: sweep.spec.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
@@ -114,7 +117,7 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
           <p className="mt-1 flex flex-wrap items-center gap-2 text-ink-soft">
             <StatusBadge status={sweep.status} />
             <span>
-              {sweep.total} scenario{sweep.total === 1 ? "" : "s"} · minimise {objective} · target X {target ?? "—"}
+              {sweep.total} scenario{sweep.total === 1 ? "" : "s"} · minimise {objective} · target X {targetText}
             </span>
           </p>
         </div>

@@ -84,6 +84,8 @@ export interface CandidateRow {
   installedCost?: number | null;
   /** Vessels reused from the inventory. */
   reused?: number;
+  /** Installed cost had every vessel been bought new, when the sweep reuses idle vessels. */
+  allNewCost?: number | null;
 }
 
 export interface CandidatePage {

@@ -15,6 +15,7 @@ export function engineSpecOf<T extends Record<string, unknown>>(baseSpec: T): Om
 }
 
 interface CostableRow {
+  rank: number;
   feasible: boolean;
   totalCost: number | null;
   stages: Record<string, unknown>[];
@@ -30,7 +31,7 @@ export function withCosting<R extends CostableRow>(
   sweep: { baseSpec: Record<string, unknown>; inventory: Record<string, unknown>[] | null },
 ): (R & { installedCost: number | null; inventoryPlan: Record<string, unknown> | null })[] {
   const costing = costingOf(sweep.baseSpec);
-  return rows.map((row) => {
+  const costed = rows.map((row) => {
     if (!costing || !row.feasible || row.totalCost === null) return { ...row, installedCost: null, inventoryPlan: null };
     if (!costing.reuseInventory || !sweep.inventory) {
       return { ...row, installedCost: installedCost(row.totalCost, costing.installationFactor), inventoryPlan: null };
@@ -38,4 +39,17 @@ export function withCosting<R extends CostableRow>(
     const plan = planTrain(row.stages as unknown as DesignedStage[], sweep.inventory as unknown as SnapshotVessel[], costing.installationFactor);
     return { ...row, installedCost: plan.totalCost, inventoryPlan: plan as unknown as Record<string, unknown> };
   });
+  return costing?.reuseInventory && sweep.inventory ? rerankByInstalledCost(costed) : costed;
+}
+
+/**
+ * With reuse the engine's order (all-new purchase cost) is not what the user will pay: rank again by
+ * the installed cost with reuse, the engine's rank breaking ties. Only the rank numbers change, never
+ * the order of the array, so callers may still pair rows with other per-row lists by index.
+ */
+function rerankByInstalledCost<R extends { rank: number; feasible: boolean; installedCost: number | null }>(rows: R[]): R[] {
+  const key = (r: R) => (r.feasible && r.installedCost !== null ? r.installedCost : Infinity);
+  const order = rows.map((r, i) => i).sort((i, j) => key(rows[i]) - key(rows[j]) || rows[i].rank - rows[j].rank);
+  const rank = new Map(order.map((i, k) => [i, k + 1]));
+  return rows.map((r, i) => ({ ...r, rank: rank.get(i) as number }));
 }

@@ -5,6 +5,7 @@ import { optimiseOnGrid } from "./dynamic-programme";
 import { equalVolumeBoundaries } from "./equal-volume";
 import { EngineError } from "./errors";
 import { checkTarget, equilibriumConversion } from "./feasibility";
+import { checkRateMagnitude, checkVolumeMagnitude } from "./magnitude";
 import { buildGridTables } from "./grid-tables";
 import { stagePlot } from "./levenspiel";
 import { sharedPath, stageTemperature, type ReactorModel } from "./model";
@@ -138,11 +139,40 @@ function compareClose(p: number, q: number): number {
   return p < q ? -1 : 1;
 }
 
+/**
+ * A stage whose conversion step is below this (absolute, in conversion) does no work: the train it sits
+ * in is the shorter train without it, padded with an empty vessel.
+ */
+export const EMPTY_STAGE_STEP = 1e-6;
+
+function emptyStages(e: Evaluated): number {
+  return e.stages.filter((st) => st.conversionOut - st.conversionIn < EMPTY_STAGE_STEP).length;
+}
+
+function vesselCount(e: Evaluated): number {
+  return e.stages.reduce((s, st) => s + (st.conversionOut - st.conversionIn < EMPTY_STAGE_STEP ? 0 : st.vessels.count), 0);
+}
+
+/**
+ * Ranks by objective; at an equal objective fewer vessels, then less volume, then the shorter train.
+ * Trains with empty stages (see EMPTY_STAGE_STEP) come after every feasible train without one (and before
+ * the infeasible ones), because each is
+ * only a shorter train padded with a vessel that does nothing and would otherwise crowd the top ranks.
+ */
 function rank(evaluated: Evaluated[], model: ReactorModel, target: number, cm: CostModel): CandidateResult[] {
   const order = evaluated
-    .map((e, i) => ({ e, i }))
-    .sort((p, q) => compareClose(p.e.objective, q.e.objective) || compareClose(p.e.totalVolume, q.e.totalVolume) || p.e.sequence.length - q.e.sequence.length || p.i - q.i);
-  return order.map(({ e }, idx) => {
+    .map((e, i) => ({ e, i, empty: Number.isFinite(e.objective) ? emptyStages(e) : 0, vessels: vesselCount(e) }))
+    .sort(
+      (p, q) =>
+        Number(!Number.isFinite(p.e.objective)) - Number(!Number.isFinite(q.e.objective)) ||
+        Number(p.empty > 0) - Number(q.empty > 0) ||
+        compareClose(p.e.objective, q.e.objective) ||
+        p.vessels - q.vessels ||
+        compareClose(p.e.totalVolume, q.e.totalVolume) ||
+        p.e.sequence.length - q.e.sequence.length ||
+        p.i - q.i,
+    );
+  return order.map(({ e, empty }, idx) => {
     const feasible = Number.isFinite(e.objective);
     return {
       rank: idx + 1,
@@ -152,6 +182,7 @@ function rank(evaluated: Evaluated[], model: ReactorModel, target: number, cm: C
       totalCost: feasible && cm.kind === "cost" ? e.objective : null,
       conversionReached: feasible ? e.stages[e.stages.length - 1].conversionOut : null,
       reason: feasible ? null : infeasibleReason(model, e.sequence.length, target),
+      emptyStages: empty,
       stages: e.stages,
     };
   });
@@ -174,6 +205,7 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   const target = spec.target.conversion;
   const ratePath = spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate";
   checkTarget(model, target, rateRange, ratePath);
+  checkRateMagnitude(model, target, ratePath);
   const sequences = enumerateSequences(spec.train);
   const cm = resolveCostModel(spec.objective, [...new Set(sequences.flat())]);
   let evaluated: Evaluated[];
@@ -203,6 +235,8 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   if (!candidates.some((c) => c.feasible)) {
     throw new EngineError("infeasible", `no sequence can reach the target conversion ${target}: ${candidates[0].reason}`, "target.conversion");
   }
+  const best = candidates.find((c) => c.feasible);
+  checkVolumeMagnitude(best?.totalVolume ?? Infinity, "the smallest train's volume", ratePath);
   const eq = equilibriumConversion(model);
   return {
     candidates,

@@ -1,5 +1,6 @@
 import { CAUTIONS } from "./cautions";
 import { ensure } from "./errors";
+import { checkRateMagnitude, MAX_RATED_VESSEL } from "./magnitude";
 import { inletTemperature } from "./model";
 import { cstrSteadyStates, pfrOutlet } from "./rating";
 import { resolveModel } from "./resolve-model";
@@ -15,10 +16,13 @@ import { DIM, toSI } from "./units";
 export function rateTrain(spec: RatingSpec): RatingResult {
   const { model } = resolveModel(spec.feed, spec.reaction);
   ensure(spec.stages.length >= 1 && spec.stages.length <= 8, "give 1..8 stages", "stages");
+  checkRateMagnitude(model, model.upper * (1 - 1e-9), spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate");
   let a = 0;
   const stages: RatedStage[] = spec.stages.map((s, k) => {
     const volume = toSI(s.volume, DIM.volume, `stages.${k}.volume`);
     ensure(volume >= 0, "a stage volume must be >= 0", `stages.${k}.volume`);
+    // A typing slip of a few orders of magnitude must not be rated as if it were a vessel.
+    ensure(volume <= MAX_RATED_VESSEL, `a stage volume must be at most ${MAX_RATED_VESSEL.toExponential(0).replace("e+", "e")} m3 (1 km3)`, `stages.${k}.volume`);
     const first = k === 0;
     const states =
       s.type === "CSTR"

@@ -256,6 +256,11 @@ export interface CandidateResult {
   conversionReached?: number | null;
   /** Why the sequence is infeasible; null when feasible. */
   reason: string | null;
+  /**
+   * Stages whose conversion step is negligible (below 1e-6): the train is a shorter one padded with
+   * vessels that do nothing, ranked after every train without such a stage. Absent in older results.
+   */
+  emptyStages?: number;
   /** Stages; empty when infeasible. */
   stages: StageResult[];
 }

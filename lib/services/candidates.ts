@@ -8,6 +8,9 @@ import type { CandidateQuery } from "@/lib/schemas/sweeps";
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
 const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedCount')::int, 0)`;
 
+/** Installed cost had every vessel been bought new (null without a reuse plan). */
+const allNewCost = sql<number | null>`(${candidates.inventoryPlan}->>'allNewCost')::float8`;
+
 const SORT_COLUMNS = {
   rank: [candidates.rank],
   totalVolume: [candidates.totalVolume],
@@ -34,6 +37,7 @@ const summaryColumns = {
   stages: candidates.stages,
   installedCost: candidates.installedCost,
   reused: reusedCount.mapWith(Number),
+  allNewCost,
 };
 
 /** One scenario's ranked candidates, sorted, filtered and paged in the database. */

@@ -49,11 +49,30 @@ describe("installed cost", () => {
 
   it("is written on feasible candidates of a costed sweep, and null otherwise", () => {
     const rows = [
-      { feasible: true, totalCost: 100000, stages: [] },
-      { feasible: false, totalCost: null, stages: [] },
+      { rank: 1, feasible: true, totalCost: 100000, stages: [] },
+      { rank: 2, feasible: false, totalCost: null, stages: [] },
     ];
     const costed = withCosting(rows, { baseSpec: { costing: { installationFactor: 3.5 } }, inventory: null });
     expect(costed.map((r) => r.installedCost)).toEqual([350000, null]);
     expect(withCosting(rows, { baseSpec: {}, inventory: null }).map((r) => r.installedCost)).toEqual([null, null]);
+  });
+});
+
+describe("rank with reuse of idle vessels", () => {
+  const stage = (type: "CSTR" | "PFR", volume: number, cost: number) => ({ type, volume, vessels: { count: 1, sizeEach: volume }, cost });
+  it("follows the installed cost with reuse, not the all-new cost, and keeps the row order", () => {
+    // Worked example of our own: factor 1; rank 1 and 2 buy new (1,000 and 1,200); rank 3 would cost
+    // 3,000 new but an idle 2 m3 CSTR serves it for 500, so with reuse it costs the least.
+    const rows = [
+      { rank: 1, feasible: true, totalCost: 1000, stages: [stage("PFR", 1, 1000)] },
+      { rank: 2, feasible: true, totalCost: 1200, stages: [stage("PFR", 1.2, 1200)] },
+      { rank: 3, feasible: true, totalCost: 3000, stages: [stage("CSTR", 2, 3000)] },
+      { rank: 4, feasible: false, totalCost: null, stages: [] },
+    ];
+    const inventory = [{ id: "v1", tag: "R-1", type: "CSTR", volume: 2, available: true, reuseCost: 500 }];
+    const costed = withCosting(rows, { baseSpec: { costing: { installationFactor: 1, reuseInventory: true } }, inventory });
+    expect(costed.map((r) => r.installedCost)).toEqual([1000, 1200, 500, null]);
+    expect(costed.map((r) => r.rank)).toEqual([2, 3, 1, 4]);
+    expect(costed.map((r) => (r.inventoryPlan as { allNewCost: number } | null)?.allNewCost ?? null)).toEqual([1000, 1200, 3000, null]);
   });
 });
