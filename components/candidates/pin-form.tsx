@@ -15,7 +15,7 @@ interface ProjectPin {
 }
 
 /** One name per state, the same words as the project's pinned designs. */
-const PIN_STATE: Record<"proposed" | "approved", string> = { proposed: "waiting for review", approved: "approved" };
+const PIN_STATE: Record<"proposed" | "approved", string> = { proposed: "pending review", approved: "approved" };
 
 /**
  * "Pin to project" with a note: proposes the train for the design basis, for a manager to review.
@@ -73,7 +73,7 @@ export function PinForm({ candidateId, projectId, feasible, canPin }: { candidat
       <textarea id="pin-note" className="input min-h-20" maxLength={2000} value={note} onChange={(e) => setNote(e.target.value)} placeholder="Why this train, what to check" />
       {current ? (
         <p className="text-xs text-ink-soft" data-testid="pin-supersede-note">
-          {projectName} already has {current.state === "proposed" ? "a design waiting for review" : "an approved design"} ({currentTrain}); pinning this train supersedes it.
+          {projectName} already has {current.state === "proposed" ? "a design pending review" : "an approved design"} ({currentTrain}); pinning this train supersedes it.
         </p>
       ) : null}
       <div className="flex items-center gap-3">
@@ -97,7 +97,7 @@ export function PinForm({ candidateId, projectId, feasible, canPin }: { candidat
         onCancel={() => setAsking(false)}
       >
         {current?.state === "proposed"
-          ? `A ${currentTrain} design is waiting for review in ${projectName}. The new pin will supersede it, and the review will be of this train instead.`
+          ? `A ${currentTrain} design in ${projectName} is pending review. The new pin will supersede it, and the review will be of this train instead.`
           : `The approved ${currentTrain} design of ${projectName} will be superseded by this pin, which then waits for review.`}
       </ConfirmDialog>
     </form>

@@ -66,11 +66,11 @@ test("a candidate already pinned says so, pinning over a waiting design warns fi
   await appReady(page);
   await page.getByLabel("Note for the reviewer").fill("first choice");
   await page.getByTestId("pin-button").click();
-  await expect(page.getByTestId("pin-done")).toHaveText(new RegExp(`Pinned to ${projectName} — waiting for review`));
+  await expect(page.getByTestId("pin-done")).toHaveText(new RegExp(`Pinned to ${projectName} — pending review`));
   await expect(page.getByTestId("pin-button")).toHaveCount(0);
   await page.reload();
   await appReady(page);
-  await expect(page.getByTestId("pin-done")).toContainText("waiting for review");
+  await expect(page.getByTestId("pin-done")).toContainText("pending review");
 
   // The second candidate: the warning, Escape changes nothing, confirming supersedes.
   await page.goto(`/projects/${projectId}/sweeps/${sweep.id}/candidates/${second.id}`);
@@ -78,7 +78,7 @@ test("a candidate already pinned says so, pinning over a waiting design warns fi
   await expect(page.getByTestId("pin-supersede-note")).toContainText("supersedes it");
   await page.getByTestId("pin-button").click();
   const dialog = page.getByRole("dialog", { name: "Supersede the current design?" });
-  await expect(dialog).toContainText("waiting for review");
+  await expect(dialog).toContainText("pending review");
   await expectAccessible(page);
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
@@ -86,7 +86,7 @@ test("a candidate already pinned says so, pinning over a waiting design warns fi
   expect(before.pins.map((p) => p.state)).toEqual(["proposed"]);
   await page.getByTestId("pin-button").click();
   await dialog.getByRole("button", { name: "Pin and supersede" }).click();
-  await expect(page.getByTestId("pin-done")).toContainText("waiting for review");
+  await expect(page.getByTestId("pin-done")).toContainText("pending review");
   const after = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string; candidateId: string; state: string }[] };
   expect(after.pins.map((p) => p.state).sort()).toEqual(["proposed", "superseded"]);
   const pin = after.pins.find((p) => p.state === "proposed")!;
