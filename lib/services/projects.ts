@@ -62,7 +62,7 @@ export async function getProjectById(db: Database, actor: Actor, id: string): Pr
  * same name at once cannot both get through; no unique index, to keep the migration path free.
  */
 async function assertNameFree(tx: Pick<Database, "select">, teamId: string, name: string, exceptId?: string) {
-  const folded = (col: unknown) => sql`lower(regexp_replace(btrim(${col}), '\s+', ' ', 'g'))`;
+  const folded = (col: unknown) => sql`lower(regexp_replace(btrim(${col}), '[[:space:]]+', ' ', 'g'))`;
   const filters = [eq(projects.teamId, teamId), sql`${folded(projects.name)} = ${folded(sql`${name}::text`)}`];
   if (exceptId) filters.push(ne(projects.id, exceptId));
   const [clash] = await tx.select({ name: projects.name }).from(projects).where(and(...filters)).limit(1);
