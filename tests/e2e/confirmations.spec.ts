@@ -140,8 +140,9 @@ test("a second project with the same name, whatever its case and spacing, is ref
   const page = await browserCtx.newPage();
   await page.goto("/");
   await appReady(page);
-  await page.getByLabel("New project").fill(name.toLowerCase());
-  await page.getByRole("button", { name: "Create project" }).click();
+  const form = page.getByRole("form", { name: "New project" });
+  await form.getByLabel("New project").fill(name.toLowerCase());
+  await form.getByRole("button", { name: "Create project" }).click();
   await expect(page.getByText(`A project named ${name} already exists`)).toBeVisible();
   await page.close();
 });
