@@ -79,6 +79,7 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "post", path: "/api/candidates/{candidateId}/pin", summary: "Pin a candidate to its project for review", body: pinCreateSchema, status: 201 },
   { method: "get", path: "/api/projects/{projectId}/pins", summary: "Pinned designs of a project (viewers: approved only)" },
   { method: "get", path: "/api/pins/{pinId}", summary: "A pinned design with its frozen candidate and spec" },
+  { method: "get", path: "/api/reviews", summary: "Designs waiting for the signed-in manager's review, oldest first, with their count" },
   { method: "post", path: "/api/pins/{pinId}/review", summary: "Approve or reject a proposed design (managers)", body: reviewSchema },
   { method: "get", path: "/api/pins/{pinId}/report.pdf", summary: "The design report of a pinned design as an A4 PDF (attachment)" },
   { method: "get", path: "/api/pins/{pinId}/export.json", summary: "The design report of a pinned design as JSON, with the cautions (attachment)" },

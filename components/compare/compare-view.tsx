@@ -44,10 +44,19 @@ export function CompareView() {
   const list = q.data;
   const fewest = Math.min(...list.map((c) => c.stageCount));
   const anyCost = list.some((c) => c.totalCost !== null);
-  const cols = list.length === 3 ? "lg:grid-cols-3" : "lg:grid-cols-2";
+  // One train per row: side by side, a stage table lost its volume column at 1280 and 1024 px.
+  const cols = "grid-cols-1";
+  const sweepsCompared = [...new Map(list.map((c) => [c.sweep.id, c.sweep])).values()];
 
   return (
     <div className="space-y-5">
+      <nav aria-label="Back to the sweeps compared" className="flex flex-wrap gap-3 text-sm" data-testid="compare-back">
+        {sweepsCompared.map((sw) => (
+          <Link key={sw.id} href={`/projects/${sw.projectId}/sweeps/${sw.id}`} className="text-accent-700 hover:underline">
+            ← Back to sweep {sw.name}
+          </Link>
+        ))}
+      </nav>
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div>
           <h1>Compare {list.length} trains</h1>

@@ -2,6 +2,7 @@
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber } from "@/lib/charts/volume-units";
@@ -24,15 +25,24 @@ export function InventoryScreen() {
   const client = useQueryClient();
   const q = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: Vessel[]; permissions: { manage: boolean } }>("/api/inventory") });
   const [error, setError] = useState<string>();
+  // One notice for the whole screen, so "Added R-402." never outlives R-402 being removed.
+  const [notice, setNotice] = useState<string>();
+  const [removing, setRemoving] = useState<Vessel>();
   const refresh = () => client.invalidateQueries({ queryKey: ["inventory"] });
   const change = useMutation({
-    mutationFn: (a: { id: string; body?: Partial<Vessel>; remove?: boolean }) =>
+    mutationFn: (a: { id: string; tag: string; body?: Partial<Vessel>; remove?: boolean }) =>
       a.remove ? fetchJson(`/api/inventory/${a.id}`, { method: "DELETE" }) : fetchJson(`/api/inventory/${a.id}`, { method: "PATCH", json: a.body }),
-    onSuccess: () => {
+    onSuccess: (_r, a) => {
       setError(undefined);
+      setNotice(a.remove ? `Removed ${a.tag}.` : `${a.tag} marked ${a.body?.available ? "available" : "in use"}.`);
+      setRemoving(undefined);
       return refresh();
     },
-    onError: (e) => setError(e instanceof ApiError ? e.message : "Could not reach the server."),
+    onError: (e) => {
+      setRemoving(undefined);
+      setNotice(undefined);
+      setError(e instanceof ApiError ? e.message : "Could not reach the server.");
+    },
   });
 
   if (q.isPending) return <p className="text-ink-soft">Loading the inventory…</p>;
@@ -72,10 +82,10 @@ export function InventoryScreen() {
                     <td>{v.location || <span className="text-ink-soft">—</span>}</td>
                     {permissions.manage ? (
                       <td className="whitespace-nowrap">
-                        <button type="button" className="btn-quiet py-0.5" onClick={() => change.mutate({ id: v.id, body: { available: !v.available } })} aria-label={`Mark ${v.tag} ${v.available ? "in use" : "available"}`}>
+                        <button type="button" className="btn-quiet py-0.5" onClick={() => change.mutate({ id: v.id, tag: v.tag, body: { available: !v.available } })} aria-label={`Mark ${v.tag} ${v.available ? "in use" : "available"}`}>
                           {v.available ? "Mark in use" : "Mark available"}
                         </button>{" "}
-                        <button type="button" className="btn-danger py-0.5" onClick={() => change.mutate({ id: v.id, remove: true })} aria-label={`Remove ${v.tag}`}>
+                        <button type="button" className="btn-danger py-0.5" onClick={() => setRemoving(v)} aria-label={`Remove ${v.tag}`}>
                           Remove
                         </button>
                       </td>
@@ -86,6 +96,11 @@ export function InventoryScreen() {
             </table>
           </div>
         )}
+        {notice ? (
+          <div className="p-3" data-testid="inventory-notice">
+            <FormMessage kind="info">{notice}</FormMessage>
+          </div>
+        ) : null}
         {error ? (
           <div className="p-3">
             <FormMessage kind="error">{error}</FormMessage>
@@ -94,12 +109,27 @@ export function InventoryScreen() {
       </section>
       {permissions.manage ? (
         <div className="grid gap-5 lg:grid-cols-2">
-          <VesselForm onSaved={refresh} />
+          <VesselForm
+            onSaved={(tag) => {
+              setNotice(`Added ${tag}.`);
+              return refresh();
+            }}
+          />
           <InventoryUpload onImported={refresh} />
         </div>
       ) : (
         <p className="text-sm text-ink-soft">Your role reads the inventory but does not change it.</p>
       )}
+      <ConfirmDialog
+        open={!!removing}
+        title={`Remove ${removing?.tag ?? "this vessel"}?`}
+        confirmLabel="Remove vessel"
+        busy={change.isPending}
+        onConfirm={() => removing && change.mutate({ id: removing.id, tag: removing.tag, remove: true })}
+        onCancel={() => setRemoving(undefined)}
+      >
+        {removing ? `${removing.tag} (${removing.type}, ${formatNumber(removing.volume, 4)} m³) leaves the idle-vessel inventory and is no longer offered for reuse in sweeps.` : null}
+      </ConfirmDialog>
     </div>
   );
 }

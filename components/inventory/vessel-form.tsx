@@ -9,7 +9,7 @@ import { toSI } from "@/lib/units/display";
 const EMPTY = { tag: "", type: "CSTR", volume: "", unit: "m3", reuseCost: "0", location: "" };
 
 /** Adds one idle vessel; the volume is sent in m3 whatever unit it was typed in. */
-export function VesselForm({ onSaved }: { onSaved: () => void }) {
+export function VesselForm({ onSaved }: { onSaved: (tag: string) => void }) {
   const [f, setF] = useState(EMPTY);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<{ kind: "error" | "info"; text: string }>();
@@ -27,8 +27,8 @@ export function VesselForm({ onSaved }: { onSaved: () => void }) {
       });
       setErrors({});
       setF(EMPTY);
-      setMessage({ kind: "info", text: `Added ${f.tag}.` });
-      onSaved();
+      // The screen announces "Added …" beside the table, where later removals are announced too.
+      onSaved(f.tag);
     } catch (err) {
       if (!(err instanceof ApiError)) return setMessage({ kind: "error", text: "Could not reach the server; nothing was saved." });
       setErrors(Object.fromEntries(Object.entries(err.fields).map(([k, m]) => [k, m.join(" ")])));

@@ -8,6 +8,7 @@ import { fetchJson } from "@/lib/client/fetch-json";
 import { Brand } from "./brand";
 import { RoleBadge } from "./role-badge";
 import { useHydrated } from "@/components/ui/use-hydrated";
+import { ReviewCount } from "@/components/reviews/review-count";
 
 export interface HeaderProps {
   userName: string;
@@ -45,6 +46,7 @@ export function AppHeader({ userName, userEmail, teamId, teamName, role, teams }
               </Link>
             );
           })}
+          {role === "manager" || role === "admin" ? <ReviewCount active={pathname.startsWith("/reviews")} /> : null}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm">
           {teams.length > 1 ? (

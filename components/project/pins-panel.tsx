@@ -137,7 +137,8 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
   );
 }
 
-function ReviewForm({ pinId }: { pinId: string }) {
+/** Approve or send back one proposed design; onDone lets a list other than the project page refresh itself. */
+export function ReviewForm({ pinId, onDone }: { pinId: string; onDone?: () => unknown }) {
   const router = useRouter();
   const [comment, setComment] = useState("");
   const [error, setError] = useState<string>();
@@ -150,6 +151,7 @@ function ReviewForm({ pinId }: { pinId: string }) {
     setError(undefined);
     try {
       await fetchJson(`/api/pins/${pinId}/review`, { method: "POST", json: parsed.data });
+      await onDone?.();
       router.refresh();
     } catch (e) {
       setError(e instanceof ApiError ? (e.fields.comment?.join(" ") ?? e.message) : "Could not reach the server; nothing was recorded.");

@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import type { Role } from "@/db/schema";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Field, FormMessage } from "@/components/ui/field";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ROLES } from "@/lib/authz/policy";
@@ -37,17 +38,20 @@ export function MembersPanel({ selfId }: { selfId: string }) {
     queryFn: () => fetchJson<{ invitations: Invitation[] }>("/api/team/invitations").then((r) => r.invitations),
   });
   const [error, setError] = useState<string>();
+  // What waits for confirmation: a role change (the select shows the old role until confirmed) or a revocation.
+  const [pendingRole, setPendingRole] = useState<{ userId: string; email: string; from: Role; role: Role }>();
+  const [pendingRevoke, setPendingRevoke] = useState<Invitation>();
   const refresh = () => Promise.all([qc.invalidateQueries({ queryKey: ["members"] }), qc.invalidateQueries({ queryKey: ["invitations"] })]);
 
   const changeRole = useMutation({
     mutationFn: ({ userId, role }: { userId: string; role: Role }) => fetchJson(`/api/team/members/${userId}`, { method: "PATCH", json: { role } }),
-    onSuccess: () => (setError(undefined), refresh()),
-    onError: (e) => setError(message(e)),
+    onSuccess: () => (setError(undefined), setPendingRole(undefined), refresh()),
+    onError: (e) => (setPendingRole(undefined), setError(message(e))),
   });
   const revoke = useMutation({
     mutationFn: (id: string) => fetchJson(`/api/team/invitations/${id}`, { method: "DELETE" }),
-    onSuccess: () => (setError(undefined), refresh()),
-    onError: (e) => setError(message(e)),
+    onSuccess: () => (setError(undefined), setPendingRevoke(undefined), refresh()),
+    onError: (e) => (setPendingRevoke(undefined), setError(message(e))),
   });
 
   return (
@@ -76,7 +80,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                     className="input py-1"
                     value={m.role}
                     disabled={changeRole.isPending || m.userId === selfId}
-                    onChange={(e) => changeRole.mutate({ userId: m.userId, role: e.target.value as Role })}
+                    onChange={(e) => setPendingRole({ userId: m.userId, email: m.email, from: m.role, role: e.target.value as Role })}
                   >
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
@@ -112,7 +116,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                   <td>{i.role}</td>
                   <td className="tabular-nums">{day.format(new Date(i.expiresAt))}</td>
                   <td className="text-right">
-                    <button type="button" className="btn-danger py-1" onClick={() => revoke.mutate(i.id)} disabled={revoke.isPending}>
+                    <button type="button" className="btn-danger py-1" onClick={() => setPendingRevoke(i)} disabled={revoke.isPending} aria-label={`Revoke the invitation of ${i.email}`}>
                       Revoke
                     </button>
                   </td>
@@ -122,6 +126,27 @@ export function MembersPanel({ selfId }: { selfId: string }) {
           </table>
         )}
       </section>
+      <ConfirmDialog
+        open={!!pendingRole}
+        title={`Change the role of ${pendingRole?.email ?? ""}?`}
+        confirmLabel={`Make ${pendingRole?.role ?? ""}`}
+        tone="primary"
+        busy={changeRole.isPending}
+        onConfirm={() => pendingRole && changeRole.mutate({ userId: pendingRole.userId, role: pendingRole.role })}
+        onCancel={() => setPendingRole(undefined)}
+      >
+        {pendingRole ? `${pendingRole.email} goes from ${pendingRole.from} to ${pendingRole.role}; what they may see and change follows at once.` : null}
+      </ConfirmDialog>
+      <ConfirmDialog
+        open={!!pendingRevoke}
+        title={`Revoke the invitation of ${pendingRevoke?.email ?? ""}?`}
+        confirmLabel="Revoke invitation"
+        busy={revoke.isPending}
+        onConfirm={() => pendingRevoke && revoke.mutate(pendingRevoke.id)}
+        onCancel={() => setPendingRevoke(undefined)}
+      >
+        The link already mailed stops working; you can invite the same address again later.
+      </ConfirmDialog>
     </div>
   );
 }

@@ -3,7 +3,7 @@
  * the JSON export and the CSV export all render. Sections whose tables hold no row say so
  * ("not recorded") rather than disappearing, so a reader sees what was never done.
  */
-import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { CAUTION_TEXTS, thermalWarnings } from "@/components/cautions/cautions";
 import type { Database } from "@/db/client";
 import { projects, users } from "@/db/schema";
@@ -363,7 +363,16 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
     db
       .select({ id: robustnessRuns.id, request: robustnessRuns.request, result: robustnessRuns.result, finishedAt: robustnessRuns.finishedAt })
       .from(robustnessRuns)
-      .where(and(eq(robustnessRuns.pinId, pin.id), eq(robustnessRuns.teamId, actor.teamId), eq(robustnessRuns.status, "succeeded")))
+      // Looked up when the report is built rather than copied at pin time: a run started on the
+      // candidate before (or after) pinning rates the same frozen train and scenario, and pins
+      // made before this lookup existed get their candidate's run too.
+      .where(
+        and(
+          pin.candidateId ? or(eq(robustnessRuns.pinId, pin.id), and(isNull(robustnessRuns.pinId), eq(robustnessRuns.candidateId, pin.candidateId))) : eq(robustnessRuns.pinId, pin.id),
+          eq(robustnessRuns.teamId, actor.teamId),
+          eq(robustnessRuns.status, "succeeded"),
+        ),
+      )
       // Latest finished first; a run without a finish time (should not happen once succeeded) goes last.
       .orderBy(sql`${robustnessRuns.finishedAt} desc nulls last`, desc(robustnessRuns.createdAt))
       .limit(1),

@@ -1,8 +1,8 @@
-import { and, asc, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, isNull, ne, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { projects, users, type Project } from "@/db/schema";
 import { assertCan, can, type Actor } from "@/lib/authz/policy";
-import { notFound } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
 import type { ProjectCreate, ProjectUpdate } from "@/lib/schemas/foundation";
 import { recordAudit } from "./audit";
 
@@ -55,9 +55,34 @@ export async function getProjectById(db: Database, actor: Actor, id: string): Pr
   return toView(actor, row);
 }
 
+/**
+ * Two projects of one team may not share a name, compared without case and with runs of spaces
+ * folded, archived ones included (restoring one would bring the clash back). Checked inside the
+ * create or rename transaction after locking the team's project rows, so two people typing the
+ * same name at once cannot both get through; no unique index, to keep the migration path free.
+ */
+async function assertNameFree(tx: Pick<Database, "select">, teamId: string, name: string, exceptId?: string) {
+  const folded = (col: unknown) => sql`lower(regexp_replace(btrim(${col}), '[[:space:]]+', ' ', 'g'))`;
+  const filters = [eq(projects.teamId, teamId), sql`${folded(projects.name)} = ${folded(sql`${name}::text`)}`];
+  if (exceptId) filters.push(ne(projects.id, exceptId));
+  const [clash] = await tx.select({ name: projects.name }).from(projects).where(and(...filters)).limit(1);
+  if (clash) {
+    const text = `A project named ${clash.name} already exists`;
+    // The message names the field by its label on screen; the form shows the field's own line.
+    throw new AppError("conflict", `Project name: ${text}`, { fields: { name: [text] } });
+  }
+}
+
+/** Serialises name checks within one team: a transaction-scoped advisory lock keyed on the team. */
+async function lockTeamNames(tx: Pick<Database, "execute">, teamId: string) {
+  await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${"project-names:" + teamId}))`);
+}
+
 export async function createProject(db: Database, actor: Actor, input: ProjectCreate): Promise<Project> {
   assertCan(actor, "project.create");
   return db.transaction(async (tx) => {
+    await lockTeamNames(tx, actor.teamId);
+    await assertNameFree(tx, actor.teamId, input.name);
     const [row] = await tx
       .insert(projects)
       .values({ teamId: actor.teamId, name: input.name, description: input.description, createdBy: actor.userId })
@@ -86,6 +111,10 @@ export async function updateProject(db: Database, actor: Actor, id: string, inpu
     if (input.name !== undefined || input.description !== undefined) assertCan(actor, "project.update", current, "project");
     if (archiving) assertCan(actor, "project.archive", current, "project");
 
+    if (input.name !== undefined) {
+      await lockTeamNames(tx, actor.teamId);
+      await assertNameFree(tx, actor.teamId, input.name, id);
+    }
     const changes: Partial<Project> = { updatedAt: new Date() };
     if (input.name !== undefined) changes.name = input.name;
     if (input.description !== undefined) changes.description = input.description;

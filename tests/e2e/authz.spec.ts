@@ -192,6 +192,7 @@ const ROWS: Row[] = [
     call: (c) => c.post(`/api/candidates/${ids.candidates[1]}/pin`, { data: { note: "matrix" } }),
     expect: { admin: 201, manager: 201, engineer: 201, viewer: 403, otherTeam: 404, anonymous: 401 },
   },
+  { route: "GET /api/reviews", call: (c) => c.get("/api/reviews"), expect: { admin: 200, manager: 200, engineer: 403, viewer: 403, otherTeam: 200, anonymous: 401 } },
   { route: "GET /api/projects/:id/pins", call: (c) => c.get(`/api/projects/${ids.project}/pins`), expect: { admin: 200, manager: 200, engineer: 200, viewer: 200, otherTeam: 404, anonymous: 401 } },
   {
     route: "GET /api/pins/:id (a proposed pin: hidden from viewers)",

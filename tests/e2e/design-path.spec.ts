@@ -129,6 +129,10 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   expect(train).toMatch(/^(CSTR|PFR)( → (CSTR|PFR))?$/);
   await page.getByLabel("Note for the reviewer").fill(note);
   await page.getByTestId("pin-button").click();
+  // The project may already hold a current design (the seeded one, or another spec's): then pinning asks first.
+  const supersede = page.getByRole("dialog", { name: "Supersede the current design?" });
+  await expect(page.getByTestId("pin-done").or(supersede)).toBeVisible();
+  if (await supersede.isVisible()) await supersede.getByRole("button", { name: "Pin and supersede" }).click();
   await expect(page.getByTestId("pin-done")).toBeVisible();
   await page.getByTestId("pin-done").getByRole("link", { name: "Open the project" }).click();
   const pinned = page.getByTestId("pin").filter({ hasText: note });

@@ -118,6 +118,10 @@ test("sweep page: progress to 100 %, heat map, sort by volume kept in the URL, c
   await page.screenshot({ path: `${SCREENS}/candidate.png`, fullPage: true });
   await page.getByLabel("Note for the reviewer").fill("Smallest train at the design feed; check the jacket duty");
   await page.getByTestId("pin-button").click();
+  // The project may already hold a current design (the seeded one, or another spec's): then pinning asks first.
+  const supersede = page.getByRole("dialog", { name: "Supersede the current design?" });
+  await expect(page.getByTestId("pin-done").or(supersede)).toBeVisible();
+  if (await supersede.isVisible()) await supersede.getByRole("button", { name: "Pin and supersede" }).click();
   await expect(page.getByTestId("pin-done")).toBeVisible();
   await page.close();
 });

@@ -19,6 +19,7 @@ import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
 import { createVessel, deleteVessel, getVessel, importInventory, listInventory, updateVessel } from "@/lib/services/inventory";
 import { rateFixedTrain } from "@/lib/services/rating";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
+import { listReviewInbox } from "@/lib/services/reviews";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
 
 type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
@@ -107,6 +108,7 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
     run: (a) => saveFitAsKinetics(t.db, a, datasetVersionId, { law: "power", modelName: `Fit by ${a.role} ${Math.random()}`, feed: { flowA: 0.1, concA: 1000 }, note: "" }),
     expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" },
   },
+  { name: "list the designs waiting for review", run: (a) => listReviewInbox(t.db, a), expect: { admin: "ok", manager: "ok", engineer: "forbidden", viewer: "forbidden", otherTeam: "ok" } },
   { name: "read the design report of a proposed pin", run: (a) => getDesignReport(t.db, a, demoPin.id), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "not_found", otherTeam: "not_found" } },
   { name: "export a scenario's candidates", run: (a) => exportCandidates(t.db, a, demoPin.sweepId, 0, { sort: "rank", dir: "asc" }), expect: { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" } },
   // Robustness runs: a candidate's follow sweep.read; the demo pin is proposed, so hidden from viewers.
@@ -168,6 +170,31 @@ describe("authorisation matrix over the services", () => {
     expect(members.map((m) => m.email)).toEqual([EMAILS.otherTeam]);
     const audit = await listAuditEntries(t.db, actors.otherTeam);
     expect(audit.every((e) => e.entityId !== engineersProject)).toBe(true);
+  });
+
+  it("the review inbox holds the team's waiting pins, oldest first, and never another team's", async () => {
+    // The seeded demo pin is proposed by the engineer: it waits for the manager, not for its author.
+    const mine = await listReviewInbox(t.db, actors.manager);
+    expect(mine.map((r) => r.pinId)).toContain(demoPin.id);
+    const times = mine.map((r) => r.pinnedAt.getTime());
+    expect(times).toEqual([...times].sort((a, b) => a - b));
+    const theirs = await listReviewInbox(t.db, actors.otherTeam);
+    expect(theirs.map((r) => r.pinId)).not.toContain(demoPin.id);
+    expect(theirs.every((r) => r.projectId !== engineersProject)).toBe(true);
+  });
+
+  it("a second project of the same name, in any case or spacing, is refused naming Project name", async () => {
+    const first = await createProject(t.db, actors.engineer, { name: "Glycol  Dehydration Study", description: "" });
+    const err = await createProject(t.db, actors.engineer, { name: " glycol dehydration study ", description: "" }).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(AppError);
+    expect((err as AppError).code).toBe("conflict");
+    expect((err as AppError).message).toContain("Project name");
+    expect((err as AppError).fields?.name?.[0]).toBe(`A project named ${first.name} already exists`);
+    const renamed = await updateProject(t.db, actors.engineer, engineersProject, { name: "GLYCOL DEHYDRATION STUDY" }).catch((e: unknown) => e);
+    expect(renamed).toBeInstanceOf(AppError);
+    expect((renamed as AppError).code).toBe("conflict");
+    // Another team may use the name.
+    expect(await outcomeOf(() => createProject(t.db, actors.otherTeam, { name: "Glycol Dehydration Study", description: "" }))).toBe("ok");
   });
 
   it("invitations: only admins create and revoke, only in their own team", async () => {

@@ -1,0 +1,61 @@
+"use client";
+
+import Link from "next/link";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { ReviewForm } from "@/components/project/pins-panel";
+import { StageBadges } from "@/components/sweeps/stage-badges";
+import { ErrorPanel, LoadingPanel } from "@/components/sweeps/states";
+import { fetchJson } from "@/lib/client/fetch-json";
+import { formatQuantity } from "@/lib/units/display";
+import { REVIEWS_QUERY, type ReviewsAnswer } from "./reviews-query";
+
+const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+/** Designs waiting for this manager's review across the team's projects, oldest first. */
+export function ReviewInbox() {
+  const qc = useQueryClient();
+  const q = useQuery({ queryKey: REVIEWS_QUERY, queryFn: () => fetchJson<ReviewsAnswer>("/api/reviews"), refetchOnWindowFocus: true });
+  if (q.isPending) return <LoadingPanel label="Loading the designs waiting for review…" />;
+  if (q.isError) return <ErrorPanel error={q.error} what="the review inbox" />;
+  const { reviews } = q.data;
+  if (reviews.length === 0) {
+    return (
+      <p className="card px-3 py-6 text-center text-ink-soft" data-testid="reviews-empty">
+        No design is waiting for your review.
+      </p>
+    );
+  }
+  return (
+    <ol className="space-y-3" data-testid="reviews-list">
+      {reviews.map((r) => (
+        <li key={r.pinId} className="card space-y-2 p-3" data-testid="review-item">
+          <div className="flex flex-wrap items-center gap-2">
+            <Link href={`/projects/${r.projectId}`} className="font-medium text-accent-700 underline">
+              {r.projectName}
+            </Link>
+            <StageBadges sequence={r.sequence} />
+            <span className="num text-sm">
+              {formatQuantity("volume", r.totalVolume, "m3")}
+              {r.totalCost !== null ? ` · cost ${r.totalCost.toPrecision(4)}` : ""}
+            </span>
+          </div>
+          <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[8rem_1fr]">
+            <dt className="text-ink-soft">Proposed by</dt>
+            <dd>
+              {r.pinnedByName}, <span className="num">{fmt.format(new Date(r.pinnedAt))} UTC</span>
+            </dd>
+            {r.sweepName ? (
+              <>
+                <dt className="text-ink-soft">From sweep</dt>
+                <dd>{r.sweepName}</dd>
+              </>
+            ) : null}
+            <dt className="text-ink-soft">Note</dt>
+            <dd>{r.note || "—"}</dd>
+          </dl>
+          <ReviewForm pinId={r.pinId} onDone={() => qc.invalidateQueries({ queryKey: REVIEWS_QUERY })} />
+        </li>
+      ))}
+    </ol>
+  );
+}
