@@ -18,7 +18,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
         role={actor.role}
         teams={teams}
       />
-      <main className="mx-auto max-w-6xl px-4 py-6">{children}</main>
+      <main id="main-content" tabIndex={-1} className="mx-auto max-w-6xl px-4 py-6">{children}</main>
     </>
   );
 }

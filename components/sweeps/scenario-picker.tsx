@@ -1,5 +1,6 @@
 "use client";
 
+import { useRef, useState, type KeyboardEvent } from "react";
 import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import type { ScenarioRow } from "./types";
 
@@ -58,9 +59,37 @@ export function twoVariedFields(scenarios: ScenarioRow[]): [string, string] | nu
   return varied.length === 2 ? [varied[0], varied[1]] : null;
 }
 
+/** Where an arrow key (or Home/End, with Ctrl for the whole grid) takes the focus from [row, col]. */
+export function nextCell(key: string, ctrl: boolean, [r, c]: [number, number], rows: number, cols: number, exists: (r: number, c: number) => boolean): [number, number] | null {
+  // Step in one direction, skipping holes in the grid (a scenario the sweep did not produce).
+  const walk = (dr: number, dc: number, from: [number, number]): [number, number] | null => {
+    for (let rr = from[0] + dr, cc = from[1] + dc; rr >= 0 && rr < rows && cc >= 0 && cc < cols; rr += dr, cc += dc) if (exists(rr, cc)) return [rr, cc];
+    return null;
+  };
+  const firstFrom = (start: [number, number], dr: number, dc: number) => (exists(...start) ? start : walk(dr, dc, start));
+  switch (key) {
+    case "ArrowRight":
+      return walk(0, 1, [r, c]);
+    case "ArrowLeft":
+      return walk(0, -1, [r, c]);
+    case "ArrowDown":
+      return walk(1, 0, [r, c]);
+    case "ArrowUp":
+      return walk(-1, 0, [r, c]);
+    case "Home":
+      return ctrl ? firstFrom([0, 0], 0, 1) : firstFrom([r, 0], 0, 1);
+    case "End":
+      return ctrl ? firstFrom([rows - 1, cols - 1], 0, -1) : firstFrom([r, cols - 1], 0, -1);
+    default:
+      return null;
+  }
+}
+
 /**
  * Heat map of the best objective over a two-field grid: a table whose cells carry the value as
  * text and a shade (darker = larger); each cell opens its scenario.
+ * The grid is one tab stop (ARIA grid, roving tabindex): a hundred cells as separate stops put the
+ * ranked table a hundred key presses away. Arrows, Home and End move; Enter or Space opens.
  */
 export function ObjectiveHeatMap({
   scenarios,
@@ -86,6 +115,24 @@ export function ObjectiveHeatMap({
   const hi = Math.max(...values);
   const best = values.length ? lo : null;
   const shade = (v: number) => (hi > lo ? (v - lo) / (hi - lo) : 0);
+  const [active, setActive] = useState<[number, number] | null>(null);
+  const tableRef = useRef<HTMLTableElement>(null);
+  const cellAt = (r: number, c: number) => at.get(`${xs[c]}|${ys[r]}`);
+  const selectedPos = ((): [number, number] => {
+    for (let r = 0; r < ys.length; r++) for (let c = 0; c < xs.length; c++) if (cellAt(r, c)?.index === selected) return [r, c];
+    for (let r = 0; r < ys.length; r++) for (let c = 0; c < xs.length; c++) if (cellAt(r, c)) return [r, c];
+    return [0, 0];
+  })();
+  // The tab stop is the cell last reached with the arrows while the focus is in the grid, else the selected one.
+  const [tr, tc] = active ?? selectedPos;
+  const onKeyDown = (e: KeyboardEvent<HTMLTableElement>) => {
+    const to = nextCell(e.key, e.ctrlKey || e.metaKey, [tr, tc], ys.length, xs.length, (r, c) => !!cellAt(r, c));
+    if (!to && !["ArrowRight", "ArrowLeft", "ArrowUp", "ArrowDown", "Home", "End"].includes(e.key)) return;
+    e.preventDefault();
+    if (!to) return;
+    setActive(to);
+    tableRef.current?.querySelector<HTMLButtonElement>(`[data-cell="${to[0]}-${to[1]}"]`)?.focus();
+  };
   const cellText = (v: number | null) => (v === null ? "—" : objective === "cost" ? formatNumber(v, 3) : formatVolume(v, unit, 3));
 
   return (
@@ -95,7 +142,16 @@ export function ObjectiveHeatMap({
         Darker cells are larger; the smallest is marked ★. Choose a cell to open its scenario.
       </p>
       <div className="mt-3 overflow-x-auto">
-        <table className="border-separate border-spacing-0.5 text-xs">
+        <table
+          ref={tableRef}
+          role="grid"
+          aria-labelledby="heatmap-title"
+          className="border-separate border-spacing-0.5 text-xs"
+          onKeyDown={onKeyDown}
+          onBlur={(e) => {
+            if (!e.currentTarget.contains(e.relatedTarget as Node | null)) setActive(null);
+          }}
+        >
           <caption className="sr-only">
             Best objective by {fieldName(fy)} (rows) and {fieldName(fx)} (columns)
           </caption>
@@ -112,21 +168,29 @@ export function ObjectiveHeatMap({
             </tr>
           </thead>
           <tbody>
-            {ys.map((y) => (
+            {ys.map((y, r) => (
               <tr key={y}>
                 <th scope="row" className="num px-2 py-1 text-right font-medium text-ink-soft">
                   {formatNumber(y, 4)}
                 </th>
-                {xs.map((x) => {
+                {xs.map((x, c) => {
                   const s = at.get(`${x}|${y}`);
-                  if (!s) return <td key={x} className="px-2 py-1 text-ink-faint">·</td>;
+                  if (!s)
+                    return (
+                      <td key={x} role="gridcell" className="px-2 py-1 text-ink-faint">
+                        ·
+                      </td>
+                    );
                   const v = s.bestObjective;
                   const t = v === null ? 0 : shade(v);
                   const dark = t > 0.55;
                   return (
-                    <td key={x} className="p-0">
+                    <td key={x} role="gridcell" aria-selected={s.index === selected} className="p-0">
                       <button
                         type="button"
+                        tabIndex={r === tr && c === tc ? 0 : -1}
+                        data-cell={`${r}-${c}`}
+                        onFocus={() => setActive([r, c])}
                         onClick={() => onSelect(s.index)}
                         aria-pressed={s.index === selected}
                         aria-label={`${fieldName(fx)} ${formatNumber(x, 4)}, ${fieldName(fy)} ${formatNumber(y, 4)}: ${cellText(v)}${v === best ? ", smallest" : ""}`}
