@@ -105,7 +105,7 @@ test("the heat map is one tab stop: arrows, Home and End move, Enter opens the s
   expect(await focusIn(page, HEAT_MAP)).toBe(true);
   const start = await focusedCell(page);
   expect(start).toBe(await stop.getAttribute("data-cell"));
-  const [r0, c0] = start!.split("-").map(Number);
+  const [r0] = start!.split("-").map(Number);
 
   // Home, then right and down: one column, then one row.
   await page.keyboard.press("Home");
