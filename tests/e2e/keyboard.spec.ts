@@ -25,7 +25,7 @@ test.beforeAll(async ({ browser }) => {
     2,
   );
   const done = await waitForSweep(engineer, sweep.id);
-  expect(done.status).toBe("finished");
+  expect(done.status).toBe("succeeded");
   sweepUrl = `/projects/${projectId}/sweeps/${sweep.id}`;
   browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
 });
