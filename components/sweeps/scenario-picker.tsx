@@ -59,6 +59,38 @@ export function twoVariedFields(scenarios: ScenarioRow[]): [string, string] | nu
   return varied.length === 2 ? [varied[0], varied[1]] : null;
 }
 
+/**
+ * Whether white text contrasts more than the ink colour (#1c2430) with a cell's shade, by the
+ * WCAG 2.1 relative luminance: a fixed cut on the shade left mid-tones below 4.5:1 either way.
+ */
+export function whiteReadsBetter(rgb: [number, number, number]): boolean {
+  const lum = luminance(rgb);
+  return 1.05 / (lum + 0.05) > (lum + 0.05) / (INK_LUMINANCE + 0.05);
+}
+
+const INK_LUMINANCE = 0.0167; // #1c2430
+
+function luminance([r, g, b]: [number, number, number]): number {
+  const lin = (v: number) => {
+    const c = v / 255;
+    return c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  };
+  return 0.2126 * lin(r) + 0.7152 * lin(g) + 0.0722 * lin(b);
+}
+
+/**
+ * The cell colour for a shade t in [0, 1] (light teal to deep teal). Mid-tones whose luminance
+ * lies between 0.183 and 0.252 give neither white nor ink text 4.5:1, so those shades move on to
+ * the first darker one that does; the order of the shades is kept.
+ */
+export function cellShade(t: number): [number, number, number] {
+  for (let u = t; ; u = Math.min(1, u + 0.01)) {
+    const rgb: [number, number, number] = [Math.round(238 - 223 * u), Math.round(248 - 177 * u), Math.round(247 - 179 * u)];
+    const lum = luminance(rgb);
+    if (lum <= 0.183 || lum >= 0.252 || u >= 1) return rgb;
+  }
+}
+
 /** Where an arrow key (or Home/End, with Ctrl for the whole grid) takes the focus from [row, col]. */
 export function nextCell(key: string, ctrl: boolean, [r, c]: [number, number], rows: number, cols: number, exists: (r: number, c: number) => boolean): [number, number] | null {
   // Step in one direction, skipping holes in the grid (a scenario the sweep did not produce).
@@ -183,7 +215,8 @@ export function ObjectiveHeatMap({
                     );
                   const v = s.bestObjective;
                   const t = v === null ? 0 : shade(v);
-                  const dark = t > 0.55;
+                  const rgb = cellShade(t);
+                  const dark = v !== null && whiteReadsBetter(rgb);
                   return (
                     <td key={x} role="gridcell" aria-selected={s.index === selected} className="p-0">
                       <button
@@ -195,7 +228,7 @@ export function ObjectiveHeatMap({
                         aria-pressed={s.index === selected}
                         aria-label={`${fieldName(fx)} ${formatNumber(x, 4)}, ${fieldName(fy)} ${formatNumber(y, 4)}: ${cellText(v)}${v === best ? ", smallest" : ""}`}
                         className={`num block w-full min-w-20 rounded-sm px-2 py-1.5 text-right ${s.index === selected ? "ring-2 ring-ink ring-offset-1" : ""} ${dark ? "text-white" : "text-ink"}`}
-                        style={{ background: v === null ? "repeating-linear-gradient(45deg,#f7f8fa 0 4px,#dde2e8 4px 8px)" : `rgb(${Math.round(238 - 223 * t)} ${Math.round(248 - 177 * t)} ${Math.round(247 - 179 * t)})` }}
+                        style={{ background: v === null ? "repeating-linear-gradient(45deg,#f7f8fa 0 4px,#dde2e8 4px 8px)" : `rgb(${rgb[0]} ${rgb[1]} ${rgb[2]})` }}
                       >
                         {v === best ? "★ " : ""}
                         {cellText(v)}
