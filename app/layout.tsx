@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import localFont from "next/font/local";
 import { GeistMono } from "geist/font/mono";
 import { Providers } from "@/components/layout/providers";
+import { SkipLinks } from "@/components/layout/skip-links";
 import "./globals.css";
 
 const sans = localFont({
@@ -24,6 +25,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
   return (
     <html lang="en" className={`${sans.variable} ${GeistMono.variable}`} style={{ ["--font-mono" as string]: "var(--font-geist-mono)" }}>
       <body>
+        <SkipLinks />
         <Providers>{children}</Providers>
       </body>
     </html>

@@ -34,7 +34,9 @@ const DEMO_PROJECTS = [
   {
     team: "brightwater",
     name: "Ester line 3 revamp",
-    description: "Liquid-phase esterification, 40 kt/a: replace the single stirred tank by a train.",
+    // Bench scale, to match the demo kinetics' feed (0.02 mol/s of acid, a reactor of about a litre):
+    // a plant rate beside litre-sized vessels would make the right numbers look wrong.
+    description: "Liquid-phase esterification, bench-scale study (acid fed at 72 mol/h): choose the train that replaces the single stirred tank before scale-up.",
     owner: "eli.engineer@brightwater.example",
   },
   {

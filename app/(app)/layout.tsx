@@ -21,7 +21,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
         role={actor.role}
         teams={teams}
       />
-      <main className="mx-auto max-w-6xl px-4 py-6">
+      <main id="main-content" tabIndex={-1} className="mx-auto max-w-6xl px-4 py-6">
         <DisplayUnitsProvider preference={displayUnits}>{children}</DisplayUnitsProvider>
       </main>
     </>

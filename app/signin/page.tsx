@@ -17,7 +17,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   const { error, callbackUrl } = await searchParams;
   const safeCallback = callbackUrl?.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/";
   return (
-    <main className="grid min-h-screen place-items-center px-4">
+    <main id="main-content" tabIndex={-1} className="grid min-h-screen place-items-center px-4">
       <div className="flex w-full max-w-sm flex-col items-center gap-6">
         <Brand size="lg" />
         <p className="text-center text-ink-soft">Reactor trains, sized and ranked — sign in to your team.</p>

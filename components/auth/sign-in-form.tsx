@@ -14,7 +14,11 @@ type Method = "password" | "link";
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError?: string }) {
   const [method, setMethod] = useState<Method>("password");
+  // The message carried in from a failed attempt (?error=) is about that attempt only: it goes as
+  // soon as the user edits a field or a newer message appears, so two verdicts never stand together.
+  const [carriedError, setCarriedError] = useState(initialError);
   const hydrated = useHydrated();
+  const dropCarried = () => setCarriedError(undefined);
   return (
     <div className="card w-full max-w-sm p-6">
       <div className="mb-5 flex rounded border border-line p-0.5 text-sm" role="tablist" aria-label="Sign-in method">
@@ -32,17 +36,17 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
           </button>
         ))}
       </div>
-      {initialError ? (
+      {carriedError ? (
         <div className="mb-4">
-          <FormMessage kind="error">{initialError}</FormMessage>
+          <FormMessage kind="error">{carriedError}</FormMessage>
         </div>
       ) : null}
-      {method === "password" ? <PasswordForm callbackUrl={callbackUrl} /> : <LinkForm callbackUrl={callbackUrl} />}
+      {method === "password" ? <PasswordForm callbackUrl={callbackUrl} onEdit={dropCarried} /> : <LinkForm callbackUrl={callbackUrl} onEdit={dropCarried} />}
     </div>
   );
 }
 
-function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
+function PasswordForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => void }) {
   const [formError, setFormError] = useState<string>();
   const hydrated = useHydrated();
   const form = useForm<z.input<typeof passwordSignInSchema>, unknown, z.output<typeof passwordSignInSchema>>({
@@ -50,8 +54,12 @@ function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
   });
   const { errors, isSubmitting } = form.formState;
 
-  const onSubmit = form.handleSubmit(async ({ email, password }) => {
+  const clearStale = () => {
     setFormError(undefined);
+    onEdit();
+  };
+  const onSubmit = form.handleSubmit(async ({ email, password }) => {
+    clearStale();
     const outcome = await signInWithPassword(email, password, callbackUrl);
     if (outcome.ok) {
       window.location.assign(outcome.url);
@@ -59,10 +67,10 @@ function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
     }
     const rest = applyServerFieldErrors(outcome.fields, form.setError, ["email", "password"]);
     setFormError(rest.length ? rest.join(" ") : outcome.message);
-  });
+  }, clearStale);
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in with password">
+    <form onSubmit={onSubmit} onChange={clearStale} noValidate className="space-y-4" aria-label="Sign in with password">
       <Field id="email" label="E-mail" error={errors.email?.message}>
         <input id="email" type="email" autoComplete="username" className="input" aria-invalid={!!errors.email} {...form.register("email")} />
       </Field>
@@ -77,7 +85,7 @@ function PasswordForm({ callbackUrl }: { callbackUrl: string }) {
   );
 }
 
-function LinkForm({ callbackUrl }: { callbackUrl: string }) {
+function LinkForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => void }) {
   const [sentTo, setSentTo] = useState<string>();
   const hydrated = useHydrated();
   const [formError, setFormError] = useState<string>();
@@ -86,15 +94,19 @@ function LinkForm({ callbackUrl }: { callbackUrl: string }) {
   });
   const { errors, isSubmitting } = form.formState;
 
-  const onSubmit = form.handleSubmit(async ({ email }) => {
+  const clearStale = () => {
     setFormError(undefined);
+    onEdit();
+  };
+  const onSubmit = form.handleSubmit(async ({ email }) => {
+    clearStale();
     const outcome = await requestSignInLink(email, callbackUrl);
     if (outcome.ok) setSentTo(email);
     else {
       const rest = applyServerFieldErrors(outcome.fields, form.setError, ["email"]);
       setFormError(rest.length ? rest.join(" ") : outcome.message);
     }
-  });
+  }, clearStale);
 
   if (sentTo) {
     return (
@@ -104,7 +116,7 @@ function LinkForm({ callbackUrl }: { callbackUrl: string }) {
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in with an e-mail link">
+    <form onSubmit={onSubmit} onChange={clearStale} noValidate className="space-y-4" aria-label="Sign in with an e-mail link">
       <Field id="link-email" label="E-mail" error={errors.email?.message} hint="We send a one-time link; no password needed.">
         <input id="link-email" type="email" autoComplete="username" className="input" aria-invalid={!!errors.email} {...form.register("email")} />
       </Field>

@@ -224,7 +224,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
       </div>
       <figcaption className="mt-1 flex min-h-5 flex-wrap items-center gap-x-4 gap-y-1 text-xs text-ink-soft">
         <span aria-live="polite" className="num text-ink" data-testid="chart-readout">
-          {readout || "Hover or focus the chart and use ← → to read values."}
+          {readout || <span className="interaction-hint">Hover or focus the chart and use ← → to read values.</span>}
         </span>
       </figcaption>
     </figure>

@@ -101,7 +101,8 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
         </Field>
         {file ? (
           <p className="text-sm text-ink-soft" data-testid="chosen-file">
-            Reading <span className="font-medium text-ink">{file.name}</span>
+            {/* One state at a time: reading while the preview is asked for, then read or not read. */}
+            {preview.isFetching ? "Reading" : preview.isError ? "Could not read" : "Read"} <span className="font-medium text-ink">{file.name}</span>
             {preview.isFetching ? " …" : ""}
           </p>
         ) : null}

@@ -52,7 +52,12 @@ export function InventoryScreen() {
     <div className="space-y-5">
       <section className="card overflow-hidden" aria-labelledby="inv-title">
         <h2 id="inv-title" className="border-b border-line px-3 py-2">
-          Idle vessels <span className="text-sm font-normal text-ink-soft">({vessels.length})</span>
+          {/* The count in the title is of idle vessels only; the ones in use are named apart. */}
+          Idle vessels{" "}
+          <span className="text-sm font-normal text-ink-soft" data-testid="inventory-count">
+            ({vessels.filter((v) => v.available).length}
+            {vessels.some((v) => !v.available) ? `; ${vessels.filter((v) => !v.available).length} more in use` : ""})
+          </span>
         </h2>
         {vessels.length === 0 ? (
           <p className="px-3 py-4 text-ink-soft">No vessels yet.</p>

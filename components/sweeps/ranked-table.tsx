@@ -157,7 +157,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
   });
 
   return (
-    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Ranked trains table">
+    <div id="ranked-trains" className="overflow-x-auto" tabIndex={0} role="region" aria-label="Ranked trains table">
       <table className="table-dense" data-testid="ranked-table">
         <caption className="sr-only">Ranked candidate trains of the scenario; use the column buttons to sort.</caption>
         <thead>

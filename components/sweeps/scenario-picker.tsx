@@ -1,5 +1,6 @@
 "use client";
 
+import { useRef, useState, type KeyboardEvent } from "react";
 import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import type { ScenarioRow } from "./types";
 
@@ -59,8 +60,68 @@ export function twoVariedFields(scenarios: ScenarioRow[]): [string, string] | nu
 }
 
 /**
+ * Whether white text contrasts more than the ink colour (#1c2430) with a cell's shade, by the
+ * WCAG 2.1 relative luminance: a fixed cut on the shade left mid-tones below 4.5:1 either way.
+ */
+export function whiteReadsBetter(rgb: [number, number, number]): boolean {
+  const lum = luminance(rgb);
+  return 1.05 / (lum + 0.05) > (lum + 0.05) / (INK_LUMINANCE + 0.05);
+}
+
+const INK_LUMINANCE = 0.0167; // #1c2430
+
+function luminance([r, g, b]: [number, number, number]): number {
+  const lin = (v: number) => {
+    const c = v / 255;
+    return c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  };
+  return 0.2126 * lin(r) + 0.7152 * lin(g) + 0.0722 * lin(b);
+}
+
+/**
+ * The cell colour for a shade t in [0, 1] (light teal to deep teal). Mid-tones whose luminance
+ * lies between 0.183 and 0.252 give neither white nor ink text 4.5:1, so those shades move on to
+ * the first darker one that does; the order of the shades is kept.
+ */
+export function cellShade(t: number): [number, number, number] {
+  for (let u = t; ; u = Math.min(1, u + 0.01)) {
+    const rgb: [number, number, number] = [Math.round(238 - 223 * u), Math.round(248 - 177 * u), Math.round(247 - 179 * u)];
+    const lum = luminance(rgb);
+    if (lum <= 0.183 || lum >= 0.252 || u >= 1) return rgb;
+  }
+}
+
+/** Where an arrow key (or Home/End, with Ctrl for the whole grid) takes the focus from [row, col]. */
+export function nextCell(key: string, ctrl: boolean, [r, c]: [number, number], rows: number, cols: number, exists: (r: number, c: number) => boolean): [number, number] | null {
+  // Step in one direction, skipping holes in the grid (a scenario the sweep did not produce).
+  const walk = (dr: number, dc: number, from: [number, number]): [number, number] | null => {
+    for (let rr = from[0] + dr, cc = from[1] + dc; rr >= 0 && rr < rows && cc >= 0 && cc < cols; rr += dr, cc += dc) if (exists(rr, cc)) return [rr, cc];
+    return null;
+  };
+  const firstFrom = (start: [number, number], dr: number, dc: number) => (exists(...start) ? start : walk(dr, dc, start));
+  switch (key) {
+    case "ArrowRight":
+      return walk(0, 1, [r, c]);
+    case "ArrowLeft":
+      return walk(0, -1, [r, c]);
+    case "ArrowDown":
+      return walk(1, 0, [r, c]);
+    case "ArrowUp":
+      return walk(-1, 0, [r, c]);
+    case "Home":
+      return ctrl ? firstFrom([0, 0], 0, 1) : firstFrom([r, 0], 0, 1);
+    case "End":
+      return ctrl ? firstFrom([rows - 1, cols - 1], 0, -1) : firstFrom([r, cols - 1], 0, -1);
+    default:
+      return null;
+  }
+}
+
+/**
  * Heat map of the best objective over a two-field grid: a table whose cells carry the value as
  * text and a shade (darker = larger); each cell opens its scenario.
+ * The grid is one tab stop (ARIA grid, roving tabindex): a hundred cells as separate stops put the
+ * ranked table a hundred key presses away. Arrows, Home and End move; Enter or Space opens.
  */
 export function ObjectiveHeatMap({
   scenarios,
@@ -86,6 +147,24 @@ export function ObjectiveHeatMap({
   const hi = Math.max(...values);
   const best = values.length ? lo : null;
   const shade = (v: number) => (hi > lo ? (v - lo) / (hi - lo) : 0);
+  const [active, setActive] = useState<[number, number] | null>(null);
+  const tableRef = useRef<HTMLTableElement>(null);
+  const cellAt = (r: number, c: number) => at.get(`${xs[c]}|${ys[r]}`);
+  const selectedPos = ((): [number, number] => {
+    for (let r = 0; r < ys.length; r++) for (let c = 0; c < xs.length; c++) if (cellAt(r, c)?.index === selected) return [r, c];
+    for (let r = 0; r < ys.length; r++) for (let c = 0; c < xs.length; c++) if (cellAt(r, c)) return [r, c];
+    return [0, 0];
+  })();
+  // The tab stop is the cell last reached with the arrows while the focus is in the grid, else the selected one.
+  const [tr, tc] = active ?? selectedPos;
+  const onKeyDown = (e: KeyboardEvent<HTMLTableElement>) => {
+    const to = nextCell(e.key, e.ctrlKey || e.metaKey, [tr, tc], ys.length, xs.length, (r, c) => !!cellAt(r, c));
+    if (!to && !["ArrowRight", "ArrowLeft", "ArrowUp", "ArrowDown", "Home", "End"].includes(e.key)) return;
+    e.preventDefault();
+    if (!to) return;
+    setActive(to);
+    tableRef.current?.querySelector<HTMLButtonElement>(`[data-cell="${to[0]}-${to[1]}"]`)?.focus();
+  };
   const cellText = (v: number | null) => (v === null ? "—" : objective === "cost" ? formatNumber(v, 3) : formatVolume(v, unit, 3));
 
   return (
@@ -95,7 +174,16 @@ export function ObjectiveHeatMap({
         Darker cells are larger; the smallest is marked ★. Choose a cell to open its scenario.
       </p>
       <div className="mt-3 overflow-x-auto">
-        <table className="border-separate border-spacing-0.5 text-xs">
+        <table
+          ref={tableRef}
+          role="grid"
+          aria-labelledby="heatmap-title"
+          className="border-separate border-spacing-0.5 text-xs"
+          onKeyDown={onKeyDown}
+          onBlur={(e) => {
+            if (!e.currentTarget.contains(e.relatedTarget as Node | null)) setActive(null);
+          }}
+        >
           <caption className="sr-only">
             Best objective by {fieldName(fy)} (rows) and {fieldName(fx)} (columns)
           </caption>
@@ -112,26 +200,35 @@ export function ObjectiveHeatMap({
             </tr>
           </thead>
           <tbody>
-            {ys.map((y) => (
+            {ys.map((y, r) => (
               <tr key={y}>
                 <th scope="row" className="num px-2 py-1 text-right font-medium text-ink-soft">
                   {formatNumber(y, 4)}
                 </th>
-                {xs.map((x) => {
+                {xs.map((x, c) => {
                   const s = at.get(`${x}|${y}`);
-                  if (!s) return <td key={x} className="px-2 py-1 text-ink-faint">·</td>;
+                  if (!s)
+                    return (
+                      <td key={x} role="gridcell" className="px-2 py-1 text-ink-faint">
+                        ·
+                      </td>
+                    );
                   const v = s.bestObjective;
                   const t = v === null ? 0 : shade(v);
-                  const dark = t > 0.55;
+                  const rgb = cellShade(t);
+                  const dark = v !== null && whiteReadsBetter(rgb);
                   return (
-                    <td key={x} className="p-0">
+                    <td key={x} role="gridcell" aria-selected={s.index === selected} className="p-0">
                       <button
                         type="button"
+                        tabIndex={r === tr && c === tc ? 0 : -1}
+                        data-cell={`${r}-${c}`}
+                        onFocus={() => setActive([r, c])}
                         onClick={() => onSelect(s.index)}
                         aria-pressed={s.index === selected}
                         aria-label={`${fieldName(fx)} ${formatNumber(x, 4)}, ${fieldName(fy)} ${formatNumber(y, 4)}: ${cellText(v)}${v === best ? ", smallest" : ""}`}
                         className={`num block w-full min-w-20 rounded-sm px-2 py-1.5 text-right ${s.index === selected ? "ring-2 ring-ink ring-offset-1" : ""} ${dark ? "text-white" : "text-ink"}`}
-                        style={{ background: v === null ? "repeating-linear-gradient(45deg,#f7f8fa 0 4px,#dde2e8 4px 8px)" : `rgb(${Math.round(238 - 223 * t)} ${Math.round(248 - 177 * t)} ${Math.round(247 - 179 * t)})` }}
+                        style={{ background: v === null ? "repeating-linear-gradient(45deg,#f7f8fa 0 4px,#dde2e8 4px 8px)" : `rgb(${rgb[0]} ${rgb[1]} ${rgb[2]})` }}
                       >
                         {v === best ? "★ " : ""}
                         {cellText(v)}

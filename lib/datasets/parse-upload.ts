@@ -20,6 +20,25 @@ export function formatOf(fileName: string): UploadFormat | null {
   return ext === "csv" || ext === "txt" ? "csv" : ext === "xlsx" ? "xlsx" : null;
 }
 
+export const NOT_A_TABLE = "This file is not a CSV or Excel table";
+
+/**
+ * Whether the bytes of a .csv/.txt upload can be a text table: no NUL byte, valid UTF-8 and a
+ * delimiter (comma, semicolon or tab) in the header line. A picture or archive renamed .csv would
+ * otherwise be split into "rows" of noise and reported as lines read.
+ */
+export function isTextTable(bytes: Uint8Array): boolean {
+  if (bytes.includes(0)) return false;
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    return false;
+  }
+  const header = text.replace(/^\uFEFF/, "").split(/\r?\n/, 1)[0] ?? "";
+  return /[,;\t]/.test(header);
+}
+
 /** The user's unit choices as SI factor and offset per role (roles without a choice use the defaults). */
 export function toColumnMapping(m: DatasetMapping): ColumnMapping {
   const toSI: ColumnMapping["toSI"] = {};

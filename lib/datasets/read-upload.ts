@@ -2,7 +2,7 @@ import type { z } from "zod";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/http";
 import { readMultipart } from "@/lib/multipart";
-import { formatOf, type Upload } from "./parse-upload";
+import { formatOf, isTextTable, NOT_A_TABLE, type Upload } from "./parse-upload";
 
 const bad = (field: string, message: string) => new AppError("bad_request", message, { fields: { [field]: [message] } });
 
@@ -17,6 +17,7 @@ export async function readUpload<S extends z.ZodObject>(req: Request, fieldsSche
   const format = formatOf(file.name);
   if (!format) throw bad("file", `"${file.name}" is neither a .csv nor an .xlsx file`);
   if (file.bytes.byteLength === 0) throw bad("file", "The file is empty");
+  if (format === "csv" && !isTextTable(file.bytes)) throw bad("file", `${NOT_A_TABLE}: "${file.name}" holds no rows of text separated by commas, semicolons or tabs`);
 
   const raw: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(form.fields)) {

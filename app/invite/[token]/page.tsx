@@ -10,7 +10,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   const { token } = await params;
   const invitation = token.length >= 20 && token.length <= 200 ? await getOpenInvitationByToken(getDb(), token) : null;
   return (
-    <main className="grid min-h-screen place-items-center px-4">
+    <main id="main-content" tabIndex={-1} className="grid min-h-screen place-items-center px-4">
       <div className="flex w-full max-w-sm flex-col items-center gap-6">
         <Brand size="lg" />
         {invitation ? (

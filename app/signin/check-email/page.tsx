@@ -5,7 +5,7 @@ export const metadata = { title: "Check your e-mail" };
 
 export default function CheckEmailPage() {
   return (
-    <main className="grid min-h-screen place-items-center px-4">
+    <main id="main-content" tabIndex={-1} className="grid min-h-screen place-items-center px-4">
       <div className="card max-w-sm space-y-4 p-6 text-center">
         <Brand />
         <h1>Check your e-mail</h1>
