@@ -109,7 +109,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
           )}
           {pin.sweep ? <> · sweep {pin.sweep.name}</> : null}{" "}
           <button type="button" className="ml-1 text-xs text-accent-700 underline" aria-expanded={showSpec} onClick={() => setShowSpec((x) => !x)}>
-            {showSpec ? "Hide the spec" : "Show the spec"}
+            {showSpec ? "Hide the inputs as computed" : "Show the inputs as computed"}
           </button>{" "}
           <button type="button" className="ml-1 text-xs text-accent-700 underline" aria-expanded={showRobustness} onClick={() => setShowRobustness((x) => !x)}>
             {showRobustness ? "Hide robustness" : "Robustness"}

@@ -12,6 +12,7 @@ import { candidates, kineticsModels, kineticsVersions, type PinnedDesign } from 
 import type { Actor } from "@/lib/authz/policy";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
 import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
+import { labelFor } from "@/lib/schemas/field-labels";
 import { getPin } from "@/lib/services/pins";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
 
@@ -153,11 +154,12 @@ function fitSection(fit: Obj | null) {
 
 function uncertainLines(list: unknown): WordLine[] {
   return (Array.isArray(list) ? list : []).map(obj).map((u) => {
-    const field = String(u.field ?? "?");
+    // the label the form showed, from the one mapping; the report never prints a field path
+    const field = labelFor(String(u.field ?? "input"));
     if (u.kind === "uniform") return { label: field, value: `uniform between ${u.low} and ${u.high}` };
     if (u.kind === "normal") return { label: field, value: `normal, mean ${u.mean}, standard deviation ${u.sd}` };
     if (u.kind === "plusMinus") return { label: field, value: `its value ± ${Math.round(Number(u.fraction) * 1000) / 10} %, uniformly` };
-    return { label: field, value: JSON.stringify(u) };
+    return { label: field, value: "a spread this report cannot describe" };
   });
 }
 

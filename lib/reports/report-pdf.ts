@@ -361,7 +361,7 @@ function sections(doc: Doc, r: DesignReport) {
   else {
     const rb = r.robustness;
     pairs(doc, [
-      { label: "Samples and seed", value: `${rb.samples ?? "—"} samples, seed ${rb.seed ?? "—"}${rb.refusedSamples ? `, ${rb.refusedSamples} refused` : ""}` },
+      { label: "Samples and random seed", value: `${rb.samples ?? "—"} samples, random seed ${rb.seed ?? "—"}${rb.refusedSamples ? `, ${rb.refusedSamples} could not be rated` : ""}` },
       ...rb.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
       { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(rb.p5)} / ${fmtConversion(rb.p50)} / ${fmtConversion(rb.p95)}` },
       { label: "Mean outlet conversion", value: fmtConversion(rb.mean) },
@@ -373,7 +373,7 @@ function sections(doc: Doc, r: DesignReport) {
   pairs(doc, [{ label: "Note of the pin", value: r.pin.note || "—" }]);
   for (const a of r.assumptions.model) paragraph(doc, `• ${a}`);
   doc.moveDown(0.4);
-  paragraph(doc, "The frozen spec, as the engine read it:", { colour: SOFT, size: 8.5 });
+  paragraph(doc, "The inputs as computed:", { colour: SOFT, size: 8.5 });
   paragraph(doc, JSON.stringify(r.assumptions.spec, null, 1).replace(/\n\s*/g, " "), { size: 7.5 });
 }
 

@@ -40,8 +40,11 @@ export const uncertainInputSchema = z.discriminatedUnion(
     z.strictObject({
       field,
       kind: z.literal("plusMinus"),
-      /** ±fraction of the spec's own value, uniformly: 0.2 for ±20 %. */
-      fraction: finite.gt(0, "fraction must be above 0").lt(1, "fraction must be below 1 (use 0.2 for ±20 %)"),
+      /**
+       * ± spread as a fraction of the spec's own value, drawn uniformly: 0.2 is ±20 %. Forms take
+       * percent and convert once (components/robustness/spread-percent.ts); messages speak percent.
+       */
+      fraction: finite.gt(0, "The ± spread must be above 0 %").lt(1, "The ± spread must be below 100 %"),
     }),
   ],
   { error: "Choose a spread: uniform, normal or ± %" },
