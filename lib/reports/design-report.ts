@@ -12,6 +12,7 @@ import { candidates, kineticsModels, kineticsVersions, type PinnedDesign } from 
 import type { Actor } from "@/lib/authz/policy";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
 import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
+import { PIN_STATE } from "@/lib/glossary";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { getPin } from "@/lib/services/pins";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
@@ -20,11 +21,12 @@ export const REPORT_FORMAT = "seriatim.design-report/1";
 
 export type PinState = PinnedDesign["state"];
 
+/** The pin states' one names, from the glossary (the screens use the same). */
 export const STATE_LABEL: Record<PinState, string> = {
-  proposed: "Proposed, pending review",
-  approved: "Approved",
-  rejected: "Rejected",
-  superseded: "Superseded",
+  proposed: PIN_STATE.proposed.label,
+  approved: PIN_STATE.approved.label,
+  rejected: PIN_STATE.rejected.label,
+  superseded: PIN_STATE.superseded.label,
 };
 
 export interface ReportStage {

@@ -132,7 +132,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   await expect(page.getByTestId("pin-done")).toBeVisible();
   await page.getByTestId("pin-done").getByRole("link", { name: "Open the project" }).click();
   const pinned = page.getByTestId("pin").filter({ hasText: note });
-  await expect(pinned.getByTestId("pin-state")).toHaveText(/pending review/);
+  await expect(pinned.getByTestId("pin-state")).toHaveText(/pending review/i);
 
   // 6. The manager approves it on the project page.
   const managerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });

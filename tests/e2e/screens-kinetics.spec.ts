@@ -102,7 +102,7 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   await managerPage.goto(`/projects/${projectId}`);
   await appReady(managerPage);
   const pin = managerPage.getByTestId("pin").filter({ hasText: note });
-  await expect(pin.getByTestId("pin-state")).toHaveText(/pending review/);
+  await expect(pin.getByTestId("pin-state")).toHaveText(/pending review/i);
   await expect(pin).toContainText("Eli");
   await expect(pin.getByTestId("cautions")).toContainText("licensed engineer");
   await pin.getByRole("button", { name: "Approve" }).click();
@@ -120,7 +120,7 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   await viewerPage.goto(`/projects/${projectId}`);
   const seen = viewerPage.getByTestId("pin").filter({ hasText: note });
   await expect(seen.getByTestId("pin-state")).toHaveText(/approved/);
-  await expect(viewerPage.getByTestId("pins-list").getByText("pending review")).toHaveCount(0);
+  await expect(viewerPage.getByTestId("pins-list").getByText(/pending review/i)).toHaveCount(0);
   await expect(viewerPage.getByRole("link", { name: "New kinetics" })).toHaveCount(0);
   await expect(viewerPage.getByRole("link", { name: "New sweep" })).toHaveCount(0);
   await expect(viewerPage.getByRole("button", { name: "Approve" })).toHaveCount(0);
