@@ -188,6 +188,7 @@ const LABELS: Record<string, string> = {
   entityId: "Record",
   "(body)": "The request",
   "(query)": "The address",
+  teamId: "Team",
 };
 
 /** Every pattern the mapping knows, for the coverage test. */
