@@ -132,7 +132,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
         </section>
       ) : null}
       {showSpec ? <pre className="max-h-64 overflow-auto rounded bg-paper p-2 text-xs">{JSON.stringify(pin.spec, null, 2)}</pre> : null}
-      <Cautions compact warnings={thermalWarnings({ thermal: reaction?.thermal, stageTemperatures: pin.stageTemperatures })} />
+      <Cautions compact warningsOnly warnings={thermalWarnings({ thermal: reaction?.thermal, stageTemperatures: pin.stageTemperatures })} />
       {pin.canReview && pin.state === "proposed" ? <ReviewForm pinId={pin.id} /> : null}
     </li>
   );

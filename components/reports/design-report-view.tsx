@@ -247,7 +247,6 @@ export function DesignReportView({ report: r }: { report: DesignReport }) {
         </details>
       </Section>
 
-      <Cautions warnings={r.cautions.warnings} className="report-cautions-end" />
     </article>
   );
 }

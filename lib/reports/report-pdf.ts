@@ -1,7 +1,7 @@
 /**
  * The design report as an A4 PDF (pdfkit): DejaVu Sans embedded (no base-14 font, so every
  * glyph — ³, →, −, × — prints the same everywhere), the Levenspiel chart drawn as vectors,
- * the tables, page numbers and the cautions boxed on page 1 and again at the end.
+ * the tables, page numbers and the cautions boxed once, on page 1.
  */
 import { readFileSync } from "node:fs";
 import path from "node:path";
@@ -55,8 +55,6 @@ export function renderReportPdf(report: DesignReport): Promise<Buffer> {
   stageTable(doc, report);
   if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report);
   sections(doc, report);
-  ensureSpace(doc, 140);
-  cautionsBox(doc, report, "Cautions (repeated)");
   footers(doc, report);
   doc.end();
   return done;

@@ -104,7 +104,9 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   const pin = managerPage.getByTestId("pin").filter({ hasText: note });
   await expect(pin.getByTestId("pin-state")).toHaveText(/pending review/i);
   await expect(pin).toContainText("Eli");
-  await expect(pin.getByTestId("cautions")).toContainText("licensed engineer");
+  // one caution block per page: the project page's, below the pinned designs
+  await expect(managerPage.getByTestId("cautions")).toHaveCount(1);
+  await expect(managerPage.getByTestId("cautions")).toContainText("licensed engineer");
   await pin.getByRole("button", { name: "Approve" }).click();
   await expect(pin.getByText("Say why")).toBeVisible();
   await pin.getByLabel("Review comment").fill("Fits the plot plan; heat-removal study booked");
