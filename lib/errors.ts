@@ -1,4 +1,6 @@
 import type { z } from "zod";
+import { labelFor } from "./schemas/field-labels";
+import { issueInWords } from "./schemas/issue-words";
 
 /** Every refusal the app answers with; the code decides the HTTP status. */
 export type ErrorCode =
@@ -53,19 +55,26 @@ export interface ErrorBody {
   error: { code: ErrorCode; message: string; fields?: FieldErrors };
 }
 
+/** Paths stay as keys (clients match them to inputs); each message is in words, without the path. */
 export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
   const fields: FieldErrors = {};
   for (const issue of error.issues) {
     const key = issue.path.length ? issue.path.map(String).join(".") : "(body)";
-    (fields[key] ??= []).push(issue.message);
+    (fields[key] ??= []).push(issueInWords(issue));
   }
   return fields;
 }
 
+/** "Stage 1 volume: enter a number; Name: use at least 2 characters", labels from the one mapping. */
+export function fieldsInWords(fields: FieldErrors): string {
+  return Object.entries(fields)
+    .map(([key, messages]) => `${labelFor(key)}: ${messages.join(" ")}`)
+    .join("; ");
+}
+
 export function validationError(error: z.ZodError): AppError {
   const fields = fieldErrorsFromZod(error);
-  const names = Object.keys(fields).join(", ");
-  return new AppError("bad_request", `Invalid input: ${names}`, { fields });
+  return new AppError("bad_request", fieldsInWords(fields), { fields });
 }
 
 export const notFound = (what = "record") => new AppError("not_found", `No such ${what}`);

@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
 import type { z } from "zod";
-import { AppError, validationError, type FieldErrors } from "./errors";
+import { AppError, fieldsInWords, validationError, type FieldErrors } from "./errors";
 import { jsonBodyLimit } from "./http/body-limits";
 import { readBodyText } from "./http/read-body";
 import { hasControlCharacter, MAX_QUERY_STRING, MAX_QUERY_VALUE, TEXT_MESSAGES } from "./schemas/text";
@@ -84,6 +84,6 @@ export function queryValues(req: Request): Record<string, string> {
     else values[name] = value;
   }
   const names = Object.keys(fields);
-  if (names.length) throw new AppError("bad_request", `Invalid input: ${names.join(", ")}`, { fields });
+  if (names.length) throw new AppError("bad_request", fieldsInWords(fields), { fields });
   return values;
 }

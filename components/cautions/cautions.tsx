@@ -43,8 +43,23 @@ export function thermalWarnings({ thermal, stageTemperatures = [] }: ThermalInpu
   return out;
 }
 
-/** The cautions box; `warnings` (from thermalWarnings) are shown first and stronger. */
-export function Cautions({ warnings = [], compact = false, className = "" }: { warnings?: string[]; compact?: boolean; className?: string }) {
+/**
+ * The cautions box; `warnings` (from thermalWarnings) are shown first and stronger. A page shows
+ * the general cautions once: parts inside a page that already has its box (a pinned design in the
+ * project's list) pass `warningsOnly`, which shows their own thermal warnings and nothing else.
+ */
+export function Cautions({
+  warnings = [],
+  compact = false,
+  warningsOnly = false,
+  className = "",
+}: {
+  warnings?: string[];
+  compact?: boolean;
+  warningsOnly?: boolean;
+  className?: string;
+}) {
+  if (warningsOnly && warnings.length === 0) return null;
   return (
     <aside aria-label="Cautions" className={`space-y-2 text-xs ${className}`} data-testid="cautions">
       {warnings.length ? (
@@ -59,18 +74,20 @@ export function Cautions({ warnings = [], compact = false, className = "" }: { w
           </ul>
         </div>
       ) : null}
-      <div className="rounded border border-amber-300 bg-amber-50 px-3 py-2 text-amber-950">
-        <p className="font-semibold">Before you rely on this</p>
-        {compact ? (
-          <p className="mt-0.5">{CAUTION_TEXTS.join(" ")}</p>
-        ) : (
-          <ul className="mt-1 list-disc space-y-0.5 pl-4">
-            {CAUTION_TEXTS.map((c) => (
-              <li key={c}>{c}</li>
-            ))}
-          </ul>
-        )}
-      </div>
+      {warningsOnly ? null : (
+        <div className="rounded border border-amber-300 bg-amber-50 px-3 py-2 text-amber-950">
+          <p className="font-semibold">Before you rely on this</p>
+          {compact ? (
+            <p className="mt-0.5">{CAUTION_TEXTS.join(" ")}</p>
+          ) : (
+            <ul className="mt-1 list-disc space-y-0.5 pl-4">
+              {CAUTION_TEXTS.map((c) => (
+                <li key={c}>{c}</li>
+              ))}
+            </ul>
+          )}
+        </div>
+      )}
     </aside>
   );
 }

@@ -252,7 +252,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
                   </p>
                   <ErrorText id={fieldId("reaction.rate.expression")} message={err("reaction.rate.expression")} />
                 </div>
-                <RowsEditor path="reaction.rate.parameters" legend="Parameters (SI)" nameLabel="Parameter" valueLabel="Parameter value" addLabel="Add a parameter" external={ext} />
+                <RowsEditor path="reaction.rate.parameters" legend="Parameters (in SI units)" nameLabel="Parameter" valueLabel="Parameter value" addLabel="Add a parameter" external={ext} />
               </div>
             ) : null}
             {law === "table" ? <RateTable external={ext} /> : null}

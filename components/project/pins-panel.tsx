@@ -6,6 +6,7 @@ import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
 import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { PIN_STATE } from "@/lib/glossary";
 import { reviewSchema } from "@/lib/schemas/sweeps";
 import { formatQuantity } from "@/lib/units/display";
 
@@ -33,10 +34,10 @@ export interface PinRow {
 const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 const STATE: Record<PinRow["state"], { text: string; glyph: string; tone: string }> = {
-  proposed: { text: "pending review", glyph: "◷", tone: "border-amber-400 bg-amber-50 text-amber-900" },
-  approved: { text: "approved", glyph: "✓", tone: "border-accent-600 bg-accent-50 text-accent-800" },
-  rejected: { text: "rejected", glyph: "✕", tone: "border-red-300 bg-red-50 text-red-800" },
-  superseded: { text: "superseded", glyph: "↷", tone: "border-line bg-paper text-ink-soft" },
+  proposed: { text: PIN_STATE.proposed.label, glyph: "◷", tone: "border-amber-400 bg-amber-50 text-amber-900" },
+  approved: { text: PIN_STATE.approved.label, glyph: "✓", tone: "border-accent-600 bg-accent-50 text-accent-800" },
+  rejected: { text: PIN_STATE.rejected.label, glyph: "✕", tone: "border-red-300 bg-red-50 text-red-800" },
+  superseded: { text: PIN_STATE.superseded.label, glyph: "↷", tone: "border-line bg-paper text-ink-soft" },
 };
 
 export function PinsPanel({ pins, viewerOnly }: { pins: PinRow[]; viewerOnly: boolean }) {
@@ -109,7 +110,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
           )}
           {pin.sweep ? <> · sweep {pin.sweep.name}</> : null}{" "}
           <button type="button" className="ml-1 text-xs text-accent-700 underline" aria-expanded={showSpec} onClick={() => setShowSpec((x) => !x)}>
-            {showSpec ? "Hide the spec" : "Show the spec"}
+            {showSpec ? "Hide the inputs as computed" : "Show the inputs as computed"}
           </button>{" "}
           <button type="button" className="ml-1 text-xs text-accent-700 underline" aria-expanded={showRobustness} onClick={() => setShowRobustness((x) => !x)}>
             {showRobustness ? "Hide robustness" : "Robustness"}
@@ -131,7 +132,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
         </section>
       ) : null}
       {showSpec ? <pre className="max-h-64 overflow-auto rounded bg-paper p-2 text-xs">{JSON.stringify(pin.spec, null, 2)}</pre> : null}
-      <Cautions compact warnings={thermalWarnings({ thermal: reaction?.thermal, stageTemperatures: pin.stageTemperatures })} />
+      <Cautions compact warningsOnly warnings={thermalWarnings({ thermal: reaction?.thermal, stageTemperatures: pin.stageTemperatures })} />
       {pin.canReview && pin.state === "proposed" ? <ReviewForm pinId={pin.id} /> : null}
     </li>
   );

@@ -3,6 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { fetchJson } from "@/lib/client/fetch-json";
+import { SWEEP_STATUS } from "@/lib/glossary";
 
 export interface SweepRow {
   id: string;
@@ -16,11 +17,11 @@ export interface SweepRow {
 const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 const STATUS: Record<SweepRow["status"], { text: string; glyph: string; tone: string }> = {
-  queued: { text: "queued", glyph: "◷", tone: "border-line text-ink-soft" },
-  running: { text: "running", glyph: "▶", tone: "border-accent-500 text-accent-700" },
-  succeeded: { text: "done", glyph: "✓", tone: "border-accent-600 bg-accent-50 text-accent-800" },
-  failed: { text: "failed", glyph: "✕", tone: "border-red-300 bg-red-50 text-red-800" },
-  cancelled: { text: "cancelled", glyph: "■", tone: "border-line bg-paper text-ink-soft" },
+  queued: { text: SWEEP_STATUS.queued.label, glyph: "◷", tone: "border-line text-ink-soft" },
+  running: { text: SWEEP_STATUS.running.label, glyph: "▶", tone: "border-accent-500 text-accent-700" },
+  succeeded: { text: SWEEP_STATUS.succeeded.label, glyph: "✓", tone: "border-accent-600 bg-accent-50 text-accent-800" },
+  failed: { text: SWEEP_STATUS.failed.label, glyph: "✕", tone: "border-red-300 bg-red-50 text-red-800" },
+  cancelled: { text: SWEEP_STATUS.cancelled.label, glyph: "■", tone: "border-line bg-paper text-ink-soft" },
 };
 
 export function StatusBadge({ status }: { status: SweepRow["status"] }) {

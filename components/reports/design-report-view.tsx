@@ -223,7 +223,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
         ) : (
           <Pairs
             lines={[
-              { label: "Samples and seed", value: `${r.robustness.samples ?? "—"} samples, seed ${r.robustness.seed ?? "—"}${r.robustness.refusedSamples ? `, ${r.robustness.refusedSamples} refused` : ""}` },
+              { label: "Samples and random seed", value: `${r.robustness.samples ?? "—"} samples, random seed ${r.robustness.seed ?? "—"}${r.robustness.refusedSamples ? `, ${r.robustness.refusedSamples} could not be rated` : ""}` },
               ...r.robustness.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
               { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(r.robustness.p5)} / ${fmtConversion(r.robustness.p50)} / ${fmtConversion(r.robustness.p95)}` },
               { label: "Mean outlet conversion", value: fmtConversion(r.robustness.mean) },
@@ -245,12 +245,11 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
           ))}
         </ul>
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-accent-700">The frozen spec, as the engine read it</summary>
+          <summary className="cursor-pointer text-accent-700">Inputs as computed</summary>
           <pre className="mt-1 overflow-auto rounded bg-paper p-2 text-xs">{JSON.stringify(r.assumptions.spec, null, 2)}</pre>
         </details>
       </Section>
 
-      <Cautions warnings={r.cautions.warnings} className="report-cautions-end" />
     </article>
   );
 }

@@ -8,12 +8,13 @@ import { MAX_SAMPLES, robustnessCreateSchema, type UncertainInput } from "@/lib/
 import { RobustnessResult } from "./robustness-result";
 import type { OfferedField, RobustnessList, RobustnessRunView } from "./types";
 import { UncertainRow, type Draft } from "./uncertain-row";
+import { spreadFractionFromPercent } from "./spread-percent";
 
 function toInput(d: Draft): UncertainInput | { field: string; kind: string } {
   const num = (s: string) => (s.trim() === "" ? Number.NaN : Number(s));
   if (d.kind === "uniform") return { field: d.field, kind: "uniform", low: num(d.a), high: num(d.b) } as UncertainInput;
   if (d.kind === "normal") return { field: d.field, kind: "normal", mean: num(d.a), sd: num(d.b) } as UncertainInput;
-  return { field: d.field, kind: "plusMinus", fraction: num(d.a) / 100 } as UncertainInput;
+  return { field: d.field, kind: "plusMinus", fraction: spreadFractionFromPercent(d.a) } as UncertainInput;
 }
 
 function firstDraft(fields: OfferedField[]): Draft {
@@ -119,7 +120,7 @@ export function RobustnessPanel({ base, canRun }: { base: string; canRun: boolea
             </div>
             <div>
               <label htmlFor="rb-seed" className="field-label">
-                Seed
+                Random seed (repeatable draws)
               </label>
               <input id="rb-seed" className="input w-28" inputMode="numeric" value={seed} onChange={(e) => setSeed(e.target.value)} />
               {errorFor("seed") ? <p className="field-error">{errorFor("seed")}</p> : null}

@@ -8,7 +8,7 @@ const pct = (x: number, digits = 1) => `${(100 * x).toFixed(digits)} %`;
 /** One sentence a screen reader gets in place of the chart, and everyone gets beside it. */
 export function resultSummary(r: RobustnessRunResult): string {
   return (
-    `Over ${r.samples.toLocaleString("en")} samples (seed ${r.seed}) the outlet conversion was ${pct(r.p5)} or more in 95 % of them, ` +
+    `Over ${r.samples.toLocaleString("en")} samples (random seed ${r.seed}) the outlet conversion was ${pct(r.p5)} or more in 95 % of them, ` +
     `${pct(r.p50)} at the median and at most ${pct(r.p95)} in 95 %. The train missed the target of ${pct(r.target)} ` +
     `in ${pct(r.probabilityOfMissingTarget)} of the samples (± ${pct(r.probabilityStandardError, 2)} standard error)` +
     (r.refusedSamples ? `; ${r.refusedSamples} samples could not be rated and count as misses.` : ".")
@@ -38,7 +38,7 @@ export function RobustnessResult({ result: r }: { result: RobustnessRunResult })
         ))}
       </dl>
       <p className="text-xs text-ink-soft">
-        Target {pct(r.target)} · nominal outlet {r.nominal === null ? "—" : pct(r.nominal, 2)} · refused samples {r.refusedSamples}
+        Target {pct(r.target)} · nominal outlet {r.nominal === null ? "—" : pct(r.nominal, 2)} · samples that could not be rated {r.refusedSamples}
       </p>
       <div className="grid gap-3 md:grid-cols-[3fr_2fr]">
         <figure className="m-0">

@@ -1,5 +1,7 @@
 "use client";
 
+import { labelFor } from "@/lib/schemas/field-labels";
+import { spreadFractionFromPercent } from "./spread-percent";
 import { sweepRobustnessSchema, ROBUSTNESS_FIELD_LABELS, ROBUSTNESS_FIELDS, type SweepRobustness } from "@/lib/schemas/robustness";
 
 export interface SweepOptionState {
@@ -16,12 +18,12 @@ export const SWEEP_OPTION_OFF: SweepOptionState = { enabled: false, field: "reac
 export function sweepOptionValue(s: SweepOptionState): { value: SweepRobustness | null; error?: string } {
   if (!s.enabled) return { value: null };
   const parsed = sweepRobustnessSchema.safeParse({
-    uncertain: [{ field: s.field, kind: "plusMinus", fraction: Number(s.percent) / 100 }],
+    uncertain: [{ field: s.field, kind: "plusMinus", fraction: spreadFractionFromPercent(s.percent) }],
     samples: Number(s.samples),
     seed: Number(s.seed),
   });
   if (parsed.success) return { value: parsed.data };
-  return { value: null, error: parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ") };
+  return { value: null, error: parsed.error.issues.map((i) => `${labelFor(i.path.map(String))}: ${i.message}`).join("; ") };
 }
 
 /** "Also rate every feasible train under uncertainty": one input ± a percentage, samples and seed. */
@@ -61,7 +63,7 @@ export function SweepRobustnessOption({ state, onChange, error }: { state: Sweep
           </div>
           <div>
             <label htmlFor="sr-seed" className="field-label">
-              Seed
+              Random seed (repeatable draws)
             </label>
             <input id="sr-seed" className="input num w-20" inputMode="numeric" value={state.seed} onChange={(e) => set({ seed: e.target.value })} />
           </div>

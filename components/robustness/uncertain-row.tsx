@@ -15,7 +15,7 @@ const PARAMS: Record<Draft["kind"], [string, string | null]> = {
   normal: ["Mean", "Standard deviation"],
 };
 
-/** One uncertain input: the field (with its current SI value), its distribution and range. */
+/** One uncertain input: the field (with its current value in SI units), its distribution and range. */
 export function UncertainRow({
   index,
   draft,
@@ -49,7 +49,7 @@ export function UncertainRow({
         <select id={`${id}-field`} className="input" value={draft.field} onChange={(e) => onChange({ ...draft, field: e.target.value })}>
           {fields.map((f) => (
             <option key={f.field} value={f.field}>
-              {f.label} (now {Number(f.value.toPrecision(6))} {f.unit})
+              {f.label} (now {Number(f.value.toPrecision(6))} {f.unit === "SI" ? "in SI units" : f.unit})
             </option>
           ))}
         </select>

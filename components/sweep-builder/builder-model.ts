@@ -53,7 +53,7 @@ export const GRID_FIELDS: { field: string; label: string; kind: UnitKind | null;
   { field: "target.conversion", label: "Target conversion", kind: null, defaultUnit: "" },
   { field: "feed.temperature", label: "Feed temperature", kind: "temperature", defaultUnit: "K" },
   { field: "feed.concA", label: "Feed concentration of A", kind: "concentration", defaultUnit: "mol/L" },
-  { field: "custom", label: "Another numeric field (dot path, SI)", kind: null, defaultUnit: "" },
+  { field: "custom", label: "Another numeric input (advanced, in SI units)", kind: null, defaultUnit: "" },
 ];
 
 export function newAxis(field = "feed.flowA"): AxisValues {
@@ -207,7 +207,7 @@ export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; 
   v.grid.forEach((a, i) => {
     const preset = GRID_FIELDS.find((g) => g.field === a.field);
     const field = a.field === "custom" ? a.customField.trim() : a.field;
-    if (!field) issues.push({ path: `grid.${i}.customField`, message: "Give the dot path of a numeric field, e.g. reaction.rate.k" });
+    if (!field) issues.push({ path: `grid.${i}.customField`, message: "Enter the input to vary" });
     const si = (n: number) => (preset?.kind && a.unit ? toSI(preset.kind, n, a.unit) : n);
     if (a.kind === "values") {
       const values = listIn(a.values, `grid.${i}.values`, issues).map(si);

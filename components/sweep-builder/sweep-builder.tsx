@@ -317,11 +317,11 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
               <dd className="num text-right" data-testid="scenario-count">
                 {count.scenarios ?? "—"}
               </dd>
-              <dt className="text-ink-soft">Sequences each</dt>
+              <dt className="text-ink-soft">Trains per scenario</dt>
               <dd className="num text-right" data-testid="sequence-count">
                 {count.sequences ?? "—"}
               </dd>
-              <dt className="border-t border-line pt-1 font-medium">Optimisations</dt>
+              <dt className="border-t border-line pt-1 font-medium">Trains sized in all</dt>
               <dd className="num border-t border-line pt-1 text-right text-lg font-semibold" data-testid="optimisation-count">
                 {count.optimisations ?? "—"}
               </dd>

@@ -31,7 +31,7 @@ const SORT_OF: Record<string, SortKey> = {
 export const COLUMN_TITLES: Record<OptionalColumn, string> = {
   chart: "Chart",
   totalCost: "Total cost",
-  ratioToPfr: "× single PFR",
+  ratioToPfr: "Times the single-PFR volume",
   stages: "Stages (volume, outlet X)",
   feasible: "Feasibility",
   ...COST_COLUMN_TITLES,
@@ -103,7 +103,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         }),
         helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span> }),
         ...costColumns(),
-        helper.accessor("ratioToPfr", { header: "× single PFR", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3)}×`}</span> }),
+        helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3)}×`}</span> }),
         helper.accessor((r) => r.probabilityMeet ?? null, {
           id: "probabilityMeet",
           header: "P(meet target)",

@@ -39,7 +39,7 @@ export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; vi
       </div>
       <div>
         <label htmlFor="f-contains" className="field-label">
-          Contains run
+          Contains the sequence
         </label>
         <select id="f-contains" className="input w-36" value={view.contains} onChange={(e) => setView({ contains: e.target.value })}>
           {CONTAINS.map((c) => (
@@ -101,7 +101,7 @@ export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; vi
             {exporting ? `Exporting ${exporting}` : "Export CSV"}
           </button>
           <a className="btn-quiet" href={candidateExportHref(sweepId, view.scenario, "csv", view)} download data-testid="export-server-csv" title="Every candidate, SI units, from the server">
-            CSV (SI)
+            CSV (SI units)
           </a>
           <a className="btn-quiet" href={candidateExportHref(sweepId, view.scenario, "json", view)} download data-testid="export-server-json">
             JSON

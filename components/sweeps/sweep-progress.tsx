@@ -1,12 +1,6 @@
+import { SWEEP_STATUS } from "@/lib/glossary";
 import type { SweepStatus, SweepView } from "./types";
 
-const STATUS_TEXT: Record<SweepStatus, string> = {
-  queued: "Queued",
-  running: "Running",
-  succeeded: "Finished",
-  failed: "Failed",
-  cancelled: "Cancelled",
-};
 const STATUS_TONE: Record<SweepStatus, string> = {
   queued: "border-line bg-paper text-ink-soft",
   running: "border-accent-200 bg-accent-50 text-accent-800",
@@ -17,8 +11,8 @@ const STATUS_TONE: Record<SweepStatus, string> = {
 
 export function StatusBadge({ status }: { status: SweepStatus }) {
   return (
-    <span className={`badge ${STATUS_TONE[status]}`} data-testid="sweep-status">
-      {STATUS_TEXT[status]}
+    <span className={`badge ${STATUS_TONE[status]}`} data-testid="sweep-status" title={SWEEP_STATUS[status].help}>
+      {SWEEP_STATUS[status].label}
     </span>
   );
 }

@@ -1,7 +1,11 @@
 import type { FieldValues, Path, UseFormSetError } from "react-hook-form";
 import type { FieldErrors } from "@/lib/errors";
+import { labelFor } from "@/lib/schemas/field-labels";
 
-/** Puts the server's field errors beside the matching inputs; returns what had no field. */
+/**
+ * Puts the server's field errors beside the matching inputs; returns what had no field, each led
+ * by the field's label (from the one mapping) since no input stands beside it.
+ */
 export function applyServerFieldErrors<T extends FieldValues>(
   fields: FieldErrors | undefined,
   setError: UseFormSetError<T>,
@@ -10,7 +14,7 @@ export function applyServerFieldErrors<T extends FieldValues>(
   const rest: string[] = [];
   for (const [key, messages] of Object.entries(fields ?? {})) {
     if ((known as readonly string[]).includes(key)) setError(key as Path<T>, { type: "server", message: messages.join(" ") });
-    else rest.push(...messages);
+    else rest.push(`${labelFor(key)}: ${messages.join(" ")}`);
   }
   return rest;
 }

@@ -12,6 +12,8 @@ import { candidates, kineticsModels, kineticsVersions, type PinnedDesign } from 
 import type { Actor } from "@/lib/authz/policy";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
 import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
+import { PIN_STATE } from "@/lib/glossary";
+import { labelFor } from "@/lib/schemas/field-labels";
 import { getPin } from "@/lib/services/pins";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
 
@@ -19,11 +21,12 @@ export const REPORT_FORMAT = "seriatim.design-report/1";
 
 export type PinState = PinnedDesign["state"];
 
+/** The pin states' one names, from the glossary (the screens use the same). */
 export const STATE_LABEL: Record<PinState, string> = {
-  proposed: "Proposed, pending review",
-  approved: "Approved",
-  rejected: "Rejected",
-  superseded: "Superseded",
+  proposed: PIN_STATE.proposed.label,
+  approved: PIN_STATE.approved.label,
+  rejected: PIN_STATE.rejected.label,
+  superseded: PIN_STATE.superseded.label,
 };
 
 export interface ReportStage {
@@ -153,11 +156,12 @@ function fitSection(fit: Obj | null) {
 
 function uncertainLines(list: unknown): WordLine[] {
   return (Array.isArray(list) ? list : []).map(obj).map((u) => {
-    const field = String(u.field ?? "?");
+    // the label the form showed, from the one mapping; the report never prints a field path
+    const field = labelFor(String(u.field ?? "input"));
     if (u.kind === "uniform") return { label: field, value: `uniform between ${u.low} and ${u.high}` };
     if (u.kind === "normal") return { label: field, value: `normal, mean ${u.mean}, standard deviation ${u.sd}` };
     if (u.kind === "plusMinus") return { label: field, value: `its value ± ${Math.round(Number(u.fraction) * 1000) / 10} %, uniformly` };
-    return { label: field, value: JSON.stringify(u) };
+    return { label: field, value: "a spread this report cannot describe" };
   });
 }
 

@@ -1,7 +1,7 @@
 /**
  * The design report as an A4 PDF (pdfkit): DejaVu Sans embedded (no base-14 font, so every
  * glyph — ³, →, −, × — prints the same everywhere), the Levenspiel chart drawn as vectors,
- * the tables, page numbers and the cautions boxed on page 1 and again at the end.
+ * the tables, page numbers and the cautions boxed once, on page 1.
  */
 import { readFileSync } from "node:fs";
 import path from "node:path";
@@ -57,8 +57,6 @@ export function renderReportPdf(report: DesignReport, units?: DisplayUnits): Pro
   stageTable(doc, report, units);
   if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report, units);
   sections(doc, report, units);
-  ensureSpace(doc, 140);
-  cautionsBox(doc, report, "Cautions (repeated)");
   footers(doc, report);
   doc.end();
   return done;
@@ -364,7 +362,7 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   else {
     const rb = r.robustness;
     pairs(doc, [
-      { label: "Samples and seed", value: `${rb.samples ?? "—"} samples, seed ${rb.seed ?? "—"}${rb.refusedSamples ? `, ${rb.refusedSamples} refused` : ""}` },
+      { label: "Samples and random seed", value: `${rb.samples ?? "—"} samples, random seed ${rb.seed ?? "—"}${rb.refusedSamples ? `, ${rb.refusedSamples} could not be rated` : ""}` },
       ...rb.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
       { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(rb.p5)} / ${fmtConversion(rb.p50)} / ${fmtConversion(rb.p95)}` },
       { label: "Mean outlet conversion", value: fmtConversion(rb.mean) },
@@ -376,7 +374,7 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   pairs(doc, [{ label: "Note of the pin", value: r.pin.note || "—" }]);
   for (const a of r.assumptions.model) paragraph(doc, `• ${a}`);
   doc.moveDown(0.4);
-  paragraph(doc, "The frozen spec, as the engine read it:", { colour: SOFT, size: 8.5 });
+  paragraph(doc, "The inputs as computed:", { colour: SOFT, size: 8.5 });
   paragraph(doc, JSON.stringify(r.assumptions.spec, null, 1).replace(/\n\s*/g, " "), { size: 7.5 });
 }
 

@@ -7,9 +7,9 @@ const source = text().trim().min(1, "Say where the number comes from, or write \
 
 /** One correlation: purchase cost = a + b·S^n, S the volume of one vessel in m3. */
 export const correlationSchema = z.strictObject({
-  a: finite.min(0, "a must be >= 0"),
-  b: finite.min(0, "b must be >= 0"),
-  n: finite.gt(0, "n must be above 0").max(3, "n must be at most 3"),
+  a: finite.min(0, "Must be 0 or more"),
+  b: finite.min(0, "Must be 0 or more"),
+  n: finite.gt(0, "Must be above 0").max(3, "Must be at most 3"),
   source,
 });
 
@@ -18,12 +18,12 @@ export const sizePolicySchema = z.discriminatedUnion(
   "mode",
   [
     z
-      .strictObject({ mode: z.literal("r10"), min: finite.gt(0, "min must be above 0"), max: finite.gt(0, "max must be above 0") })
-      .refine((s) => s.max >= s.min, { message: "max must be at least min", path: ["max"] }),
+      .strictObject({ mode: z.literal("r10"), min: finite.gt(0, "The smallest size must be above 0"), max: finite.gt(0, "The largest size must be above 0") })
+      .refine((s) => s.max >= s.min, { message: "The largest size must be at least the smallest", path: ["max"] }),
     z.strictObject({ mode: z.literal("custom"), values: z.array(finite.gt(0, "Sizes must be above 0")).min(1, "Give at least one size").max(200, "At most 200 sizes") }),
     z.strictObject({ mode: z.literal("any") }),
   ],
-  { error: "mode must be r10, custom or any" },
+  { error: "Choose preferred sizes, a list of sizes or any size" },
 );
 
 /** A project's cost basis; volumes in m3, money in `currency` of `basisYear`. */
@@ -54,7 +54,7 @@ export const rateRequestSchema = z.strictObject({
     .array(
       z.union(
         [
-          z.strictObject({ type: z.enum(["CSTR", "PFR"], { error: "type must be CSTR or PFR" }), volume: volumeQuantity }),
+          z.strictObject({ type: z.enum(["CSTR", "PFR"], { error: "Choose CSTR or PFR" }), volume: volumeQuantity }),
           z.strictObject({ inventoryVesselId: uuidSchema }),
         ],
         { error: "Give a type and volume, or an inventory vessel" },

@@ -14,7 +14,7 @@ const unitOf = (kind: keyof typeof DATASET_UNITS, what: string) => {
  */
 export const datasetMappingSchema = z.strictObject({
   columns: z
-    .record(keyText().trim().min(1, "A column name is empty").max(200, "Use at most 200 characters"), z.enum(COLUMN_ROLES, { error: `Role must be one of ${COLUMN_ROLES.join(", ")}` }))
+    .record(keyText().trim().min(1, "A column name is empty").max(200, "Use at most 200 characters"), z.enum(COLUMN_ROLES, { error: "Choose what the column holds from the list" }))
     .refine((c) => Object.keys(c).length <= 100, "At most 100 columns"),
   units: z
     .strictObject({

@@ -24,7 +24,7 @@ export const FIT_LAW_INFO: Record<FitLaw, { label: string; formula: string; unit
   },
 };
 
-const lawSchema = z.enum(FIT_LAWS, { error: `law must be one of ${FIT_LAWS.join(", ")}` });
+const lawSchema = z.enum(FIT_LAWS, { error: "Choose a rate law from the list" });
 const feedConcA = z.number({ error: "Feed concentration must be a number (mol/m³)" }).finite().gt(0, "Feed concentration must be above 0");
 
 /** POST /api/dataset-versions/:versionId/fits */
@@ -53,7 +53,7 @@ export const fitSaveSchema = z
     feed: spec.feed,
     feedConcA: feedConcA.optional(),
     stoichiometry: z.record(keyText().max(40, "Use at most 40 characters"), z.number({ error: "Must be a number" }).finite()).optional(),
-    phase: z.enum(["liquid", "gas"], { error: "phase must be liquid or gas" }).optional(),
+    phase: z.enum(["liquid", "gas"], { error: "Choose liquid or gas" }).optional(),
     note: multilineText().trim().max(2000, "Use at most 2000 characters").default(""),
   })
   .refine((b) => (b.modelName === undefined) !== (b.modelId === undefined), {

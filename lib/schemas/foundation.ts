@@ -32,11 +32,11 @@ export const projectUpdateSchema = z
   .object({
     name: projectName.optional(),
     description: projectDescription.optional(),
-    archived: z.boolean({ error: "archived must be true or false" }).optional(),
+    archived: z.boolean({ error: "Choose archived or not" }).optional(),
   })
   .strict()
   .refine((v) => v.name !== undefined || v.description !== undefined || v.archived !== undefined, {
-    message: "Give at least one of name, description, archived",
+    message: "Change the name, the purpose or whether the project is archived",
   });
 export type ProjectUpdate = z.infer<typeof projectUpdateSchema>;
 

@@ -5,10 +5,10 @@ const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 const fields = {
   tag: text({ error: "Tag is required" }).trim().min(1, "Tag is required").max(60, "Use at most 60 characters"),
-  type: z.enum(["CSTR", "PFR"], { error: "type must be CSTR or PFR" }),
+  type: z.enum(["CSTR", "PFR"], { error: "Choose CSTR or PFR" }),
   volume: finite.gt(0, "Volume must be above 0").max(1e4, "Volume must be at most 10,000 m3"),
-  available: z.boolean({ error: "available must be true or false" }),
-  reuseCost: finite.min(0, "Reuse cost must be >= 0"),
+  available: z.boolean({ error: "Choose available or not" }),
+  reuseCost: finite.min(0, "Reuse cost must be 0 or more"),
   location: text().trim().max(120, "Use at most 120 characters"),
   note: multilineText().trim().max(2000, "Use at most 2000 characters"),
 };

@@ -27,7 +27,7 @@ export const ROBUSTNESS_FIELD_LABELS: Record<RobustnessField, { label: string; u
   "feed.temperature": { label: "Feed temperature", unit: "K" },
 };
 
-const field = z.enum(ROBUSTNESS_FIELDS, { error: `field must be one of ${ROBUSTNESS_FIELDS.join(", ")}` });
+const field = z.enum(ROBUSTNESS_FIELDS, { error: "Choose an input from the list" });
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 export const uncertainInputSchema = z.discriminatedUnion(
@@ -35,16 +35,19 @@ export const uncertainInputSchema = z.discriminatedUnion(
   [
     z
       .strictObject({ field, kind: z.literal("uniform"), low: finite, high: finite })
-      .refine((u) => u.high > u.low, { message: "high must be above low", path: ["high"] }),
-    z.strictObject({ field, kind: z.literal("normal"), mean: finite, sd: finite.gt(0, "sd must be above 0") }),
+      .refine((u) => u.high > u.low, { message: "The high value must be above the low value", path: ["high"] }),
+    z.strictObject({ field, kind: z.literal("normal"), mean: finite, sd: finite.gt(0, "The standard deviation must be above 0") }),
     z.strictObject({
       field,
       kind: z.literal("plusMinus"),
-      /** ±fraction of the spec's own value, uniformly: 0.2 for ±20 %. */
-      fraction: finite.gt(0, "fraction must be above 0").lt(1, "fraction must be below 1 (use 0.2 for ±20 %)"),
+      /**
+       * ± spread as a fraction of the spec's own value, drawn uniformly: 0.2 is ±20 %. Forms take
+       * percent and convert once (components/robustness/spread-percent.ts); messages speak percent.
+       */
+      fraction: finite.gt(0, "The ± spread must be above 0 %").lt(1, "The ± spread must be below 100 %"),
     }),
   ],
-  { error: 'kind must be "uniform", "normal" or "plusMinus"' },
+  { error: "Choose a spread: uniform, normal or ± %" },
 );
 export type UncertainInput = z.infer<typeof uncertainInputSchema>;
 
@@ -54,7 +57,7 @@ export const uncertainListSchema = z
   .max(6, "At most 6 uncertain inputs")
   .refine((list) => new Set(list.map((u) => u.field)).size === list.length, { message: "Each field may be uncertain once" });
 
-export const seedSchema = z.int("seed must be a whole number").min(0, "seed must be >= 0").max(2 ** 31 - 1, "seed must be below 2^31");
+export const seedSchema = z.int("The random seed must be a whole number").min(0, "The random seed must be 0 or more").max(2 ** 31 - 1, "The random seed must be below 2,147,483,648");
 
 /** Most samples a run may ask for; up to INLINE_SAMPLES are rated in the request, more by the worker. */
 export const MAX_SAMPLES = 100_000;
@@ -63,8 +66,8 @@ export const INLINE_SAMPLES = 2_000;
 export const robustnessCreateSchema = z.strictObject({
   uncertain: uncertainListSchema,
   /** Conversion the train must reach; the scenario's target when absent. */
-  target: finite.gt(0, "target must be above 0").lt(1, "target must be below 1").optional(),
-  samples: z.int("samples must be a whole number").min(1, "At least 1 sample").max(MAX_SAMPLES, `At most ${MAX_SAMPLES.toLocaleString("en")} samples`),
+  target: finite.gt(0, "Target conversion must be above 0").lt(1, "Target conversion must be below 1").optional(),
+  samples: z.int("Samples must be a whole number").min(1, "At least 1 sample").max(MAX_SAMPLES, `At most ${MAX_SAMPLES.toLocaleString("en")} samples`),
   seed: seedSchema,
 });
 export type RobustnessCreate = z.infer<typeof robustnessCreateSchema>;
@@ -72,7 +75,7 @@ export type RobustnessCreate = z.infer<typeof robustnessCreateSchema>;
 /** What a sweep stores to rate every feasible train under uncertainty as well (sweeps.robustness). */
 export const sweepRobustnessSchema = z.strictObject({
   uncertain: uncertainListSchema,
-  samples: z.int("samples must be a whole number").min(100, "At least 100 samples").max(INLINE_SAMPLES, `At most ${INLINE_SAMPLES} samples per train`),
+  samples: z.int("Samples must be a whole number").min(100, "At least 100 samples").max(INLINE_SAMPLES, `At most ${INLINE_SAMPLES} samples per train`),
   seed: seedSchema,
 });
 export type SweepRobustness = z.infer<typeof sweepRobustnessSchema>;

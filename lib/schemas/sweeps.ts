@@ -23,9 +23,9 @@ export const kineticsPreviewSchema = z.strictObject({
   targetConversion: z.number().gt(0, "Conversion must be above 0").lt(1, "Conversion must be below 1").optional(),
 });
 
-const fieldPath = text({ error: "Field path is required" })
+const fieldPath = text({ error: "Choose an input to vary" })
   .max(200, "Use at most 200 characters")
-  .regex(/^[A-Za-z_]\w*(\.[A-Za-z_]\w*)+$/, "Use a dot path into the spec, e.g. feed.flowA or target.conversion");
+  .regex(/^[A-Za-z_]\w*(\.[A-Za-z_]\w*)+$/, "Choose an input to vary from the list");
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 export const gridAxisSchema = z.union([
@@ -48,24 +48,24 @@ export const sweepCreateSchema = z
     target: spec.target,
     train: spec.train,
     objective: spec.objective,
-    grid: z.array(gridAxisSchema).max(4, "Vary at most 4 fields").default([]),
+    grid: z.array(gridAxisSchema).max(4, "Vary at most 4 inputs").default([]),
     /** Installation factor and reuse of idle vessels (cost objective only). */
     costing: sweepCostingSchema.optional(),
     /** Also rate every feasible train under uncertainty; fills each candidate's probabilityMeet. */
     robustness: sweepRobustnessSchema.optional(),
   })
-  .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each field may be varied once", path: ["grid"] });
+  .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each input may be varied once", path: ["grid"] });
 export type SweepCreate = z.infer<typeof sweepCreateSchema>;
 
 export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused", "probabilityMeet"] as const;
 
 export const candidateQuerySchema = z.strictObject({
-  sort: z.enum(SORTABLE_COLUMNS, { error: `sort must be one of ${SORTABLE_COLUMNS.join(", ")}` }).default("rank"),
+  sort: z.enum(SORTABLE_COLUMNS, { error: "Choose a column to sort by" }).default("rank"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   feasible: z.enum(["true", "false"]).optional(),
   contains: text()
     .max(100, "Use at most 100 characters")
-    .regex(/^(CSTR|PFR)(-(CSTR|PFR))*$/, "contains is a run of stage types joined by '-', e.g. CSTR-PFR")
+    .regex(/^(CSTR|PFR)(-(CSTR|PFR))*$/, "Give stage types joined by '-', e.g. CSTR-PFR")
     .optional(),
   stages: z.coerce.number().int().min(1).max(8).optional(),
   page: z.coerce.number().int().min(1).default(1),
@@ -75,7 +75,7 @@ export const candidateQuerySchema = z.strictObject({
 export type CandidateQuery = z.infer<typeof candidateQuerySchema>;
 
 export const compareQuerySchema = z.strictObject({
-  ids: text({ error: "ids is required" })
+  ids: text({ error: "Choose the trains to compare" })
     .max(200, "Compare at most 4 candidates")
     .transform((s) => s.split(",").filter(Boolean))
     .pipe(z.array(uuidSchema).min(2, "Compare at least 2 candidates").max(4, "Compare at most 4 candidates")),
@@ -83,7 +83,7 @@ export const compareQuerySchema = z.strictObject({
 
 export const pinCreateSchema = z.strictObject({ note: note.default("") });
 export const reviewSchema = z.strictObject({
-  decision: z.enum(["approve", "reject"], { error: "decision must be approve or reject" }),
+  decision: z.enum(["approve", "reject"], { error: "Choose approve or reject" }),
   comment: multilineText({ error: "Say why" }).trim().min(1, "Say why").max(2000, "Use at most 2000 characters"),
 });
 

@@ -10,6 +10,8 @@ import { QUEUES, WAKE_CHANNEL, type SweepChunkPayload } from "@/lib/jobs/queues"
 import { designSpecSchema } from "@/lib/schemas/sweep-spec";
 import type { SweepCreate } from "@/lib/schemas/sweeps";
 import { toBadRequest } from "@/lib/sweeps/engine-bridge";
+import { labelFor } from "@/lib/schemas/field-labels";
+import { issueInWords } from "@/lib/schemas/issue-words";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
 import { checkUncertainFields, trainSpec } from "@/lib/robustness/train";
 import type { SweepRobustness } from "@/lib/schemas/robustness";
@@ -44,7 +46,8 @@ function checkScenarios(base: Record<string, unknown>, grid: GridAxis[], all: Ov
       const path = issue.path.join(".");
       const axis = grid.findIndex((a) => path === a.field || path.startsWith(`${a.field}.`) || a.field.startsWith(`${path}.`) || (issue.code === "unrecognized_keys" && a.field.startsWith(path)));
       const field = axis >= 0 ? `grid.${axis}.field` : fieldOfRequest(path, grid);
-      throw new AppError("bad_request", `${field}: ${issue.message}`, { fields: { [field]: [issue.message] } });
+      const words = issueInWords(issue);
+      throw new AppError("bad_request", `${labelFor(field)}: ${words}`, { fields: { [field]: [words] } });
     }
   }
   try {
@@ -56,7 +59,8 @@ function checkScenarios(base: Record<string, unknown>, grid: GridAxis[], all: Ov
     if (all.length === 1 || !["infeasible", "equilibrium"].includes(err.code)) {
       const bad = toBadRequest(err);
       const field = fieldOfRequest(err.path, grid);
-      throw new AppError("bad_request", err.message, { fields: { [field]: bad.fields?.[err.path] ?? [err.message] } });
+      const words = bad.fields?.[err.path] ?? [bad.message];
+      throw new AppError("bad_request", `${labelFor(field)}: ${words.join(" ")}`, { fields: { [field]: words } });
     }
   }
 }

@@ -163,7 +163,7 @@ async function notifySubmitter(db: Database, sweep: Sweep, status: "succeeded" |
   const [fresh] = await db.select().from(sweeps).where(eq(sweeps.id, sweep.id));
   const lines =
     status === "succeeded"
-      ? [`Your sweep "${sweep.name}" has finished: ${fresh?.total ?? sweep.total} scenarios, ${fresh?.failedScenarios ?? 0} of them refused by the engine.`, "", `Ranked trains: ${link}`]
+      ? [`Your sweep "${sweep.name}" has finished: ${fresh?.total ?? sweep.total} scenarios, ${fresh?.failedScenarios ?? 0} of them could not be sized.`, "", `Ranked trains: ${link}`]
       : [`Your sweep "${sweep.name}" failed: ${fresh?.error ?? "see the sweep page"}.`, "", `Details: ${link}`];
   try {
     await sendMail({ to: user.email, subject: `Sweep ${status === "succeeded" ? "finished" : "failed"}: ${sweep.name}`, text: [...lines, "", "Results come from idealised reactor models; see the cautions on the sweep page."].join("\n") });

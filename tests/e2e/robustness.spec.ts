@@ -39,13 +39,13 @@ test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the cha
   await panel.getByLabel("Distribution", { exact: true }).selectOption("plusMinus");
   await panel.getByLabel("± %", { exact: true }).fill("20");
   await panel.getByLabel("Samples", { exact: true }).fill("1500");
-  await panel.getByLabel("Seed", { exact: true }).fill("42");
+  await panel.getByLabel("Random seed (repeatable draws)", { exact: true }).fill("42");
   await panel.getByTestId("robustness-run").click();
 
   const result = panel.getByTestId("robustness-result");
   await expect(result).toBeVisible({ timeout: 30_000 });
   await expect(panel.getByTestId("robustness-chart").locator("svg")).toBeVisible();
-  await expect(panel.getByTestId("robustness-summary")).toContainText("1,500 samples (seed 42)");
+  await expect(panel.getByTestId("robustness-summary")).toContainText("1,500 samples (random seed 42)");
 
   // The figures on screen are the stored run's.
   const list = (await (await engineer.get(`/api/candidates/${pin.candidateId}/robustness`)).json()) as {
@@ -71,7 +71,7 @@ test("a bad range is refused beside its field and nothing runs", async () => {
   await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("± %", { exact: true }).fill("150");
   await panel.getByTestId("robustness-run").click();
-  await expect(panel.getByTestId("uncertain-0").getByRole("alert")).toContainText("fraction must be below 1");
+  await expect(panel.getByTestId("uncertain-0").getByRole("alert")).toContainText("below 100 %");
   expect(await runs()).toBe(before);
   await page.close();
 });
@@ -85,10 +85,10 @@ test("pinned design: a run above 2,000 samples is queued, polled and shown when 
   const panel = item.getByRole("region", { name: "Robustness of this pinned design" });
   await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("Samples", { exact: true }).fill("3000");
-  await panel.getByLabel("Seed", { exact: true }).fill("5");
+  await panel.getByLabel("Random seed (repeatable draws)", { exact: true }).fill("5");
   await panel.getByTestId("robustness-run").click();
   await expect(panel.getByTestId("robustness-waiting")).toBeVisible();
-  await expect(panel.getByTestId("robustness-summary")).toContainText("3,000 samples (seed 5)", { timeout: 60_000 });
+  await expect(panel.getByTestId("robustness-summary")).toContainText("3,000 samples (random seed 5)", { timeout: 60_000 });
   await expectAccessible(page);
   await page.close();
 });

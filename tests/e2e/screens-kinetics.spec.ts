@@ -55,7 +55,7 @@ test("an engineer defines kinetics with a live plot, builds a sweep over a grid 
 
   // An engine error is shown at the field it concerns.
   await k.fill("-1");
-  await expect(page.locator("#f-reaction-rate-k-value-error")).toContainText("must be > 0");
+  await expect(page.locator("#f-reaction-rate-k-value-error")).toContainText("must be above 0");
   await k.fill("0.004");
   await expect(pfr).toHaveText("19.19 L");
   // The unit picker converts what was typed.
@@ -102,14 +102,16 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   await managerPage.goto(`/projects/${projectId}`);
   await appReady(managerPage);
   const pin = managerPage.getByTestId("pin").filter({ hasText: note });
-  await expect(pin.getByTestId("pin-state")).toHaveText(/pending review/);
+  await expect(pin.getByTestId("pin-state")).toHaveText(/pending review/i);
   await expect(pin).toContainText("Eli");
-  await expect(pin.getByTestId("cautions")).toContainText("licensed engineer");
+  // one caution block per page: the project page's, below the pinned designs
+  await expect(managerPage.getByTestId("cautions")).toHaveCount(1);
+  await expect(managerPage.getByTestId("cautions")).toContainText("licensed engineer");
   await pin.getByRole("button", { name: "Approve" }).click();
   await expect(pin.getByText("Say why")).toBeVisible();
   await pin.getByLabel("Review comment").fill("Fits the plot plan; heat-removal study booked");
   await pin.getByRole("button", { name: "Approve" }).click();
-  await expect(pin.getByTestId("pin-state")).toHaveText(/approved/);
+  await expect(pin.getByTestId("pin-state")).toHaveText(/approved/i);
   await expect(pin).toContainText("Fits the plot plan");
   await expect(managerPage.getByTestId("audit-table")).toContainText("design.approved");
   await managerPage.screenshot({ path: `${SHOTS}/project-page.png`, fullPage: true });
@@ -119,8 +121,8 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   await signIn(viewerPage, "viewer");
   await viewerPage.goto(`/projects/${projectId}`);
   const seen = viewerPage.getByTestId("pin").filter({ hasText: note });
-  await expect(seen.getByTestId("pin-state")).toHaveText(/approved/);
-  await expect(viewerPage.getByTestId("pins-list").getByText("pending review")).toHaveCount(0);
+  await expect(seen.getByTestId("pin-state")).toHaveText(/approved/i);
+  await expect(viewerPage.getByTestId("pins-list").getByText(/pending review/i)).toHaveCount(0);
   await expect(viewerPage.getByRole("link", { name: "New kinetics" })).toHaveCount(0);
   await expect(viewerPage.getByRole("link", { name: "New sweep" })).toHaveCount(0);
   await expect(viewerPage.getByRole("button", { name: "Approve" })).toHaveCount(0);

@@ -32,6 +32,8 @@ for (const c of CASES) {
     const body = (await res.json()) as { error: { code: string; fields: Record<string, string[]> } };
     expect(body.error.code).toBe("bad_request");
     for (const f of c.fields) expect(Object.keys(body.error.fields)).toContain(f);
+    // the sentence a person reads names fields by label, never by key or dotted path
+    expect((body.error as unknown as { message: string }).message).not.toMatch(/\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+/);
   });
 }
 
