@@ -4,7 +4,8 @@
  */
 import { z } from "zod";
 import { kineticsModelCreateSchema, kineticsSpecSchema, type KineticsSpec } from "@/lib/schemas/sweeps";
-import { formatNumber, fromSI, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
+import { fromSI, isUnit, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
+import { RATE_CONSTANT_UNIT_SEPARATOR, splitRateConstantUnit } from "@/lib/units/typed-units";
 
 const quantityInput = z.object({ value: z.string(), unit: z.string() });
 const rateConstantInput = z.object({ value: z.string(), conc: z.string(), time: z.string() });
@@ -100,6 +101,8 @@ const SPECIES = /^[A-Za-z][A-Za-z0-9_]*$/;
 
 class Builder {
   issues: FormIssue[] = [];
+  /** The unit picked for each quantity that was read, by spec path: saved so the model reopens as typed. */
+  shown: Record<string, string> = {};
   issue(path: string, message: string) {
     this.issues.push({ path, message });
   }
@@ -121,7 +124,9 @@ class Builder {
     const n = this.num(input.value, `${path}.value`, required);
     if (n === undefined) return undefined;
     try {
-      return toSI(kind, n, input.unit);
+      const si = toSI(kind, n, input.unit);
+      this.shown[path] = input.unit;
+      return si;
     } catch {
       this.issue(`${path}.value`, "Pick a unit");
       return undefined;
@@ -166,12 +171,14 @@ export function formToSpec(v: KineticsFormValues): { spec: KineticsSpec | null; 
     if (Object.keys(orders).length === 0) b.issue("reaction.rate.orders", "Give the order of at least one species");
     const kv = b.num(r.k.value, "reaction.rate.k.value");
     const k = kv === undefined ? undefined : rateConstantToSI(kv, sum(orders), r.k.conc, r.k.time);
+    if (k !== undefined) b.shown["reaction.rate.k"] = `${r.k.conc}${RATE_CONSTANT_UNIT_SEPARATOR}${r.k.time}`;
     let reverse: Extract<KineticsSpec["reaction"]["rate"], { law: "power" }>["reverse"];
     if (r.reverseOn) {
       const rOrders = b.rows(r.reverse.orders, "reaction.rate.reverse.orders");
       const rkv = b.num(r.reverse.k.value, "reaction.rate.reverse.k.value");
       const rEa = r.arrheniusOn ? b.quantity("energyPerMol", r.reverse.activationEnergy, "reaction.rate.reverse.activationEnergy", false) : undefined;
       if (rkv !== undefined) {
+        b.shown["reaction.rate.reverse.k"] = `${r.reverse.k.conc}${RATE_CONSTANT_UNIT_SEPARATOR}${r.reverse.k.time}`;
         reverse = { k: rateConstantToSI(rkv, sum(rOrders), r.reverse.k.conc, r.reverse.k.time), orders: rOrders, ...(rEa !== undefined ? { activationEnergy: rEa } : {}) };
       }
     }
@@ -199,6 +206,7 @@ export function formToSpec(v: KineticsFormValues): { spec: KineticsSpec | null; 
       }
     });
     if (r.table.rows.length < 2) b.issue("reaction.rate.table", "Give at least two points");
+    b.shown["reaction.rate.rate"] = r.table.rateUnit;
     rate = { law: "table", conversion, rate: rates };
   }
 
@@ -229,6 +237,7 @@ export function formToSpec(v: KineticsFormValues): { spec: KineticsSpec | null; 
       rate,
       thermal,
     },
+    shownUnits: b.shown,
   };
   const parsed = kineticsSpecSchema.safeParse(spec);
   if (!parsed.success) return { spec: null, issues: parsed.error.issues.map((i) => ({ path: formPathOf(i.path.join(".")), message: i.message })) };
@@ -288,26 +297,31 @@ export function mapServerFields(fields: Record<string, string[]>): { byField: Re
   return { byField, rest };
 }
 
-const show = (n: number) => formatNumber(n, 6);
+/** A stored number back as the engineer typed it: 12 significant digits undo the unit round trip. */
+const show = (n: number) => String(Number(n.toPrecision(12)));
 const rowsOf = (r: Record<string, number> | undefined, skip?: string) =>
   Object.entries(r ?? {})
     .filter(([k]) => k !== skip)
     .map(([name, value]) => ({ name, value: String(value) }));
 const asNumber = (v: unknown): number => (typeof v === "number" ? v : Number(v));
-const qIn = (kind: UnitKind, si: unknown, unit: string): QuantityInput =>
-  si === undefined || si === null ? q("", unit) : q(show(fromSI(kind, asNumber(si), unit)), unit);
 
-/** The form for an SI spec (quantities as numbers), in the default display units. */
+/** The form for an SI spec (quantities as numbers), each field in the unit it was typed in (else the default). */
 export function specToForm(spec: KineticsSpec, extra: { name?: string; note?: string } = {}): KineticsFormValues {
+  const shown = spec.shownUnits ?? {};
+  const unitAt = (kind: UnitKind, path: string, fallback: string) => (shown[path] && isUnit(kind, shown[path]) ? shown[path] : fallback);
+  const qAt = (kind: UnitKind, path: string, si: unknown, fallback: string): QuantityInput => {
+    const unit = unitAt(kind, path, fallback);
+    return si === undefined || si === null ? q("", unit) : q(show(fromSI(kind, asNumber(si), unit)), unit);
+  };
   const d = defaultKineticsValues();
   const v: KineticsFormValues = structuredClone(d);
   v.name = extra.name ?? "";
   v.note = extra.note ?? "";
   const f = spec.feed;
   v.feed = {
-    flowA: qIn("molarFlow", f.flowA, d.feed.flowA.unit),
-    concA: qIn("concentration", f.concA, d.feed.concA.unit),
-    temperature: qIn("temperature", f.temperature ?? 298.15, d.feed.temperature.unit),
+    flowA: qAt("molarFlow", "feed.flowA", f.flowA, d.feed.flowA.unit),
+    concA: qAt("concentration", "feed.concA", f.concA, d.feed.concA.unit),
+    temperature: qAt("temperature", "feed.temperature", f.temperature ?? 298.15, d.feed.temperature.unit),
     ratios: rowsOf(f.ratios),
   };
   const re = spec.reaction;
@@ -319,40 +333,42 @@ export function specToForm(spec: KineticsSpec, extra: { name?: string; note?: st
   vr.law = r.law;
   if (r.law === "power" || r.law === "saturation") {
     vr.arrheniusOn = r.activationEnergy !== undefined;
-    vr.activationEnergy = qIn("energyPerMol", r.activationEnergy, "kJ/mol");
-    vr.referenceTemperature = qIn("temperature", r.referenceTemperature, "K");
+    vr.activationEnergy = qAt("energyPerMol", "reaction.rate.activationEnergy", r.activationEnergy, "kJ/mol");
+    vr.referenceTemperature = qAt("temperature", "reaction.rate.referenceTemperature", r.referenceTemperature, "K");
   }
   if (r.law === "power") {
     vr.orders = rowsOf(r.orders);
-    vr.k = { ...d.reaction.rate.k, value: show(rateConstantFromSI(asNumber(r.k), sum(r.orders), d.reaction.rate.k.conc, d.reaction.rate.k.time)) };
+    const kUnit = splitRateConstantUnit(shown["reaction.rate.k"]) ?? { conc: d.reaction.rate.k.conc, time: d.reaction.rate.k.time };
+    vr.k = { ...kUnit, value: show(rateConstantFromSI(asNumber(r.k), sum(r.orders), kUnit.conc, kUnit.time)) };
     vr.reverseOn = !!r.reverse;
     if (r.reverse) {
-      const rk = d.reaction.rate.reverse.k;
+      const rk = splitRateConstantUnit(shown["reaction.rate.reverse.k"]) ?? d.reaction.rate.reverse.k;
       vr.reverse = {
-        k: { ...rk, value: show(rateConstantFromSI(asNumber(r.reverse.k), sum(r.reverse.orders), rk.conc, rk.time)) },
+        k: { conc: rk.conc, time: rk.time, value: show(rateConstantFromSI(asNumber(r.reverse.k), sum(r.reverse.orders), rk.conc, rk.time)) },
         orders: rowsOf(r.reverse.orders),
-        activationEnergy: qIn("energyPerMol", r.reverse.activationEnergy, "kJ/mol"),
+        activationEnergy: qAt("energyPerMol", "reaction.rate.reverse.activationEnergy", r.reverse.activationEnergy, "kJ/mol"),
       };
       if (r.reverse.activationEnergy !== undefined) vr.arrheniusOn = true;
     }
   } else if (r.law === "saturation") {
-    vr.vmax = qIn("rate", r.vmax, d.reaction.rate.vmax.unit);
-    vr.km = qIn("concentration", r.km, d.reaction.rate.km.unit);
+    vr.vmax = qAt("rate", "reaction.rate.vmax", r.vmax, d.reaction.rate.vmax.unit);
+    vr.km = qAt("concentration", "reaction.rate.km", r.km, d.reaction.rate.km.unit);
     vr.kiOn = r.ki !== undefined;
-    vr.ki = qIn("concentration", r.ki, "mol/L");
+    vr.ki = qAt("concentration", "reaction.rate.ki", r.ki, "mol/L");
   } else if (r.law === "expression") {
     vr.expression = r.expression;
     vr.parameters = Object.entries(r.parameters ?? {}).map(([name, value]) => ({ name, value: String(value) }));
   } else {
-    vr.table = { rateUnit: "mol/(m3 s)", rows: r.conversion.map((x, i) => ({ conversion: String(x), rate: String(r.rate[i] ?? "") })) };
+    const rateUnit = unitAt("rate", "reaction.rate.rate", "mol/(m3 s)");
+    vr.table = { rateUnit, rows: r.conversion.map((x, i) => ({ conversion: String(x), rate: r.rate[i] === undefined ? "" : show(fromSI("rate", r.rate[i], rateUnit)) })) };
   }
   const t = re.thermal;
   if (t?.mode === "adiabatic") {
     v.reaction.thermal = {
       mode: "adiabatic",
-      adiabaticRise: qIn("temperatureDifference", t.adiabaticRise, "K"),
-      maxTemperature: qIn("temperature", t.maxTemperature, "K"),
-      interstageTemperature: qIn("temperature", t.interstageTemperature, "K"),
+      adiabaticRise: qAt("temperatureDifference", "reaction.thermal.adiabaticRise", t.adiabaticRise, "K"),
+      maxTemperature: qAt("temperature", "reaction.thermal.maxTemperature", t.maxTemperature, "K"),
+      interstageTemperature: qAt("temperature", "reaction.thermal.interstageTemperature", t.interstageTemperature, "K"),
     };
   }
   return v;

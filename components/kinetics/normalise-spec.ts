@@ -40,6 +40,7 @@ export function normaliseKineticsSpec(spec: KineticsSpec): KineticsSpec {
     rate = { ...r, parameters: Object.fromEntries(Object.entries(r.parameters).map(([k, v]) => [k, anyToSI(v, k)])) };
   }
   return {
+    ...(spec.shownUnits ? { shownUnits: spec.shownUnits } : {}),
     feed: {
       ...f,
       flowA: toSI(f.flowA, DIM.molarFlow, "flowA"),

@@ -1,8 +1,8 @@
 "use client";
 
 import { useFormContext, useWatch } from "react-hook-form";
-import { UnitOptions } from "@/components/ui/unit-options";
-import { convert, formatNumber, type UnitKind } from "@/lib/units/display";
+import { QuantityInput } from "@/components/ui/quantity-input";
+import type { UnitKind } from "@/lib/units/display";
 
 /** The field's id, from its form path. */
 export const fieldId = (path: string) => `f-${path.replace(/[.]/g, "-")}`;
@@ -29,8 +29,8 @@ export function ErrorText({ id, message }: { id: string; message?: string }) {
 }
 
 /**
- * A number with its unit picker. The number is what the user typed; picking another unit
- * converts it so the quantity stays the same. `path` points at a { value, unit } pair.
+ * A kinetics quantity: the shared number-with-unit input bound to a { value, unit } pair at
+ * `path`. Picking a unit never rewrites the number (60 then °C is 60 °C).
  */
 export function QuantityField({
   path,
@@ -47,51 +47,24 @@ export function QuantityField({
   external?: ExternalErrors;
   optional?: boolean;
 }) {
-  const { register, setValue, getValues, formState } = useFormContext();
+  const { register, formState } = useFormContext();
   const id = fieldId(`${path}.value`);
   const error = messageAt(formState.errors, `${path}.value`) ?? external?.[`${path}.value`];
   const unit = useWatch({ name: `${path}.unit` }) as string;
-  const unitField = register(`${path}.unit`);
+  const text = useWatch({ name: `${path}.value` }) as string;
   return (
-    <div>
-      <label htmlFor={id} className="field-label">
-        {label}
-        {optional ? <span className="ml-1 normal-case tracking-normal text-ink-soft">(optional)</span> : null}
-      </label>
-      <div className="flex gap-1.5">
-        <input
-          id={id}
-          className="input num min-w-0 flex-1"
-          inputMode="decimal"
-          autoComplete="off"
-          aria-invalid={!!error}
-          aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-          {...register(`${path}.value`)}
-        />
-        <select
-          aria-label={`${label} unit`}
-          className="input w-auto shrink-0"
-          {...unitField}
-          value={unit}
-          onChange={(e) => {
-            const next = e.target.value;
-            const typed = Number(String(getValues(`${path}.value`)).trim());
-            const raw = String(getValues(`${path}.value`)).trim();
-            if (raw !== "" && Number.isFinite(typed)) {
-              setValue(`${path}.value`, formatNumber(convert(kind, typed, unit, next), 6), { shouldValidate: true, shouldDirty: true });
-            }
-            void unitField.onChange(e);
-          }}
-        >
-          <UnitOptions kind={kind} />
-        </select>
-      </div>
-      {hint && !error ? (
-        <p id={`${id}-hint`} className="mt-1 text-xs text-ink-soft">
-          {hint}
-        </p>
-      ) : null}
-      <ErrorText id={id} message={error} />
-    </div>
+    <QuantityInput
+      id={id}
+      label={label}
+      kind={kind}
+      number={register(`${path}.value`)}
+      unit={register(`${path}.unit`)}
+      unitValue={unit}
+      numberText={text}
+      error={error}
+      hint={hint}
+      optional={optional}
+      echo
+    />
   );
 }

@@ -11,12 +11,15 @@ import { SWEEP_OPTION_OFF, SweepRobustnessOption, sweepOptionValue } from "@/com
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import type { UnitKind } from "@/lib/units/display";
 import { CostBasisOptions } from "./cost-basis-options";
 import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-model";
 
 export interface VersionOption {
   id: string;
   label: string;
+  /** The units the kinetics was typed in, by kind: a varied field starts in them. */
+  units?: Partial<Record<UnitKind, string>>;
 }
 
 const schema = builderValuesSchema.transform((v, ctx) => {
@@ -51,6 +54,12 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
   const [sentKey, setSentKey] = useState<string>();
   const shownError = formError !== undefined && sentKey === valuesKey ? formError : undefined;
   const err = (p: string) => messageAt(formState.errors, p);
+  const typed = versions.find((o) => o.id === v.kineticsVersionId)?.units ?? {};
+  /** A varied field's starting unit: the one the kinetics was typed in, else the field's usual one. */
+  const unitFor = (field: string) => {
+    const g = GRID_FIELDS.find((f) => f.field === field);
+    return (g?.kind ? typed[g.kind] : undefined) ?? g?.defaultUnit ?? "";
+  };
 
   const onSubmit = form.handleSubmit(async (body) => {
     setFormError(undefined);
@@ -242,7 +251,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
                         id={`s-grid-${i}-field`}
                         className="input w-auto"
                         {...register(`grid.${i}.field`, {
-                          onChange: (e: { target: { value: string } }) => setValue(`grid.${i}.unit`, GRID_FIELDS.find((g) => g.field === e.target.value)?.defaultUnit ?? ""),
+                          onChange: (e: { target: { value: string } }) => setValue(`grid.${i}.unit`, unitFor(e.target.value)),
                         })}
                       >
                         {GRID_FIELDS.map((g) => (
@@ -300,7 +309,10 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
               );
             })}
             {grid.fields.length < 4 ? (
-              <button type="button" className="btn-quiet py-1" onClick={() => grid.append(newAxis(GRID_FIELDS[Math.min(grid.fields.length, 2)].field))}>
+              <button type="button" className="btn-quiet py-1" onClick={() => {
+                  const field = GRID_FIELDS[Math.min(grid.fields.length, 2)].field;
+                  grid.append({ ...newAxis(field), unit: unitFor(field) });
+                }}>
                 + Vary a field
               </button>
             ) : null}

@@ -2,6 +2,7 @@
 
 import { useRef, useState, type KeyboardEvent } from "react";
 import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
+import { fromSI, isUnit, unitLabel, type UnitKind } from "@/lib/units/display";
 import type { ScenarioRow } from "./types";
 
 const FIELD_NAMES: Record<string, string> = {
@@ -10,7 +11,29 @@ const FIELD_NAMES: Record<string, string> = {
   "feed.temperature": "Feed temperature, K",
   "target.conversion": "Target conversion",
 };
-export const fieldName = (path: string) => FIELD_NAMES[path] ?? path;
+/** The grid's fields that carry a unit, and their kind: the axis shows them in the kinetics' typed unit. */
+const AXIS_KIND: Record<string, UnitKind> = { "feed.flowA": "molarFlow", "feed.concA": "concentration", "feed.temperature": "temperature" };
+
+/** The units the kinetics was typed in, by kind (from lib/units/typed-units). */
+export type TypedUnits = Partial<Record<UnitKind, string>>;
+
+const axisUnit = (path: string, units: TypedUnits | undefined) => {
+  const kind = AXIS_KIND[path];
+  const unit = kind ? units?.[kind] : undefined;
+  return kind && unit && isUnit(kind, unit) ? { kind, unit } : null;
+};
+
+export const fieldName = (path: string, units?: TypedUnits) => {
+  const typed = axisUnit(path, units);
+  const name = FIELD_NAMES[path] ?? path;
+  return typed ? `${name.split(",")[0]}, ${unitLabel(typed.kind, typed.unit)}` : name;
+};
+
+/** A grid value (stored SI) on the axis, in the kinetics' typed unit when it has one. */
+export const axisValue = (path: string, si: number, units?: TypedUnits) => {
+  const typed = axisUnit(path, units);
+  return formatNumber(typed ? fromSI(typed.kind, si, typed.unit) : si, 4);
+};
 
 export function describeOverrides(overrides: Record<string, number>): string {
   const parts = Object.entries(overrides).map(([k, v]) => `${fieldName(k).split(",")[0]} ${formatNumber(v, 4)}`);
@@ -130,6 +153,7 @@ export function ObjectiveHeatMap({
   onSelect,
   objective,
   unit,
+  typedUnits,
 }: {
   scenarios: ScenarioRow[];
   fields: [string, string];
@@ -137,6 +161,7 @@ export function ObjectiveHeatMap({
   onSelect: (index: number) => void;
   objective: "volume" | "cost";
   unit: VolumeUnit;
+  typedUnits?: TypedUnits;
 }) {
   const [fx, fy] = fields;
   const xs = [...new Set(scenarios.map((s) => s.overrides[fx]))].sort((a, b) => a - b);
@@ -185,16 +210,16 @@ export function ObjectiveHeatMap({
           }}
         >
           <caption className="sr-only">
-            Best objective by {fieldName(fy)} (rows) and {fieldName(fx)} (columns)
+            Best objective by {fieldName(fy, typedUnits)} (rows) and {fieldName(fx, typedUnits)} (columns)
           </caption>
           <thead>
             <tr>
               <th scope="col" className="px-2 py-1 text-left font-medium text-ink-soft">
-                {fieldName(fy)} ↓ / {fieldName(fx)} →
+                {fieldName(fy, typedUnits)} ↓ / {fieldName(fx, typedUnits)} →
               </th>
               {xs.map((x) => (
                 <th key={x} scope="col" className="num px-2 py-1 text-right font-medium text-ink-soft">
-                  {formatNumber(x, 4)}
+                  {axisValue(fx, x, typedUnits)}
                 </th>
               ))}
             </tr>
@@ -203,7 +228,7 @@ export function ObjectiveHeatMap({
             {ys.map((y, r) => (
               <tr key={y}>
                 <th scope="row" className="num px-2 py-1 text-right font-medium text-ink-soft">
-                  {formatNumber(y, 4)}
+                  {axisValue(fy, y, typedUnits)}
                 </th>
                 {xs.map((x, c) => {
                   const s = at.get(`${x}|${y}`);
@@ -226,7 +251,7 @@ export function ObjectiveHeatMap({
                         onFocus={() => setActive([r, c])}
                         onClick={() => onSelect(s.index)}
                         aria-pressed={s.index === selected}
-                        aria-label={`${fieldName(fx)} ${formatNumber(x, 4)}, ${fieldName(fy)} ${formatNumber(y, 4)}: ${cellText(v)}${v === best ? ", smallest" : ""}`}
+                        aria-label={`${fieldName(fx, typedUnits)} ${axisValue(fx, x, typedUnits)}, ${fieldName(fy, typedUnits)} ${axisValue(fy, y, typedUnits)}: ${cellText(v)}${v === best ? ", smallest" : ""}`}
                         className={`num block w-full min-w-20 rounded-sm px-2 py-1.5 text-right ${s.index === selected ? "ring-2 ring-ink ring-offset-1" : ""} ${dark ? "text-white" : "text-ink"}`}
                         style={{ background: v === null ? "repeating-linear-gradient(45deg,#f7f8fa 0 4px,#dde2e8 4px 8px)" : `rgb(${rgb[0]} ${rgb[1]} ${rgb[2]})` }}
                       >

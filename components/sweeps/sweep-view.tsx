@@ -1,5 +1,6 @@
 "use client";
 
+import type { UnitKind } from "@/lib/units/display";
 import Link from "next/link";
 import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { useRouter } from "next/navigation";
@@ -20,7 +21,20 @@ import { candidateQuery, serialiseViewState, useViewState } from "./view-state";
 
 const ACTIVE = new Set(["queued", "running"]);
 
-export function SweepView({ sweepId, projectId, projectName, canSubmit }: { sweepId: string; projectId: string; projectName: string; canSubmit: boolean }) {
+export function SweepView({
+  sweepId,
+  projectId,
+  projectName,
+  canSubmit,
+  typedUnits,
+}: {
+  sweepId: string;
+  projectId: string;
+  projectName: string;
+  canSubmit: boolean;
+  /** The units the sweep's kinetics was typed in: the grid axis speaks them. */
+  typedUnits?: Partial<Record<UnitKind, string>>;
+}) {
   const router = useRouter();
   const qc = useQueryClient();
   const [urlView, setView] = useViewState();
@@ -154,7 +168,7 @@ export function SweepView({ sweepId, projectId, projectName, canSubmit }: { swee
         <>
           {scenariosQ.isError ? <ErrorPanel error={scenariosQ.error} what="the scenarios" /> : null}
           {grid2 && scenarios.length > 1 ? (
-            <ObjectiveHeatMap scenarios={scenarios} fields={grid2} selected={view.scenario} onSelect={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} />
+            <ObjectiveHeatMap scenarios={scenarios} fields={grid2} selected={view.scenario} onSelect={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} typedUnits={typedUnits} />
           ) : null}
           <section className="card" aria-labelledby="ranked-title">
             <div className="space-y-3 border-b border-line p-4">

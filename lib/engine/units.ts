@@ -51,6 +51,9 @@ export function toSI(value: Quantity, dimension: Dimension, path: string): numbe
   const trimmed = value.trim();
   if (/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(trimmed)) return finiteOrThrow(Number(trimmed), path);
   if (dimension === null) {
+    // A dimensionless field may be given in percent: "90 %" or "90%" is 0.9.
+    const pct = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*%$/.exec(trimmed);
+    if (pct) return finiteOrThrow(Number(pct[1]) / 100, path);
     throw new EngineError("invalid-unit", `${path} is dimensionless; "${value}" carries a unit`, path);
   }
   const q = parseQuantity(trimmed, path);

@@ -1,11 +1,13 @@
 import { z } from "zod";
 import type { DesignSpec, RatingSpec } from "../engine/types";
+import { dimensionless } from "./dimensionless";
 import { keyText, multilineText, text } from "./text";
 
 /** A number in SI units or a string with a unit ("2 mol/L"). */
 const quantity = z.union([z.number(), text().min(1).max(100, "Use at most 100 characters")]);
 const stageType = z.enum(["CSTR", "PFR"]);
-const numberMap = z.record(keyText().max(40, "Use at most 40 characters"), z.number());
+const numberMap = z.record(keyText().max(40, "Use at most 40 characters"), dimensionless("Each value"));
+const ratioMap = z.record(keyText().max(40, "Use at most 40 characters"), dimensionless("Feed ratio to A"));
 
 const reverse = z.strictObject({ k: quantity, orders: numberMap, activationEnergy: quantity.optional() });
 
@@ -40,12 +42,12 @@ const thermal = z.discriminatedUnion("mode", [
   }),
 ]);
 
-const feed = z.strictObject({ flowA: quantity, concA: quantity, temperature: quantity.optional(), ratios: numberMap.optional() });
+const feed = z.strictObject({ flowA: quantity, concA: quantity, temperature: quantity.optional(), ratios: ratioMap.optional() });
 
 const reaction = z.strictObject({
   stoichiometry: numberMap.optional(),
   phase: z.enum(["liquid", "gas"]).optional(),
-  epsilon: z.number().optional(),
+  epsilon: dimensionless("Expansion factor").optional(),
   rate,
   thermal: thermal.optional(),
 });
@@ -74,7 +76,7 @@ const objective = z.discriminatedUnion("minimise", [
 export const designSpecSchema = z.strictObject({
   feed,
   reaction,
-  target: z.strictObject({ conversion: z.number() }),
+  target: z.strictObject({ conversion: dimensionless("Target conversion", { percent: true }) }),
   train,
   objective: objective.optional(),
 }) satisfies z.ZodType<DesignSpec>;

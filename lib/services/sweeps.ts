@@ -143,7 +143,9 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
     });
   }
   const { costing, inventory } = await sweepCostingFor(db, actor, input);
-  const engineSpec = { ...kv.version.spec, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
+  // The units the engineer typed the model in are for showing it again; the engine reads SI only.
+  const { shownUnits: _shownUnits, ...chemistry } = kv.version.spec as Record<string, unknown>;
+  const engineSpec = { ...chemistry, target: input.target, train: input.train, ...(input.objective ? { objective: input.objective } : {}) };
   checkScenarios(engineSpec, input.grid, expandGrid(input.grid));
   if (input.robustness) checkUncertainFields(trainSpec(engineSpec, []), input.robustness.uncertain, "robustness.uncertain");
   const baseSpec = costing ? { ...engineSpec, costing } : engineSpec;

@@ -169,3 +169,30 @@ export function formatQuantity(kind: UnitKind, si: number | null | undefined, un
   if (si === null || si === undefined || !Number.isFinite(si)) return "—";
   return `${formatNumber(fromSI(kind, si, unit), digits)} ${unitLabel(kind, unit)}`;
 }
+
+/**
+ * The number to put back in a field for an SI value stored from what the engineer typed in `unit`:
+ * 12 significant digits undo the round trip's rounding (5 kmol/h → 1.3888…mol/s → 5, not
+ * 4.999999999999999) and keep every digit a person types.
+ */
+export function typedText(kind: UnitKind, si: number, unit: string): string {
+  return String(Number(fromSI(kind, si, unit).toPrecision(12)));
+}
+
+/** The number a field holds as a number, or null when blank or not a number. */
+export function readTyped(text: string): number | null {
+  const t = text.trim();
+  if (t === "") return null;
+  const n = Number(t);
+  return Number.isFinite(n) ? n : null;
+}
+
+/**
+ * What a typed quantity is in the engine's units, as a short echo beside the field, e.g.
+ * "= 333.15 K" for 60 °C; empty when the unit is already the engine's or the text is no number.
+ */
+export function echoInEngineUnits(kind: UnitKind, text: string, unit: string): string {
+  const n = readTyped(text);
+  if (n === null || !isUnit(kind, unit) || unit === SI_UNIT[kind]) return "";
+  return `= ${formatNumber(toSI(kind, n, unit), 6)} ${unitLabel(kind, SI_UNIT[kind])}`;
+}

@@ -9,6 +9,7 @@ describe("kinetics form → SI spec", () => {
     expect(spec).toEqual({
       feed: { flowA: 0.05, concA: 1500, temperature: 330 },
       reaction: { stoichiometry: { A: -1, R: 1 }, phase: "liquid", rate: { law: "power", k: 0.002, orders: { A: 1 } }, thermal: { mode: "isothermal" } },
+      shownUnits: { "feed.flowA": "mol/s", "feed.concA": "mol/L", "feed.temperature": "K", "reaction.rate.k": "mol/L|s" },
     });
   });
 

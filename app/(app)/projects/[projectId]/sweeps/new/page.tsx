@@ -5,6 +5,7 @@ import { SweepBuilder } from "@/components/sweep-builder/sweep-builder";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
 import { listKineticsModels } from "@/lib/services/kinetics";
+import { typedUnits } from "@/lib/units/typed-units";
 import { loadProjectPage } from "../../project-data";
 
 export const dynamic = "force-dynamic";
@@ -16,7 +17,7 @@ export default async function NewSweepPage({ params, searchParams }: { params: P
   const { actor, project } = await loadProjectPage(projectId);
   const allowed = can(actor, "sweep.create");
   const models = allowed ? await listKineticsModels(getDb(), actor, project.id) : [];
-  const versions = models.filter((m) => m.latestVersion).map((m) => ({ id: m.latestVersion.id, label: `${m.name} · v${m.latestVersion.version}` }));
+  const versions = models.filter((m) => m.latestVersion).map((m) => ({ id: m.latestVersion.id, label: `${m.name} · v${m.latestVersion.version}`, units: typedUnits(m.latestVersion.spec) }));
   const chosen = versions.find((o) => o.id === version)?.id ?? versions[0]?.id ?? "";
   return (
     <div className="space-y-4">
