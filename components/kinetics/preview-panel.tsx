@@ -48,7 +48,10 @@ export function PreviewPanel({ specJson, target, onTarget, targetError, onEngine
     retry: false,
     staleTime: 60_000,
     queryFn: async ({ signal }) => {
-      const [spec, t] = request!.split("|");
+      // The spec itself may hold "|" (a rate constant's shown unit is "mol/L|h"): split at the last one.
+      const cut = request!.lastIndexOf("|");
+      const spec = request!.slice(0, cut);
+      const t = request!.slice(cut + 1);
       const started = performance.now();
       const body = await fetchJson<{ preview: KineticsPreview }>("/api/kinetics/preview", {
         method: "POST",

@@ -27,9 +27,18 @@ export function useSetDisplayPreference(): (p: DisplayPreference) => void {
   return useContext(DisplayPreferenceContext).setPreference;
 }
 
+const TypedUnitsContext = createContext<Partial<Record<UnitKind, string>> | undefined>(undefined);
+
+/** The units the kinetics behind this screen was typed in, for the "as typed" choice. */
+export function TypedUnitsProvider({ units, children }: { units: Partial<Record<UnitKind, string>>; children: React.ReactNode }) {
+  return <TypedUnitsContext.Provider value={units}>{children}</TypedUnitsContext.Provider>;
+}
+
 /** The units this screen shows its numbers in (see lib/units/display-preference.ts). */
-export function useDisplayUnits(largestVolume?: number | null, typed?: Partial<Record<UnitKind, string>>): DisplayUnits {
+export function useDisplayUnits(largestVolume?: number | null, typedHere?: Partial<Record<UnitKind, string>>): DisplayUnits {
   const preference = useDisplayPreference();
+  const fromPage = useContext(TypedUnitsContext);
+  const typed = typedHere ?? fromPage;
   const typedKey = typed ? JSON.stringify(typed) : "";
   // eslint-disable-next-line react-hooks/exhaustive-deps -- typedKey stands for typed
   return useMemo(() => resolveDisplayUnits(preference, typed, { largestVolume }), [preference, largestVolume, typedKey]);

@@ -94,7 +94,7 @@ export function SweepView({
   // Volumes follow the user's display-unit setting (litres while the largest train on the page is
   // below 1 m³) unless a unit was picked on this page, which the URL then keeps.
   const largestVolume = useMemo(() => Math.max(0, ...(candidatesQ.data?.items ?? []).map((r) => r.totalVolume ?? 0)), [candidatesQ.data]);
-  const shownUnits = useDisplayUnits(largestVolume || null);
+  const shownUnits = useDisplayUnits(largestVolume || null, typedUnits);
   const view = useMemo(() => ({ ...urlView, unit: urlView.unit ?? shownUnits.volume }), [urlView, shownUnits.volume]);
 
   const toggle = useCallback((id: string) => setSelected((s) => (s.includes(id) ? s.filter((x) => x !== id) : s.length >= 4 ? s : [...s, id])), []);

@@ -15,6 +15,8 @@ import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
 import { PIN_STATE } from "@/lib/glossary";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { getPin } from "@/lib/services/pins";
+import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
+import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
 
 export const REPORT_FORMAT = "seriatim.design-report/1";
@@ -72,7 +74,17 @@ export interface DesignReport {
   };
   origin: { sweep: { id: string; name: string } | null; scenarioIndex: number | null; overrides: Record<string, number>; rank: number | null };
   feed: WordLine[];
-  kinetics: { label: string; model: string | null; version: number | null; law: string; formula: string; parameters: WordLine[]; reaction: WordLine[] };
+  kinetics: {
+    label: string;
+    model: string | null;
+    version: number | null;
+    law: string;
+    formula: string;
+    parameters: WordLine[];
+    reaction: WordLine[];
+    /** The units the engineer typed the model in, for the "as typed" display choice. */
+    typedUnits: Partial<Record<UnitKind, string>>;
+  };
   source:
     | { recorded: false }
     | {
@@ -130,7 +142,7 @@ export interface ReportInputs {
   pin: PinnedDesign;
   project: { id: string; name: string; description: string };
   names: Record<string, string>;
-  kinetics: { model: string; version: number } | null;
+  kinetics: { model: string; version: number; spec?: unknown } | null;
   source: { kind: string; fit: Obj | null; dataset: string; datasetVersion: number; fileName: string; rowCount: number } | null;
   candidate: { installedCost: number | null; inventoryPlan: Obj | null } | null;
   costSettings: { settings: Obj; updatedAt: Date } | null;
@@ -264,6 +276,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       label: input.kinetics ? `${input.kinetics.model}, version ${input.kinetics.version}` : "kinetics version not found",
       model: input.kinetics?.model ?? null,
       version: input.kinetics?.version ?? null,
+      typedUnits: typedUnits(obj(input.kinetics?.spec) as WithShownUnits),
       law: rate.law,
       formula: rate.formula,
       parameters: rate.parameters,
@@ -340,7 +353,7 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
     .where(and(eq(projects.id, pin.projectId), eq(projects.teamId, actor.teamId)));
   const [[kinetics], [source], [candidate], [costSettings], [robustness], people] = await Promise.all([
     db
-      .select({ model: kineticsModels.name, version: kineticsVersions.version })
+      .select({ model: kineticsModels.name, version: kineticsVersions.version, spec: kineticsVersions.spec })
       .from(kineticsVersions)
       .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
       .where(and(eq(kineticsVersions.id, pin.kineticsVersionId), eq(kineticsModels.teamId, actor.teamId))),

@@ -24,9 +24,9 @@ export const fmtKelvin = (t: number | null | undefined, units?: Pick<DisplayUnit
   t === null || t === undefined || !Number.isFinite(t) ? "—" : units ? `${fromSI("temperature", t, units.temperature).toFixed(1)} ${unitLabel("temperature", units.temperature)}` : `${t.toFixed(1)} K`;
 
 /** The units a report is shown in: the reader's choice, with the volume picked for the largest volume it shows. */
-export function reportUnits(r: Pick<DesignReport, "train" | "references">, preference: DisplayPreference): DisplayUnits {
+export function reportUnits(r: Pick<DesignReport, "train" | "references"> & { kinetics?: Pick<DesignReport["kinetics"], "typedUnits"> }, preference: DisplayPreference): DisplayUnits {
   const largest = Math.max(0, r.train.totalVolume ?? 0, r.references.singleCSTR ?? 0, r.references.singlePFR ?? 0);
-  return resolveDisplayUnits(preference, undefined, { largestVolume: largest || null });
+  return resolveDisplayUnits(preference, r.kinetics?.typedUnits, { largestVolume: largest || null });
 }
 export const fmtPercent = (p: number | null | undefined) => (p === null || p === undefined || !Number.isFinite(p) ? "—" : `${(p * 100).toFixed(1)} %`);
 export const fmtMoney = (v: number | null | undefined, currency?: string | null) =>

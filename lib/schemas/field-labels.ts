@@ -148,6 +148,9 @@ const LABELS: Record<string, string> = {
   seed: "Random seed",
   // kinetics models, fits, data sets
   spec: "Kinetics",
+  shownUnits: "Units as typed",
+  displayUnits: "Show results in",
+  "shownUnits.*": "Unit shown for {key}",
   name: "Name",
   modelName: "Model name",
   modelId: "Model",

@@ -18,6 +18,8 @@ import type { SweepRobustness } from "@/lib/schemas/robustness";
 import { recordAudit } from "./audit";
 import { sweepCostingFor } from "./sweep-costing";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
+import type { UnitKind } from "@/lib/units/display";
+import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
 
 /** Most scenarios one sweep may hold (SWEEP_MAX_SCENARIOS, default 2,000). */
 export const maxScenarios = () => Number(process.env.SWEEP_MAX_SCENARIOS ?? 2000);
@@ -247,3 +249,14 @@ export const scenarioIdOf = async (db: Database, sweepId: string, index: number)
 };
 export const candidateCountOf = (db: Database, sweepId: string) =>
   db.select({ n: sql<number>`count(*)::int` }).from(candidates).where(eq(candidates.sweepId, sweepId)).then((r) => r[0].n);
+
+/**
+ * The units the engineer typed the sweep's kinetics in (empty when the model kept none), for
+ * screens that offer "as typed in the kinetics". Read through getSweep, so another team's sweep is
+ * not found.
+ */
+export async function sweepTypedUnits(db: Database, actor: Actor, sweepId: string): Promise<Partial<Record<UnitKind, string>>> {
+  const sweep = await getSweep(db, actor, sweepId);
+  const kv = await requireTeamKineticsVersion(db, actor, sweep.kineticsVersionId);
+  return typedUnits((kv?.version.spec ?? {}) as WithShownUnits);
+}

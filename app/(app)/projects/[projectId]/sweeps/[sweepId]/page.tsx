@@ -7,9 +7,7 @@ import { can } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
 import { uuidSchema } from "@/lib/schemas/foundation";
 import { getProjectById } from "@/lib/services/projects";
-import { requireTeamKineticsVersion } from "@/lib/services/kinetics";
-import { getSweep } from "@/lib/services/sweeps";
-import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
+import { sweepTypedUnits } from "@/lib/services/sweeps";
 
 export const dynamic = "force-dynamic";
 
@@ -25,9 +23,7 @@ export default async function SweepPage({ params }: { params: Promise<{ projectI
     throw err;
   }
   // The grid axis speaks the units the kinetics was typed in; a sweep the actor cannot read shows its own message.
-  const units = await getSweep(getDb(), actor, sweepId)
-    .then(async (s) => typedUnits(((await requireTeamKineticsVersion(getDb(), actor, s.kineticsVersionId))?.version.spec ?? {}) as WithShownUnits))
-    .catch(() => ({}));
+  const units = await sweepTypedUnits(getDb(), actor, sweepId).catch(() => ({}));
   return (
     <Suspense>
       <SweepView sweepId={sweepId} projectId={projectId} projectName={projectName} canSubmit={can(actor, "sweep.create")} typedUnits={units} />
