@@ -5,6 +5,7 @@ import type { StoredStage } from "@/components/sweeps/types";
 import type { DesignReport } from "@/lib/reports/design-report";
 import type { DisplayPreference } from "@/lib/units/display-preference";
 import type { WordLine } from "@/lib/reports/kinetics-words";
+import { inputLines } from "@/lib/reports/input-lines";
 import { fmtConversion, fmtDate, fmtMoney, fmtPercent, fmtVolume, reportUnits, sig, stageColumns } from "@/lib/reports/report-format";
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
@@ -245,8 +246,10 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
           ))}
         </ul>
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-accent-700">Inputs as computed</summary>
-          <pre className="mt-1 overflow-auto rounded bg-paper p-2 text-xs">{JSON.stringify(r.assumptions.spec, null, 2)}</pre>
+          <summary className="cursor-pointer text-accent-700">Inputs as computed (as stored, in SI units)</summary>
+          <div className="mt-1">
+            <Pairs lines={inputLines(r.assumptions.spec)} />
+          </div>
         </details>
       </Section>
 

@@ -49,7 +49,7 @@ export function UncertainRow({
         <select id={`${id}-field`} className="input" value={draft.field} onChange={(e) => onChange({ ...draft, field: e.target.value })}>
           {fields.map((f) => (
             <option key={f.field} value={f.field}>
-              {f.label} (now {Number(f.value.toPrecision(6))} {f.unit === "SI" ? "in SI units" : f.unit})
+              {f.label} (now {Number(f.value.toPrecision(6))} {f.unit})
             </option>
           ))}
         </select>

@@ -10,6 +10,7 @@ import { STAGE_STYLES } from "@/components/charts/stage-patterns";
 import { chartGeometry, ticks, type Point } from "@/lib/charts/levenspiel-geometry";
 import type { DesignReport } from "./design-report";
 import type { WordLine } from "./kinetics-words";
+import { inputLines } from "./input-lines";
 import { fmtConversion, fmtDate, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, sig, stageColumns } from "./report-format";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
@@ -374,8 +375,8 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   pairs(doc, [{ label: "Note of the pin", value: r.pin.note || "—" }]);
   for (const a of r.assumptions.model) paragraph(doc, `• ${a}`);
   doc.moveDown(0.4);
-  paragraph(doc, "The inputs as computed:", { colour: SOFT, size: 8.5 });
-  paragraph(doc, JSON.stringify(r.assumptions.spec, null, 1).replace(/\n\s*/g, " "), { size: 7.5 });
+  paragraph(doc, "The inputs as computed (as stored, in SI units):", { colour: SOFT, size: 8.5 });
+  pairs(doc, inputLines(r.assumptions.spec));
 }
 
 function footers(doc: Doc, r: DesignReport) {

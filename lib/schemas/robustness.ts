@@ -16,8 +16,8 @@ export type RobustnessField = (typeof ROBUSTNESS_FIELDS)[number];
 
 /** Labels and SI units the screens show beside each field. */
 export const ROBUSTNESS_FIELD_LABELS: Record<RobustnessField, { label: string; unit: string }> = {
-  "reaction.rate.k": { label: "Rate constant k", unit: "SI" },
-  "reaction.rate.reverse.k": { label: "Reverse rate constant", unit: "SI" },
+  "reaction.rate.k": { label: "Rate constant k", unit: "on a m³, mol, s basis" },
+  "reaction.rate.reverse.k": { label: "Reverse rate constant", unit: "on a m³, mol, s basis" },
   "reaction.rate.activationEnergy": { label: "Activation energy", unit: "J/mol" },
   "reaction.rate.vmax": { label: "vmax", unit: "mol/(m³ s)" },
   "reaction.rate.km": { label: "km", unit: "mol/m³" },

@@ -1,0 +1,56 @@
+/**
+ * The inputs a pinned design was computed from, as labelled lines for the report's appendix: each
+ * stored number with the label its form shows and its SI unit, so a reviewer can check what the
+ * calculation read without reading a data format. Pure.
+ */
+import { labelFor } from "@/lib/schemas/field-labels";
+import { sig } from "./kinetics-words";
+
+export interface InputLine {
+  label: string;
+  value: string;
+}
+
+/** SI units of the stored quantities, by the last key of their path. */
+const SI_UNITS: Record<string, string> = {
+  flowA: "mol/s",
+  concA: "mol/m³",
+  temperature: "K",
+  referenceTemperature: "K",
+  maxTemperature: "K",
+  interstageTemperature: "K",
+  adiabaticRise: "K",
+  activationEnergy: "J/mol",
+  volume: "m³",
+  maxVesselVolume: "m³",
+  vmax: "mol/(m³·s)",
+  km: "mol/m³",
+  ki: "mol/m³",
+};
+
+const skip = new Set(["shownUnits"]);
+
+function valueText(key: string, v: unknown): string {
+  if (typeof v === "number") return SI_UNITS[key] ? `${sig(v, 6)} ${SI_UNITS[key]}` : sig(v, 6);
+  if (typeof v === "boolean") return v ? "yes" : "no";
+  return String(v);
+}
+
+/** Every leaf of the stored inputs, in order, e.g. { label: "Feed rate of A", value: "1.389 mol/s" }. */
+export function inputLines(spec: Record<string, unknown>): InputLine[] {
+  const out: InputLine[] = [];
+  const walk = (v: unknown, path: (string | number)[]) => {
+    const key = String(path[path.length - 1] ?? "");
+    if (skip.has(key)) return;
+    if (Array.isArray(v)) {
+      if (v.every((x) => typeof x !== "object" || x === null)) out.push({ label: labelFor(path), value: v.map((x) => valueText(key, x)).join(", ") });
+      else v.forEach((x, i) => walk(x, [...path, i]));
+    } else if (v && typeof v === "object") {
+      for (const [k, x] of Object.entries(v as Record<string, unknown>)) walk(x, [...path, k]);
+    } else if (v !== undefined && v !== null && v !== "") {
+      out.push({ label: labelFor(path), value: valueText(key, v) });
+    }
+  };
+  walk(spec, []);
+  return out;
+}
