@@ -1,18 +1,10 @@
+import type { ReviewItem } from "@/lib/services/reviews";
+
 /** One cache entry for the inbox page and the header's count, so approving updates both. */
 export const REVIEWS_QUERY = ["reviews"] as const;
 
+/** GET /api/reviews: the service's items as JSON carries them (dates as ISO text). */
 export interface ReviewsAnswer {
   count: number;
-  reviews: {
-    pinId: string;
-    projectId: string;
-    projectName: string;
-    sweepName: string | null;
-    sequence: ("CSTR" | "PFR")[];
-    totalVolume: number | null;
-    totalCost: number | null;
-    note: string;
-    pinnedByName: string;
-    pinnedAt: string;
-  }[];
+  reviews: (Omit<ReviewItem, "pinnedAt"> & { pinnedAt: string })[];
 }
