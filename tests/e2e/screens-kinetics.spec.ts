@@ -58,9 +58,14 @@ test("an engineer defines kinetics with a live plot, builds a sweep over a grid 
   await expect(page.locator("#f-reaction-rate-k-value-error")).toContainText("must be above 0");
   await k.fill("0.004");
   await expect(pfr).toHaveText("19.19 L");
-  // The unit picker converts what was typed.
+  // Picking a unit never rewrites the number: 1.5 mol/m³ is a thousand times more dilute than
+  // 1.5 mol/L, so the first-order tube grows (V = v0/k ln(1/(1 - X)), common practice) until the
+  // engineer types the same concentration in the new unit.
   await page.getByLabel("Concentration of A, CA0 unit").selectOption("mol/m3");
-  await expect(page.getByLabel("Concentration of A, CA0", { exact: true })).toHaveValue("1500");
+  const conc = page.getByLabel("Concentration of A, CA0", { exact: true });
+  await expect(conc).toHaveValue("1.5");
+  await expect(pfr).not.toHaveText("19.19 L");
+  await conc.fill("1500");
   await expect(pfr).toHaveText("19.19 L");
 
   await page.screenshot({ path: `${SHOTS}/kinetics-editor.png`, fullPage: true });
