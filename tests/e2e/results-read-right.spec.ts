@@ -2,6 +2,7 @@ import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
+import { emptyStageCount, leadingNumber, listCandidates } from "./ranked-rows";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
 
 let engineer: APIRequestContext;
@@ -21,39 +22,6 @@ test.afterAll(async () => {
   await browserCtx.close();
   await engineer.dispose();
 });
-
-/** A candidate as the API lists it, with the fields these checks read. */
-interface ListedCandidate {
-  rank: number;
-  sequence: string[];
-  feasible: boolean;
-  stages: { volume: number; conversionOut: number }[];
-  installedCost?: number | null;
-  allNewCost?: number | null;
-}
-
-async function listed(sweepId: string, query = "sort=rank&dir=asc&pageSize=25"): Promise<ListedCandidate[]> {
-  const res = await engineer.get(`/api/sweeps/${sweepId}/scenarios/0/candidates?${query}`);
-  expect(res.status()).toBe(200);
-  return ((await res.json()) as { items: ListedCandidate[] }).items;
-}
-
-/** Stages that do no work: a conversion step below 1e-6 (docs/engine.md, "Ranking"). */
-function emptyStageCount(c: ListedCandidate): number {
-  let before = 0;
-  let empty = 0;
-  for (const st of c.stages) {
-    if (st.conversionOut - before < 1e-6) empty++;
-    before = st.conversionOut;
-  }
-  return empty;
-}
-
-/** The leading number of a table cell ("1,234.5 L" -> 1234.5); NaN for "—". */
-function leadingNumber(text: string): number {
-  const m = /-?[0-9][0-9,]*(\.[0-9]+)?([eE][+-]?[0-9]+)?/.exec(text);
-  return m ? Number(m[0].replace(/,/g, "")) : NaN;
-}
 
 async function signInAsEngineer(page: Page) {
   await page.setViewportSize({ width: 1280, height: 900 });
@@ -156,7 +124,7 @@ test("least volume: the top rows are trains whose every stage does work; padded 
   await appReady(page);
   await expect(page.getByTestId("sweep-status")).toHaveText("Finished");
 
-  const items = await listed(sweep.id);
+  const items = await listCandidates(engineer, sweep.id);
   const feasible = items.filter((c) => c.feasible);
   const padded = feasible.map((c, i) => (emptyStageCount(c) > 0 ? i : -1)).filter((i) => i >= 0);
   const whole = feasible.map((c, i) => (emptyStageCount(c) === 0 ? i : -1)).filter((i) => i >= 0);
@@ -203,7 +171,7 @@ test("with reuse of idle vessels and the cost objective, ranks follow the cost w
   await waitForSweep(engineer, sweepId);
   await expect(page.getByTestId("sweep-status")).toHaveText("Finished");
 
-  const items = await listed(sweepId);
+  const items = await listCandidates(engineer, sweepId);
   const costed = items.filter((c) => c.feasible);
   expect(costed.length).toBeGreaterThan(1);
   for (const c of costed) {
