@@ -221,7 +221,11 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   await target.fill("1.5");
   await expect(page.locator("#s-target-error")).toContainText("between 0 and 1");
   await expect(trains).toHaveText("—");
+  await target.fill("0");
+  await expect(page.locator("#s-target-error")).toContainText("between 0 and 1");
+  await expect(trains).toHaveText("—");
   await target.fill("0.9");
+  await expect(page.locator("#s-target-error")).toHaveCount(0);
   await expect(trains).not.toHaveText("—");
 
   // Nine stages is beyond the engine's eight: refused as typed (not 1,022 sequences counted).
@@ -230,7 +234,11 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   await expect(page.locator("#s-maxStages-error")).toContainText("from 1 to 8");
   await expect(trains).toHaveText("—");
   await expect(page.getByTestId("sequence-count")).toHaveText("—");
+  await stages.fill("2.5");
+  await expect(page.locator("#s-maxStages-error")).toContainText("whole number");
+  await expect(trains).toHaveText("—");
   await stages.fill("3");
+  await expect(page.locator("#s-maxStages-error")).toHaveCount(0);
   await expect(page.getByTestId("sequence-count")).toHaveText("14"); // 2 + 4 + 8 sequences of 1..3 stages
 
   // Grid values: a negative flow and a value left out between two commas.
@@ -263,6 +271,11 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   // A server refusal (3,000 scenarios, above the 2,000 a sweep holds) shows beside the button ...
   const axis1 = page.getByRole("group", { name: "Varied field 1" });
   await axis1.getByLabel("Range", { exact: true }).check();
+  // A range may not start below zero either.
+  await axis1.getByLabel("From", { exact: true }).fill("-1");
+  await axis1.getByLabel("To", { exact: true }).fill("0.05");
+  await expect(page.locator("#s-grid-0-from-error")).toContainText("above zero");
+  await expect(trains).toHaveText("—");
   await axis1.getByLabel("From", { exact: true }).fill("0.01");
   await axis1.getByLabel("To", { exact: true }).fill("0.05");
   await axis1.getByLabel("Steps", { exact: true }).fill("1000");
