@@ -23,6 +23,13 @@ test.afterAll(async () => {
   await engineer.dispose();
 });
 
+/** No serious or critical axe-core violation inside `selector`, as the page stands. */
+async function expectAccessible(page: Page, selector: string) {
+  const result = await new AxeBuilder({ page }).include(selector).analyze();
+  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+}
+
 async function signInAsEngineer(page: Page) {
   await page.setViewportSize({ width: 1280, height: 900 });
   const form = new SignInPage(page);
@@ -96,6 +103,7 @@ test("rating a 1e30 m³ vessel is refused with a message naming the stage volume
   await expect(first).toContainText("Stage 1 volume");
   await expect(page.getByText("Nothing was rated")).toBeVisible();
   await expect(page.getByTestId("rating-result")).toHaveCount(0);
+  await expectAccessible(page, "main");
   // A sensible vessel after the slip is rated as usual.
   await first.getByLabel("Volume").fill("10");
   await first.getByLabel("Unit").selectOption("L");
@@ -250,6 +258,7 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   await values.fill("1,,2");
   await expect(page.locator("#s-grid-0-values-error")).toContainText("missing between two commas");
   await expect(trains).toHaveText("—");
+  await expectAccessible(page, "form[aria-label='New sweep']");
   await values.fill("1, 2");
   await expect(page.getByTestId("scenario-count")).toHaveText("2");
   await expect(trains).toHaveText("28");
