@@ -107,7 +107,15 @@ test("rate a fixed train: conversion, largest feed and cautions", async () => {
   await page.getByRole("button", { name: "Rate the train" }).click();
   await expect(page.getByTestId("rating-result")).toBeVisible();
   await expect(page.getByTestId("rating-stages")).toContainText("R-301");
-  await expect(page.getByTestId("rating-largest-feed")).toContainText("mol/s");
+  // The model was typed without units, so the default choice "as typed in the kinetics" falls back
+  // to SI with litres and hours: feed in kmol/h, vessels below 1 m³ in litres, temperatures in °C.
+  await expect(page.getByTestId("rating-largest-feed")).toHaveText(/^\d[\d.e+-]* kmol\/h$/);
+  const stages = page.getByTestId("rating-stages");
+  await expect(stages.getByRole("columnheader", { name: "Volume, L" })).toBeVisible();
+  await expect(stages.getByRole("columnheader", { name: "T in → out, °C" })).toBeVisible();
+  // 10 L as typed, and R-301's 0.025 m³ is 25 L (1 m³ = 1,000 L, common practice).
+  await expect(stages.getByRole("row").nth(1).getByRole("cell").nth(1)).toHaveText("10");
+  await expect(stages.getByRole("row").nth(2).getByRole("cell").nth(1)).toHaveText("25");
   await expect(page.getByText(/space time/)).toBeVisible();
   await expect(page.getByTestId("cautions")).toBeVisible();
   await expectAccessible(page);
