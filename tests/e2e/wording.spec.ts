@@ -91,8 +91,13 @@ test("the rating form names the stage volume and the target by their labels", as
   await page.getByLabel("Target conversion").fill("1.5");
   await page.getByTestId("rate-stage").first().getByLabel("Volume").fill("abc");
   await page.getByRole("button", { name: "Rate the train" }).click();
-  const texts = await alertsIn(page.getByRole("form", { name: "Rate a fixed train" }));
-  expect(texts.join(" ")).toContain("Stage 1 volume");
+  const form = page.getByRole("form", { name: "Rate a fixed train" });
+  expect((await alertsIn(form)).join(" ")).toContain("Target conversion: Conversion must be below 1");
+  // A volume is read as a quantity only once the request's shape is right, so it is named second.
+  await page.getByLabel("Target conversion").fill("0.8");
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  await expect(form.getByRole("alert").filter({ hasText: "Stage 1 volume" }).first()).toBeVisible({ timeout: 30_000 });
+  await alertsIn(form);
   await expect(page.getByTestId("rating-result")).toHaveCount(0);
   await page.context().close();
 });
@@ -103,7 +108,7 @@ test("the kinetics form names a rate constant that is not a number by its label"
   await page.getByLabel("Rate constant k", { exact: true }).fill("abc");
   await page.getByRole("button", { name: "Save kinetics" }).click();
   await alertsIn(page.locator("main"));
-  await expect(page.locator("#f-reaction-rate-k-value-error")).toBeVisible();
+  await expect(page.locator("#f-reaction-rate-k-value-error")).toContainText("Enter a number");
   await expect(page).toHaveURL(/\/kinetics\/new$/);
   await page.context().close();
 });
@@ -115,7 +120,8 @@ test("the sweep builder names too many stages and an unreadable value by their l
   await page.getByLabel("Values (comma separated)").fill("0.02, abc");
   await page.getByRole("button", { name: "Submit sweep" }).click();
   const texts = await alertsIn(page.getByRole("form", { name: "New sweep" }));
-  expect(texts.length).toBeGreaterThanOrEqual(2);
+  expect(texts.join(" ")).toContain("a whole number from 1 to 8");
+  expect(texts.join(" ")).toContain("Separate numbers with commas");
   await expect(page).toHaveURL(/\/sweeps\/new/);
   await page.context().close();
 });
