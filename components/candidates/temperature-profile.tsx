@@ -2,6 +2,7 @@
 
 import { ResponsiveLine } from "@nivo/line";
 import type { StoredStage } from "@/components/sweeps/types";
+import { axisTicks } from "@/components/charts/axis-ticks";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatNumber } from "@/lib/charts/volume-units";
 import { fromSI, unitLabel } from "@/lib/units/display";
@@ -22,16 +23,22 @@ export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
   const temps = stages.flatMap((s) => [t(s.temperatureIn), t(s.temperatureOut)]);
   const lo = Math.min(...temps);
   const hi = Math.max(...temps);
+  const yMin = Math.floor(lo - 2);
+  const yMax = Math.ceil(hi + 2);
+  const xMax = Math.max(...stages.map((s) => s.conversionOut), 0) || 1;
+  // Ticks fixed here so each axis shares one notation (components/charts/axis-ticks.ts).
+  const xAxis = axisTicks(0, xMax, 5);
+  const yAxis = axisTicks(yMin, yMax, 4);
   const label = `Temperature profile: ${stages.map((s, i) => `stage ${i + 1} ${formatNumber(t(s.temperatureIn), 5)} to ${formatNumber(t(s.temperatureOut), 5)} ${tLabel}`).join("; ")}`;
   return (
     <div role="img" aria-label={label} style={{ height: 200 }} data-testid="temperature-profile">
       <ResponsiveLine
         data={data}
         margin={{ top: 10, right: 16, bottom: 40, left: 56 }}
-        xScale={{ type: "linear", min: 0, max: "auto" }}
-        yScale={{ type: "linear", min: Math.floor(lo - 2), max: Math.ceil(hi + 2) }}
-        axisBottom={{ legend: "Conversion X", legendOffset: 32, legendPosition: "middle", tickValues: 5 }}
-        axisLeft={{ legend: `T, ${tLabel}`, legendOffset: -46, legendPosition: "middle", tickValues: 4 }}
+        xScale={{ type: "linear", min: 0, max: xMax }}
+        yScale={{ type: "linear", min: yMin, max: yMax }}
+        axisBottom={{ legend: "Conversion X", legendOffset: 32, legendPosition: "middle", ...xAxis }}
+        axisLeft={{ legend: `T, ${tLabel}`, legendOffset: -46, legendPosition: "middle", ...yAxis }}
         colors={["#136f67", "#b45309", "#3f51b5", "#a21caf", "#4d7c0f", "#854d0e", "#0369a1", "#6d28d9"]}
         pointSize={6}
         enableGridX={false}

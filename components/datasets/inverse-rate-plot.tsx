@@ -1,6 +1,7 @@
 "use client";
 
 import { ResponsiveScatterPlot } from "@nivo/scatterplot";
+import { axisTicks } from "@/components/charts/axis-ticks";
 import { formatNumber } from "@/lib/units/display";
 
 export interface RatePoint {
@@ -23,6 +24,11 @@ export function InverseRatePlot({ points }: { points: RatePoint[] }) {
   }
   const data = [...groups].map(([id, d]) => ({ id, data: d.sort((a, b) => a.x - b.x) }));
   const ys = points.map((p) => 1 / p.rate);
+  const xMax = Math.max(...points.map((p) => p.conversion), 0) || 1;
+  const yMax = Math.max(...ys, 0) || 1;
+  // Ticks fixed here so each axis shares one notation (components/charts/axis-ticks.ts).
+  const xAxis = axisTicks(0, xMax, 5);
+  const yAxis = axisTicks(0, yMax, 5);
   const summary = `Scatter plot of 1/(−rA) against conversion: ${points.length} points${groups.size > 1 ? ` at ${groups.size} temperatures` : ""}, 1/(−rA) from ${formatNumber(Math.min(...ys))} to ${formatNumber(Math.max(...ys))} m³·s/mol.`;
   return (
     <figure className="space-y-1">
@@ -32,10 +38,10 @@ export function InverseRatePlot({ points }: { points: RatePoint[] }) {
           role="img"
           ariaLabel={summary}
           margin={{ top: 16, right: 120, bottom: 48, left: 72 }}
-          xScale={{ type: "linear", min: 0, max: "auto" }}
-          yScale={{ type: "linear", min: 0, max: "auto" }}
-          axisBottom={{ legend: "Conversion X", legendPosition: "middle", legendOffset: 38 }}
-          axisLeft={{ legend: "1/(−rA), m³·s/mol", legendPosition: "middle", legendOffset: -60, format: (v) => formatNumber(Number(v), 3) }}
+          xScale={{ type: "linear", min: 0, max: xMax }}
+          yScale={{ type: "linear", min: 0, max: yMax }}
+          axisBottom={{ legend: "Conversion X", legendPosition: "middle", legendOffset: 38, ...xAxis }}
+          axisLeft={{ legend: "1/(−rA), m³·s/mol", legendPosition: "middle", legendOffset: -60, ...yAxis }}
           nodeSize={9}
           colors={{ scheme: "category10" }}
           useMesh

@@ -3,6 +3,7 @@
 import { ResponsiveScatterPlot, type ScatterPlotLayerProps } from "@nivo/scatterplot";
 import { useId } from "react";
 import { FIT_LAW_INFO, type LawFitOut } from "@/lib/schemas/fits";
+import { axisTicks } from "@/components/charts/axis-ticks";
 import { sig } from "./fit-format";
 
 type Ok = Extract<LawFitOut, { ok: true }>;
@@ -47,10 +48,14 @@ export function FitPlots({ fit }: { fit: Ok }) {
   const worst = fit.residuals.reduce((w, r, i) => (Math.abs(r) > Math.abs(fit.residuals[w]) ? i : w), 0);
   const positive = fit.residuals.filter((r) => r > 0).length;
   const label = FIT_LAW_INFO[fit.law].label;
-  const axis = (legend: string) => ({ legend, legendPosition: "middle" as const, legendOffset: 42, tickValues: 5, format: (v: number | string | Date) => sig(Number(v), 3) });
-  const axisLeft = (legend: string) => ({ ...axis(legend), legendOffset: -62 });
+  // Ticks fixed per axis so each shares one notation (components/charts/axis-ticks.ts); the left
+  // title sits clear of the widest tick ("-1.25e-3") in the 80 px margin.
+  const rateTicks = axisTicks(lo - pad, hi + pad, 5);
+  const residualTicks = axisTicks(-(maxRes * 1.1 || 1), maxRes * 1.1 || 1, 4);
+  const axis = (legend: string, ticks = rateTicks) => ({ legend, legendPosition: "middle" as const, legendOffset: 42, ...ticks });
+  const axisLeft = (legend: string, ticks = rateTicks) => ({ ...axis(legend, ticks), legendOffset: -70 });
   const common = {
-    margin: { top: 12, right: 18, bottom: 52, left: 72 },
+    margin: { top: 12, right: 18, bottom: 52, left: 80 },
     animate: false,
     nodeSize: 7,
     colors: ["#1d5fa8"],
@@ -92,7 +97,7 @@ export function FitPlots({ fit }: { fit: Ok }) {
             xScale={{ type: "linear", min: lo - pad, max: hi + pad }}
             yScale={{ type: "linear", min: -(maxRes * 1.1 || 1), max: maxRes * 1.1 || 1 }}
             axisBottom={axis(`Measured −rA, ${RATE}`)}
-            axisLeft={axisLeft(`Residual, ${RATE}`)}
+            axisLeft={axisLeft(`Residual, ${RATE}`, residualTicks)}
             markers={[{ axis: "y", value: 0, lineStyle: { stroke: "#1c2430", strokeDasharray: "6 4", strokeWidth: 1.25 } }]}
             ariaLabelledBy={labelledBy}
             ariaDescribedBy={describedBy}

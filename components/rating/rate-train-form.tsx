@@ -6,7 +6,7 @@ import { Cautions } from "@/components/cautions/cautions";
 import { FormMessage } from "@/components/ui/field";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { toSI } from "@/lib/units/display";
+import { toSI, type UnitKind } from "@/lib/units/display";
 import { RatingResultView, type RatingAnswer } from "./rating-result";
 
 interface VesselOption {
@@ -29,7 +29,7 @@ const newRow = (type: "CSTR" | "PFR" = "CSTR"): StageRow => ({ key: next++, sour
 const MAX_VESSEL_M3 = 1e9;
 
 /** Rate a fixed train: stages by type and volume or from the inventory, a target, and the results with cautions. */
-export function RateTrainForm({ projectId, versions }: { projectId: string; versions: { id: string; label: string }[] }) {
+export function RateTrainForm({ projectId, versions }: { projectId: string; versions: { id: string; label: string; units?: Partial<Record<UnitKind, string>> }[] }) {
   const inventory = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: VesselOption[] }>("/api/inventory") });
   const [versionId, setVersionId] = useState(versions[0]?.id ?? "");
   const [rows, setRows] = useState<StageRow[]>([newRow()]);
@@ -173,7 +173,7 @@ export function RateTrainForm({ projectId, versions }: { projectId: string; vers
           Rate the train
         </button>
       </form>
-      {result ? <RatingResultView result={result} /> : null}
+      {result ? <RatingResultView result={result} typedUnits={versions.find((v) => v.id === result.kineticsVersion.id)?.units} /> : null}
       {!result ? <Cautions warnings={[]} /> : null}
     </div>
   );

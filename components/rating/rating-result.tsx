@@ -1,5 +1,9 @@
+"use client";
+
 import { Cautions } from "@/components/cautions/cautions";
+import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatNumber } from "@/lib/charts/volume-units";
+import { formatQuantity, fromSI, toSI, unitLabel, type UnitKind } from "@/lib/units/display";
 
 export interface RatingAnswer {
   kineticsVersion: { id: string; version: number; modelName: string };
@@ -22,8 +26,14 @@ export interface RatingAnswer {
 }
 
 /** What a fixed train reaches, stage by stage, and the largest feed that still meets the target. */
-export function RatingResultView({ result: r }: { result: RatingAnswer }) {
+export function RatingResultView({ result: r, typedUnits }: { result: RatingAnswer; typedUnits?: Partial<Record<UnitKind, string>> }) {
   const multiple = r.stages.filter((s) => s.multiple);
+  // The engine answers in SI; the screen speaks the user's display-unit choice ("as typed" by default).
+  const u = useDisplayUnits(Math.max(0, ...r.stages.map((s) => s.volume)) || null, typedUnits);
+  const t = (k: number) => formatNumber(fromSI("temperature", k, u.temperature), 5);
+  // A volumetric flow has no kind of its own: the shown volume per the shown time unit.
+  const perTime = toSI("time", 1, u.time);
+  const flowText = (q: number) => `${formatNumber(fromSI("volume", q * perTime, u.volume), 4)} ${unitLabel("volume", u.volume)}/${unitLabel("time", u.time)}`;
   return (
     <div className="space-y-4" data-testid="rating-result">
       <section className="card p-4" aria-labelledby="rate-summary-title">
@@ -38,12 +48,12 @@ export function RatingResultView({ result: r }: { result: RatingAnswer }) {
           <div>
             <dt className="text-xs uppercase tracking-wide text-ink-soft">Largest feed of A still meeting the target</dt>
             <dd className="num text-base" data-testid="rating-largest-feed">
-              {r.largestFeed.flowA === null ? r.largestFeed.reason : `${formatNumber(r.largestFeed.flowA, 5)} mol/s`}
+              {r.largestFeed.flowA === null ? r.largestFeed.reason : formatQuantity("molarFlow", r.largestFeed.flowA, u.molarFlow, 5)}
             </dd>
           </div>
           <div>
             <dt className="text-xs uppercase tracking-wide text-ink-soft">Feed volumetric flow there</dt>
-            <dd className="num text-base">{r.largestFeed.feedVolumetricFlow === null ? "—" : `${formatNumber(r.largestFeed.feedVolumetricFlow * 3600, 4)} m³/h`}</dd>
+            <dd className="num text-base">{r.largestFeed.feedVolumetricFlow === null ? "—" : flowText(r.largestFeed.feedVolumetricFlow)}</dd>
           </div>
         </dl>
         <p className="mt-2 text-xs text-ink-soft">{r.largestFeed.why}</p>
@@ -58,9 +68,9 @@ export function RatingResultView({ result: r }: { result: RatingAnswer }) {
             <thead>
               <tr>
                 <th scope="col">Stage</th>
-                <th scope="col">Volume, m³</th>
+                <th scope="col">Volume, {unitLabel("volume", u.volume)}</th>
                 <th scope="col">X in → out</th>
-                <th scope="col">T in → out, K</th>
+                <th scope="col">T in → out, {unitLabel("temperature", u.temperature)}</th>
                 <th scope="col">Steady states</th>
               </tr>
             </thead>
@@ -71,12 +81,12 @@ export function RatingResultView({ result: r }: { result: RatingAnswer }) {
                     <span className="num">{i + 1}</span> {s.type}
                     {s.tag ? <span className="text-ink-soft"> ({s.tag})</span> : null}
                   </td>
-                  <td className="num">{formatNumber(s.volume, 4)}</td>
+                  <td className="num">{formatNumber(fromSI("volume", s.volume, u.volume), 4)}</td>
                   <td className="num whitespace-nowrap">
                     {formatNumber(s.conversionIn, 4)} → {formatNumber(s.conversionOut, 4)}
                   </td>
                   <td className="num whitespace-nowrap">
-                    {formatNumber(s.temperatureIn, 5)} → {formatNumber(s.temperatureOut, 5)}
+                    {t(s.temperatureIn)} → {t(s.temperatureOut)}
                   </td>
                   <td>{s.multiple ? <strong>⚠ {s.steadyStates.length} (X = {s.steadyStates.map((x) => formatNumber(x.conversionOut, 3)).join(", ")})</strong> : "one"}</td>
                 </tr>

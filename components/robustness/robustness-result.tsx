@@ -1,6 +1,7 @@
 "use client";
 
 import { ResponsiveLine } from "@nivo/line";
+import { axisTicks } from "@/components/charts/axis-ticks";
 import type { RobustnessRunResult } from "@/lib/schemas/robustness";
 
 const pct = (x: number, digits = 1) => `${(100 * x).toFixed(digits)} %`;
@@ -22,6 +23,9 @@ export function RobustnessResult({ result: r }: { result: RobustnessRunResult })
   const lo = Math.min(r.target, r.distribution[0] ?? r.target);
   const hi = Math.max(r.target, r.distribution[n - 1] ?? r.target);
   const pad = Math.max(1e-4, (hi - lo) * 0.05);
+  // Ticks fixed here so each axis shares one notation (components/charts/axis-ticks.ts).
+  const xAxis = axisTicks(lo - pad, hi + pad, 5);
+  const yAxis = axisTicks(0, 1, 5);
   return (
     <div className="space-y-3" data-testid="robustness-result">
       <dl className="grid grid-cols-2 gap-2 sm:grid-cols-4">
@@ -50,8 +54,8 @@ export function RobustnessResult({ result: r }: { result: RobustnessRunResult })
               margin={{ top: 10, right: 16, bottom: 42, left: 56 }}
               xScale={{ type: "linear", min: lo - pad, max: hi + pad }}
               yScale={{ type: "linear", min: 0, max: 1 }}
-              axisBottom={{ legend: "Outlet conversion X", legendOffset: 34, legendPosition: "middle", tickValues: 5, format: (v) => Number(v).toFixed(3) }}
-              axisLeft={{ legend: "Share of samples ≤ X", legendOffset: -46, legendPosition: "middle", tickValues: 5 }}
+              axisBottom={{ legend: "Outlet conversion X", legendOffset: 34, legendPosition: "middle", ...xAxis }}
+              axisLeft={{ legend: "Share of samples ≤ X", legendOffset: -46, legendPosition: "middle", ...yAxis }}
               colors={["#136f67"]}
               enablePoints={false}
               lineWidth={2}

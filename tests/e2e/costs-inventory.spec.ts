@@ -1,7 +1,7 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { appReady, signedInContext } from "./fixtures";
-import { createModel, firstProjectId } from "./sweep-fixtures";
+import { createModel, firstProjectId, SECOND_ORDER } from "./sweep-fixtures";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -107,8 +107,50 @@ test("rate a fixed train: conversion, largest feed and cautions", async () => {
   await page.getByRole("button", { name: "Rate the train" }).click();
   await expect(page.getByTestId("rating-result")).toBeVisible();
   await expect(page.getByTestId("rating-stages")).toContainText("R-301");
-  await expect(page.getByTestId("rating-largest-feed")).toContainText("mol/s");
+  // The model was typed without units, so the default choice "as typed in the kinetics" falls back
+  // to SI with litres and hours: feed in kmol/h, vessels below 1 m³ in litres, temperatures in °C.
+  await expect(page.getByTestId("rating-largest-feed")).toHaveText(/^\d[\d.e+-]* kmol\/h$/);
+  const stages = page.getByTestId("rating-stages");
+  await expect(stages.getByRole("columnheader", { name: "Volume, L" })).toBeVisible();
+  await expect(stages.getByRole("columnheader", { name: "T in → out, °C" })).toBeVisible();
+  // 10 L as typed, and R-301's 0.025 m³ is 25 L (1 m³ = 1,000 L, common practice).
+  await expect(stages.getByRole("row").nth(1).getByRole("cell").nth(1)).toHaveText("10");
+  await expect(stages.getByRole("row").nth(2).getByRole("cell").nth(1)).toHaveText("25");
   await expect(page.getByText(/space time/)).toBeVisible();
   await expect(page.getByTestId("cautions")).toBeVisible();
   await expectAccessible(page);
+});
+
+test("a model typed in mol/s, mol/m³ and K rates in those units, as typed", async () => {
+  const name = `Typed in SI ${Date.now()}`;
+  const shownUnits = { "feed.flowA": "mol/s", "feed.concA": "mol/m3", "feed.temperature": "K" };
+  const created = await engineer.post(`/api/projects/${projectId}/kinetics`, { data: { name, spec: { ...SECOND_ORDER, shownUnits } } });
+  expect(created.status()).toBe(201);
+  const version = ((await created.json()) as { version: { id: string } }).version.id;
+  const api = await engineer.post(`/api/projects/${projectId}/rate`, { data: { kineticsVersionId: version, stages: [{ type: "CSTR", volume: 0.01 }], target: 0.8 } });
+  expect(api.status()).toBe(200);
+  const flowA = ((await api.json()) as { rating: { largestFeed: { flowA: number } } }).rating.largestFeed.flowA;
+
+  const page = await browserCtx.newPage();
+  await page.goto(`/projects/${projectId}/rate`);
+  await appReady(page);
+  await page.getByLabel("Kinetics version").selectOption({ label: `${name} · v1` });
+  await page.getByLabel("Target conversion").fill("0.8");
+  const first = page.getByTestId("rate-stage").first();
+  await first.getByLabel("Volume").fill("10");
+  await first.getByLabel("Unit").selectOption("L");
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  const stages = page.getByTestId("rating-stages");
+  await expect(stages.getByRole("columnheader", { name: "Volume, m³" })).toBeVisible({ timeout: 30_000 });
+  await expect(stages.getByRole("columnheader", { name: "T in → out, K" })).toBeVisible();
+  const cells = stages.getByRole("row").nth(1).getByRole("cell");
+  // 10 L = 0.01 m³, and the feed's 66.85 °C is 340 K (0 °C = 273.15 K): common practice.
+  await expect(cells.nth(1)).toHaveText("0.01");
+  await expect(cells.nth(3)).toHaveText(/^340 → /);
+  // The largest feed is the API's own figure, in mol/s as typed.
+  const feed = page.getByTestId("rating-largest-feed");
+  await expect(feed).toHaveText(/ mol\/s$/);
+  const shown = Number((await feed.innerText()).replace(" mol/s", ""));
+  expect(Math.abs(shown / flowA - 1)).toBeLessThan(1e-4); // five significant digits on screen
+  await page.close();
 });

@@ -1,6 +1,7 @@
 import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
+import { expectReadableAxes } from "./chart-fixtures";
 import { appReady, DEMO_PASSWORD, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
@@ -82,6 +83,7 @@ test("an engineer uploads bench rates, fixes the bad rows, accepts them and uses
   await page.getByLabel("Show the rate in").selectOption("mol/(m3 s)");
   await expect(rows.locator("tbody tr").first()).toContainText("122.4"); // 7.344 × 1000/60, exact unit factors
   await expect(page.getByTestId("inverse-rate-plot").getByRole("img", { name: /1\/\(−rA\) against conversion: 10 points/ })).toBeVisible();
+  await expectReadableAxes(page.getByTestId("inverse-rate-plot"), ["Conversion X", "1/(−rA), m³·s/mol"]);
   await expect(page.getByRole("link", { name: "Fit a rate law" })).toHaveAttribute("href", /\/fit\?version=1$/);
   await expect(page.getByRole("link", { name: "Upload a new version" })).toBeVisible();
   await page.screenshot({ path: `${SHOTS}/dataset-page.png`, fullPage: true });

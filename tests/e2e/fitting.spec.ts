@@ -2,6 +2,7 @@ import { mkdirSync } from "node:fs";
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
 import { insertDatasetVersion } from "./dataset-fixtures";
+import { expectReadableAxes } from "./chart-fixtures";
 import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 
@@ -51,6 +52,8 @@ test("an engineer fits two laws to a dataset version, compares them and saves on
   await expect(page.getByTestId("parity-plot")).toContainText("Parity plot: Saturation");
   await expect(page.getByTestId("residual-plot")).toContainText("Residuals: Saturation");
   await expect(page.getByTestId("parity-plot").locator("svg").first()).toBeVisible();
+  await expectReadableAxes(page.getByTestId("parity-plot"), ["Measured −rA, mol/(m³·s)", "Fitted −rA, mol/(m³·s)"]);
+  await expectReadableAxes(page.getByTestId("residual-plot"), ["Measured −rA, mol/(m³·s)", "Residual, mol/(m³·s)"]);
   await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: `${SHOTS}/fit-screen.png`, fullPage: true });
 

@@ -1,5 +1,6 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
+import { expectReadableAxes } from "./chart-fixtures";
 import { appReady, signedInContext } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
 
@@ -45,6 +46,7 @@ test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the cha
   const result = panel.getByTestId("robustness-result");
   await expect(result).toBeVisible({ timeout: 30_000 });
   await expect(panel.getByTestId("robustness-chart").locator("svg")).toBeVisible();
+  await expectReadableAxes(panel.getByTestId("robustness-chart"), ["Outlet conversion X", "Share of samples ≤ X"]);
   await expect(panel.getByTestId("robustness-summary")).toContainText("1,500 samples (random seed 42)");
 
   // The figures on screen are the stored run's.

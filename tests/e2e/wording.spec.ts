@@ -1,4 +1,4 @@
-import { expect, test, type APIRequestContext } from "@playwright/test";
+import { expect, test, type APIRequestContext, type Browser, type Locator, type Page } from "@playwright/test";
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId } from "./sweep-fixtures";
 
@@ -8,10 +8,11 @@ const PATHY = /\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+/;
 let engineer: APIRequestContext;
 let projectId: string;
 let versionId: string;
+const modelName = `Wording kinetics ${Date.now()}`;
 test.beforeAll(async () => {
   engineer = await signedInContext("engineer");
   projectId = await firstProjectId(engineer);
-  versionId = (await createModel(engineer, projectId)).version.id;
+  versionId = (await createModel(engineer, projectId, modelName)).version.id;
 });
 test.afterAll(() => engineer.dispose());
 
@@ -62,4 +63,109 @@ test("a finished sweep reads the same on the project list and on its page", asyn
   await row.getByRole("link").first().click();
   await expect(page.getByTestId("sweep-status")).toHaveText("Finished", { timeout: 60_000 });
   await ctx.close();
+});
+
+// --- On screen, as the demo design engineer: every alert a form shows reads in labels. ---
+
+async function engineerPage(browser: Browser, path: string): Promise<Page> {
+  const ctx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  const page = await ctx.newPage();
+  await page.goto(path);
+  await appReady(page);
+  return page;
+}
+
+/** The texts of the alerts shown in `scope`, once there are some; none may carry a key or a dotted path. */
+async function alertsIn(scope: Locator): Promise<string[]> {
+  const alerts = scope.getByRole("alert");
+  await expect(alerts.first()).toBeVisible({ timeout: 30_000 });
+  const texts = (await alerts.allInnerTexts()).map((t) => t.trim()).filter(Boolean);
+  expect(texts.length).toBeGreaterThan(0);
+  for (const text of texts) expect(text).not.toMatch(PATHY);
+  return texts;
+}
+
+test("the rating form names the stage volume and the target by their labels", async ({ browser }) => {
+  const page = await engineerPage(browser, `/projects/${projectId}/rate`);
+  await page.getByLabel("Kinetics version").selectOption({ label: `${modelName} · v1` });
+  await page.getByLabel("Target conversion").fill("1.5");
+  await page.getByTestId("rate-stage").first().getByLabel("Volume").fill("abc");
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  const form = page.getByRole("form", { name: "Rate a fixed train" });
+  expect((await alertsIn(form)).join(" ")).toContain("Target conversion: Conversion must be below 1");
+  // A volume is read as a quantity only once the request's shape is right, so it is named second.
+  await page.getByLabel("Target conversion").fill("0.8");
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  await expect(form.getByRole("alert").filter({ hasText: "Stage 1 volume" }).first()).toBeVisible({ timeout: 30_000 });
+  await alertsIn(form);
+  await expect(page.getByTestId("rating-result")).toHaveCount(0);
+  await page.context().close();
+});
+
+test("the kinetics form names a rate constant that is not a number by its label", async ({ browser }) => {
+  const page = await engineerPage(browser, `/projects/${projectId}/kinetics/new`);
+  await page.getByLabel("Model name").fill("Wording check, never saved");
+  await page.getByLabel("Rate constant k", { exact: true }).fill("abc");
+  await page.getByRole("button", { name: "Save kinetics" }).click();
+  await alertsIn(page.locator("main"));
+  await expect(page.locator("#f-reaction-rate-k-value-error")).toContainText("Enter a number");
+  await expect(page).toHaveURL(/\/kinetics\/new$/);
+  await page.context().close();
+});
+
+test("the sweep builder names too many stages and an unreadable value by their labels", async ({ browser }) => {
+  const page = await engineerPage(browser, `/projects/${projectId}/sweeps/new?version=${versionId}`);
+  await page.getByLabel("Maximum stages (1–8)").fill("9");
+  await page.getByRole("button", { name: "+ Vary a field" }).click();
+  await page.getByLabel("Values (comma separated)").fill("0.02, abc");
+  await page.getByRole("button", { name: "Submit sweep" }).click();
+  const texts = await alertsIn(page.getByRole("form", { name: "New sweep" }));
+  expect(texts.join(" ")).toContain("a whole number from 1 to 8");
+  expect(texts.join(" ")).toContain("Separate numbers with commas");
+  await expect(page).toHaveURL(/\/sweeps\/new/);
+  await page.context().close();
+});
+
+test("the cost basis form names a negative fixed part by its correlation and saves nothing", async ({ browser }) => {
+  const before = await (await engineer.get(`/api/projects/${projectId}/costs`)).json();
+  const page = await engineerPage(browser, `/projects/${projectId}/costs`);
+  const form = page.getByRole("form", { name: "Cost basis" });
+  await form.getByRole("group", { name: /^CSTR purchase cost/ }).getByLabel("a", { exact: true }).fill("-1");
+  await form.getByRole("button", { name: "Save cost basis" }).click();
+  const texts = await alertsIn(form);
+  expect(texts.join(" ")).toContain("CSTR cost: fixed part a");
+  expect(texts.join(" ")).toContain("Nothing was saved");
+  expect(await (await engineer.get(`/api/projects/${projectId}/costs`)).json()).toEqual(before);
+  await page.context().close();
+});
+
+test("the new-project form asks for a longer name in words", async ({ browser }) => {
+  const page = await engineerPage(browser, "/");
+  const form = page.getByRole("form", { name: "New project" });
+  await form.getByLabel("New project").fill("A");
+  await form.getByRole("button", { name: "Create project" }).click();
+  const texts = await alertsIn(form);
+  expect(texts.join(" ")).toContain("at least 2 characters");
+  await page.context().close();
+});
+
+test("the robustness ± % takes 20 and refuses 500 with the words the form uses", async ({ browser }) => {
+  const pins = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { sweepId: string; candidateId: string; note: string }[] };
+  const pin = pins.pins.find((p) => p.note.includes("(demo)"))!;
+  const page = await engineerPage(browser, `/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
+  const panel = page.getByRole("region", { name: "Robustness" });
+  await expect(panel).toBeVisible({ timeout: 30_000 });
+  await panel.getByLabel("Input", { exact: true }).selectOption("reaction.rate.k");
+  await panel.getByLabel("Distribution", { exact: true }).selectOption("plusMinus");
+  const spread = panel.getByLabel("± %", { exact: true });
+  await panel.getByLabel("Samples", { exact: true }).fill("200");
+  await spread.fill("500");
+  await panel.getByTestId("robustness-run").click();
+  const texts = await alertsIn(panel.getByTestId("uncertain-0"));
+  expect(texts.join(" ")).toContain("below 100 %");
+  await spread.fill("20");
+  await panel.getByTestId("robustness-run").click();
+  await expect(panel.getByTestId("robustness-result")).toBeVisible({ timeout: 60_000 });
+  await expect(panel.getByTestId("uncertain-0").getByRole("alert")).toHaveCount(0);
+  await page.context().close();
 });

@@ -4,6 +4,7 @@ import { RateTrainForm } from "@/components/rating/rate-train-form";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
 import { listKineticsModels } from "@/lib/services/kinetics";
+import { typedUnits } from "@/lib/units/typed-units";
 import { loadProjectPage } from "../project-data";
 
 export const dynamic = "force-dynamic";
@@ -14,7 +15,7 @@ export default async function RatePage({ params }: { params: Promise<{ projectId
   const { actor, project } = await loadProjectPage(projectId);
   const allowed = can(actor, "train.rate");
   const models = allowed ? await listKineticsModels(getDb(), actor, project.id) : [];
-  const versions = models.filter((m) => m.latestVersion).map((m) => ({ id: m.latestVersion.id, label: `${m.name} · v${m.latestVersion.version}` }));
+  const versions = models.filter((m) => m.latestVersion).map((m) => ({ id: m.latestVersion.id, label: `${m.name} · v${m.latestVersion.version}`, units: typedUnits(m.latestVersion.spec) }));
   return (
     <div className="space-y-4">
       <ProjectCrumbs project={project} here="Rate a fixed train" />
