@@ -54,6 +54,8 @@ describe("npm start stops everything it started", () => {
 
   it("a second Ctrl-C forces the stop", async () => {
     const run = await startProduct(checkout);
+    // What was left and what npm start said, so a rare failure here can be read, not guessed.
+    onTestFailed(() => console.log(`left running:\n${processesOf(checkout).map((p) => `  ${p.pid} ${p.cmdline}`).join("\n")}\nnpm start said:\n${run.output()}`));
     const t = Date.now();
     process.kill(-run.npm.pid!, "SIGINT");
     await waitFor(async () => run.output().includes("stopping…"), 30_000, "the stop to begin");
