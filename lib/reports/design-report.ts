@@ -16,6 +16,8 @@ import { PIN_STATE } from "@/lib/glossary";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { getPin } from "@/lib/services/pins";
 import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
+import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display-preference";
+import { getDisplayPreference } from "@/lib/services/display-units";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
 
@@ -149,6 +151,8 @@ export interface ReportInputs {
   robustness: { id: string; request: Obj; result: Obj; finishedAt: Date | null } | null;
   inventoryTags: Record<string, string>;
   now: Date;
+  /** The reader's display-unit choice for the feed and temperature lines; absent, SI. */
+  preference?: DisplayPreference;
 }
 
 function fitSection(fit: Obj | null) {
@@ -213,6 +217,7 @@ function costSettingsSection(row: ReportInputs["costSettings"]): DesignReport["c
 
 /** The report from what was read: pure, so the same rows always give the same report. */
 export function buildDesignReport(input: ReportInputs): DesignReport {
+  const wordUnits = input.preference ? resolveDisplayUnits(input.preference, typedUnits(obj(input.kinetics?.spec) as WithShownUnits)) : undefined;
   const { pin } = input;
   const c = obj(pin.candidate);
   const spec = obj(pin.spec);
@@ -271,7 +276,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       overrides: obj(scenario.overrides) as Record<string, number>,
       rank: num(c.rank),
     },
-    feed: describeFeed(spec.feed),
+    feed: describeFeed(spec.feed, wordUnits),
     kinetics: {
       label: input.kinetics ? `${input.kinetics.model}, version ${input.kinetics.version}` : "kinetics version not found",
       model: input.kinetics?.model ?? null,
@@ -280,7 +285,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       law: rate.law,
       formula: rate.formula,
       parameters: rate.parameters,
-      reaction: describeReaction(reaction),
+      reaction: describeReaction(reaction, wordUnits),
     },
     source: input.source
       ? { recorded: true, kind: input.source.kind, dataset: input.source.dataset, datasetVersion: input.source.datasetVersion, fileName: input.source.fileName, rowCount: input.source.rowCount, fit: fitSection(input.source.fit) }
@@ -412,6 +417,7 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
     robustness: robustness?.result ? { id: robustness.id, request: robustness.request, result: robustness.result, finishedAt: robustness.finishedAt } : null,
     inventoryTags: await inventoryTags(db, actor.teamId, vesselIds),
     now,
+    preference: await getDisplayPreference(db, actor.userId),
   });
 }
 

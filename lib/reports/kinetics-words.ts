@@ -4,6 +4,9 @@
  * the spec holds a quantity string, which is shown as typed.
  */
 
+import { fromSI, SI_UNIT, unitLabel } from "@/lib/units/display";
+import type { DisplayUnits } from "@/lib/units/display-preference";
+
 export interface WordLine {
   label: string;
   value: string;
@@ -19,6 +22,23 @@ export function sig(v: unknown, digits = 4): string {
   const a = Math.abs(v);
   if (a >= 1e6 || a < 1e-3) return v.toExponential(digits - 1);
   return String(Number(v.toPrecision(digits)));
+}
+
+/** The units a reader chose for the feed and temperatures; absent, the stored SI units are shown. */
+export type WordUnits = Partial<Pick<DisplayUnits, "molarFlow" | "concentration" | "temperature" | "temperatureDifference">>;
+
+/**
+ * A stored SI number in the reader's unit, with the SI value beside it for the record
+ * ("5 kmol/h (1.389 mol/s)"); in SI alone when the reader's unit is the SI one or not given.
+ */
+function shown(v: unknown, kind: keyof WordUnits, siLabel: string, units?: WordUnits): string {
+  const unit = units?.[kind];
+  // Five figures for temperatures, so 333.15 K reads as typed rather than as 333.1 K.
+  const digits = kind === "temperature" ? 5 : 4;
+  if (typeof v !== "number") return quantity(v, siLabel);
+  const si = `${sig(v, digits)} ${siLabel}`;
+  if (!unit || unit === SI_UNIT[kind]) return si;
+  return `${sig(fromSI(kind, v, unit), digits)} ${unitLabel(kind, unit)} (${si})`;
 }
 
 /** A spec value with its SI unit; a quantity string ("2 mol/L") is shown as given. */
@@ -92,12 +112,12 @@ export function describeRate(rate: unknown): { law: string; formula: string; par
 }
 
 /** Feed lines: FA0, CA0, T0 and the other species' ratios. */
-export function describeFeed(feed: unknown): WordLine[] {
+export function describeFeed(feed: unknown, units?: WordUnits): WordLine[] {
   const f = obj(feed);
   const lines: WordLine[] = [
-    { label: "Feed rate of A (FA0)", value: quantity(f.flowA, "mol/s") },
-    { label: "Feed concentration of A (CA0)", value: quantity(f.concA, "mol/m³") },
-    { label: "Feed temperature (T0)", value: f.temperature === undefined ? "298.15 K (default)" : quantity(f.temperature, "K") },
+    { label: "Feed rate of A (FA0)", value: shown(f.flowA, "molarFlow", "mol/s", units) },
+    { label: "Feed concentration of A (CA0)", value: shown(f.concA, "concentration", "mol/m³", units) },
+    { label: "Feed temperature (T0)", value: shown(f.temperature ?? 298.15, "temperature", "K", units) + (f.temperature === undefined ? " (default)" : "") },
   ];
   const ratios = Object.entries(obj(f.ratios));
   if (ratios.length) lines.push({ label: "Other species (C_i0/C_A0)", value: ratios.map(([s, v]) => `${s} ${sig(v)}`).join(", ") });
@@ -105,7 +125,7 @@ export function describeFeed(feed: unknown): WordLine[] {
 }
 
 /** Phase, stoichiometry and thermal mode. */
-export function describeReaction(reaction: unknown): WordLine[] {
+export function describeReaction(reaction: unknown, units?: WordUnits): WordLine[] {
   const r = obj(reaction);
   const t = obj(r.thermal);
   const stoich = Object.entries(obj(r.stoichiometry));
@@ -115,9 +135,9 @@ export function describeReaction(reaction: unknown): WordLine[] {
   ];
   if (t.mode === "adiabatic") {
     lines.push({ label: "Thermal mode", value: "adiabatic" });
-    lines.push({ label: "Adiabatic rise (full conversion)", value: quantity(t.adiabaticRise, "K") });
-    if (t.maxTemperature !== undefined) lines.push({ label: "Highest temperature allowed", value: quantity(t.maxTemperature, "K") });
-    if (t.interstageTemperature !== undefined) lines.push({ label: "Interstage inlet temperature", value: quantity(t.interstageTemperature, "K") });
+    lines.push({ label: "Adiabatic rise (full conversion)", value: shown(t.adiabaticRise, "temperatureDifference", "K", units) });
+    if (t.maxTemperature !== undefined) lines.push({ label: "Highest temperature allowed", value: shown(t.maxTemperature, "temperature", "K", units) });
+    if (t.interstageTemperature !== undefined) lines.push({ label: "Interstage inlet temperature", value: shown(t.interstageTemperature, "temperature", "K", units) });
   } else lines.push({ label: "Thermal mode", value: "isothermal at the feed temperature" });
   return lines;
 }
