@@ -53,7 +53,11 @@ export const GRID_FIELDS: { field: string; label: string; kind: UnitKind | null;
   { field: "target.conversion", label: "Target conversion", kind: null, defaultUnit: "" },
   { field: "feed.temperature", label: "Feed temperature", kind: "temperature", defaultUnit: "K" },
   { field: "feed.concA", label: "Feed concentration of A", kind: "concentration", defaultUnit: "mol/L" },
-  { field: "custom", label: "Another numeric input (advanced, in SI units)", kind: null, defaultUnit: "" },
+  { field: "reaction.rate.k", label: "Rate constant k (m³, mol, s basis)", kind: null, defaultUnit: "" },
+  { field: "reaction.rate.activationEnergy", label: "Activation energy", kind: "energyPerMol", defaultUnit: "kJ/mol" },
+  { field: "reaction.thermal.adiabaticRise", label: "Adiabatic temperature rise", kind: "temperatureDifference", defaultUnit: "K" },
+  { field: "reaction.thermal.maxTemperature", label: "Highest temperature allowed", kind: "temperature", defaultUnit: "K" },
+  { field: "custom", label: "Another input, by its name in a sweep file (SI units)", kind: null, defaultUnit: "" },
 ];
 
 export function newAxis(field = "feed.flowA"): AxisValues {

@@ -261,7 +261,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
                         ))}
                       </select>
                     </div>
-                    {a.field === "custom" ? num(`grid.${i}.customField`, "Dot path", "w-56 font-mono") : null}
+                    {a.field === "custom" ? num(`grid.${i}.customField`, "Input name, as in a sweep file", "w-64 font-mono") : null}
                     {preset?.kind ? (
                       <div>
                         <label htmlFor={`s-grid-${i}-unit`} className="field-label">

@@ -1,5 +1,6 @@
 "use client";
 
+import { labelFor } from "@/lib/schemas/field-labels";
 import { useRef, useState, type KeyboardEvent } from "react";
 import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, unitLabel, type UnitKind } from "@/lib/units/display";
@@ -10,6 +11,10 @@ const FIELD_NAMES: Record<string, string> = {
   "feed.concA": "Feed concentration CA0, mol/m³",
   "feed.temperature": "Feed temperature, K",
   "target.conversion": "Target conversion",
+  "reaction.rate.k": "Rate constant k (m³, mol, s basis)",
+  "reaction.rate.activationEnergy": "Activation energy, J/mol",
+  "reaction.thermal.adiabaticRise": "Adiabatic temperature rise, K",
+  "reaction.thermal.maxTemperature": "Highest temperature allowed, K",
 };
 /** The grid's fields that carry a unit, and their kind: the axis shows them in the kinetics' typed unit. */
 const AXIS_KIND: Record<string, UnitKind> = { "feed.flowA": "molarFlow", "feed.concA": "concentration", "feed.temperature": "temperature" };
@@ -25,7 +30,7 @@ const axisUnit = (path: string, units: TypedUnits | undefined) => {
 
 export const fieldName = (path: string, units?: TypedUnits) => {
   const typed = axisUnit(path, units);
-  const name = FIELD_NAMES[path] ?? path;
+  const name = FIELD_NAMES[path] ?? labelFor(path);
   return typed ? `${name.split(",")[0]}, ${unitLabel(typed.kind, typed.unit)}` : name;
 };
 
