@@ -77,9 +77,16 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         helper.accessor("sequence", {
           header: "Sequence",
           cell: (i) => (
-            <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
-              <StageBadges sequence={i.getValue()} />
-            </Link>
+            <>
+              <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
+                <StageBadges sequence={i.getValue()} />
+              </Link>
+              {i.row.original.emptyStages ? (
+                <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
+                  {i.row.original.emptyStages === 1 ? "1 empty stage" : `${i.row.original.emptyStages} empty stages`}
+                </span>
+              ) : null}
+            </>
           ),
         }),
         helper.display({

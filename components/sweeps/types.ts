@@ -79,6 +79,8 @@ export interface CandidateRow {
   probabilityMeet?: number | null;
   reason: string | null;
   stages: StoredStage[];
+  /** Stages that do no work (the train reduces to a shorter one); ranked after every train without. */
+  emptyStages?: number;
   levenspiel?: StagePlot[];
   /** Installed cost (purchase × installation factor, less reuse) when the sweep was costed. */
   installedCost?: number | null;

@@ -1,4 +1,5 @@
 import { and, asc, desc, eq, inArray, like, sql, type SQL } from "drizzle-orm";
+import { EMPTY_STAGE_STEP } from "@/lib/engine";
 import type { Database } from "@/db/client";
 import { candidates, scenarios, sweeps } from "@/db/schema-sweeps";
 import { assertCan, type Actor } from "@/lib/authz/policy";
@@ -80,7 +81,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
     page: q.page,
     pageSize: q.pageSize,
     total,
-    items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-") })),
+    items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-"), emptyStages: emptyStageCount(c.stages) })),
   };
 }
 
@@ -127,4 +128,10 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
       costOverBest: c.totalCost !== null && Number.isFinite(bestCost) ? c.totalCost - bestCost : null,
     },
   }));
+}
+
+/** Stages that do no work (conversion step below the engine's threshold): the train reduces to a shorter one. */
+function emptyStageCount(stages: unknown): number {
+  if (!Array.isArray(stages)) return 0;
+  return stages.filter((st: { conversionIn?: number; conversionOut?: number }) => typeof st?.conversionIn === "number" && typeof st.conversionOut === "number" && st.conversionOut - st.conversionIn < EMPTY_STAGE_STEP).length;
 }

@@ -149,6 +149,11 @@ test("least volume: the top rows are trains whose every stage does work; padded 
   const shown = await rows.count();
   expect(shown).toBeGreaterThanOrEqual(top);
   await expect(rows.locator("td:nth-child(2)")).toHaveText(items.slice(0, shown).map((c) => String(c.rank)));
+  // The API counts the empty stages as this test does, and the table marks the padded rows only.
+  for (const c of feasible) expect((c as { emptyStages?: number }).emptyStages ?? 0).toBe(emptyStageCount(c));
+  await expect(rows.first().getByTestId("empty-stages")).toHaveCount(0);
+  const firstPadded = Math.min(...padded);
+  if (firstPadded < shown) await expect(rows.nth(firstPadded).getByTestId("empty-stages")).toHaveText(/^\d+ empty stages?$/);
   for (let r = 0; r < top; r++) {
     const cells = await rows.nth(r).locator("li").allInnerTexts();
     expect(cells.length).toBe(feasible[r].stages.length);
