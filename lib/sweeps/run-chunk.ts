@@ -41,6 +41,18 @@ export function candidateRows(sweepId: string, scenarioId: string, result: Desig
   }));
 }
 
+/**
+ * The scenario's best objective as ranked: with reuse of idle vessels the cost the user will pay
+ * (the least installed cost with reuse), otherwise the engine's best.
+ */
+export function bestObjectiveOf(result: DesignResult, rows: { feasible: boolean; installedCost: number | null; inventoryPlan: unknown }[]): number | null {
+  if (result.objective === "cost" && rows.some((r) => r.inventoryPlan)) {
+    const costs = rows.filter((r) => r.feasible && r.installedCost !== null).map((r) => r.installedCost as number);
+    return costs.length ? Math.min(...costs) : null;
+  }
+  return bestObjective(result);
+}
+
 export function bestObjective(result: DesignResult): number | null {
   const best = result.candidates.find((c) => c.feasible);
   if (!best) return null;
@@ -94,9 +106,11 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
       let transitioned = 0;
       let failed = 0;
       for (const o of outcomes) {
+        let best: number | null = null;
         if ("result" in o) {
           const rows = withCosting(candidateRows(sweep.id, o.scenarioId, o.result), sweep).map((r, i) => ({ ...r, probabilityMeet: o.meet[i] }));
           for (let i = 0; i < rows.length; i += 500) await tx.insert(candidates).values(rows.slice(i, i + 500)).onConflictDoNothing();
+          best = bestObjectiveOf(o.result, rows);
         }
         const updated = await tx
           .update(scenarios)
@@ -104,7 +118,7 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
             "result" in o
               ? {
                   status: "succeeded",
-                  bestObjective: bestObjective(o.result),
+                  bestObjective: best,
                   reference: { ...o.result.reference, equilibriumConversion: o.result.equilibriumConversion ?? null, feedVolumetricFlow: o.result.feedVolumetricFlow, objective: o.result.objective },
                   candidateCount: o.result.candidates.length,
                   computedAt: new Date(),
