@@ -63,6 +63,8 @@ export async function startProduct(checkout: Checkout, extraEnv: Record<string, 
     MAIL_FAKE_SMTP_PORT: String(checkout.ports.smtp),
     MAIL_FAKE_HTTP_PORT: String(checkout.ports.mailHttp),
     SERIATIM_PG_PORT: String(checkout.ports.pg),
+    // npm's once-a-week registry check for its own new version may run as npm exits; not ours to wait for.
+    npm_config_update_notifier: "false",
     ...extraEnv,
   });
   const npm = spawn("npm", ["start"], { cwd: checkout.dir, env, detached: true, stdio: ["ignore", "pipe", "pipe"] });

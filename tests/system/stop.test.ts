@@ -25,7 +25,13 @@ afterAll(async () => {
 });
 
 async function expectAllGone(since: number, label: string) {
-  await waitFor(async () => processesOf(checkout).length === 0, 30_000, `every process of ${label} to end`);
+  let left: string[] = [];
+  try {
+    await waitFor(async () => (left = processesOf(checkout).map((p) => `${p.pid} ${p.cmdline}`)).length === 0, 30_000, `every process of ${label} to end`);
+  } catch (err) {
+    // Name what was still there at the deadline: it may be gone a moment later.
+    throw new Error(`${(err as Error).message}; still running at the deadline:\n  ${left.join("\n  ")}`);
+  }
   timings.push(`  ${label}: ${((Date.now() - since) / 1000).toFixed(1)} s`);
   expect(processesOf(checkout)).toEqual([]);
   expect(await portsFree(checkout)).toEqual([]);
