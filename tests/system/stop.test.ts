@@ -71,8 +71,12 @@ describe("npm start stops everything it started", () => {
     const stillStopping = supervisor !== undefined && !run.output().includes("PostgreSQL stopped");
     process.kill(-run.npm.pid!, "SIGINT");
     await expectAllGone(t, "SIGINT twice to the process group");
-    if (stillStopping) expect(run.output()).toContain("forced stop");
-    else expect(run.output()).toContain("PostgreSQL stopped");
+    // Which of the two ends it is a race the test cannot win every time: the orchestrator reads a
+    // signal only between steps, so one that lands during the last step (stopping PostgreSQL) finds
+    // the orderly stop already finishing. Either way everything is gone, and the stop says how.
+    const out = run.output();
+    expect(out.includes("forced stop") || out.includes("PostgreSQL stopped"), out).toBe(true);
+    if (!stillStopping) expect(out).not.toContain("forced stop");
   });
 
   it("a start after the orchestrator was killed outright stops what it left and runs", async () => {
