@@ -81,7 +81,8 @@ test("revoking an invitation asks first; Escape keeps it and gives focus back, c
 test("changing a role asks first; the drop-down keeps the old role until confirmed, then the new one is saved", async () => {
   const member = await insertMember("engineer");
   const page = await teamPage();
-  const select = page.getByLabel(`Role of ${member.email}`);
+  // Scoped to the table: the open dialog's title names the member too, and getByLabel would match it.
+  const select = page.getByTestId("members-table").getByLabel(`Role of ${member.email}`);
   await expect(select).toHaveValue("engineer");
   await expect(select).toBeEnabled();
 
@@ -114,6 +115,6 @@ test("changing a role asks first; the drop-down keeps the old role until confirm
   // The saved role is what the page shows after a fresh load too.
   await page.reload();
   await appReady(page);
-  await expect(page.getByLabel(`Role of ${member.email}`)).toHaveValue("viewer");
+  await expect(page.getByTestId("members-table").getByLabel(`Role of ${member.email}`)).toHaveValue("viewer");
   await page.close();
 });
