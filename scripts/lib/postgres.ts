@@ -51,9 +51,12 @@ export function ensurePostgresBinaries(log: (m: string) => void = console.log): 
 }
 
 /** Runs a server binary as the postgres user when we are root (initdb refuses root). */
-function runPg(bin: string, tool: string, args: string[], opts: { quiet?: boolean } = {}): void {
+function runPg(bin: string, tool: string, args: string[], opts: { quiet?: boolean; ownSession?: boolean } = {}): void {
   const cmd = path.join(bin, tool);
-  const [file, argv] = isRoot ? ["runuser", ["-u", "postgres", "--", cmd, ...args]] : [cmd, args];
+  const [file0, argv0] = isRoot ? ["runuser", ["-u", "postgres", "--", cmd, ...args]] : [cmd, args];
+  // In a session of its own, a Ctrl-C sent to the terminal's whole process group cannot cut it
+  // short half-way (a stop killed before it signals the server would leave the server running).
+  const [file, argv] = opts.ownSession ? ["setsid", ["--wait", file0, ...argv0]] : [file0, argv0];
   const r = spawnSync(file, argv, { stdio: opts.quiet ? "pipe" : "inherit", encoding: "utf8" });
   if (r.status !== 0) {
     const out = opts.quiet ? `\n${r.stdout ?? ""}${r.stderr ?? ""}` : "";
@@ -106,9 +109,16 @@ function startServer(bin: string, dataDir: string, port: number, extra: string[]
 
 function stopServer(bin: string, dataDir: string, mode: "fast" | "immediate" = "fast"): void {
   try {
-    runPg(bin, "pg_ctl", ["-D", dataDir, "-m", mode, "-w", "stop"], { quiet: true });
+    runPg(bin, "pg_ctl", ["-D", dataDir, "-m", mode, "-w", "stop"], { quiet: true, ownSession: true });
   } catch {
-    // already stopped
+    // Already stopped; or, should the stop itself have been cut short, once more while a server runs there.
+    if (existsSync(path.join(dataDir, "postmaster.pid"))) {
+      try {
+        runPg(bin, "pg_ctl", ["-D", dataDir, "-m", mode, "-w", "stop"], { quiet: true, ownSession: true });
+      } catch {
+        // stopped meanwhile
+      }
+    }
   }
 }
 
