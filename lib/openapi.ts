@@ -2,13 +2,8 @@ import { z } from "zod";
 import { displayUnitsSchema } from "@/lib/schemas/display-units";
 import { auditQuerySchema } from "./schemas/audit";
 import { candidateExportQuerySchema } from "./schemas/report-exports";
-import {
-  invitationAcceptSchema,
-  invitationCreateSchema,
-  memberUpdateSchema,
-  projectCreateSchema,
-  projectUpdateSchema,
-} from "./schemas/foundation";
+import { invitationAcceptSchema, invitationCreateSchema, memberUpdateSchema } from "./schemas/accounts";
+import { projectCreateSchema, projectUpdateSchema } from "./schemas/projects";
 import {
   candidateQuerySchema,
   compareQuerySchema,

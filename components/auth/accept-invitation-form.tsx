@@ -7,7 +7,7 @@ import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { invitationAcceptSchema } from "@/lib/schemas/foundation";
+import { invitationAcceptSchema } from "@/lib/schemas/accounts";
 import { signInWithPassword } from "./auth-client";
 import { useHydrated } from "@/components/ui/use-hydrated";
 

@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
-import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/foundation";
+import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/accounts";
 import { requestSignInLink, signInWithPassword } from "./auth-client";
 import { useHydrated } from "@/components/ui/use-hydrated";
 

@@ -9,7 +9,7 @@ import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
-import { ErrorPanel, LoadingPanel } from "@/components/sweeps/states";
+import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 import type { CandidateDetail, SweepView } from "@/components/sweeps/types";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber, formatVolume } from "@/lib/charts/volume-units";

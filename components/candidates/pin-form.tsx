@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { fetchJson } from "@/lib/client/fetch-json";
-import { refusalText } from "@/components/sweeps/states";
+import { refusalText } from "@/components/sweeps/loading-and-error-panels";
 
 interface ProjectPin {
   id: string;

@@ -6,7 +6,7 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber } from "@/lib/charts/volume-units";
 import type { CostBasis } from "@/lib/schemas/costs";
-import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-model";
+import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-state";
 
 interface CostsAnswer {
   costs: { basis: CostBasis; isDefault: boolean; standardSizes: number[] | null; updatedAt: string | null; permissions: { update: boolean } };

@@ -11,7 +11,7 @@ import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { rateConstantLabel, unitOptions } from "@/lib/units/display";
-import { formToSpec, kineticsFormSchema, mapServerFields, type KineticsFormValues } from "./form-model";
+import { formToSpec, kineticsFormSchema, mapServerFields, type KineticsFormValues } from "./kinetics-form-state";
 import { PreviewPanel } from "./preview-panel";
 import { ErrorText, fieldId, messageAt, QuantityField, type ExternalErrors } from "./quantity-field";
 import { RowsEditor } from "./rows-editor";

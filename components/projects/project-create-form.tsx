@@ -7,7 +7,7 @@ import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { projectCreateSchema } from "@/lib/schemas/foundation";
+import { projectCreateSchema } from "@/lib/schemas/projects";
 
 export function ProjectCreateForm({ onCreated }: { onCreated: () => void }) {
   const [formError, setFormError] = useState<string>();

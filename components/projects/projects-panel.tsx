@@ -5,7 +5,7 @@ import Link from "next/link";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { projectCreateSchema } from "@/lib/schemas/foundation";
+import { projectCreateSchema } from "@/lib/schemas/projects";
 import type { ProjectView } from "@/lib/services/projects";
 import { ProjectCreateForm } from "./project-create-form";
 

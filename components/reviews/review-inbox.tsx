@@ -2,9 +2,9 @@
 
 import Link from "next/link";
 import { useQuery, useQueryClient } from "@tanstack/react-query";
-import { ReviewForm } from "@/components/project/pins-panel";
+import { ReviewForm } from "@/components/pins/pins-panel";
 import { StageBadges } from "@/components/sweeps/stage-badges";
-import { ErrorPanel, LoadingPanel } from "@/components/sweeps/states";
+import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatQuantity } from "@/lib/units/display";
 import { REVIEWS_QUERY, type ReviewsAnswer } from "./reviews-query";

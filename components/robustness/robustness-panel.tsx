@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { refusalText } from "@/components/sweeps/states";
+import { refusalText } from "@/components/sweeps/loading-and-error-panels";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { MAX_SAMPLES, robustnessCreateSchema, type UncertainInput } from "@/lib/schemas/robustness";
 import { RobustnessResult } from "./robustness-result";

@@ -4,7 +4,7 @@ import { useEffect, useRef, useState } from "react";
 import { useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { fetchJson } from "@/lib/client/fetch-json";
-import type { BuilderValues } from "./builder-model";
+import type { BuilderValues } from "./builder-form-state";
 
 interface CostsAnswer {
   costs: {

@@ -13,7 +13,7 @@ import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { UnitKind } from "@/lib/units/display";
 import { CostBasisOptions } from "./cost-basis-options";
-import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-model";
+import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-form-state";
 
 export interface VersionOption {
   id: string;

@@ -11,7 +11,7 @@ import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
-import { ErrorPanel, LoadingPanel, refusalText } from "./states";
+import { ErrorPanel, LoadingPanel, refusalText } from "./loading-and-error-panels";
 import { ResultsToolbar } from "./results-toolbar";
 import { RankedTable } from "./ranked-table";
 import { ObjectiveHeatMap, ScenarioPicker, twoVariedFields } from "./scenario-picker";

@@ -11,7 +11,7 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { invitationCreateSchema } from "@/lib/schemas/foundation";
+import { invitationCreateSchema } from "@/lib/schemas/accounts";
 
 interface Member {
   userId: string;

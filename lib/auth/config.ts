@@ -7,7 +7,7 @@ import { getDb } from "@/db/client";
 import { accounts, sessions, users, verificationTokens } from "@/db/schema";
 import { getEnv } from "@/lib/env";
 import { appLink, sendMail } from "@/lib/mail";
-import { passwordSignInSchema } from "@/lib/schemas/foundation";
+import { passwordSignInSchema } from "@/lib/schemas/accounts";
 import { verifyAgainstNothing, verifyPassword } from "./password";
 import { endSession, isSessionId, startSession } from "./sign-in-sessions";
 import { recordSignInAttempt } from "./throttle";

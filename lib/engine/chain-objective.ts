@@ -1,15 +1,15 @@
 import { purchase, type CostModel, type Purchase } from "./cost";
-import type { ReactorModel } from "./model";
+import type { SizingBasis } from "./sizing-basis";
 import type { ChainObjective } from "./refine";
 import { stageVolume, stageVolumeGradient, type StagePlace } from "./stages";
 
 /** Total volume as a chain objective. */
-export function volumeObjective(model: ReactorModel, places: readonly StagePlace[]): ChainObjective {
+export function volumeObjective(basis: SizingBasis, places: readonly StagePlace[]): ChainObjective {
   return {
     stages: places.length,
-    value: (k, a, b) => stageVolume(model, places[k], a, b),
-    gradient: (k, a, b) => stageVolumeGradient(model, places[k], a, b),
-    roughGradient: (k, a, b) => stageVolumeGradient(model, places[k], a, b, false),
+    value: (k, a, b) => stageVolume(basis, places[k], a, b),
+    gradient: (k, a, b) => stageVolumeGradient(basis, places[k], a, b),
+    roughGradient: (k, a, b) => stageVolumeGradient(basis, places[k], a, b, false),
   };
 }
 
@@ -23,7 +23,7 @@ function samePiece(p: Purchase, q: Purchase): boolean {
  * constant, so the least total volume is sought instead.
  */
 export function costObjective(
-  model: ReactorModel,
+  basis: SizingBasis,
   cm: CostModel,
   places: readonly StagePlace[],
   pieces: readonly Purchase[],
@@ -32,16 +32,16 @@ export function costObjective(
   return {
     stages: places.length,
     value: (k, a, b) => {
-      const v = stageVolume(model, places[k], a, b);
+      const v = stageVolume(basis, places[k], a, b);
       if (!Number.isFinite(v)) return Infinity;
       const p = purchase(cm, places[k].type, v);
       if (!samePiece(p, pieces[k])) return Infinity;
       return cm.sizes ? v : p.cost;
     },
     gradient: (k, a, b) => {
-      const g = stageVolumeGradient(model, places[k], a, b);
+      const g = stageVolumeGradient(basis, places[k], a, b);
       if (cm.sizes) return g;
-      const v = stageVolume(model, places[k], a, b);
+      const v = stageVolume(basis, places[k], a, b);
       const { b: coef, n } = vessel(k);
       const count = pieces[k].count;
       const slope = v > 0 ? coef * n * Math.pow(v / count, n - 1) : 0;

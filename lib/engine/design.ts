@@ -8,10 +8,10 @@ import { checkTarget, equilibriumConversion } from "./feasibility";
 import { checkRateMagnitude, checkVolumeMagnitude } from "./magnitude";
 import { buildGridTables } from "./grid-tables";
 import { stagePlot } from "./levenspiel";
-import { sharedPath, stageTemperature, type ReactorModel } from "./model";
+import { sharedPath, stageTemperature, type SizingBasis } from "./sizing-basis";
 import { equalisePfrRuns } from "./pfr-runs";
 import { refineChain } from "./refine";
-import { resolveModel } from "./resolve-model";
+import { resolveSizingBasis } from "./resolve-sizing-basis";
 import { enumerateSequences } from "./sequences";
 import { fullVesselConversions, optimiseStandardSizes, type SizedDesign } from "./standard-sizes";
 import { cstrVolume, pfrVolume, stageVolume, type StagePlace } from "./stages";
@@ -35,23 +35,23 @@ function placesOf(sequence: readonly StageType[]): StagePlace[] {
   return sequence.map((type, k) => ({ type, first: k === 0 }));
 }
 
-function totalObjective(model: ReactorModel, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): number {
-  return places.reduce((s, p, k) => s + stageObjective(cm, p.type, stageVolume(model, p, x[k], x[k + 1])), 0);
+function totalObjective(basis: SizingBasis, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): number {
+  return places.reduce((s, p, k) => s + stageObjective(cm, p.type, stageVolume(basis, p, x[k], x[k + 1])), 0);
 }
 
 /** Memo of refined reduced problems within one design call: many sequences reduce to the same one. */
 type RefineMemo = Map<string, number[]>;
 
-function refine(model: ReactorModel, cm: CostModel, places: StagePlace[], x: number[], memo: RefineMemo): number[] {
+function refine(basis: SizingBasis, cm: CostModel, places: StagePlace[], x: number[], memo: RefineMemo): number[] {
   // Stages of zero length at the grid optimum stay closed; the rest form a reduced chain.
   const active = places.map((_, k) => k).filter((k) => x[k + 1] !== x[k]);
   const reducedPlaces = active.map((k) => places[k]);
   const reducedX = [x[0], ...active.map((k) => x[k + 1])];
-  const pieces = reducedPlaces.map((p, m) => purchase(cm, p.type, stageVolume(model, p, reducedX[m], reducedX[m + 1])));
+  const pieces = reducedPlaces.map((p, m) => purchase(cm, p.type, stageVolume(basis, p, reducedX[m], reducedX[m + 1])));
   const key = `${reducedPlaces.map((p) => `${p.type}${p.first ? 1 : 0}`).join(",")}|${reducedX.join(",")}|${pieces.map((p) => `${p.count}:${p.sizeIndex}`).join(",")}`;
   let refined = memo.get(key);
   if (!refined) {
-    const objective = cm.kind === "volume" ? volumeObjective(model, reducedPlaces) : costObjective(model, cm, reducedPlaces, pieces);
+    const objective = cm.kind === "volume" ? volumeObjective(basis, reducedPlaces) : costObjective(basis, cm, reducedPlaces, pieces);
     // With standard sizes the cost is flat within a size; a few steps toward less volume are enough.
     refined = refineChain(objective, reducedX, reducedPlaces.map(() => false), cm.sizes ? 8 : 60);
     memo.set(key, refined);
@@ -62,35 +62,35 @@ function refine(model: ReactorModel, cm: CostModel, places: StagePlace[], x: num
     if (active.includes(k)) m++;
     full.push(active.includes(k) ? refined[m] : full[k]);
   }
-  return cm.kind === "volume" && sharedPath(model) ? equalisePfrRuns(model, places, full) : full;
+  return cm.kind === "volume" && sharedPath(basis) ? equalisePfrRuns(basis, places, full) : full;
 }
 
-function stageResults(model: ReactorModel, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): StageResult[] {
+function stageResults(basis: SizingBasis, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): StageResult[] {
   return places.map((p, k) => {
     const a = x[k];
     const b = x[k + 1];
-    const volume = stageVolume(model, p, a, b);
+    const volume = stageVolume(basis, p, a, b);
     const bought = purchase(cm, p.type, volume);
     return {
       type: p.type,
       conversionIn: a,
       conversionOut: b,
-      temperatureIn: stageTemperature(model, p.first, a, a),
-      temperatureOut: stageTemperature(model, p.first, a, b),
+      temperatureIn: stageTemperature(basis, p.first, a, a),
+      temperatureOut: stageTemperature(basis, p.first, a, b),
       volume,
-      residenceTime: volume / model.v0,
+      residenceTime: volume / basis.v0,
       vessels: { count: bought.count, sizeEach: bought.sizeEach },
       cost: cm.kind === "cost" ? bought.cost : null,
-      levenspiel: stagePlot(model, p.type, p.first, a, b),
+      levenspiel: stagePlot(basis, p.type, p.first, a, b),
     };
   });
 }
 
 /** A train bought with standard sizes: every vessel full, conversions by rating (the last may pass the target). */
-function evaluateSized(model: ReactorModel, sequence: StageType[], design: SizedDesign | null): Evaluated {
-  if (!design) return evaluate(model, VOLUME_ONLY, sequence, null);
+function evaluateSized(basis: SizingBasis, sequence: StageType[], design: SizedDesign | null): Evaluated {
+  if (!design) return evaluate(basis, VOLUME_ONLY, sequence, null);
   const capacities = design.pieces.map((p) => p.capacity);
-  const x = fullVesselConversions(model, sequence, capacities);
+  const x = fullVesselConversions(basis, sequence, capacities);
   const stages = sequence.map((type, k): StageResult => {
     const first = k === 0;
     const a = x[k];
@@ -100,13 +100,13 @@ function evaluateSized(model: ReactorModel, sequence: StageType[], design: Sized
       type,
       conversionIn: a,
       conversionOut: b,
-      temperatureIn: stageTemperature(model, first, a, a),
-      temperatureOut: stageTemperature(model, first, a, b),
+      temperatureIn: stageTemperature(basis, first, a, a),
+      temperatureOut: stageTemperature(basis, first, a, b),
       volume: p.capacity,
-      residenceTime: p.capacity / model.v0,
+      residenceTime: p.capacity / basis.v0,
       vessels: { count: p.count, sizeEach: p.sizeEach },
       cost: p.cost,
-      levenspiel: stagePlot(model, type, first, a, b),
+      levenspiel: stagePlot(basis, type, first, a, b),
     };
   });
   return { sequence, boundaries: x, objective: design.cost, totalVolume: capacities.reduce((s, v) => s + v, 0), stages };
@@ -114,21 +114,21 @@ function evaluateSized(model: ReactorModel, sequence: StageType[], design: Sized
 
 const VOLUME_ONLY: CostModel = { kind: "volume", vessels: { CSTR: { a: 0, b: 1, n: 1 }, PFR: { a: 0, b: 1, n: 1 } }, sizes: null, maxVessel: Infinity };
 
-function evaluate(model: ReactorModel, cm: CostModel, sequence: StageType[], x: number[] | null): Evaluated {
+function evaluate(basis: SizingBasis, cm: CostModel, sequence: StageType[], x: number[] | null): Evaluated {
   if (!x) return { sequence, boundaries: null, objective: Infinity, totalVolume: Infinity, stages: [] };
   const places = placesOf(sequence);
-  const stages = stageResults(model, cm, places, x);
+  const stages = stageResults(basis, cm, places, x);
   const totalVolume = stages.reduce((s, st) => s + st.volume, 0);
   const objective = cm.kind === "volume" ? totalVolume : stages.reduce((s, st) => s + (st.cost ?? 0), 0);
   return { sequence, boundaries: x, objective, totalVolume, stages };
 }
 
-function infeasibleReason(model: ReactorModel, n: number, target: number): string {
+function infeasibleReason(basis: SizingBasis, n: number, target: number): string {
   const what = n === 1 ? "a single stage" : `${n} stages`;
-  if (Number.isFinite(model.maxTemperature)) {
-    return `${what} cannot reach conversion ${target} without exceeding the maximum temperature ${model.maxTemperature} K`;
+  if (Number.isFinite(basis.maxTemperature)) {
+    return `${what} cannot reach conversion ${target} without exceeding the maximum temperature ${basis.maxTemperature} K`;
   }
-  if (model.reversible) return `${what} cannot reach conversion ${target}: each stage stops at its own equilibrium`;
+  if (basis.reversible) return `${what} cannot reach conversion ${target}: each stage stops at its own equilibrium`;
   return `${what} cannot reach conversion ${target} with a positive rate throughout`;
 }
 
@@ -159,7 +159,7 @@ function vesselCount(e: Evaluated): number {
  * the infeasible ones), because each is
  * only a shorter train padded with a vessel that does nothing and would otherwise crowd the top ranks.
  */
-function rank(evaluated: Evaluated[], model: ReactorModel, target: number, cm: CostModel): CandidateResult[] {
+function rank(evaluated: Evaluated[], basis: SizingBasis, target: number, cm: CostModel): CandidateResult[] {
   const order = evaluated
     .map((e, i) => ({ e, i, empty: Number.isFinite(e.objective) ? emptyStages(e) : 0, vessels: vesselCount(e) }))
     .sort(
@@ -181,7 +181,7 @@ function rank(evaluated: Evaluated[], model: ReactorModel, target: number, cm: C
       totalVolume: feasible ? e.totalVolume : null,
       totalCost: feasible && cm.kind === "cost" ? e.objective : null,
       conversionReached: feasible ? e.stages[e.stages.length - 1].conversionOut : null,
-      reason: feasible ? null : infeasibleReason(model, e.sequence.length, target),
+      reason: feasible ? null : infeasibleReason(basis, e.sequence.length, target),
       emptyStages: empty,
       stages: e.stages,
     };
@@ -201,48 +201,48 @@ function finite(v: number): number | null {
  * @throws EngineError for an invalid spec, or when no sequence can reach the target.
  */
 export function designTrains(spec: DesignSpec, options: DesignOptions = {}): DesignResult {
-  const { model, rateRange } = resolveModel(spec.feed, spec.reaction);
+  const { basis, rateRange } = resolveSizingBasis(spec.feed, spec.reaction);
   const target = spec.target.conversion;
   const ratePath = spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate";
-  checkTarget(model, target, rateRange, ratePath);
-  checkRateMagnitude(model, target, ratePath);
+  checkTarget(basis, target, rateRange, ratePath);
+  checkRateMagnitude(basis, target, ratePath);
   const sequences = enumerateSequences(spec.train);
   const cm = resolveCostModel(spec.objective, [...new Set(sequences.flat())]);
   let evaluated: Evaluated[];
   if (spec.train.equalVolume) {
-    evaluated = sequences.map((s) => evaluate(model, cm, s, equalVolumeBoundaries(model, placesOf(s), target)));
+    evaluated = sequences.map((s) => evaluate(basis, cm, s, equalVolumeBoundaries(basis, placesOf(s), target)));
   } else if (cm.sizes) {
     // Standard sizes: an exact search over the purchase choices (not limited by a grid).
-    const designs = optimiseStandardSizes(model, cm, target, sequences);
-    evaluated = sequences.map((s, i) => evaluateSized(model, s, designs[i]));
+    const designs = optimiseStandardSizes(basis, cm, target, sequences);
+    evaluated = sequences.map((s, i) => evaluateSized(basis, s, designs[i]));
   } else {
-    const tables = buildGridTables(model, cm, target, options.gridPoints ?? 128);
+    const tables = buildGridTables(basis, cm, target, options.gridPoints ?? 128);
     const grid = optimiseOnGrid(tables, sequences);
     const memo: RefineMemo = new Map();
     evaluated = sequences.map((s, i) => {
       const g = grid[i];
-      if (!Number.isFinite(g.value)) return evaluate(model, cm, s, null);
+      if (!Number.isFinite(g.value)) return evaluate(basis, cm, s, null);
       const places = placesOf(s);
       const start = g.boundaries.map((j) => tables.x[j]);
-      const refined = refine(model, cm, places, start, memo);
+      const refined = refine(basis, cm, places, start, memo);
       // The refined design is kept unless it is clearly worse than the grid design (a safeguard only).
-      const before = totalObjective(model, cm, places, start);
-      const better = totalObjective(model, cm, places, refined) <= before * (1 + 1e-9) ? refined : start;
-      return evaluate(model, cm, s, better);
+      const before = totalObjective(basis, cm, places, start);
+      const better = totalObjective(basis, cm, places, refined) <= before * (1 + 1e-9) ? refined : start;
+      return evaluate(basis, cm, s, better);
     });
   }
-  const candidates = rank(evaluated, model, target, cm);
+  const candidates = rank(evaluated, basis, target, cm);
   if (!candidates.some((c) => c.feasible)) {
     throw new EngineError("infeasible", `no sequence can reach the target conversion ${target}: ${candidates[0].reason}`, "target.conversion");
   }
   const best = candidates.find((c) => c.feasible);
   checkVolumeMagnitude(best?.totalVolume ?? Infinity, "the smallest train's volume", ratePath);
-  const eq = equilibriumConversion(model);
+  const eq = equilibriumConversion(basis);
   return {
     candidates,
-    reference: { singleCSTR: finite(cstrVolume(model, true, 0, target)), singlePFR: finite(pfrVolume(model, true, 0, target)) },
+    reference: { singleCSTR: finite(cstrVolume(basis, true, 0, target)), singlePFR: finite(pfrVolume(basis, true, 0, target)) },
     ...(eq !== null ? { equilibriumConversion: eq } : {}),
-    feedVolumetricFlow: model.v0,
+    feedVolumetricFlow: basis.v0,
     objective: cm.kind,
     cautions: cm.sizes && !spec.train.equalVolume ? [...CAUTIONS, SIZED_CAUTION] : [...CAUTIONS],
   };

@@ -2,7 +2,7 @@ import type { ConcentrationBasis } from "./concentrations";
 import { concentration } from "./concentrations";
 import { EngineError } from "./errors";
 import { EXPRESSION_CONSTANTS, EXPRESSION_FUNCTIONS, mathInstance } from "./math-instance";
-import type { RateFunction } from "./model";
+import type { RateFunction } from "./sizing-basis";
 
 const PATH = "reaction.rate.expression";
 

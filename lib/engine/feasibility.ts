@@ -1,5 +1,5 @@
 import { EngineError, ensure } from "./errors";
-import { sharedPath, type ReactorModel } from "./model";
+import { sharedPath, type SizingBasis } from "./sizing-basis";
 import { brentRoot } from "./root-finding";
 
 const SCAN = 512;
@@ -21,26 +21,26 @@ export function firstNonPositive(f: (x: number) => number, lo: number, hi: numbe
 }
 
 /** Rate along the first stage's path (feed temperature plus the adiabatic rise). */
-function feedPathRate(model: ReactorModel): (x: number) => number {
-  return (x) => model.rate(x, model.t0 + model.rise * x);
+function feedPathRate(basis: SizingBasis): (x: number) => number {
+  return (x) => basis.rate(x, basis.t0 + basis.rise * x);
 }
 
 /**
  * Equilibrium conversion along the first stage's temperature path, or null without a reverse term
  * (or when the rate stays positive up to the stoichiometric limit).
  */
-export function equilibriumConversion(model: ReactorModel): number | null {
-  if (!model.reversible) return null;
-  return firstNonPositive(feedPathRate(model), 0, model.upper * (1 - 1e-12), 4 * SCAN);
+export function equilibriumConversion(basis: SizingBasis): number | null {
+  if (!basis.reversible) return null;
+  return firstNonPositive(feedPathRate(basis), 0, basis.upper * (1 - 1e-12), 4 * SCAN);
 }
 
 function fmt(x: number): string {
   return Number(x.toPrecision(6)).toString();
 }
 
-function rateProblem(model: ReactorModel, x: number, target: number, reset: boolean, path: string): EngineError {
-  if (model.reversible) {
-    const limit = reset && model.interstage !== null ? Math.max(x, firstNonPositive((v) => model.rate(v, model.interstage as number), 0, model.upper * (1 - 1e-12), 4 * SCAN) ?? 1) : x;
+function rateProblem(basis: SizingBasis, x: number, target: number, reset: boolean, path: string): EngineError {
+  if (basis.reversible) {
+    const limit = reset && basis.interstage !== null ? Math.max(x, firstNonPositive((v) => basis.rate(v, basis.interstage as number), 0, basis.upper * (1 - 1e-12), 4 * SCAN) ?? 1) : x;
     if (target >= limit) {
       return new EngineError(
         "equilibrium",
@@ -49,7 +49,7 @@ function rateProblem(model: ReactorModel, x: number, target: number, reset: bool
       );
     }
   }
-  const r = model.rate(x, model.t0 + model.rise * x);
+  const r = basis.rate(x, basis.t0 + basis.rise * x);
   const what = Number.isNaN(r) ? "not a number" : "zero or negative";
   return new EngineError("infeasible", `the rate is ${what} at conversion ${fmt(x)}, before the target ${fmt(target)}`, path);
 }
@@ -59,34 +59,34 @@ function rateProblem(model: ReactorModel, x: number, target: number, reset: bool
  * and a positive rate up to the target (or the equilibrium conversion when the rate has a reverse term).
  * @throws EngineError with the path of the field at fault.
  */
-export function checkTarget(model: ReactorModel, target: number, rateRange: readonly [number, number], ratePath: string): void {
+export function checkTarget(basis: SizingBasis, target: number, rateRange: readonly [number, number], ratePath: string): void {
   const T = "target.conversion";
   ensure(Number.isFinite(target) && target > 0 && target < 1, "the target conversion must be within (0, 1)", T);
   ensure(
-    target < model.maxConversion,
-    `the target conversion ${fmt(target)} needs more of a co-reactant than the feed holds; the stoichiometric limit is ${fmt(model.maxConversion)}`,
+    target < basis.maxConversion,
+    `the target conversion ${fmt(target)} needs more of a co-reactant than the feed holds; the stoichiometric limit is ${fmt(basis.maxConversion)}`,
     T,
   );
   ensure(target <= rateRange[1], `the target conversion ${fmt(target)} is outside the rate table's range [${fmt(rateRange[0])}, ${fmt(rateRange[1])}]`, T);
-  const shared = sharedPath(model);
+  const shared = sharedPath(basis);
   if (shared) {
-    const tOut = model.t0 + model.rise * target;
-    if (tOut > model.maxTemperature) {
+    const tOut = basis.t0 + basis.rise * target;
+    if (tOut > basis.maxTemperature) {
       throw new EngineError(
         "infeasible",
-        `reaching conversion ${fmt(target)} adiabatically takes the stream to ${fmt(tOut)} K, above the maximum temperature ${fmt(model.maxTemperature)} K, so no stage can keep it; add an interstage temperature`,
+        `reaching conversion ${fmt(target)} adiabatically takes the stream to ${fmt(tOut)} K, above the maximum temperature ${fmt(basis.maxTemperature)} K, so no stage can keep it; add an interstage temperature`,
         "reaction.thermal.maxTemperature",
       );
     }
     ensure(tOut > 0, `the adiabatic path falls to ${fmt(tOut)} K before the target`, "reaction.thermal.adiabaticRise");
   }
-  const f = feedPathRate(model);
+  const f = feedPathRate(basis);
   const bad = firstNonPositive(f, 0, shared ? target : Math.min(target, 1e-9));
-  if (bad !== null) throw rateProblem(model, bad, target, !shared, ratePath);
-  if (!shared && model.reversible) {
-    const x = equilibriumConversion(model);
+  if (bad !== null) throw rateProblem(basis, bad, target, !shared, ratePath);
+  if (!shared && basis.reversible) {
+    const x = equilibriumConversion(basis);
     if (x !== null) {
-      const err = rateProblem(model, x, target, true, ratePath);
+      const err = rateProblem(basis, x, target, true, ratePath);
       if (err.code === "equilibrium") throw err;
     }
   }

@@ -1,5 +1,5 @@
 import { stageObjective, type CostModel } from "./cost";
-import { sharedPath, type ReactorModel } from "./model";
+import { sharedPath, type SizingBasis } from "./sizing-basis";
 import { levenspielHeight, temperatureFeasible } from "./stages";
 import type { StageType } from "./types";
 
@@ -22,20 +22,20 @@ function uniformGrid(target: number, m: number): Float64Array {
 }
 
 /** Heights FA0/(-rA) and cumulative PFR volumes along the path of a stage that starts at x[i]. */
-function pathFrom(model: ReactorModel, first: boolean, x: Float64Array, i: number) {
+function pathFrom(basis: SizingBasis, first: boolean, x: Float64Array, i: number) {
   const m = x.length;
   const a = x[i];
   const height = new Float64Array(m).fill(Infinity);
   const cumulative = new Float64Array(m).fill(Infinity);
-  height[i] = levenspielHeight(model, first, a, a);
+  height[i] = levenspielHeight(basis, first, a, a);
   cumulative[i] = 0;
   for (let j = i + 1; j < m; j++) {
-    if (!temperatureFeasible(model, first, a, x[j])) break;
-    height[j] = levenspielHeight(model, first, a, x[j]);
+    if (!temperatureFeasible(basis, first, a, x[j])) break;
+    height[j] = levenspielHeight(basis, first, a, x[j]);
     if (!Number.isFinite(height[j])) break;
     // Simpson's rule per cell, reusing the heights at the grid points: the tables only have to pick the
     // basin of the optimum and a start for the refinement, which works at full precision.
-    const mid = levenspielHeight(model, first, a, 0.5 * (x[j - 1] + x[j]));
+    const mid = levenspielHeight(basis, first, a, 0.5 * (x[j - 1] + x[j]));
     cumulative[j] = cumulative[j - 1] + ((x[j] - x[j - 1]) / 6) * (height[j - 1] + 4 * mid + height[j]);
   }
   return { height, cumulative };
@@ -66,20 +66,20 @@ function fillRow(
 }
 
 /** Builds the grid tables (m points from 0 to the target). */
-export function buildGridTables(model: ReactorModel, cm: CostModel, target: number, m: number): GridTables {
+export function buildGridTables(basis: SizingBasis, cm: CostModel, target: number, m: number): GridTables {
   const x = uniformGrid(target, m);
   const first = { CSTR: new Float64Array(m), PFR: new Float64Array(m) };
   const later = { CSTR: new Float64Array(m * m), PFR: new Float64Array(m * m) };
-  const feedPath = pathFrom(model, true, x, 0);
+  const feedPath = pathFrom(basis, true, x, 0);
   fillRow(first, 0, x, 0, feedPath, 0, cm);
-  if (sharedPath(model)) {
+  if (sharedPath(basis)) {
     // One path serves every stage: a later stage's volume is a difference of cumulative values.
     for (let i = 0; i < m; i++) {
       const shifted = { height: feedPath.height, cumulative: feedPath.cumulative };
       fillRow(later, i * m, x, i, shifted, feedPath.cumulative[i], cm);
     }
   } else {
-    for (let i = 0; i < m; i++) fillRow(later, i * m, x, i, pathFrom(model, false, x, i), 0, cm);
+    for (let i = 0; i < m; i++) fillRow(later, i * m, x, i, pathFrom(basis, false, x, i), 0, cm);
   }
   return { m, x, first, later };
 }

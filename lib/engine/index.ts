@@ -10,6 +10,6 @@ export { MAX_STAGES } from "./sequences";
 export type * from "./types";
 export { toSI, DIM } from "./units";
 export { normaliseRatingSpec } from "./normalise-spec";
-export { rateTrainOutlet } from "./lean-rating";
+export { rateTrainOutlet } from "./outlet-rating";
 export { EMPTY_STAGE_STEP } from "./design";
 export { MAX_RATED_VESSEL, VOLUME_LIMITS } from "./magnitude";

@@ -1,4 +1,4 @@
-import type { ReactorModel } from "./model";
+import type { SizingBasis } from "./sizing-basis";
 import { levenspielHeight } from "./stages";
 import type { PlotPoint, StagePlot, StageType } from "./types";
 
@@ -18,15 +18,15 @@ function round(v: number): number {
 }
 
 /** Levenspiel plot data of one stage: its curve FA0/(-rA) against X and the outline of its volume. */
-export function stagePlot(model: ReactorModel, type: StageType, first: boolean, a: number, b: number): StagePlot {
+export function stagePlot(basis: SizingBasis, type: StageType, first: boolean, a: number, b: number): StagePlot {
   const n = b > a ? CURVE_POINTS : 1;
   const curve: PlotPoint[] = [];
   for (let i = 0; i < n; i++) {
     const x = n === 1 ? a : a + ((b - a) * i) / (n - 1);
-    curve.push([round(x), round(levenspielHeight(model, first, a, x))]);
+    curve.push([round(x), round(levenspielHeight(basis, first, a, x))]);
   }
   if (type === "CSTR") {
-    const h = round(levenspielHeight(model, first, a, b));
+    const h = round(levenspielHeight(basis, first, a, b));
     return { curve, area: [[round(a), 0], [round(a), h], [round(b), h], [round(b), 0]] };
   }
   return { curve, area: [[round(a), 0], ...curve, [round(b), 0]] };

@@ -1,5 +1,5 @@
 import { EngineError } from "./errors";
-import type { ReactorModel } from "./model";
+import type { SizingBasis } from "./sizing-basis";
 
 /**
  * Plausible range of a reaction volume, m3. Below 1 nL or above 1 km3 a result says more about a
@@ -25,14 +25,14 @@ function fmt(x: number): string {
  * number, or is so small that FA0/(-rA) overflows: each of these would otherwise print as 0 or as an
  * endless volume instead of saying what went wrong.
  */
-export function checkRateMagnitude(model: ReactorModel, hi: number, path: string): void {
+export function checkRateMagnitude(basis: SizingBasis, hi: number, path: string): void {
   for (let i = 0; i <= SCAN; i++) {
     const x = (hi * i) / SCAN;
-    const r = model.rate(x, model.t0 + model.rise * x);
+    const r = basis.rate(x, basis.t0 + basis.rise * x);
     if (r === Infinity || r === -Infinity) {
       throw new EngineError("infeasible", `the rate overflows at X = ${fmt(x)} (too large to compute); check the rate constant and the rate expression`, path);
     }
-    if (r > 0 && !Number.isFinite(model.fa0 / r)) {
+    if (r > 0 && !Number.isFinite(basis.fa0 / r)) {
       throw new EngineError("infeasible", `the rate underflows at X = ${fmt(x)} (too small to compute); check the rate constant and the rate expression`, path);
     }
   }

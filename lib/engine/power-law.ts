@@ -1,7 +1,7 @@
 import { GAS_CONSTANT } from "./arrhenius";
 import { concentration, type ConcentrationBasis } from "./concentrations";
 import { ensure } from "./errors";
-import type { RateFunction } from "./model";
+import type { RateFunction } from "./sizing-basis";
 
 /** A resolved power-law term: k(Tref), orders by species index, activation energy. */
 export interface PowerTerm {

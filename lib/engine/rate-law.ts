@@ -1,7 +1,7 @@
 import { buildBasis, buildSpecies, type ConcentrationBasis } from "./concentrations";
 import { EngineError, ensure } from "./errors";
 import { expressionRate } from "./expression-law";
-import type { RateFunction } from "./model";
+import type { RateFunction } from "./sizing-basis";
 import { buildPchip, evaluatePchip } from "./pchip";
 import { powerLawRate, resolveOrders, type PowerTerm } from "./power-law";
 import { saturationRate } from "./saturation-law";

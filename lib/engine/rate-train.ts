@@ -1,10 +1,10 @@
 import { CAUTIONS } from "./cautions";
 import { ensure } from "./errors";
 import { checkRateMagnitude, MAX_RATED_VESSEL } from "./magnitude";
-import { inletTemperature } from "./model";
+import { inletTemperature } from "./sizing-basis";
 import { cstrSteadyStates, pfrOutlet } from "./rating";
-import { resolveModel } from "./resolve-model";
-import { stageTemperature } from "./model";
+import { resolveSizingBasis } from "./resolve-sizing-basis";
+import { stageTemperature } from "./sizing-basis";
 import type { RatedStage, RatingResult, RatingSpec } from "./types";
 import { DIM, toSI } from "./units";
 
@@ -14,9 +14,9 @@ import { DIM, toSI } from "./units";
  * @throws EngineError for an invalid spec.
  */
 export function rateTrain(spec: RatingSpec): RatingResult {
-  const { model } = resolveModel(spec.feed, spec.reaction);
+  const { basis } = resolveSizingBasis(spec.feed, spec.reaction);
   ensure(spec.stages.length >= 1 && spec.stages.length <= 8, "give 1..8 stages", "stages");
-  checkRateMagnitude(model, model.upper * (1 - 1e-9), spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate");
+  checkRateMagnitude(basis, basis.upper * (1 - 1e-9), spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate");
   let a = 0;
   const stages: RatedStage[] = spec.stages.map((s, k) => {
     const volume = toSI(s.volume, DIM.volume, `stages.${k}.volume`);
@@ -26,16 +26,16 @@ export function rateTrain(spec: RatingSpec): RatingResult {
     const first = k === 0;
     const states =
       s.type === "CSTR"
-        ? cstrSteadyStates(model, first, a, volume)
-        : [{ conversionOut: pfrOutlet(model, first, a, volume), temperatureOut: 0 }].map((st) => ({
+        ? cstrSteadyStates(basis, first, a, volume)
+        : [{ conversionOut: pfrOutlet(basis, first, a, volume), temperatureOut: 0 }].map((st) => ({
             ...st,
-            temperatureOut: stageTemperature(model, first, a, st.conversionOut),
+            temperatureOut: stageTemperature(basis, first, a, st.conversionOut),
           }));
     const stage: RatedStage = {
       type: s.type,
       volume,
       conversionIn: a,
-      temperatureIn: inletTemperature(model, first, a),
+      temperatureIn: inletTemperature(basis, first, a),
       steadyStates: states,
       multiple: states.length > 1,
       conversionOut: states[0].conversionOut,

@@ -1,13 +1,13 @@
-import { stageTemperature, type ReactorModel } from "./model";
+import { stageTemperature, type SizingBasis } from "./sizing-basis";
 import { allRoots, brentRoot } from "./root-finding";
 import { levenspielHeight, pfrVolume, temperatureFeasible } from "./stages";
 import type { StageType, SteadyState } from "./types";
 
 /** Highest conversion a stage from a can approach: where the rate stops being positive or T leaves its limits. */
-export function reachLimit(model: ReactorModel, first: boolean, a: number): number {
-  const top = model.upper * (1 - 1e-12);
+export function reachLimit(basis: SizingBasis, first: boolean, a: number): number {
+  const top = basis.upper * (1 - 1e-12);
   const ok = (x: number): boolean =>
-    temperatureFeasible(model, first, a, x) && model.rate(x, stageTemperature(model, first, a, x)) > 0;
+    temperatureFeasible(basis, first, a, x) && basis.rate(x, stageTemperature(basis, first, a, x)) > 0;
   if (ok(top)) {
     // A positive rate at the top does not rule out a dip in between; scan coarsely.
     let fine = true;
@@ -38,44 +38,44 @@ export function reachLimit(model: ReactorModel, first: boolean, a: number): numb
  * itself, kept inside a shrinking bracket (bisection when a step would leave it); Brent's
  * method finishes any case Newton does not settle in 30 steps.
  */
-export function pfrOutlet(model: ReactorModel, first: boolean, a: number, volume: number): number {
+export function pfrOutlet(basis: SizingBasis, first: boolean, a: number, volume: number): number {
   if (volume <= 0) return a;
-  const hi = reachLimit(model, first, a);
-  const full = pfrVolume(model, first, a, hi);
+  const hi = reachLimit(basis, first, a);
+  const full = pfrVolume(basis, first, a, hi);
   if (full <= volume) return hi;
   let lo = a;
   let up = hi;
   let x = Number.isFinite(full) ? a + ((hi - a) * volume) / full : 0.5 * (a + hi);
   for (let i = 0; i < 30; i++) {
-    const g = pfrVolume(model, first, a, x) - volume;
+    const g = pfrVolume(basis, first, a, x) - volume;
     if (g === 0) return x;
     if (g > 0) up = x;
     else lo = x;
-    const step = g / levenspielHeight(model, first, a, x);
+    const step = g / levenspielHeight(basis, first, a, x);
     let next = x - step;
     if (!(next > lo && next < up)) next = 0.5 * (lo + up);
     if (Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) || up - lo <= 1e-15) return next;
     x = next;
   }
-  return brentRoot((y) => pfrVolume(model, first, a, y) - volume, lo, up, 1e-15);
+  return brentRoot((y) => pfrVolume(basis, first, a, y) - volume, lo, up, 1e-15);
 }
 
 /**
  * CSTR rating: every steady state of FA0 (X - a) = V (-rA(X, T(X))), found by a scan of 2000 brackets and
  * Brent's method in each sign change (an adiabatic CSTR may have several).
  */
-export function cstrSteadyStates(model: ReactorModel, first: boolean, a: number, volume: number): SteadyState[] {
-  if (volume <= 0) return [{ conversionOut: a, temperatureOut: stageTemperature(model, first, a, a) }];
-  const hi = reachLimit(model, first, a);
-  const f = (x: number): number => (x - a) * model.fa0 - volume * model.rate(x, stageTemperature(model, first, a, x));
-  const roots = allRoots(f, a, hi, model.rise === 0 ? 200 : 2000).filter((x) => x > a);
+export function cstrSteadyStates(basis: SizingBasis, first: boolean, a: number, volume: number): SteadyState[] {
+  if (volume <= 0) return [{ conversionOut: a, temperatureOut: stageTemperature(basis, first, a, a) }];
+  const hi = reachLimit(basis, first, a);
+  const f = (x: number): number => (x - a) * basis.fa0 - volume * basis.rate(x, stageTemperature(basis, first, a, x));
+  const roots = allRoots(f, a, hi, basis.rise === 0 ? 200 : 2000).filter((x) => x > a);
   const xs = roots.length > 0 ? roots : [hi];
-  return xs.map((x) => ({ conversionOut: x, temperatureOut: stageTemperature(model, first, a, x) }));
+  return xs.map((x) => ({ conversionOut: x, temperatureOut: stageTemperature(basis, first, a, x) }));
 }
 
 /** Outlet of a stage by volume; for several CSTR steady states the lowest (reached from a cold start). */
-export function stageOutlet(model: ReactorModel, type: StageType, first: boolean, a: number, volume: number): number {
-  return type === "PFR" ? pfrOutlet(model, first, a, volume) : cstrSteadyStates(model, first, a, volume)[0].conversionOut;
+export function stageOutlet(basis: SizingBasis, type: StageType, first: boolean, a: number, volume: number): number {
+  return type === "PFR" ? pfrOutlet(basis, first, a, volume) : cstrSteadyStates(basis, first, a, volume)[0].conversionOut;
 }
 
 /** The height of the Levenspiel curve, re-exported for rating reports. */

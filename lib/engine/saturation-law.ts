@@ -1,6 +1,6 @@
 import { arrheniusFactor } from "./arrhenius";
 import { concentration, type ConcentrationBasis } from "./concentrations";
-import type { RateFunction } from "./model";
+import type { RateFunction } from "./sizing-basis";
 
 /** Resolved saturation kinetics (SI). ki is Infinity without substrate inhibition. */
 export interface SaturationParameters {

@@ -1,4 +1,4 @@
-import { inletTemperature, sharedPath, stageTemperature, type ReactorModel } from "./model";
+import { inletTemperature, sharedPath, stageTemperature, type SizingBasis } from "./sizing-basis";
 import { integrate, kronrod15 } from "./quadrature";
 import type { StageType } from "./types";
 
@@ -9,23 +9,23 @@ export interface StagePlace {
 }
 
 /** Whether a stage from a to b keeps within the temperature limit and above 0 K. */
-export function temperatureFeasible(model: ReactorModel, first: boolean, a: number, b: number): boolean {
-  const tIn = inletTemperature(model, first, a);
-  const tOut = tIn + model.rise * (b - a);
-  return Math.max(tIn, tOut) <= model.maxTemperature * (1 + 1e-12) && Math.min(tIn, tOut) > 0;
+export function temperatureFeasible(basis: SizingBasis, first: boolean, a: number, b: number): boolean {
+  const tIn = inletTemperature(basis, first, a);
+  const tOut = tIn + basis.rise * (b - a);
+  return Math.max(tIn, tOut) <= basis.maxTemperature * (1 + 1e-12) && Math.min(tIn, tOut) > 0;
 }
 
 /** FA0/(-rA) along a stage's temperature path (Infinity where the rate is not positive). */
-export function levenspielHeight(model: ReactorModel, first: boolean, a: number, x: number): number {
-  const r = model.rate(x, stageTemperature(model, first, a, x));
-  return r > 0 ? model.fa0 / r : Infinity;
+export function levenspielHeight(basis: SizingBasis, first: boolean, a: number, x: number): number {
+  const r = basis.rate(x, stageTemperature(basis, first, a, x));
+  return r > 0 ? basis.fa0 / r : Infinity;
 }
 
 /** CSTR design equation V = FA0 (b - a) / (-rA at outlet conditions), m3; Infinity when infeasible. */
-export function cstrVolume(model: ReactorModel, first: boolean, a: number, b: number): number {
+export function cstrVolume(basis: SizingBasis, first: boolean, a: number, b: number): number {
   if (b === a) return 0;
-  if (!temperatureFeasible(model, first, a, b)) return Infinity;
-  return (b - a) * levenspielHeight(model, first, a, b);
+  if (!temperatureFeasible(basis, first, a, b)) return Infinity;
+  return (b - a) * levenspielHeight(basis, first, a, b);
 }
 
 const CELL = 1 / 256;
@@ -33,17 +33,17 @@ interface FeedPathTable {
   readonly cells: number[];
   readonly height: (x: number) => number;
 }
-const feedPathTables = new WeakMap<ReactorModel, FeedPathTable>();
+const feedPathTables = new WeakMap<SizingBasis, FeedPathTable>();
 
 /**
  * Integral of FA0/(-rA) from 0 to x along the feed path (T0 + rise X), from cumulative cell integrals
- * memoised per model: cell j's integral is computed once, adaptively, and reused by every later query.
+ * memoised per basis: cell j's integral is computed once, adaptively, and reused by every later query.
  */
-function feedPathIntegral(model: ReactorModel, x: number): number {
-  let table = feedPathTables.get(model);
+function feedPathIntegral(basis: SizingBasis, x: number): number {
+  let table = feedPathTables.get(basis);
   if (!table) {
-    table = { cells: [0], height: (v: number): number => levenspielHeight(model, true, 0, v) };
-    feedPathTables.set(model, table);
+    table = { cells: [0], height: (v: number): number => levenspielHeight(basis, true, 0, v) };
+    feedPathTables.set(basis, table);
   }
   const { cells, height } = table;
   const i = Math.floor(x / CELL);
@@ -55,60 +55,60 @@ function feedPathIntegral(model: ReactorModel, x: number): number {
 }
 
 /** PFR design equation V = FA0 * integral of dX/(-rA) from a to b, m3; Infinity when infeasible. */
-export function pfrVolume(model: ReactorModel, first: boolean, a: number, b: number, relTol = 1e-12): number {
+export function pfrVolume(basis: SizingBasis, first: boolean, a: number, b: number, relTol = 1e-12): number {
   if (b === a) return 0;
-  if (!temperatureFeasible(model, first, a, b)) return Infinity;
-  const onFeedPath = first || sharedPath(model);
+  if (!temperatureFeasible(basis, first, a, b)) return Infinity;
+  const onFeedPath = first || sharedPath(basis);
   const v =
     onFeedPath && b - a > 2 * CELL
-      ? feedPathIntegral(model, b) - feedPathIntegral(model, a)
-      : integrate((x) => levenspielHeight(model, first, a, x), a, b, relTol).value;
+      ? feedPathIntegral(basis, b) - feedPathIntegral(basis, a)
+      : integrate((x) => levenspielHeight(basis, first, a, x), a, b, relTol).value;
   return Number.isFinite(v) && v >= 0 ? v : Infinity;
 }
 
 /** Volume of a stage of either type, m3. */
-export function stageVolume(model: ReactorModel, place: StagePlace, a: number, b: number): number {
-  return place.type === "CSTR" ? cstrVolume(model, place.first, a, b) : pfrVolume(model, place.first, a, b);
+export function stageVolume(basis: SizingBasis, place: StagePlace, a: number, b: number): number {
+  return place.type === "CSTR" ? cstrVolume(basis, place.first, a, b) : pfrVolume(basis, place.first, a, b);
 }
 
-function rateDerivatives(model: ReactorModel, x: number, t: number): { rx: number; rt: number } {
+function rateDerivatives(basis: SizingBasis, x: number, t: number): { rx: number; rt: number } {
   const h = 1e-6;
   let rx: number;
-  if (x - h < 0) rx = (-3 * model.rate(x, t) + 4 * model.rate(x + h, t) - model.rate(x + 2 * h, t)) / (2 * h);
-  else if (x + h > model.upper) rx = (3 * model.rate(x, t) - 4 * model.rate(x - h, t) + model.rate(x - 2 * h, t)) / (2 * h);
-  else rx = (model.rate(x + h, t) - model.rate(x - h, t)) / (2 * h);
-  if (!model.temperatureDependent || model.rise === 0) return { rx, rt: 0 };
+  if (x - h < 0) rx = (-3 * basis.rate(x, t) + 4 * basis.rate(x + h, t) - basis.rate(x + 2 * h, t)) / (2 * h);
+  else if (x + h > basis.upper) rx = (3 * basis.rate(x, t) - 4 * basis.rate(x - h, t) + basis.rate(x - 2 * h, t)) / (2 * h);
+  else rx = (basis.rate(x + h, t) - basis.rate(x - h, t)) / (2 * h);
+  if (!basis.temperatureDependent || basis.rise === 0) return { rx, rt: 0 };
   const ht = 1e-5 * t;
-  return { rx, rt: (model.rate(x, t + ht) - model.rate(x, t - ht)) / (2 * ht) };
+  return { rx, rt: (basis.rate(x, t + ht) - basis.rate(x, t - ht)) / (2 * ht) };
 }
 
 /** dT/da at fixed X inside a stage: zero on a shared path, -rise when the inlet is reset. */
-function inletSensitivity(model: ReactorModel, first: boolean): number {
-  return first || sharedPath(model) ? 0 : -model.rise;
+function inletSensitivity(basis: SizingBasis, first: boolean): number {
+  return first || sharedPath(basis) ? 0 : -basis.rise;
 }
 
 /**
  * Partial derivatives of a stage's volume with respect to its inlet (a) and outlet (b) conversions,
  * from the differentiated design equations (Leibniz rule for the PFR integral).
  */
-export function stageVolumeGradient(model: ReactorModel, place: StagePlace, a: number, b: number, precise = true): [number, number] {
+export function stageVolumeGradient(basis: SizingBasis, place: StagePlace, a: number, b: number, precise = true): [number, number] {
   const { first } = place;
-  const theta = inletSensitivity(model, first);
-  const fa0 = model.fa0;
+  const theta = inletSensitivity(basis, first);
+  const fa0 = basis.fa0;
   if (place.type === "CSTR") {
-    const t = stageTemperature(model, first, a, b);
-    const r = model.rate(b, t);
-    const { rx, rt } = rateDerivatives(model, b, t);
+    const t = stageTemperature(basis, first, a, b);
+    const r = basis.rate(b, t);
+    const { rx, rt } = rateDerivatives(basis, b, t);
     const l = b - a;
-    return [fa0 * (-1 / r - (l * theta * rt) / (r * r)), fa0 * (1 / r - (l * (rx + model.rise * rt)) / (r * r))];
+    return [fa0 * (-1 / r - (l * theta * rt) / (r * r)), fa0 * (1 / r - (l * (rx + basis.rise * rt)) / (r * r))];
   }
-  const db = levenspielHeight(model, first, a, b);
-  let da = -levenspielHeight(model, first, a, a);
+  const db = levenspielHeight(basis, first, a, b);
+  let da = -levenspielHeight(basis, first, a, a);
   if (theta !== 0 && b > a) {
     const integrand = (x: number): number => {
-      const t = stageTemperature(model, first, a, x);
-      const r = model.rate(x, t);
-      return (theta * rateDerivatives(model, x, t).rt) / (r * r);
+      const t = stageTemperature(basis, first, a, x);
+      const r = basis.rate(x, t);
+      return (theta * rateDerivatives(basis, x, t).rt) / (r * r);
     };
     // The Hessian differences gradients; a fixed rule keeps them smooth in (a, b) and costs less.
     da -= fa0 * (precise ? integrate(integrand, a, b, 1e-10).value : kronrod15(integrand, a, b));

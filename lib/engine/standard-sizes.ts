@@ -1,5 +1,5 @@
 import { purchase, type CostModel } from "./cost";
-import { sharedPath, type ReactorModel } from "./model";
+import { sharedPath, type SizingBasis } from "./sizing-basis";
 import { pfrConversionAt } from "./pfr-runs";
 import { reachLimit } from "./rating";
 import { brentRoot } from "./root-finding";
@@ -93,24 +93,24 @@ function crossing(w: (b: number) => number, capacity: number, lo0: number, hi0: 
 }
 
 /** Outlet of a PFR of volume `capacity` fed at a, on [a, top] (top when beyond it). */
-export function pfrOutletWithin(model: ReactorModel, first: boolean, a: number, capacity: number, top: number, whole = pfrVolume(model, first, a, top)): number {
+export function pfrOutletWithin(basis: SizingBasis, first: boolean, a: number, capacity: number, top: number, whole = pfrVolume(basis, first, a, top)): number {
   if (whole <= capacity) return top;
-  return pfrConversionAt(model, first, a, top, capacity, a + ((top - a) * capacity) / whole);
+  return pfrConversionAt(basis, first, a, top, capacity, a + ((top - a) * capacity) / whole);
 }
 
 /** Every useful piece from inlet a for one stage, with its outlet. */
-function moves(model: ReactorModel, list: PieceList, type: StageType, first: boolean, a: number, target: number, limit: number): Move[] {
+function moves(basis: SizingBasis, list: PieceList, type: StageType, first: boolean, a: number, target: number, limit: number): Move[] {
   const reaches = target <= limit;
   const top = reaches ? target : a + (limit - a) * NEAR_LIMIT;
   // The volume past which a piece saturates: it reaches `top` (the target, or next to the reach limit).
   let saturation: number;
   const samples: number[] = [];
   if (type === "PFR") {
-    saturation = pfrVolume(model, first, a, top);
+    saturation = pfrVolume(basis, first, a, top);
   } else {
     saturation = 0;
     for (let i = 1; i <= CSTR_SCAN; i++) {
-      const v = cstrVolume(model, first, a, i === CSTR_SCAN ? top : a + ((top - a) * i) / CSTR_SCAN);
+      const v = cstrVolume(basis, first, a, i === CSTR_SCAN ? top : a + ((top - a) * i) / CSTR_SCAN);
       samples.push(v);
       saturation = Math.max(saturation, v);
     }
@@ -131,7 +131,7 @@ function moves(model: ReactorModel, list: PieceList, type: StageType, first: boo
     }
     let x: number;
     if (type === "PFR") {
-      x = pfrOutletWithin(model, first, a, p.capacity, top, saturation);
+      x = pfrOutletWithin(basis, first, a, p.capacity, top, saturation);
     } else {
       // Capacities rise, so the first sample at or above the capacity only moves forward.
       while (samples[scan] < p.capacity) {
@@ -139,7 +139,7 @@ function moves(model: ReactorModel, list: PieceList, type: StageType, first: boo
         scan++;
       }
       const hi = scan === CSTR_SCAN - 1 ? top : a + ((top - a) * (scan + 1)) / CSTR_SCAN;
-      x = crossing((b) => cstrVolume(model, first, a, b), p.capacity, prevB, hi);
+      x = crossing((b) => cstrVolume(basis, first, a, b), p.capacity, prevB, hi);
     }
     out.push({ piece: p, x, done: false });
   }
@@ -181,7 +181,7 @@ interface Node {
  * parallel counts (up to MAX_COUNT vessels a stage), with each CSTR at its lowest steady state from the feed side.
  */
 export function optimiseStandardSizes(
-  model: ReactorModel,
+  basis: SizingBasis,
   cm: CostModel,
   target: number,
   sequences: readonly (readonly StageType[])[],
@@ -195,14 +195,14 @@ export function optimiseStandardSizes(
   const cheapest = { CSTR: cheapestOf(lists.CSTR), PFR: cheapestOf(lists.PFR) };
   const memo = new Map<string, Move[]>();
   // On a shared temperature path the reach limit (rate or temperature limit) is the same from every inlet.
-  const feedLimit = reachLimit(model, true, 0);
-  const shared = sharedPath(model);
+  const feedLimit = reachLimit(basis, true, 0);
+  const shared = sharedPath(basis);
   const movesFrom = (type: StageType, first: boolean, a: number): Move[] => {
     const key = `${type}${first ? 1 : 0}${a}`;
     let m = memo.get(key);
     if (!m) {
-      const limit = first || shared ? feedLimit : reachLimit(model, false, a);
-      m = moves(model, lists[type], type, first, a, target, limit);
+      const limit = first || shared ? feedLimit : reachLimit(basis, false, a);
+      m = moves(basis, lists[type], type, first, a, target, limit);
       memo.set(key, m);
     }
     return m;
@@ -257,16 +257,16 @@ function piecesOf(s: State): Piece[] {
  * upper bound but the stage's reach limit: the bracket [a, hi] grows toward the limit geometrically, so a
  * rate that vanishes there (equilibrium, complete conversion) costs no singular integral.
  */
-function outletAtCapacity(model: ReactorModel, type: StageType, first: boolean, a: number, capacity: number, limit: number): number {
+function outletAtCapacity(basis: SizingBasis, type: StageType, first: boolean, a: number, capacity: number, limit: number): number {
   let lo = a;
   let hi = a;
   for (let k = 1; k <= 40; k++) {
     hi = a + (limit - a) * (1 - Math.pow(2, -k));
     if (type === "PFR") {
-      const whole = pfrVolume(model, first, a, hi);
-      if (whole >= capacity) return pfrOutletWithin(model, first, a, capacity, hi, whole);
+      const whole = pfrVolume(basis, first, a, hi);
+      if (whole >= capacity) return pfrOutletWithin(basis, first, a, capacity, hi, whole);
     } else {
-      const w = (b: number) => cstrVolume(model, first, a, b);
+      const w = (b: number) => cstrVolume(basis, first, a, b);
       let prev = lo;
       for (let i = 1; i <= CSTR_SCAN; i++) {
         const b = i === CSTR_SCAN ? hi : lo + ((hi - lo) * i) / CSTR_SCAN;
@@ -283,12 +283,12 @@ function outletAtCapacity(model: ReactorModel, type: StageType, first: boolean, 
  * Conversions reached by a train of full vessels (rating form), stage by stage from the feed; a CSTR is
  * taken at its lowest steady state. The last may pass the target.
  */
-export function fullVesselConversions(model: ReactorModel, types: readonly StageType[], capacities: readonly number[]): number[] {
+export function fullVesselConversions(basis: SizingBasis, types: readonly StageType[], capacities: readonly number[]): number[] {
   const x = [0];
   types.forEach((type, k) => {
     const a = x[k];
     const first = k === 0;
-    x.push(outletAtCapacity(model, type, first, a, capacities[k], reachLimit(model, first, a)));
+    x.push(outletAtCapacity(basis, type, first, a, capacities[k], reachLimit(basis, first, a)));
   });
   return x;
 }

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { uuidSchema } from "./foundation";
+import { uuidSchema } from "./ids";
 import { text } from "./text";
 
 /** GET /api/audit: ?entityType=project&entityId=<uuid>, both optional. */

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { uuidSchema } from "./foundation";
+import { uuidSchema } from "./ids";
 import { text } from "./text";
 
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");

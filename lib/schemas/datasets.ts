@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { COLUMN_ROLES, DATASET_UNITS } from "@/lib/datasets/units";
-import { uuidSchema } from "./foundation";
+import { uuidSchema } from "./ids";
 import { keyText, multilineText, text } from "./text";
 
 const unitOf = (kind: keyof typeof DATASET_UNITS, what: string) => {

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { designSpecSchema } from "./sweep-spec";
-import { uuidSchema } from "./foundation";
+import { uuidSchema } from "./ids";
 import { keyText, multilineText, text } from "./text";
 
 /** Rate laws the fitter knows, in the order the screen lists them. */

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { designSpecSchema } from "./sweep-spec";
-import { uuidSchema } from "./foundation";
+import { uuidSchema } from "./ids";
 import { sweepCostingSchema } from "./costs";
 import { sweepRobustnessSchema } from "./robustness";
 import { multilineText, text } from "./text";

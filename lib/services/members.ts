@@ -7,7 +7,7 @@ import { endUserSessions } from "@/lib/auth/sign-in-sessions";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";
-import type { InvitationAccept, InvitationCreate } from "@/lib/schemas/foundation";
+import type { InvitationAccept, InvitationCreate } from "@/lib/schemas/accounts";
 import { recordAudit } from "./audit";
 
 const INVITATION_DAYS = 7;

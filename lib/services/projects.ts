@@ -3,7 +3,7 @@ import type { Database } from "@/db/client";
 import { projects, users, type Project } from "@/db/schema";
 import { assertCan, can, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
-import type { ProjectCreate, ProjectUpdate } from "@/lib/schemas/foundation";
+import type { ProjectCreate, ProjectUpdate } from "@/lib/schemas/projects";
 import { recordAudit } from "./audit";
 
 export type ProjectView = Pick<Project, "id" | "name" | "description" | "archivedAt" | "createdAt" | "updatedAt" | "createdBy"> & {

@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { json, readJson, route } from "@/lib/http";
-import { projectCreateSchema } from "@/lib/schemas/foundation";
+import { projectCreateSchema } from "@/lib/schemas/projects";
 import { createProject, listProjects } from "@/lib/services/projects";
 
 export const GET = route(async (req) => {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import type { z } from "zod";
 import { findLabel, labelFor } from "@/lib/schemas/field-labels";
-import { invitationAcceptSchema, invitationCreateSchema, linkSignInSchema, memberUpdateSchema, passwordSignInSchema, projectCreateSchema, projectUpdateSchema } from "@/lib/schemas/foundation";
+import { invitationAcceptSchema, invitationCreateSchema, linkSignInSchema, memberUpdateSchema, passwordSignInSchema } from "@/lib/schemas/accounts";
+import { projectCreateSchema, projectUpdateSchema } from "@/lib/schemas/projects";
 import { candidateQuerySchema, compareQuerySchema, kineticsModelCreateSchema, kineticsPreviewSchema, kineticsVersionCreateSchema, pinCreateSchema, reviewSchema, sweepCreateSchema, tokenCreateSchema } from "@/lib/schemas/sweeps";
 import { costBasisSchema, rateRequestSchema } from "@/lib/schemas/costs";
 import { robustnessCreateSchema } from "@/lib/schemas/robustness";

@@ -3,7 +3,7 @@ import { AppError, validationError } from "@/lib/errors";
 import { queryValues, uuidParam } from "@/lib/http";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { costBasisSchema } from "@/lib/schemas/costs";
-import { projectCreateSchema } from "@/lib/schemas/foundation";
+import { projectCreateSchema } from "@/lib/schemas/projects";
 import { kineticsModelCreateSchema, reviewSchema } from "@/lib/schemas/sweeps";
 import { fileNameProblem, multilineText, text, TEXT_MESSAGES } from "@/lib/schemas/text";
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { defaultKineticsValues, formPathOf, formToSpec, kineticsFormSchema, mapServerFields, specToForm } from "@/components/kinetics/form-model";
+import { defaultKineticsValues, formPathOf, formToSpec, kineticsFormSchema, mapServerFields, specToForm } from "@/components/kinetics/kinetics-form-state";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 
 describe("kinetics form → SI spec", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { builderToRequest, defaultBuilderValues, implied, newAxis } from "@/components/sweep-builder/builder-model";
+import { builderToRequest, defaultBuilderValues, implied, newAxis } from "@/components/sweep-builder/builder-form-state";
 
 const VERSION = "3f1c2a44-9b7e-4d1a-8c55-0a1b2c3d4e5f";
 

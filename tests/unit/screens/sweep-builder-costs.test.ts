@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { builderPathOf, builderToRequest, defaultBuilderValues } from "@/components/sweep-builder/builder-model";
-import { basisToForm, formToBody } from "@/components/costs/cost-basis-form-model";
+import { builderPathOf, builderToRequest, defaultBuilderValues } from "@/components/sweep-builder/builder-form-state";
+import { basisToForm, formToBody } from "@/components/costs/cost-basis-form-state";
 import { defaultCostBasis } from "@/lib/costs/cost-basis";
 
 const VERSION = "00000000-0000-4000-8000-000000000001";

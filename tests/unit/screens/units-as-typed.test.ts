@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { defaultKineticsValues, formToSpec, specToForm } from "@/components/kinetics/form-model";
+import { defaultKineticsValues, formToSpec, specToForm } from "@/components/kinetics/kinetics-form-state";
 import { kineticsSpecSchema, type KineticsSpec } from "@/lib/schemas/sweeps";
 import { echoInEngineUnits, readTyped, typedText } from "@/lib/units/display";
 import { typedUnits } from "@/lib/units/typed-units";

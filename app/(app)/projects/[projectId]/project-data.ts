@@ -5,7 +5,7 @@ import { users } from "@/db/schema";
 import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
 import { requirePageActor } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import { getProjectById } from "@/lib/services/projects";
 
 /** For server pages under a project: the actor and the project, or the 404 page. */

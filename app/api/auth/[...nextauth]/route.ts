@@ -3,7 +3,7 @@ import { handlers } from "@/lib/auth/config";
 import { getThrottleState, throttleMessage } from "@/lib/auth/throttle";
 import { AppError, validationError } from "@/lib/errors";
 import { toResponse } from "@/lib/http";
-import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/foundation";
+import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/accounts";
 
 export const GET = handlers.GET;
 

@@ -1,6 +1,6 @@
 import { getDb } from "@/db/client";
 import { json, readJson, route } from "@/lib/http";
-import { invitationAcceptSchema } from "@/lib/schemas/foundation";
+import { invitationAcceptSchema } from "@/lib/schemas/accounts";
 import { acceptInvitation } from "@/lib/services/members";
 
 /** Public: the one-time token in the body is the credential. */

@@ -5,7 +5,7 @@ import { requireActor, TEAM_COOKIE } from "@/lib/auth/session";
 import { listTeamsOfUser } from "@/lib/authz/actor";
 import { notFound } from "@/lib/errors";
 import { json, readJson, route } from "@/lib/http";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 
 const switchSchema = z.object({ teamId: uuidSchema }).strict();
 

@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { json, readJson, route, uuidParam } from "@/lib/http";
-import { projectUpdateSchema } from "@/lib/schemas/foundation";
+import { projectUpdateSchema } from "@/lib/schemas/projects";
 import { getProjectById, updateProject } from "@/lib/services/projects";
 
 type Ctx = { params: Promise<{ projectId: string }> };

@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { json, readJson, route } from "@/lib/http";
-import { invitationCreateSchema } from "@/lib/schemas/foundation";
+import { invitationCreateSchema } from "@/lib/schemas/accounts";
 import { createInvitation, listOpenInvitations } from "@/lib/services/members";
 
 export const GET = route(async () => {

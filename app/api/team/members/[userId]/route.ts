@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { json, readJson, route, uuidParam } from "@/lib/http";
-import { memberUpdateSchema } from "@/lib/schemas/foundation";
+import { memberUpdateSchema } from "@/lib/schemas/accounts";
 import { removeMember, updateMemberRole } from "@/lib/services/members";
 
 type Ctx = { params: Promise<{ userId: string }> };

@@ -6,7 +6,7 @@ import { FormMessage } from "@/components/ui/field";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
 import type { StoredRateRow } from "@/lib/datasets/table-law";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import { getDataset, getDatasetVersion, listDatasetSources } from "@/lib/services/datasets";
 import { listKineticsModels } from "@/lib/services/kinetics";
 import { loadProjectPage, orNotFound } from "../../project-data";

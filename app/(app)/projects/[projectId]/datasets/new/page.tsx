@@ -4,7 +4,7 @@ import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
 import { datasetMappingSchema, type DatasetMapping } from "@/lib/schemas/datasets";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import { getDataset, getDatasetVersion } from "@/lib/services/datasets";
 import { loadProjectPage, orNotFound } from "../../project-data";
 

@@ -1,14 +1,14 @@
 import Link from "next/link";
 import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { notFound } from "next/navigation";
-import { specToForm } from "@/components/kinetics/form-model";
+import { specToForm } from "@/components/kinetics/kinetics-form-state";
 import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
 import { normaliseKineticsSpec } from "@/components/kinetics/normalise-spec";
 import { loadProjectPage, orNotFound } from "../../project-data";
 import { FormMessage } from "@/components/ui/field";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { getKineticsModel } from "@/lib/services/kinetics";
 import { FitSourceLine } from "@/components/fitting/fit-source-line";

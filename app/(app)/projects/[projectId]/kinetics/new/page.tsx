@@ -1,5 +1,5 @@
 import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
-import { defaultKineticsValues } from "@/components/kinetics/form-model";
+import { defaultKineticsValues } from "@/components/kinetics/kinetics-form-state";
 import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
 import { loadProjectPage } from "../../project-data";
 import { can } from "@/lib/authz/policy";

@@ -5,7 +5,7 @@ import { getDb } from "@/db/client";
 import { requirePageActor } from "@/lib/auth/session";
 import { can } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import { getProjectById } from "@/lib/services/projects";
 import { sweepTypedUnits } from "@/lib/services/sweeps";
 

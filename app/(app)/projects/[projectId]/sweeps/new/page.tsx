@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
-import { defaultBuilderValues } from "@/components/sweep-builder/builder-model";
+import { defaultBuilderValues } from "@/components/sweep-builder/builder-form-state";
 import { SweepBuilder } from "@/components/sweep-builder/sweep-builder";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";

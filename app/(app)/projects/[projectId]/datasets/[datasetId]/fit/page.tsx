@@ -3,7 +3,7 @@ import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { FitWorkbench } from "@/components/fitting/fit-workbench";
 import { getDb } from "@/db/client";
 import { can } from "@/lib/authz/policy";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import { getDatasetVersionForFit } from "@/lib/services/fits";
 import { listKineticsModels } from "@/lib/services/kinetics";
 import { loadProjectPage, orNotFound } from "../../../project-data";

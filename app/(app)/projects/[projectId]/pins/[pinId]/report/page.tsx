@@ -5,7 +5,7 @@ import { DesignReportView } from "@/components/reports/design-report-view";
 import { getDb } from "@/db/client";
 import { getDesignReport } from "@/lib/reports/design-report";
 import { getDisplayPreference } from "@/lib/services/display-units";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 import { loadProjectPage, orNotFound } from "../../../project-data";
 import "./report-print.css";
 

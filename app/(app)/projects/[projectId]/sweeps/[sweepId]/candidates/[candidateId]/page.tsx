@@ -6,7 +6,7 @@ import { getDb } from "@/db/client";
 import { sweepTypedUnits } from "@/lib/services/sweeps";
 import { requirePageActor } from "@/lib/auth/session";
 import { can } from "@/lib/authz/policy";
-import { uuidSchema } from "@/lib/schemas/foundation";
+import { uuidSchema } from "@/lib/schemas/ids";
 
 export const dynamic = "force-dynamic";
 

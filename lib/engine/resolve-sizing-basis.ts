@@ -1,13 +1,13 @@
 import { stoichiometricLimit } from "./concentrations";
 import { ensure } from "./errors";
-import type { ReactorModel } from "./model";
+import type { SizingBasis } from "./sizing-basis";
 import { resolveRate } from "./rate-law";
 import type { FeedSpec, ReactionSpec } from "./types";
 import { DIM, toSI, toTemperatureDifference } from "./units";
 
-/** The resolved model and facts the feasibility checks use. */
+/** The resolved basis and facts the feasibility checks use. */
 export interface ResolvedProblem {
-  readonly model: ReactorModel;
+  readonly basis: SizingBasis;
   /** Conversion range where the rate is defined (a table's range, else [0, 1]). */
   readonly rateRange: readonly [number, number];
 }
@@ -30,14 +30,14 @@ function resolveThermal(reaction: ReactionSpec, t0: number) {
   return { rise, interstage, maxTemperature };
 }
 
-/** Resolves units, defaults and ranges of the feed and reaction into a ReactorModel. */
-export function resolveModel(feed: FeedSpec, reaction: ReactionSpec): ResolvedProblem {
+/** Resolves units, defaults and ranges of the feed and reaction into a SizingBasis. */
+export function resolveSizingBasis(feed: FeedSpec, reaction: ReactionSpec): ResolvedProblem {
   const fa0 = positiveSI(feed.flowA, DIM.molarFlow, "feed.flowA", "feed rate of A");
   const ca0 = positiveSI(feed.concA, DIM.concentration, "feed.concA", "feed concentration of A");
   const t0 = positiveSI(feed.temperature ?? 298.15, DIM.temperature, "feed.temperature", "feed temperature");
   const resolved = resolveRate(reaction, feed, ca0, t0);
   const thermal = resolveThermal(reaction, t0);
-  const model: ReactorModel = {
+  const basis: SizingBasis = {
     fa0,
     ca0,
     v0: fa0 / ca0,
@@ -49,5 +49,5 @@ export function resolveModel(feed: FeedSpec, reaction: ReactionSpec): ResolvedPr
     maxConversion: stoichiometricLimit(resolved.basis.species),
     upper: Math.min(stoichiometricLimit(resolved.basis.species), resolved.range[1]),
   };
-  return { model, rateRange: resolved.range };
+  return { basis, rateRange: resolved.range };
 }

@@ -3,9 +3,9 @@ export type RateFunction = (x: number, temperature: number) => number;
 
 /**
  * The resolved, validated problem in SI numbers: everything a stage calculation needs.
- * Internal to the engine; built by resolveModel from a spec.
+ * Internal to the engine; built by resolveSizingBasis from a spec.
  */
-export interface ReactorModel {
+export interface SizingBasis {
   /** FA0, mol/s. */
   readonly fa0: number;
   /** CA0, mol/m3. */
@@ -33,18 +33,18 @@ export interface ReactorModel {
 }
 
 /** Inlet temperature of a stage starting at conversion a. */
-export function inletTemperature(model: ReactorModel, first: boolean, a: number): number {
-  if (first) return model.t0;
-  if (model.interstage !== null) return model.interstage;
-  return model.t0 + model.rise * a;
+export function inletTemperature(basis: SizingBasis, first: boolean, a: number): number {
+  if (first) return basis.t0;
+  if (basis.interstage !== null) return basis.interstage;
+  return basis.t0 + basis.rise * a;
 }
 
 /** Temperature at conversion x inside a stage that starts at a. */
-export function stageTemperature(model: ReactorModel, first: boolean, a: number, x: number): number {
-  return inletTemperature(model, first, a) + model.rise * (x - a);
+export function stageTemperature(basis: SizingBasis, first: boolean, a: number, x: number): number {
+  return inletTemperature(basis, first, a) + basis.rise * (x - a);
 }
 
 /** True when a stage's temperature path does not depend on where it starts (no interstage reset). */
-export function sharedPath(model: ReactorModel): boolean {
-  return model.interstage === null || model.rise === 0 && model.interstage === model.t0;
+export function sharedPath(basis: SizingBasis): boolean {
+  return basis.interstage === null || basis.rise === 0 && basis.interstage === basis.t0;
 }

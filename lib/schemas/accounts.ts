@@ -1,8 +1,8 @@
 import { z } from "zod";
 import { ROLES } from "@/lib/authz/policy";
-import { multilineText, text } from "./text";
+import { text } from "./text";
 
-/** Shared by the server (route handlers, actions) and the client forms. */
+/** Sign-in, invitations and membership: shared by the server (route handlers, actions) and the client forms. */
 export const emailSchema = z
   .string({ error: "E-mail is required" })
   .trim()
@@ -22,24 +22,6 @@ export const newPasswordSchema = z
   .min(10, "Use at least 10 characters")
   .max(200, "Use at most 200 characters");
 
-const projectName = text({ error: "Name is required" }).trim().min(2, "Use at least 2 characters").max(120, "Use at most 120 characters");
-const projectDescription = multilineText({ error: "Purpose must be text" }).trim().max(2000, "Use at most 2000 characters");
-
-export const projectCreateSchema = z.object({ name: projectName, description: projectDescription.default("") });
-export type ProjectCreate = z.infer<typeof projectCreateSchema>;
-
-export const projectUpdateSchema = z
-  .object({
-    name: projectName.optional(),
-    description: projectDescription.optional(),
-    archived: z.boolean({ error: "Choose archived or not" }).optional(),
-  })
-  .strict()
-  .refine((v) => v.name !== undefined || v.description !== undefined || v.archived !== undefined, {
-    message: "Change the name, the purpose or whether the project is archived",
-  });
-export type ProjectUpdate = z.infer<typeof projectUpdateSchema>;
-
 export const roleSchema = z.enum(ROLES, { error: `Role must be one of ${ROLES.join(", ")}` });
 
 export const invitationCreateSchema = z.object({ email: emailSchema, role: roleSchema });
@@ -53,5 +35,3 @@ export const invitationAcceptSchema = z.object({
   password: newPasswordSchema,
 });
 export type InvitationAccept = z.infer<typeof invitationAcceptSchema>;
-
-export const uuidSchema = z.uuid({ error: "Not a valid id" });

@@ -1,7 +1,7 @@
 import { ensure } from "./errors";
-import { stageTemperature, type ReactorModel } from "./model";
+import { stageTemperature, type SizingBasis } from "./sizing-basis";
 import { integrate } from "./quadrature";
-import { resolveModel } from "./resolve-model";
+import { resolveSizingBasis } from "./resolve-sizing-basis";
 import { brentRoot } from "./root-finding";
 import { levenspielHeight, temperatureFeasible } from "./stages";
 import type { RatingSpec, ReactionSpec } from "./types";
@@ -24,12 +24,12 @@ function monotoneIsothermal(reaction: ReactionSpec): boolean {
 }
 
 /** reachLimit, skipping its scan where the rate cannot dip (the scan could only confirm the top). */
-function leanReachLimit(model: ReactorModel, first: boolean, a: number, monotone: boolean): number {
+function leanReachLimit(basis: SizingBasis, first: boolean, a: number, monotone: boolean): number {
   if (monotone) {
-    const top = model.upper * (1 - 1e-12);
-    if (temperatureFeasible(model, first, a, top) && model.rate(top, stageTemperature(model, first, a, top)) > 0) return top;
+    const top = basis.upper * (1 - 1e-12);
+    if (temperatureFeasible(basis, first, a, top) && basis.rate(top, stageTemperature(basis, first, a, top)) > 0) return top;
   }
-  return scannedReachLimit(model, first, a);
+  return scannedReachLimit(basis, first, a);
 }
 
 /**
@@ -43,10 +43,10 @@ const BRACKET = 1e-13;
  * plus the integral over the step just taken, so no iterate integrates from the inlet again and the
  * volume to the reach limit (a near-singular integral) is never needed.
  */
-function leanPfrOutlet(model: ReactorModel, first: boolean, a: number, volume: number, monotone: boolean): number {
+function leanPfrOutlet(basis: SizingBasis, first: boolean, a: number, volume: number, monotone: boolean): number {
   if (volume <= 0) return a;
-  const hi = leanReachLimit(model, first, a, monotone);
-  const height = (x: number): number => levenspielHeight(model, first, a, x);
+  const hi = leanReachLimit(basis, first, a, monotone);
+  const height = (x: number): number => levenspielHeight(basis, first, a, x);
   let lo = a;
   let up = hi;
   let x = a;
@@ -82,17 +82,17 @@ function leanPfrOutlet(model: ReactorModel, first: boolean, a: number, volume: n
  * Lowest CSTR steady state above the inlet, as cstrSteadyStates()[0]: the same bracket scan, stopped at
  * the first sign change; one Brent solve over the whole range when the rate cannot rise with conversion.
  */
-function leanCstrOutlet(model: ReactorModel, first: boolean, a: number, volume: number, monotone: boolean): number {
+function leanCstrOutlet(basis: SizingBasis, first: boolean, a: number, volume: number, monotone: boolean): number {
   if (volume <= 0) return a;
-  const hi = leanReachLimit(model, first, a, monotone);
-  const f = (x: number): number => (x - a) * model.fa0 - volume * model.rate(x, stageTemperature(model, first, a, x));
+  const hi = leanReachLimit(basis, first, a, monotone);
+  const f = (x: number): number => (x - a) * basis.fa0 - volume * basis.rate(x, stageTemperature(basis, first, a, x));
   if (monotone) {
     const fhi = f(hi);
     if (fhi === 0) return hi;
     const x = fhi > 0 ? brentRoot(f, a, hi) : hi;
     return x > a ? x : hi;
   }
-  return firstRootOnGrid(f, a, hi, model.rise === 0 ? 200 : 2000) ?? hi;
+  return firstRootOnGrid(f, a, hi, basis.rise === 0 ? 200 : 2000) ?? hi;
 }
 
 const GROUP = 8;
@@ -156,10 +156,10 @@ function firstRootOnGrid(f: (x: number) => number, a: number, hi: number, n: num
  * reachLimit's answer (the first of its 256 grid points where the rate is not positive or the
  * temperature leaves its limits, then bisection), found with the grouped scan.
  */
-function scannedReachLimit(model: ReactorModel, first: boolean, a: number): number {
-  const top = model.upper * (1 - 1e-12);
+function scannedReachLimit(basis: SizingBasis, first: boolean, a: number): number {
+  const top = basis.upper * (1 - 1e-12);
   const at = (i: number): number => a + ((top - a) * i) / 256;
-  const okValue = (x: number): number => (temperatureFeasible(model, first, a, x) ? model.rate(x, stageTemperature(model, first, a, x)) : Number.NaN);
+  const okValue = (x: number): number => (temperatureFeasible(basis, first, a, x) ? basis.rate(x, stageTemperature(basis, first, a, x)) : Number.NaN);
   const fails = (v: number): boolean => !(v > 0);
   const bad = groupedScan(256, (i) => (i === 0 ? okValue(a) : okValue(at(i))), (_, f1) => fails(f1), (i0, i1) => {
     for (let i = Math.max(1, i0 + 1); i <= i1; i++) if (fails(okValue(at(i)))) return i;
@@ -182,14 +182,14 @@ function scannedReachLimit(model: ReactorModel, first: boolean, a: number): numb
  * @throws EngineError for an invalid spec, as rateTrain.
  */
 export function rateTrainOutlet(spec: RatingSpec): number {
-  const { model } = resolveModel(spec.feed, spec.reaction);
+  const { basis } = resolveSizingBasis(spec.feed, spec.reaction);
   ensure(spec.stages.length >= 1 && spec.stages.length <= 8, "give 1..8 stages", "stages");
   const monotone = monotoneIsothermal(spec.reaction);
   let a = 0;
   spec.stages.forEach((s, k) => {
     const volume = typeof s.volume === "number" ? s.volume : Number.NaN;
     ensure(Number.isFinite(volume) && volume >= 0, "a stage volume must be a number >= 0 (normalise the spec first)", `stages.${k}.volume`);
-    a = s.type === "CSTR" ? leanCstrOutlet(model, k === 0, a, volume, monotone) : leanPfrOutlet(model, k === 0, a, volume, monotone);
+    a = s.type === "CSTR" ? leanCstrOutlet(basis, k === 0, a, volume, monotone) : leanPfrOutlet(basis, k === 0, a, volume, monotone);
   });
   return a;
 }
