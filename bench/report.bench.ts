@@ -4,7 +4,7 @@
  * is built in memory exactly as db/seed.ts builds it, so no database is needed. Prints figures.
  */
 import { writeFileSync } from "node:fs";
-import type { PinnedDesign } from "../db/schema-sweeps";
+import type { PinnedDesign } from "../db/schema";
 import { DEMO_KINETICS } from "../db/seed";
 import { designTrains, type DesignSpec } from "../lib/engine";
 import { buildDesignReport, type DesignReport } from "../lib/reports/design-report";

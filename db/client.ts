@@ -1,10 +1,6 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import * as foundation from "./schema";
-import * as sweepsSchema from "./schema-sweeps";
-import * as designBasisSchema from "./schema-design-basis";
-
-const schema = { ...foundation, ...sweepsSchema, ...designBasisSchema };
+import * as schema from "./schema";
 import { getEnv } from "@/lib/env";
 
 export type Database = NodePgDatabase<typeof schema>;

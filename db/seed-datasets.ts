@@ -1,7 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "./client";
-import type { projects } from "./schema";
-import { rateDatasets, rateDatasetVersions } from "./schema-design-basis";
+import { rateDatasets, rateDatasetVersions, type projects } from "./schema";
 
 /*
  * Demo rate datasets of "Ester line 3 revamp". INVENTED demo data, not measurements: the

@@ -1,7 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "./client";
-import { projects, teams, users } from "./schema";
-import { inventoryVessels, projectCostSettings } from "./schema-design-basis";
+import { inventoryVessels, projectCostSettings, projects, teams, users } from "./schema";
 import type { CostBasis } from "@/lib/schemas/costs";
 
 /** Idle vessels of Brightwater's plant (invented demo data; volumes in m3). */

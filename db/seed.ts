@@ -1,10 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import { fileURLToPath } from "node:url";
 import type { Database, Executor } from "./client";
-import { memberships, projects, teams, users, type Role } from "./schema";
+import { candidates, kineticsModels, kineticsVersions, memberships, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps, teams, users, type Role } from "./schema";
 import { seedDemoDatasets } from "./seed-datasets";
-import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, scenarios, sweeps } from "./schema-sweeps";
-import { robustnessRuns } from "./schema-design-basis";
 import { designTrains, type DesignSpec } from "@/lib/engine";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { rateRobustness, trainSpec } from "@/lib/robustness/train";

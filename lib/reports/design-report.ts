@@ -6,9 +6,7 @@
 import { and, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { CAUTION_TEXTS, thermalWarnings } from "@/components/cautions/cautions";
 import type { Database } from "@/db/client";
-import { projects, users } from "@/db/schema";
-import { inventoryVessels, kineticsSources, projectCostSettings, rateDatasets, rateDatasetVersions, robustnessRuns } from "@/db/schema-design-basis";
-import { candidates, kineticsModels, kineticsVersions, type PinnedDesign } from "@/db/schema-sweeps";
+import { candidates, inventoryVessels, kineticsModels, kineticsSources, kineticsVersions, projectCostSettings, projects, rateDatasets, rateDatasetVersions, robustnessRuns, users, type PinnedDesign } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
 import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";

@@ -1,6 +1,6 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { robustnessRuns } from "@/db/schema-design-basis";
+import { robustnessRuns } from "@/db/schema";
 import type { RatingSpec } from "@/lib/engine";
 import type { RobustnessPayload } from "@/lib/jobs/queues";
 import type { UncertainInput } from "@/lib/schemas/robustness";

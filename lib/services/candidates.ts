@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, like, sql, type SQL } from "drizzle-orm";
 import { EMPTY_STAGE_STEP } from "@/lib/engine";
 import type { Database } from "@/db/client";
-import { candidates, scenarios, sweeps } from "@/db/schema-sweeps";
+import { candidates, scenarios, sweeps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";

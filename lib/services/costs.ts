@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { projectCostSettings } from "@/db/schema-design-basis";
+import { projectCostSettings } from "@/db/schema";
 import { assertCan, can, type Actor } from "@/lib/authz/policy";
 import { costObjectiveOf, defaultCostBasis, standardSizesOf } from "@/lib/costs/cost-basis";
 import { AppError } from "@/lib/errors";

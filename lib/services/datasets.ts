@@ -1,7 +1,6 @@
 import { and, desc, eq, getTableColumns, max, sql } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
-import { kineticsSources, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
-import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
+import { kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { parseUpload, storedRow, type Upload } from "@/lib/datasets/parse-upload";
 import type { ParsedTable, RowProblem } from "@/lib/datasets/rate-table";

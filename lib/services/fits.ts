@@ -1,7 +1,6 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
-import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
-import { kineticsSources, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
+import { kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { AIC_CRITERION, dataRange, fitSummary, MissingFeedConcentration, preparePoints, toEngineLaw, tryFit, type DatasetRow, type PreparedPoints } from "@/lib/fitting/from-dataset";

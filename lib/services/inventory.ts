@@ -1,6 +1,6 @@
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { inventoryVessels, type InventoryVesselRow } from "@/db/schema-design-basis";
+import { inventoryVessels, type InventoryVesselRow } from "@/db/schema";
 import { assertCan, can, type Actor } from "@/lib/authz/policy";
 import { parseInventoryFile, type ParsedInventory } from "@/lib/costs/inventory-file";
 import { AppError, notFound } from "@/lib/errors";

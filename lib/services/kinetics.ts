@@ -1,8 +1,6 @@
 import { and, desc, eq, max } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
-import { projects } from "@/db/schema";
-import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
-import { kineticsSources } from "@/db/schema-design-basis";
+import { kineticsModels, kineticsSources, kineticsVersions, projects } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";

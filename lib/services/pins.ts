@@ -1,7 +1,6 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { memberships, users } from "@/db/schema";
-import { candidates, pinnedDesigns, scenarios, sweeps, type PinnedDesign } from "@/db/schema-sweeps";
+import { candidates, memberships, pinnedDesigns, scenarios, sweeps, users, type PinnedDesign } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";

@@ -1,6 +1,6 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { inventoryVessels } from "@/db/schema-design-basis";
+import { inventoryVessels } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { EngineError, rateTrain, type RatingSpec, type StageType } from "@/lib/engine";
 import { AppError } from "@/lib/errors";

@@ -1,7 +1,6 @@
 import { and, asc, eq, ne } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { projects, users } from "@/db/schema";
-import { pinnedDesigns, sweeps } from "@/db/schema-sweeps";
+import { pinnedDesigns, projects, sweeps, users } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 
 export interface ReviewItem {

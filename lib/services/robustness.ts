@@ -1,7 +1,6 @@
 import { and, desc, eq } from "drizzle-orm";
 import { type Database, withTransaction } from "@/db/client";
-import { robustnessRuns, type RobustnessRun } from "@/db/schema-design-basis";
-import { candidates, scenarios, sweeps } from "@/db/schema-sweeps";
+import { candidates, robustnessRuns, scenarios, sweeps, type RobustnessRun } from "@/db/schema";
 import { EngineError, type DesignSpec, type RatingSpec } from "@/lib/engine";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";

@@ -1,6 +1,6 @@
 import { and, asc, eq } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { inventoryVessels } from "@/db/schema-design-basis";
+import { inventoryVessels } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
 import type { SweepCosting } from "@/lib/schemas/costs";

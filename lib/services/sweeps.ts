@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { type Database, withTransaction } from "@/db/client";
-import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema-sweeps";
+import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema";
 import { designTrains, EngineError, type DesignSpec } from "@/lib/engine";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";

@@ -1,8 +1,7 @@
 import { createHash, randomBytes } from "node:crypto";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { memberships, teams, users } from "@/db/schema";
-import { apiTokens } from "@/db/schema-sweeps";
+import { apiTokens, memberships, teams, users } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import { recordAudit } from "./audit";

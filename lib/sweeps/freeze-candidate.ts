@@ -1,4 +1,4 @@
-import type { Candidate, Scenario, Sweep } from "@/db/schema-sweeps";
+import type { Candidate, Scenario, Sweep } from "@/db/schema";
 
 /** The frozen copy of a candidate that a pinned design keeps: totals, stages with plot data, its scenario and sweep. */
 export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" | "overrides" | "reference">, sweep: Pick<Sweep, "id" | "name">) {

@@ -1,7 +1,6 @@
 import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { users } from "@/db/schema";
-import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema-sweeps";
+import { candidates, scenarios, sweeps, users, type Sweep } from "@/db/schema";
 import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
 import type { SweepChunkPayload } from "@/lib/jobs/queues";
 import { appLink, sendMail } from "@/lib/mail";

@@ -1,8 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import { projects, users } from "../../db/schema";
-import { rateDatasets, rateDatasetVersions } from "../../db/schema-design-basis";
+import { projects, rateDatasets, rateDatasetVersions, users } from "../../db/schema";
 
 /**
  * Writes a dataset and its version 1 straight to the e2e database (the upload is another

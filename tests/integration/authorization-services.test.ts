@@ -1,7 +1,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemoData } from "@/db/seed";
-import { projects, users } from "@/db/schema";
+import { inventoryVessels, kineticsModels, kineticsVersions, pinnedDesigns, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
 import { loadActor } from "@/lib/authz/actor";
 import { POLICY, type Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
@@ -9,9 +9,7 @@ import { listAuditEntries } from "@/lib/services/audit";
 import { addDatasetVersion, createDataset, createTableKinetics, getDataset as getDatasetService, getDatasetVersion, listDatasets as listDatasetsService, previewDataset } from "@/lib/services/datasets";
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
-import { inventoryVessels, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
-import { kineticsModels, kineticsVersions, pinnedDesigns } from "@/db/schema-sweeps";
 import { getDesignReport } from "@/lib/reports/design-report";
 import { exportCandidates } from "@/lib/services/candidate-export";
 import { DEMO_COST_BASIS } from "@/db/seed-inventory";

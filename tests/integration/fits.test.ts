@@ -1,9 +1,7 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemoData } from "@/db/seed";
-import { auditEntries, projects, users } from "@/db/schema";
-import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
-import { kineticsSources, rateDatasets, rateDatasetVersions } from "@/db/schema-design-basis";
+import { auditEntries, kineticsModels, kineticsSources, kineticsVersions, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
 import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";

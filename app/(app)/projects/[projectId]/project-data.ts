@@ -1,8 +1,7 @@
 import { and, eq, inArray } from "drizzle-orm";
 import { notFound } from "next/navigation";
 import { getDb } from "@/db/client";
-import { users } from "@/db/schema";
-import { kineticsModels, kineticsVersions } from "@/db/schema-sweeps";
+import { kineticsModels, kineticsVersions, users } from "@/db/schema";
 import { requirePageActor } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { uuidSchema } from "@/lib/schemas/ids";

@@ -1,39 +1,13 @@
-import { boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
-import { projects, teams, users } from "./schema";
+import { boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { users } from "./identity";
+import { teams } from "./teams";
+import { projects } from "./projects";
+import { kineticsVersions } from "./kinetics";
+
+/* Optimisation sweeps, their operating scenarios and the ranked candidate trains of each. */
 
 export const sweepStatusEnum = pgEnum("sweep_status", ["queued", "running", "succeeded", "failed", "cancelled"]);
 export const scenarioStatusEnum = pgEnum("scenario_status", ["pending", "succeeded", "failed"]);
-export const reviewStateEnum = pgEnum("review_state", ["proposed", "approved", "rejected", "superseded"]);
-
-/** A named kinetics model of a project; its content lives in numbered, immutable versions. */
-export const kineticsModels = pgTable(
-  "kinetics_models",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
-    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
-    name: text("name").notNull(),
-    createdBy: text("created_by").notNull().references(() => users.id),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-  },
-  (t) => [index("kinetics_models_project_idx").on(t.projectId)],
-);
-
-/** One version of a kinetics model: the feed and reaction part of an engine spec. Never updated. */
-export const kineticsVersions = pgTable(
-  "kinetics_versions",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    modelId: uuid("model_id").notNull().references(() => kineticsModels.id, { onDelete: "cascade" }),
-    version: integer("version").notNull(),
-    /** { feed, reaction } as the engine reads them. */
-    spec: jsonb("spec").$type<Record<string, unknown>>().notNull(),
-    note: text("note").notNull().default(""),
-    createdBy: text("created_by").notNull().references(() => users.id),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-  },
-  (t) => [uniqueIndex("kinetics_versions_model_version_unique").on(t.modelId, t.version)],
-);
 
 export const sweeps = pgTable(
   "sweeps",
@@ -117,54 +91,7 @@ export const candidates = pgTable(
   ],
 );
 
-/** A frozen copy of one candidate, pinned to a project with its spec, under review. */
-export const pinnedDesigns = pgTable(
-  "pinned_designs",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
-    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
-    sweepId: uuid("sweep_id").references(() => sweeps.id, { onDelete: "set null" }),
-    candidateId: uuid("candidate_id"),
-    kineticsVersionId: uuid("kinetics_version_id").notNull().references(() => kineticsVersions.id),
-    /** The candidate as it was ranked (stages, totals, plot data). */
-    candidate: jsonb("candidate").$type<Record<string, unknown>>().notNull(),
-    /** The resolved engine spec of its scenario. */
-    spec: jsonb("spec").$type<Record<string, unknown>>().notNull(),
-    note: text("note").notNull().default(""),
-    state: reviewStateEnum("state").notNull().default("proposed"),
-    pinnedBy: text("pinned_by").notNull().references(() => users.id),
-    pinnedAt: timestamp("pinned_at", { withTimezone: true }).notNull().defaultNow(),
-    reviewerId: text("reviewer_id").references(() => users.id),
-    reviewComment: text("review_comment"),
-    reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
-  },
-  (t) => [index("pinned_designs_project_idx").on(t.projectId, t.pinnedAt)],
-);
-
-/** Personal API tokens: shown once, stored as SHA-256, scoped to the user and one team. */
-export const apiTokens = pgTable(
-  "api_tokens",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    userId: text("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
-    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
-    name: text("name").notNull(),
-    tokenHash: text("token_hash").notNull().unique(),
-    /** First characters of the token, to tell tokens apart in lists. */
-    prefix: text("prefix").notNull(),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-    lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
-    revokedAt: timestamp("revoked_at", { withTimezone: true }),
-  },
-  (t) => [index("api_tokens_user_idx").on(t.userId)],
-);
-
-export type KineticsModel = typeof kineticsModels.$inferSelect;
-export type KineticsVersion = typeof kineticsVersions.$inferSelect;
 export type Sweep = typeof sweeps.$inferSelect;
 export type Scenario = typeof scenarios.$inferSelect;
 export type Candidate = typeof candidates.$inferSelect;
-export type PinnedDesign = typeof pinnedDesigns.$inferSelect;
-export type ApiToken = typeof apiTokens.$inferSelect;
 export type SweepStatus = (typeof sweepStatusEnum.enumValues)[number];
