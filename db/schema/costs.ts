@@ -1,4 +1,4 @@
-import { boolean, doublePrecision, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, doublePrecision, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users } from "./identity";
 import { teams } from "./teams";
 import { projects } from "./projects";
