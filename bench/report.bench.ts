@@ -11,7 +11,7 @@ import { buildDesignReport, type DesignReport } from "../lib/reports/design-repo
 import { renderReportPdf } from "../lib/reports/report-pdf";
 import { freezeCandidate } from "../lib/sweeps/freeze-candidate";
 import { applyOverrides } from "../lib/sweeps/grid";
-import { candidateRows } from "../lib/sweeps/run-chunk";
+import { candidateRows } from "../lib/sweeps/candidate-rows";
 
 function pinOf(spec: Record<string, unknown>): DesignReport {
   const result = designTrains(spec as unknown as DesignSpec);

@@ -3,11 +3,12 @@ import pg from "pg";
 import * as schema from "./schema";
 import { getEnv } from "@/lib/env";
 
-export type Database = NodePgDatabase<typeof schema>;
+/** A Drizzle handle with every table; `$client` is the pool (or client) it runs on. */
+export type Database = NodePgDatabase<typeof schema> & { $client: pg.Pool | pg.PoolClient };
 
 /** A Drizzle handle with every table, over a pool or client the caller owns. */
 export function createDb(client: pg.Pool | pg.PoolClient): Database {
-  return drizzle(client, { schema });
+  return drizzle(client, { schema }) as Database;
 }
 
 // One pool per process; Next's dev server re-evaluates modules, so keep it on globalThis.
@@ -50,11 +51,15 @@ export async function closeDb(): Promise<void> {
 }
 
 /**
- * A transaction on one pooled client, handing out both a Drizzle handle and the raw client
- * (for libraries such as pg-boss that must write inside the same transaction).
+ * A transaction on the connection under the given handle, handing out both a Drizzle handle and
+ * the raw client (for libraries such as pg-boss that must write inside the same transaction).
+ * A handle over a pool lends one of its clients for the transaction; a handle over a single
+ * client runs it on that client, which stays the caller's.
  */
-export async function withTransaction<T>(fn: (tx: Database, client: pg.PoolClient) => Promise<T>, pool: pg.Pool = getPool()): Promise<T> {
-  const client = await pool.connect();
+export async function withTransaction<T>(db: Database, fn: (tx: Database, client: pg.PoolClient) => Promise<T>): Promise<T> {
+  const owner = db.$client;
+  const lent = owner instanceof pg.Pool;
+  const client = lent ? await owner.connect() : owner;
   try {
     await client.query("BEGIN");
     const result = await fn(createDb(client), client);
@@ -64,6 +69,6 @@ export async function withTransaction<T>(fn: (tx: Database, client: pg.PoolClien
     await client.query("ROLLBACK").catch(() => {});
     throw err;
   } finally {
-    client.release();
+    if (lent) client.release();
   }
 }

@@ -7,7 +7,7 @@ import { designTrains, type DesignSpec } from "@/lib/engine";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { rateRobustness, trainSpec } from "@/lib/robustness/train";
 import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
-import { bestObjective, candidateRows } from "@/lib/sweeps/run-chunk";
+import { bestObjective, candidateRows } from "@/lib/sweeps/candidate-rows";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
 import { seedDemoInventory } from "./seed-inventory";

@@ -7,7 +7,7 @@ import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
-import type { KineticsPreview } from "@/lib/sweeps/engine-bridge";
+import type { KineticsPreview } from "@/lib/services/kinetics-checks";
 import { formatNumber, formatQuantity, type VolumeUnit } from "@/lib/units/display";
 
 /** The value, once it has stayed the same for `ms`. */

@@ -1,31 +1,37 @@
 import PgBoss from "pg-boss";
 import type pg from "pg";
-import { getEnv } from "@/lib/env";
+import type { Database } from "@/db/client";
 import { ensureQueues } from "./queues";
 
-const globalForBoss = globalThis as unknown as { seriatimBoss?: Promise<PgBoss> };
+/** One started pg-boss per pool (or client), so a service reaches the queue of the database it was handed. */
+const bosses = new WeakMap<pg.Pool | pg.PoolClient, Promise<PgBoss>>();
 
 /**
- * The app's own pg-boss handle, for sending and cancelling only: no maintenance or
- * scheduling here (the workers do that).
+ * The pg-boss handle over the same pool as the given database handle, for sending and
+ * cancelling only: it opens no connection of its own and runs no maintenance or scheduling
+ * (the workers do that). Starting it installs pg-boss's tables if missing and creates the queues.
  */
-export function getBoss(): Promise<PgBoss> {
-  if (!globalForBoss.seriatimBoss) {
-    const starting = (async () => {
-      const boss = new PgBoss({ connectionString: getEnv().DATABASE_URL, supervise: false, schedule: false, max: 3, application_name: "seriatim-web" });
-      // Logged, never fatal: pg-boss re-makes its connections after a database restart.
+export function queueFor(db: Database): Promise<PgBoss> {
+  const owner = db.$client;
+  let starting = bosses.get(owner);
+  if (!starting) {
+    const executor: PgBoss.Db = { executeSql: (text, values) => owner.query(text, values) };
+    starting = (async () => {
+      const boss = new PgBoss({ db: executor, supervise: false, schedule: false });
+      // Logged, never fatal: a lost connection fails the one request that used it.
       boss.on("error", (err) => console.error("pg-boss (web) error", err.message));
       await boss.start();
       await ensureQueues(boss);
       return boss;
     })();
     // A start that failed (database down) is not kept: the next request tries again.
-    starting.catch(() => {
-      if (globalForBoss.seriatimBoss === starting) globalForBoss.seriatimBoss = undefined;
+    const started = starting;
+    started.catch(() => {
+      if (bosses.get(owner) === started) bosses.delete(owner);
     });
-    globalForBoss.seriatimBoss = starting;
+    bosses.set(owner, started);
   }
-  return globalForBoss.seriatimBoss;
+  return starting;
 }
 
 /** pg-boss's executor over a client inside our transaction, so jobs and rows commit together. */

@@ -3,19 +3,14 @@
  * the JSON export and the CSV export all render. Sections whose tables hold no row say so
  * ("not recorded") rather than disappearing, so a reader sees what was never done.
  */
-import { and, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import { CAUTION_TEXTS, thermalWarnings } from "@/components/cautions/cautions";
-import type { Database } from "@/db/client";
-import { candidates, inventoryVessels, kineticsModels, kineticsSources, kineticsVersions, projectCostSettings, projects, rateDatasets, rateDatasetVersions, robustnessRuns, users, type PinnedDesign } from "@/db/schema";
-import type { Actor } from "@/lib/authz/policy";
+import type { PinnedDesign } from "@/db/schema";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
 import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
 import { PIN_STATE } from "@/lib/glossary";
 import { labelFor } from "@/lib/schemas/field-labels";
-import { getPin } from "@/lib/services/pins";
 import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
 import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display-preference";
-import { getDisplayPreference } from "@/lib/services/display-units";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
 
@@ -344,96 +339,17 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
 }
 
 /**
- * The design report of a pin, read through the pin's own authorisation (getPin: viewers see
- * approved pins only, another team's pin is not found); every other read is scoped to the
- * pin's team and project.
+ * The costing a report shows: the pin's frozen copy wins; pins made before it held costing fall
+ * back to the candidate row.
  */
-export async function getDesignReport(db: Database, actor: Actor, pinId: string, now = new Date()): Promise<DesignReport> {
-  const pin = await getPin(db, actor, pinId);
-  const [project] = await db
-    .select({ id: projects.id, name: projects.name, description: projects.description })
-    .from(projects)
-    .where(and(eq(projects.id, pin.projectId), eq(projects.teamId, actor.teamId)));
-  const [[kinetics], [source], [candidate], [costSettings], [robustness], people] = await Promise.all([
-    db
-      .select({ model: kineticsModels.name, version: kineticsVersions.version, spec: kineticsVersions.spec })
-      .from(kineticsVersions)
-      .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
-      .where(and(eq(kineticsVersions.id, pin.kineticsVersionId), eq(kineticsModels.teamId, actor.teamId))),
-    db
-      .select({
-        kind: kineticsSources.kind,
-        fit: kineticsSources.fit,
-        dataset: rateDatasets.name,
-        datasetVersion: rateDatasetVersions.version,
-        fileName: rateDatasetVersions.fileName,
-        rowCount: rateDatasetVersions.rowCount,
-      })
-      .from(kineticsSources)
-      .innerJoin(rateDatasetVersions, eq(rateDatasetVersions.id, kineticsSources.datasetVersionId))
-      .innerJoin(rateDatasets, eq(rateDatasets.id, rateDatasetVersions.datasetId))
-      .where(and(eq(kineticsSources.kineticsVersionId, pin.kineticsVersionId), eq(rateDatasets.teamId, actor.teamId))),
-    pin.candidateId
-      ? db.select({ installedCost: candidates.installedCost, inventoryPlan: candidates.inventoryPlan }).from(candidates).where(eq(candidates.id, pin.candidateId))
-      : Promise.resolve([]),
-    db
-      .select({ settings: projectCostSettings.settings, updatedAt: projectCostSettings.updatedAt })
-      .from(projectCostSettings)
-      .where(and(eq(projectCostSettings.projectId, pin.projectId), eq(projectCostSettings.teamId, actor.teamId))),
-    db
-      .select({ id: robustnessRuns.id, request: robustnessRuns.request, result: robustnessRuns.result, finishedAt: robustnessRuns.finishedAt })
-      .from(robustnessRuns)
-      // Looked up when the report is built rather than copied at pin time: a run started on the
-      // candidate before (or after) pinning rates the same frozen train and scenario, and pins
-      // made before this lookup existed get their candidate's run too.
-      .where(
-        and(
-          pin.candidateId ? or(eq(robustnessRuns.pinId, pin.id), and(isNull(robustnessRuns.pinId), eq(robustnessRuns.candidateId, pin.candidateId))) : eq(robustnessRuns.pinId, pin.id),
-          eq(robustnessRuns.teamId, actor.teamId),
-          eq(robustnessRuns.status, "succeeded"),
-        ),
-      )
-      // Latest finished first; a run without a finish time (should not happen once succeeded) goes last.
-      .orderBy(sql`${robustnessRuns.finishedAt} desc nulls last`, desc(robustnessRuns.createdAt))
-      .limit(1),
-    userNames(db, [pin.pinnedBy, pin.reviewerId]),
-  ]);
-  // The pin's frozen copy wins; pins made before it held costing fall back to the candidate row.
-  const frozen = pin.candidate as { installedCost?: number | null; inventoryPlan?: Record<string, unknown> | null };
-  const costing =
-    frozen.installedCost != null ? { installedCost: frozen.installedCost ?? null, inventoryPlan: frozen.inventoryPlan ?? null } : candidate ? { installedCost: candidate.installedCost, inventoryPlan: candidate.inventoryPlan ?? null } : null;
+export function reportCosting(pin: PinnedDesign, candidate: { installedCost: number | null; inventoryPlan: unknown } | null): ReportInputs["candidate"] {
+  const frozen = pin.candidate as { installedCost?: number | null; inventoryPlan?: Obj | null };
+  if (frozen.installedCost != null) return { installedCost: frozen.installedCost ?? null, inventoryPlan: frozen.inventoryPlan ?? null };
+  return candidate ? { installedCost: candidate.installedCost, inventoryPlan: (candidate.inventoryPlan as Obj | null) ?? null } : null;
+}
+
+/** The idle vessels a costing's reuse plan assigns, by id, whose tags the report names. */
+export function plannedVesselIds(costing: ReportInputs["candidate"]): string[] {
   const plan = obj(costing?.inventoryPlan);
-  const vesselIds = (Array.isArray(plan.assignments) ? plan.assignments : []).map((a) => str(obj(a).vesselId)).filter((id): id is string => !!id);
-  return buildDesignReport({
-    pin,
-    project: project ?? { id: pin.projectId, name: "project", description: "" },
-    names: people,
-    kinetics: kinetics ?? null,
-    source: source ? { ...source, fit: source.fit ?? null } : null,
-    candidate: costing,
-    costSettings: costSettings ?? null,
-    robustness: robustness?.result ? { id: robustness.id, request: robustness.request, result: robustness.result, finishedAt: robustness.finishedAt } : null,
-    inventoryTags: await inventoryTags(db, actor.teamId, vesselIds),
-    now,
-    preference: await getDisplayPreference(db, actor.userId),
-  });
-}
-
-async function userNames(db: Database, ids: (string | null)[]): Promise<Record<string, string>> {
-  const out: Record<string, string> = {};
-  for (const id of new Set(ids.filter((x): x is string => !!x))) {
-    const [u] = await db.select({ name: users.name, email: users.email }).from(users).where(eq(users.id, id));
-    if (u) out[id] = u.name ?? u.email;
-  }
-  return out;
-}
-
-async function inventoryTags(db: Database, teamId: string, ids: string[]): Promise<Record<string, string>> {
-  const uuids = ids.filter((id) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id));
-  if (!uuids.length) return {};
-  const rows = await db
-    .select({ id: inventoryVessels.id, tag: inventoryVessels.tag })
-    .from(inventoryVessels)
-    .where(and(eq(inventoryVessels.teamId, teamId), inArray(inventoryVessels.id, uuids)));
-  return Object.fromEntries(rows.map((r) => [r.id, r.tag]));
+  return (Array.isArray(plan.assignments) ? plan.assignments : []).map((a) => str(obj(a).vesselId)).filter((id): id is string => !!id);
 }

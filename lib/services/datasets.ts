@@ -1,6 +1,7 @@
 import { and, desc, eq, getTableColumns, max, sql } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
+import { teamKineticsSources } from "@/db/queries/kinetics-sources";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { parseUpload, storedRow, type Upload } from "@/lib/datasets/parse-upload";
 import type { ParsedTable, RowProblem } from "@/lib/datasets/rate-table";
@@ -215,22 +216,17 @@ export async function createTableKinetics(db: Database, actor: Actor, versionId:
 export async function listDatasetSources(db: Database, actor: Actor, datasetId: string) {
   const dataset = await requireTeamDataset(db, actor, datasetId);
   assertCan(actor, "dataset.read", dataset, "dataset");
-  return db
-    .select({
-      kineticsVersionId: kineticsSources.kineticsVersionId,
-      datasetVersionId: kineticsSources.datasetVersionId,
-      datasetVersion: rateDatasetVersions.version,
-      kind: kineticsSources.kind,
-      law: sql<string | null>`${kineticsSources.fit}->>'kind'`,
-      modelId: kineticsModels.id,
-      modelName: kineticsModels.name,
-      kineticsVersion: kineticsVersions.version,
-      createdAt: kineticsVersions.createdAt,
-    })
-    .from(kineticsSources)
-    .innerJoin(rateDatasetVersions, eq(rateDatasetVersions.id, kineticsSources.datasetVersionId))
-    .innerJoin(kineticsVersions, eq(kineticsVersions.id, kineticsSources.kineticsVersionId))
-    .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
-    .where(and(eq(rateDatasetVersions.datasetId, datasetId), eq(kineticsModels.teamId, actor.teamId)))
-    .orderBy(desc(kineticsVersions.createdAt), desc(kineticsVersions.version));
+  const rows = await teamKineticsSources(db, actor.teamId, { datasetId });
+  return rows.map((r) => ({
+    kineticsVersionId: r.kineticsVersionId,
+    datasetVersionId: r.datasetVersionId,
+    datasetVersion: r.datasetVersion,
+    kind: r.kind,
+    // the law a fit chose, as stored with it; a hand-typed source has none
+    law: typeof r.fit?.kind === "string" ? r.fit.kind : null,
+    modelId: r.modelId,
+    modelName: r.modelName,
+    kineticsVersion: r.kineticsVersion,
+    createdAt: r.createdAt,
+  }));
 }

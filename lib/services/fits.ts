@@ -1,12 +1,13 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
+import { teamKineticsSources } from "@/db/queries/kinetics-sources";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { AIC_CRITERION, dataRange, fitSummary, MissingFeedConcentration, preparePoints, toEngineLaw, tryFit, type DatasetRow, type PreparedPoints } from "@/lib/fitting/from-dataset";
 import type { FitRequest, FitResponse, FitSave, LawFitOut } from "@/lib/schemas/fits";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
-import { checkKinetics } from "@/lib/sweeps/engine-bridge";
+import { checkKinetics } from "./kinetics-checks";
 import { addKineticsVersion, createKineticsModel } from "./kinetics";
 
 /** Why a fitted law holds only where it was measured; shown with every fit. */
@@ -113,22 +114,16 @@ export async function saveFitAsKinetics(db: Database, actor: Actor, versionId: s
 export async function listKineticsSources(db: Executor, actor: Actor, kineticsVersionIds: string[]) {
   if (!kineticsVersionIds.length) return [];
   assertCan(actor, "kinetics.read");
-  return db
-    .select({
-      kineticsVersionId: kineticsSources.kineticsVersionId,
-      kind: kineticsSources.kind,
-      fit: kineticsSources.fit,
-      datasetVersionId: kineticsSources.datasetVersionId,
-      datasetId: rateDatasets.id,
-      datasetName: rateDatasets.name,
-      datasetVersion: rateDatasetVersions.version,
-    })
-    .from(kineticsSources)
-    .innerJoin(kineticsVersions, eq(kineticsVersions.id, kineticsSources.kineticsVersionId))
-    .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
-    .innerJoin(rateDatasetVersions, eq(rateDatasetVersions.id, kineticsSources.datasetVersionId))
-    .innerJoin(rateDatasets, eq(rateDatasets.id, rateDatasetVersions.datasetId))
-    .where(and(inArray(kineticsSources.kineticsVersionId, kineticsVersionIds), eq(kineticsModels.teamId, actor.teamId)));
+  const rows = await teamKineticsSources(db, actor.teamId, { kineticsVersionIds });
+  return rows.map((r) => ({
+    kineticsVersionId: r.kineticsVersionId,
+    kind: r.kind,
+    fit: r.fit,
+    datasetVersionId: r.datasetVersionId,
+    datasetId: r.datasetId,
+    datasetName: r.datasetName,
+    datasetVersion: r.datasetVersion,
+  }));
 }
 
 /** A dataset of the actor's team and one of its versions by number (the latest when absent), for the fit screen. */

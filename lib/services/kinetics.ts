@@ -4,7 +4,7 @@ import { kineticsModels, kineticsSources, kineticsVersions, projects } from "@/d
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
-import { checkKinetics } from "@/lib/sweeps/engine-bridge";
+import { checkKinetics } from "./kinetics-checks";
 import { recordAudit } from "./audit";
 
 /** Where a version came from, saved in the same transaction as the version (optional). */

@@ -1,6 +1,7 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { candidates, memberships, pinnedDesigns, scenarios, sweeps, users, type PinnedDesign } from "@/db/schema";
+import { teamCandidateWithScenario } from "@/db/queries/team-candidates";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";
@@ -25,12 +26,7 @@ async function mailQuietly(to: string[], subject: string, text: string) {
  * proposed or approved pins become superseded.
  */
 export async function pinCandidate(db: Database, actor: Actor, candidateId: string, input: { note: string }): Promise<PinnedDesign> {
-  const [row] = await db
-    .select({ candidate: candidates, scenario: scenarios, sweep: sweeps })
-    .from(candidates)
-    .innerJoin(scenarios, eq(scenarios.id, candidates.scenarioId))
-    .innerJoin(sweeps, eq(sweeps.id, candidates.sweepId))
-    .where(and(eq(candidates.id, candidateId), eq(sweeps.teamId, actor.teamId)));
+  const row = await teamCandidateWithScenario(db, actor.teamId, candidateId);
   if (!row) throw notFound("candidate");
   assertCan(actor, "pin.create", { teamId: row.sweep.teamId }, "candidate");
   if (!row.candidate.feasible) throw new AppError("conflict", "An infeasible candidate cannot be pinned", { fields: { candidateId: [row.candidate.reason ?? "infeasible"] } });

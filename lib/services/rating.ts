@@ -7,7 +7,7 @@ import { AppError } from "@/lib/errors";
 import { largestFeed } from "@/lib/rating/largest-feed";
 import type { RateRequest } from "@/lib/schemas/costs";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
-import { toBadRequest } from "@/lib/sweeps/engine-bridge";
+import { toBadRequest } from "./engine-errors";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
 
 const WHY_FEED_LOWERS_CONVERSION =

@@ -2,13 +2,14 @@ import { and, desc, eq } from "drizzle-orm";
 import { type Database, withTransaction } from "@/db/client";
 import { candidates, robustnessRuns, scenarios, sweeps, type RobustnessRun } from "@/db/schema";
 import { EngineError, type DesignSpec, type RatingSpec } from "@/lib/engine";
+import { teamCandidateWithScenario } from "@/db/queries/team-candidates";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
-import { bossDbFor, getBoss } from "@/lib/jobs/boss";
+import { bossDbFor, queueFor } from "@/lib/jobs/boss";
 import { QUEUES, WAKE_CHANNEL, type RobustnessPayload } from "@/lib/jobs/queues";
 import { checkUncertainFields, offeredFields, rateRobustness, trainSpec } from "@/lib/robustness/train";
 import { INLINE_SAMPLES, type RobustnessCreate } from "@/lib/schemas/robustness";
-import { toBadRequest } from "@/lib/sweeps/engine-bridge";
+import { toBadRequest } from "./engine-errors";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
 import { getPin } from "./pins";
@@ -25,18 +26,13 @@ interface Subject {
 }
 
 async function candidateSubject(db: Database, actor: Actor, candidateId: string): Promise<Subject> {
-  const [row] = await db
-    .select({ candidate: candidates, overrides: scenarios.overrides, sweep: { teamId: sweeps.teamId, projectId: sweeps.projectId, baseSpec: sweeps.baseSpec } })
-    .from(candidates)
-    .innerJoin(scenarios, eq(scenarios.id, candidates.scenarioId))
-    .innerJoin(sweeps, eq(sweeps.id, candidates.sweepId))
-    .where(and(eq(candidates.id, candidateId), eq(sweeps.teamId, actor.teamId)));
+  const row = await teamCandidateWithScenario(db, actor.teamId, candidateId);
   if (!row) throw notFound("candidate");
   assertCan(actor, "sweep.read", { teamId: row.sweep.teamId }, "candidate");
   if (!row.candidate.feasible) {
     throw new AppError("conflict", "An infeasible candidate has no train to rate", { fields: { candidateId: [row.candidate.reason ?? "infeasible"] } });
   }
-  const spec = applyOverrides(row.sweep.baseSpec, row.overrides) as unknown as DesignSpec;
+  const spec = applyOverrides(row.sweep.baseSpec, row.scenario.overrides) as unknown as DesignSpec;
   return { teamId: row.sweep.teamId, projectId: row.sweep.projectId, candidateId, pinId: null, train: trainSpec(spec, row.candidate.stages), target: spec.target.conversion };
 }
 
@@ -100,8 +96,8 @@ async function createRun(db: Database, actor: Actor, subject: Subject, input: Ro
     });
     return runView(run);
   }
-  const boss = await getBoss();
-  const run = await withTransaction(async (tx, client) => {
+  const boss = await queueFor(db);
+  const run = await withTransaction(db, async (tx, client) => {
     const [r] = await tx.insert(robustnessRuns).values(values).returning();
     // The job is written by this same transaction: no queued run without its job.
     const jobId = await boss.send(QUEUES.robustness, { runId: r.id } satisfies RobustnessPayload, { db: bossDbFor(client) });

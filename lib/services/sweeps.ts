@@ -5,11 +5,11 @@ import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema";
 import { designTrains, EngineError, type DesignSpec } from "@/lib/engine";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
-import { bossDbFor, getBoss } from "@/lib/jobs/boss";
+import { bossDbFor, queueFor } from "@/lib/jobs/boss";
 import { QUEUES, WAKE_CHANNEL, type SweepChunkPayload } from "@/lib/jobs/queues";
 import { designSpecSchema } from "@/lib/schemas/sweep-spec";
 import type { SweepCreate } from "@/lib/schemas/sweeps";
-import { toBadRequest } from "@/lib/sweeps/engine-bridge";
+import { toBadRequest } from "./engine-errors";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { issueInWords } from "@/lib/schemas/issue-words";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
@@ -80,14 +80,14 @@ interface NewSweep {
   robustness?: SweepRobustness | null;
 }
 
-async function insertSweepWithJobs(s: NewSweep): Promise<Sweep> {
+async function insertSweepWithJobs(db: Database, s: NewSweep): Promise<Sweep> {
   const all = expandGrid(s.grid);
   // Rating every train under uncertainty multiplies a scenario's work by its samples: one scenario
   // per job, and a longer expiry so a slow but live worker is not taken for a dead one.
   const ranges = chunkRanges(all.length, s.robustness ? 1 : chunkSizeFor(all.length));
   const jobs = ranges.map((r) => ({ id: randomUUID(), ...r }));
-  const boss = await getBoss();
-  return withTransaction(async (tx, client) => {
+  const boss = await queueFor(db);
+  return withTransaction(db, async (tx, client) => {
     const [sweep] = await tx
       .insert(sweeps)
       .values({
@@ -151,7 +151,7 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
   checkScenarios(engineSpec, input.grid, expandGrid(input.grid));
   if (input.robustness) checkUncertainFields(trainSpec(engineSpec, []), input.robustness.uncertain, "robustness.uncertain");
   const baseSpec = costing ? { ...engineSpec, costing } : engineSpec;
-  return insertSweepWithJobs({
+  return insertSweepWithJobs(db, {
     actor,
     projectId,
     kineticsVersionId: kv.version.id,
@@ -203,7 +203,7 @@ export async function cancelSweep(db: Database, actor: Actor, sweepId: string) {
     await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "sweep.cancelled", entityType: "project", entityId: s.projectId, details: { sweepId, done: s.done, total: s.total } });
     return updated;
   });
-  const boss = await getBoss();
+  const boss = await queueFor(db);
   if (s.jobIds.length) await boss.cancel(QUEUES.sweepChunk, s.jobIds);
   return sweepView(row);
 }
@@ -211,7 +211,7 @@ export async function cancelSweep(db: Database, actor: Actor, sweepId: string) {
 export async function rerunSweep(db: Database, actor: Actor, sweepId: string) {
   const s = await requireTeamSweep(db, actor, sweepId);
   assertCan(actor, "sweep.create", s, "sweep");
-  const sweep = await insertSweepWithJobs({
+  const sweep = await insertSweepWithJobs(db, {
     actor,
     projectId: s.projectId,
     kineticsVersionId: s.kineticsVersionId,

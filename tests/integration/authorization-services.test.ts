@@ -10,7 +10,7 @@ import { addDatasetVersion, createDataset, createTableKinetics, getDataset as ge
 import { createInvitation, listMembers, listOpenInvitations, revokeInvitation, updateMemberRole } from "@/lib/services/members";
 import { createProject, getProjectById, listProjects, updateProject } from "@/lib/services/projects";
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
-import { getDesignReport } from "@/lib/reports/design-report";
+import { getDesignReport } from "@/lib/services/design-reports";
 import { exportCandidates } from "@/lib/services/candidate-export";
 import { DEMO_COST_BASIS } from "@/db/seed-inventory";
 import { getCostBasis, saveCostBasis } from "@/lib/services/costs";

@@ -1,7 +1,6 @@
 import type { ChildProcess } from "node:child_process";
 import { and, eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import { closeDb } from "@/db/client";
 import { candidates, inventoryVessels, projectCostSettings, projects, sweeps } from "@/db/schema";
 import { seedDemoData } from "@/db/seed";
 import { DEMO_COST_BASIS, DEMO_INVENTORY } from "@/db/seed-inventory";
@@ -10,7 +9,6 @@ import { costObjectiveOf } from "@/lib/costs/cost-basis";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/http";
-import { getBoss } from "@/lib/jobs/boss";
 import { costBasisSchema } from "@/lib/schemas/costs";
 import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
 import { createVessel, deleteVessel, importInventory, listInventory, updateVessel } from "@/lib/services/inventory";
@@ -43,7 +41,6 @@ async function failure(p: Promise<unknown>): Promise<AppError> {
 
 beforeAll(async () => {
   t = await createTestDatabase();
-  process.env.DATABASE_URL = t.url;
   Object.assign(process.env, FAST_RECOVERY_ENV);
   await seedDemoData(t.db);
   const byEmail = (email: string) => actorByEmail(t.db, email);
@@ -68,8 +65,6 @@ afterEach(async () => {
 });
 
 afterAll(async () => {
-  await (await getBoss()).stop({ graceful: false, wait: true });
-  await closeDb();
   await t.drop();
 });
 

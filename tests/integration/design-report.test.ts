@@ -8,7 +8,7 @@ import { seedDemoData } from "@/db/seed";
 import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
-import { getDesignReport } from "@/lib/reports/design-report";
+import { getDesignReport } from "@/lib/services/design-reports";
 import { candidatesCsv, stageTableCsv } from "@/lib/reports/exports";
 import { fmtVolume, reportFileName } from "@/lib/reports/report-format";
 import { renderReportPdf } from "@/lib/reports/report-pdf";

@@ -1,13 +1,11 @@
 import type { ChildProcess } from "node:child_process";
 import { and, eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import { closeDb } from "@/db/client";
 import { seedDemoData } from "@/db/seed";
 import { auditEntries, candidates, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps } from "@/db/schema";
 import type { DesignSpec } from "@/lib/engine";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
-import { getBoss } from "@/lib/jobs/boss";
 import { rateUnderUncertainty } from "@/lib/robustness/monte-carlo";
 import { trainSpec } from "@/lib/robustness/train";
 import { candidateQuerySchema } from "@/lib/schemas/sweeps";
@@ -28,7 +26,6 @@ const workers: ChildProcess[] = [];
 
 beforeAll(async () => {
   t = await createTestDatabase();
-  process.env.DATABASE_URL = t.url;
   Object.assign(process.env, FAST_RECOVERY_ENV);
   await seedDemoData(t.db);
   const byEmail = (email: string) => actorByEmail(t.db, email);
@@ -43,8 +40,6 @@ afterEach(async () => {
 });
 
 afterAll(async () => {
-  await (await getBoss()).stop({ graceful: false, wait: true });
-  await closeDb();
   await t.drop();
 });
 

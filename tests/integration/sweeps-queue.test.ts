@@ -1,12 +1,10 @@
 import type { ChildProcess } from "node:child_process";
 import { and, eq, sql } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import { closeDb } from "@/db/client";
 import { seedDemoData } from "@/db/seed";
 import { candidates, pinnedDesigns, projects, scenarios, sweeps } from "@/db/schema";
 import { designTrains, type DesignSpec } from "@/lib/engine";
 import type { Actor } from "@/lib/authz/policy";
-import { getBoss } from "@/lib/jobs/boss";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { addKineticsVersion, createKineticsModel } from "@/lib/services/kinetics";
 import { cancelSweep, createSweep } from "@/lib/services/sweeps";
@@ -35,8 +33,6 @@ const workers: ChildProcess[] = [];
 
 beforeAll(async () => {
   t = await createTestDatabase();
-  // Services in this process (the API's own code) talk to this database and its queue.
-  process.env.DATABASE_URL = t.url;
   Object.assign(process.env, FAST_RECOVERY_ENV);
   await seedDemoData(t.db);
   const byEmail = (email: string) => actorByEmail(t.db, email);
@@ -54,8 +50,6 @@ afterEach(async () => {
 });
 
 afterAll(async () => {
-  await (await getBoss()).stop({ graceful: false, wait: true });
-  await closeDb();
   await t.drop();
 });
 

@@ -1,7 +1,7 @@
 import type PgBoss from "pg-boss";
 import type { Database } from "@/db/client";
 import { QUEUES, robustnessPayload } from "@/lib/jobs/queues";
-import { markRobustnessFailed, runRobustnessJob } from "@/lib/robustness/run-job";
+import { markRobustnessFailed, runRobustnessJob } from "@/lib/services/robustness-jobs";
 
 /**
  * One Monte Carlo run per job. A run the engine refuses ends failed at once (a retry would refuse it

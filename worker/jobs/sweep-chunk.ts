@@ -1,7 +1,7 @@
 import type PgBoss from "pg-boss";
 import type { Database } from "@/db/client";
 import { QUEUES, sweepChunkPayload } from "@/lib/jobs/queues";
-import { markSweepFailed, runSweepChunk } from "@/lib/sweeps/run-chunk";
+import { markSweepFailed, runSweepChunk } from "@/lib/services/sweep-chunks";
 
 export interface WorkerState {
   stopping: boolean;

@@ -1,5 +1,5 @@
-import { sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
+import { pingDatabase } from "@/lib/services/health";
 
 export const dynamic = "force-dynamic";
 
@@ -13,7 +13,7 @@ export async function GET() {
     timer = setTimeout(() => reject(new Error("database check timed out")), CHECK_MS);
   });
   try {
-    await Promise.race([getDb().execute(sql`select 1`), timeout]);
+    await Promise.race([pingDatabase(getDb()), timeout]);
     return Response.json({ status: "ok", database: "reachable" });
   } catch {
     return Response.json({ status: "degraded", database: "unreachable" }, { status: 503 });

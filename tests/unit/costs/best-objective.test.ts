@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { DesignResult } from "@/lib/engine";
-import { bestObjectiveOf } from "@/lib/sweeps/run-chunk";
+import { bestObjectiveOf } from "@/lib/sweeps/candidate-rows";
 
 // A worked example of our own: three trains costed all new at 1,000 / 1,200 / 3,000, where reusing an
 // idle vessel brings the third to 500. The heat map's best cost must be what rank 1 will cost.

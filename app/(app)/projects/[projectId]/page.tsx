@@ -10,9 +10,10 @@ import { can } from "@/lib/authz/policy";
 import { listAuditEntries } from "@/lib/services/audit";
 import { listDatasets } from "@/lib/services/datasets";
 import { listKineticsModels } from "@/lib/services/kinetics";
+import { pinLabels } from "@/lib/services/pin-labels";
 import { listPins } from "@/lib/services/pins";
 import { listSweeps } from "@/lib/services/sweeps";
-import { kineticsVersionLabels, loadProjectPage, userNames } from "./project-data";
+import { loadProjectPage } from "./project-data";
 
 export const dynamic = "force-dynamic";
 
@@ -31,8 +32,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
     listPins(db, actor, project.id),
   ]);
   const datasets = can(actor, "dataset.read") ? await listDatasets(db, actor, project.id) : null;
-  const names = await userNames(pins.flatMap((p) => [p.pinnedBy, p.reviewerId ?? ""]));
-  const versions = await kineticsVersionLabels(actor.teamId, pins.map((p) => p.kineticsVersionId));
+  const { names, versions } = await pinLabels(db, actor, pins);
   const pinRows: PinRow[] = pins.map((p) => {
     const c = p.candidate as { sequence?: ("CSTR" | "PFR")[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
     const v = versions[p.kineticsVersionId];

@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { route, uuidParam } from "@/lib/http";
-import { getDesignReport } from "@/lib/reports/design-report";
+import { getDesignReport } from "@/lib/services/design-reports";
 import { stageTableCsv } from "@/lib/reports/exports";
 import { reportFileName } from "@/lib/reports/report-format";
 

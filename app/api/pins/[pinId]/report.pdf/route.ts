@@ -1,7 +1,7 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
 import { route, uuidParam } from "@/lib/http";
-import { getDesignReport } from "@/lib/reports/design-report";
+import { getDesignReport } from "@/lib/services/design-reports";
 import { reportFileName, reportUnits } from "@/lib/reports/report-format";
 import { getDisplayPreference } from "@/lib/services/display-units";
 import { renderReportPdf } from "@/lib/reports/report-pdf";

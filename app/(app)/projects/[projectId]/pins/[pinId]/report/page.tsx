@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { ReportActions } from "@/components/reports/report-actions";
 import { DesignReportView } from "@/components/reports/design-report-view";
 import { getDb } from "@/db/client";
-import { getDesignReport } from "@/lib/reports/design-report";
+import { getDesignReport } from "@/lib/services/design-reports";
 import { getDisplayPreference } from "@/lib/services/display-units";
 import { uuidSchema } from "@/lib/schemas/ids";
 import { loadProjectPage, orNotFound } from "../../../project-data";

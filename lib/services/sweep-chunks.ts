@@ -2,12 +2,13 @@ import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { candidates, scenarios, sweeps, users, type Sweep } from "@/db/schema";
 import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
+import { bestObjectiveOf, candidateRows } from "@/lib/sweeps/candidate-rows";
 import type { SweepChunkPayload } from "@/lib/jobs/queues";
 import { appLink, sendMail } from "@/lib/mail";
 import { engineSpecOf, withCosting } from "@/lib/costs/candidate-costing";
 import { probabilitiesMeet } from "@/lib/robustness/sweep-ranking";
 import type { SweepRobustness } from "@/lib/schemas/robustness";
-import { applyOverrides } from "./grid";
+import { applyOverrides } from "@/lib/sweeps/grid";
 
 type Outcome =
   | { scenarioId: string; result: DesignResult; meet: (number | null)[] }
@@ -20,42 +21,6 @@ class SweepNotActive extends Error {
   constructor(readonly status: string) {
     super(`sweep is ${status}`);
   }
-}
-
-export function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
-  const pfr = result.reference.singlePFR;
-  return result.candidates.map((c) => ({
-    sweepId,
-    scenarioId,
-    sequenceKey: c.sequence.join("-"),
-    rank: c.rank,
-    stageCount: c.sequence.length,
-    feasible: c.feasible,
-    totalVolume: c.totalVolume,
-    totalCost: c.totalCost,
-    ratioToPfr: c.totalVolume !== null && pfr ? c.totalVolume / pfr : null,
-    reason: c.reason,
-    stages: c.stages.map(({ levenspiel: _plot, ...stage }) => stage as unknown as Record<string, unknown>),
-    levenspiel: c.stages.map((s) => s.levenspiel),
-  }));
-}
-
-/**
- * The scenario's best objective as ranked: with reuse of idle vessels the cost the user will pay
- * (the least installed cost with reuse), otherwise the engine's best.
- */
-export function bestObjectiveOf(result: DesignResult, rows: { feasible: boolean; installedCost: number | null; inventoryPlan: unknown }[]): number | null {
-  if (result.objective === "cost" && rows.some((r) => r.inventoryPlan)) {
-    const costs = rows.filter((r) => r.feasible && r.installedCost !== null).map((r) => r.installedCost as number);
-    return costs.length ? Math.min(...costs) : null;
-  }
-  return bestObjective(result);
-}
-
-export function bestObjective(result: DesignResult): number | null {
-  const best = result.candidates.find((c) => c.feasible);
-  if (!best) return null;
-  return result.objective === "cost" ? best.totalCost : best.totalVolume;
 }
 
 export interface ChunkReport {

@@ -4,7 +4,7 @@ import { robustnessRuns } from "@/db/schema";
 import type { RatingSpec } from "@/lib/engine";
 import type { RobustnessPayload } from "@/lib/jobs/queues";
 import type { UncertainInput } from "@/lib/schemas/robustness";
-import { rateRobustness } from "./train";
+import { rateRobustness } from "@/lib/robustness/train";
 
 interface StoredRequest {
   uncertain: UncertainInput[];
