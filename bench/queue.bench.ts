@@ -14,7 +14,7 @@ import { eq } from "drizzle-orm";
 import pg from "pg";
 import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
-import { seedDemoData } from "../db/seed";
+import { seedDemoData } from "../lib/demo/seed";
 import { sweeps, users } from "../db/schema";
 import { freePort, startThrowawayCluster, createDatabase } from "../scripts/lib/postgres";
 import { waitForHttp } from "../scripts/lib/processes";

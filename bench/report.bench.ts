@@ -1,11 +1,11 @@
 /**
  * `npm run bench:report`: time to render the design report PDF of the demo pin (median of 15
  * after warm-up), and of an adiabatic three-stage train (adds the temperature profile). The pin
- * is built in memory exactly as db/seed.ts builds it, so no database is needed. Prints figures.
+ * is built in memory exactly as lib/demo/seed.ts builds it, so no database is needed. Prints figures.
  */
 import { writeFileSync } from "node:fs";
 import type { PinnedDesign } from "../db/schema";
-import { DEMO_KINETICS } from "../db/seed";
+import { DEMO_KINETICS } from "../lib/demo/seed";
 import { designTrains, type DesignSpec } from "../lib/engine";
 import { buildDesignReport, type DesignReport } from "../lib/reports/design-report";
 import { renderReportPdf } from "../lib/reports/report-pdf";

@@ -10,7 +10,7 @@ import { fileURLToPath } from "node:url";
 import pg from "pg";
 import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
-import { DEMO_PASSWORD, DEMO_USERS, seedDemoData } from "../db/seed";
+import { DEMO_PASSWORD, DEMO_USERS, seedDemoData } from "../lib/demo/seed";
 import { buildIsStale, runNextBuild } from "./lib/build";
 import { createDatabase, isPortFree, startPersistentCluster, type Cluster } from "./lib/postgres";
 import { SupervisedService, startService, waitForHttp } from "./lib/processes";

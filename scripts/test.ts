@@ -9,7 +9,7 @@ import { fileURLToPath } from "node:url";
 import pg from "pg";
 import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
-import { seedDemoData } from "../db/seed";
+import { seedDemoData } from "../lib/demo/seed";
 import { buildIsStale } from "./lib/build";
 import { createDatabase, ensurePostgresBinaries, freePort, startThrowawayCluster, type Cluster } from "./lib/postgres";
 

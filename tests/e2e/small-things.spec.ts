@@ -88,7 +88,7 @@ test("the inventory title counts idle vessels only (engineer)", async ({ browser
   const { vessels } = (await (await engineer.get("/api/inventory")).json()) as { vessels: { available: boolean }[] };
   const idle = vessels.filter((v) => v.available).length;
   const inUse = vessels.length - idle;
-  // The demo inventory holds a vessel on loan (db/seed-inventory.ts), so the two counts differ.
+  // The demo inventory holds a vessel on loan (lib/demo/inventory.ts), so the two counts differ.
   expect(inUse).toBeGreaterThan(0);
   const ctx = await browser.newContext({ storageState: await engineer.storageState() });
   const page = await ctx.newPage();

@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/db/seed";
+import { seedDemoData } from "@/lib/demo/seed";
 import { inventoryVessels, kineticsModels, kineticsVersions, pinnedDesigns, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
 import { loadActor } from "@/lib/authz/actor";
 import { POLICY, type Actor } from "@/lib/authz/policy";
@@ -12,7 +12,7 @@ import { createProject, getProjectById, listProjects, updateProject } from "@/li
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
 import { getDesignReport } from "@/lib/services/design-reports";
 import { exportCandidates } from "@/lib/services/candidate-export";
-import { DEMO_COST_BASIS } from "@/db/seed-inventory";
+import { DEMO_COST_BASIS } from "@/lib/demo/inventory";
 import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
 import { createVessel, deleteVessel, getVessel, importInventory, listInventory, updateVessel } from "@/lib/services/inventory";
 import { rateFixedTrain } from "@/lib/services/rating";

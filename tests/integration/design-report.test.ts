@@ -4,7 +4,7 @@ import { PDFParse } from "pdf-parse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { CAUTION_TEXTS } from "@/components/cautions/cautions";
 import { candidates, inventoryVessels, kineticsSources, pinnedDesigns, projectCostSettings, projects, rateDatasets, rateDatasetVersions, robustnessRuns, users } from "@/db/schema";
-import { seedDemoData } from "@/db/seed";
+import { seedDemoData } from "@/lib/demo/seed";
 import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";

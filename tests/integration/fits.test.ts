@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/db/seed";
+import { seedDemoData } from "@/lib/demo/seed";
 import { auditEntries, kineticsModels, kineticsSources, kineticsVersions, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
 import { loadActor } from "@/lib/authz/actor";
 import type { Actor } from "@/lib/authz/policy";

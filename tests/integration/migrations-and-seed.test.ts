@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runMigrations } from "@/db/migrate";
-import { DEMO_KINETICS, DEMO_USERS, seedDemoData } from "@/db/seed";
+import { DEMO_KINETICS, DEMO_USERS, seedDemoData } from "@/lib/demo/seed";
 import { checkKinetics } from "@/lib/services/kinetics-checks";
 import { auditEntries } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";

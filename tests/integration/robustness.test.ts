@@ -1,7 +1,7 @@
 import type { ChildProcess } from "node:child_process";
 import { and, eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/db/seed";
+import { seedDemoData } from "@/lib/demo/seed";
 import { auditEntries, candidates, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps } from "@/db/schema";
 import type { DesignSpec } from "@/lib/engine";
 import type { Actor } from "@/lib/authz/policy";

@@ -1,6 +1,6 @@
 import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/db/seed";
+import { seedDemoData } from "@/lib/demo/seed";
 import { auditEntries, signInSessions, users } from "@/db/schema";
 import { endSession, endUserSessions, isSessionInForce, sessionInForce, startSession } from "@/lib/auth/sign-in-sessions";
 import { loadActor } from "@/lib/authz/actor";

@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/db/seed";
+import { seedDemoData } from "@/lib/demo/seed";
 import { memberships, signInAttempts, users } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/password";
 import { getThrottleState, recordSignInAttempt } from "@/lib/auth/throttle";

@@ -3,7 +3,7 @@ import { costObjectiveOf, defaultCostBasis, installedCost, standardSizesOf } fro
 import { withCosting } from "@/lib/costs/candidate-costing";
 import { costBasisSchema } from "@/lib/schemas/costs";
 import { inventoryVesselSchema } from "@/lib/schemas/inventory";
-import { DEMO_COST_BASIS, DEMO_INVENTORY } from "@/db/seed-inventory";
+import { DEMO_COST_BASIS, DEMO_INVENTORY } from "@/lib/demo/inventory";
 
 describe("the default cost basis", () => {
   it("is valid, and every number says where it comes from", () => {

@@ -1,6 +1,6 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
-import { readUpload } from "@/lib/datasets/read-upload";
+import { readUpload } from "@/lib/http/read-upload";
 import { json, route, uuidParam } from "@/lib/http";
 import { datasetCreateFieldsSchema } from "@/lib/schemas/datasets";
 import { createDataset, listDatasets } from "@/lib/services/datasets";

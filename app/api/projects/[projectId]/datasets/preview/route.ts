@@ -1,6 +1,6 @@
 import { getDb } from "@/db/client";
 import { requireActor } from "@/lib/auth/session";
-import { readUpload } from "@/lib/datasets/read-upload";
+import { readUpload } from "@/lib/http/read-upload";
 import { json, route, uuidParam } from "@/lib/http";
 import { datasetPreviewFieldsSchema } from "@/lib/schemas/datasets";
 import { previewDataset } from "@/lib/services/datasets";

@@ -1,6 +1,6 @@
 import { and, eq } from "drizzle-orm";
-import type { Executor } from "./client";
-import { inventoryVessels, projectCostSettings, projects, teams, users } from "./schema";
+import type { Executor } from "@/db/client";
+import { inventoryVessels, projectCostSettings, projects, teams, users } from "@/db/schema";
 import type { CostBasis } from "@/lib/schemas/costs";
 
 /** Idle vessels of Brightwater's plant (invented demo data; volumes in m3). */

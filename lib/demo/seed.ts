@@ -1,8 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import { fileURLToPath } from "node:url";
-import type { Database, Executor } from "./client";
-import { candidates, kineticsModels, kineticsVersions, memberships, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps, teams, users, type Role } from "./schema";
-import { seedDemoDatasets } from "./seed-datasets";
+import type { Database, Executor } from "@/db/client";
+import { candidates, kineticsModels, kineticsVersions, memberships, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps, teams, users, type Role } from "@/db/schema";
+import { seedDemoDatasets } from "./datasets";
 import { designTrains, type DesignSpec } from "@/lib/engine";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { rateRobustness, trainSpec } from "@/lib/robustness/train";
@@ -10,7 +10,7 @@ import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
 import { bestObjective, candidateRows } from "@/lib/sweeps/candidate-rows";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
-import { seedDemoInventory } from "./seed-inventory";
+import { seedDemoInventory } from "./inventory";
 
 /** The demo scenario: an invented fine-chemicals company and a second, unrelated team. */
 export const DEMO_PASSWORD = "seriatim-demo-2026";
@@ -210,7 +210,7 @@ async function seedDemoSweep(tx: Executor, project: typeof projects.$inferSelect
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
-  const { getDb, closeDb } = await import("./client");
+  const { getDb, closeDb } = await import("@/db/client");
   await seedDemoData(getDb());
   await closeDb();
   console.log("demo data seeded");

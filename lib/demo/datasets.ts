@@ -1,6 +1,6 @@
 import { and, eq } from "drizzle-orm";
-import type { Executor } from "./client";
-import { rateDatasets, rateDatasetVersions, type projects } from "./schema";
+import type { Executor } from "@/db/client";
+import { rateDatasets, rateDatasetVersions, type projects } from "@/db/schema";
 
 /*
  * Demo rate datasets of "Ester line 3 revamp". INVENTED demo data, not measurements: the
