@@ -11,6 +11,8 @@ export const QUEUES = {
   sweepChunkDead: "sweep-chunk-dead",
   /** One Monte Carlo rating too large to run inside its request. */
   robustness: "robustness",
+  /** Robustness jobs that failed every retry (or whose worker died on the last one) end here; their run is marked failed. */
+  robustnessDead: "robustness-dead",
 } as const;
 
 /** Postgres NOTIFY channel that wakes idle workers when jobs are queued. */
@@ -41,6 +43,14 @@ export function sweepQueueOptions(): PgBoss.Queue {
   };
 }
 
+/**
+ * 100,000 samples of a slow train take minutes; a dead worker's run is retried once after expiry.
+ * A job that fails its last attempt is copied by pg-boss into the dead-letter queue.
+ */
+export function robustnessQueueOptions(): PgBoss.Queue {
+  return { name: QUEUES.robustness, retryLimit: 1, retryDelay: 1, expireInSeconds: 15 * 60, deadLetter: QUEUES.robustnessDead };
+}
+
 /** Creates every queue (idempotent); both the app and the worker call it on start. */
 export async function ensureQueues(boss: PgBoss): Promise<void> {
   // The web app and each worker create the queues as they start; on a new database two of
@@ -59,6 +69,9 @@ async function createQueues(boss: PgBoss): Promise<void> {
   await boss.createQueue(QUEUES.systemPing);
   await boss.createQueue(QUEUES.sweepChunkDead);
   await boss.createQueue(QUEUES.sweepChunk, sweepQueueOptions());
-  // 100,000 samples of a slow train take minutes; a dead worker's run is retried once after expiry.
-  await boss.createQueue(QUEUES.robustness, { name: QUEUES.robustness, retryLimit: 1, retryDelay: 1, expireInSeconds: 15 * 60 });
+  await boss.createQueue(QUEUES.robustnessDead);
+  await boss.createQueue(QUEUES.robustness, robustnessQueueOptions());
+  // createQueue leaves an existing queue as it is: a database made before the dead-letter queue
+  // existed gets it here.
+  await boss.updateQueue(QUEUES.robustness, robustnessQueueOptions());
 }

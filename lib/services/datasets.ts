@@ -1,6 +1,6 @@
-import { and, desc, eq, getTableColumns, max, sql } from "drizzle-orm";
+import { and, desc, eq, getTableColumns, max } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
-import { kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
+import { rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { teamKineticsSources } from "@/db/queries/kinetics-sources";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { parseUpload, storedRow, type Upload } from "@/lib/datasets/parse-upload";

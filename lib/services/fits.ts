@@ -1,6 +1,6 @@
-import { and, desc, eq, inArray } from "drizzle-orm";
+import { and, desc, eq } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
-import { kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
+import { kineticsModels, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { teamKineticsSources } from "@/db/queries/kinetics-sources";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";

@@ -1,6 +1,6 @@
 import { and, desc, eq, inArray } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { candidates, memberships, pinnedDesigns, scenarios, sweeps, users, type PinnedDesign } from "@/db/schema";
+import { memberships, pinnedDesigns, users, type PinnedDesign } from "@/db/schema";
 import { teamCandidateWithScenario } from "@/db/queries/team-candidates";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";

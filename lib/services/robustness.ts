@@ -1,6 +1,6 @@
 import { and, desc, eq } from "drizzle-orm";
 import { type Database, withTransaction } from "@/db/client";
-import { candidates, robustnessRuns, scenarios, sweeps, type RobustnessRun } from "@/db/schema";
+import { robustnessRuns, type RobustnessRun } from "@/db/schema";
 import { EngineError, type DesignSpec, type RatingSpec } from "@/lib/engine";
 import { teamCandidateWithScenario } from "@/db/queries/team-candidates";
 import { assertCan, type Actor } from "@/lib/authz/policy";

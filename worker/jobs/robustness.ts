@@ -5,9 +5,16 @@ import { markRobustnessFailed, runRobustnessJob } from "@/lib/services/robustnes
 
 /**
  * One Monte Carlo run per job. A run the engine refuses ends failed at once (a retry would refuse it
- * again); a crash is retried by pg-boss and the last attempt marks the run failed.
+ * again); a crash is retried by pg-boss and the last attempt marks the run failed. A job whose last
+ * attempt failed, or expired because its worker died, is copied into the dead-letter queue, whose
+ * handler marks the run failed (a run already finished stays as it is).
  */
 export async function registerRobustness(boss: PgBoss, db: Database, log: (m: string, x?: unknown) => void): Promise<string> {
+  await boss.work(QUEUES.robustnessDead, async ([job]) => {
+    const payload = robustnessPayload.safeParse(job.data);
+    if (payload.success) await markRobustnessFailed(db, payload.data.runId, "The robustness check failed on every attempt; see the worker log");
+    else log(`queue ${QUEUES.robustnessDead} job ${job.id}: invalid payload, nothing to mark failed`);
+  });
   return boss.work(QUEUES.robustness, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
     const parsed = robustnessPayload.safeParse(job.data);
     if (!parsed.success) {

@@ -23,7 +23,10 @@ export async function registerSweepChunk(boss: PgBoss, db: Database, state: Work
     if (workerId) setImmediate(() => boss.notifyWorker(workerId));
     const parsed = sweepChunkPayload.safeParse(job.data);
     if (!parsed.success) {
-      // A retry cannot fix a malformed payload; let it fail straight to the dead letter queue.
+      // A retry cannot fix a malformed payload, but pg-boss still retries every failed job up
+      // to the queue's retryLimit; only when the last attempt fails is the job marked failed
+      // and a copy of its payload sent to the dead-letter queue (whose handler cannot name a
+      // sweep from it either, so nothing else changes).
       log(`job ${job.id}: invalid payload`, parsed.error.issues);
       throw new Error("invalid sweep-chunk payload");
     }
