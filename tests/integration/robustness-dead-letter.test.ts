@@ -65,6 +65,9 @@ describe("the robustness queue's dead-letter queue", () => {
   }, 120_000);
 
   it("marks a queued run failed when its job reaches the dead-letter queue", async () => {
+    // No worker while the run's own job is taken away, or it would rate the run first.
+    if (worker) await stopWorkerProcess(worker, "SIGKILL");
+    worker = undefined;
     const run = await createPinRun(t.db, engineer, pinId, { uncertain: [{ field: "reaction.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 6000, seed: 5 });
     expect(run.status).toBe("queued");
     const boss = await queueFor(t.db);
@@ -72,7 +75,7 @@ describe("the robustness queue's dead-letter queue", () => {
     const [{ jobId }] = await t.db.select({ jobId: robustnessRuns.jobId }).from(robustnessRuns).where(eq(robustnessRuns.id, run.id));
     await boss.cancel(QUEUES.robustness, jobId!);
     await boss.send(QUEUES.robustnessDead, { runId: run.id });
-    worker ??= await startWorkerProcess(t.url);
+    worker = await startWorkerProcess(t.url);
     const failed = await waitFor(async () => {
       const [r] = await t.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, run.id));
       return r.status === "failed" ? r : null;
