@@ -2,6 +2,7 @@ import { and, desc, eq, getTableColumns, max } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { teamKineticsSources } from "@/db/queries/kinetics-sources";
+import { teamDatasetVersion } from "@/db/queries/team-dataset-versions";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { parseUpload, storedRow, type Upload } from "@/lib/datasets/parse-upload";
 import type { ParsedTable, RowProblem } from "@/lib/datasets/rate-table";
@@ -165,11 +166,7 @@ export async function getDataset(db: Database, actor: Actor, datasetId: string) 
 }
 
 async function requireTeamDatasetVersion(db: Executor, actor: Actor, versionId: string) {
-  const [row] = await db
-    .select({ version: rateDatasetVersions, dataset: rateDatasets })
-    .from(rateDatasetVersions)
-    .innerJoin(rateDatasets, eq(rateDatasets.id, rateDatasetVersions.datasetId))
-    .where(and(eq(rateDatasetVersions.id, versionId), eq(rateDatasets.teamId, actor.teamId)));
+  const row = await teamDatasetVersion(db, actor.teamId, versionId);
   if (!row) throw notFound("dataset version");
   return row;
 }
@@ -211,22 +208,11 @@ export async function createTableKinetics(db: Database, actor: Actor, versionId:
   return createKineticsModel(db, actor, dataset.projectId, { name: input.modelName!, spec, note, source });
 }
 
-/** The kinetics versions made from a dataset's versions (for its page). */
 /** The kinetics versions made from a dataset's versions (as a measured table or a fit), newest first. */
 export async function listDatasetSources(db: Database, actor: Actor, datasetId: string) {
   const dataset = await requireTeamDataset(db, actor, datasetId);
   assertCan(actor, "dataset.read", dataset, "dataset");
   const rows = await teamKineticsSources(db, actor.teamId, { datasetId });
-  return rows.map((r) => ({
-    kineticsVersionId: r.kineticsVersionId,
-    datasetVersionId: r.datasetVersionId,
-    datasetVersion: r.datasetVersion,
-    kind: r.kind,
-    // the law a fit chose, as stored with it; a hand-typed source has none
-    law: typeof r.fit?.kind === "string" ? r.fit.kind : null,
-    modelId: r.modelId,
-    modelName: r.modelName,
-    kineticsVersion: r.kineticsVersion,
-    createdAt: r.createdAt,
-  }));
+  // the law a fit chose, as stored with it; a hand-typed source has none
+  return rows.map(({ fit, ...r }) => ({ ...r, law: typeof fit?.kind === "string" ? fit.kind : null }));
 }

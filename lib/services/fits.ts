@@ -2,6 +2,7 @@ import { and, desc, eq } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { kineticsModels, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { teamKineticsSources } from "@/db/queries/kinetics-sources";
+import { teamDatasetVersion } from "@/db/queries/team-dataset-versions";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { AIC_CRITERION, dataRange, fitSummary, MissingFeedConcentration, preparePoints, toEngineLaw, tryFit, type DatasetRow, type PreparedPoints } from "@/lib/fitting/from-dataset";
@@ -19,11 +20,7 @@ export const FIT_CAUTIONS = [
 
 /** A dataset version of the actor's team with its dataset, or 404 (also for another team's id). */
 export async function requireTeamDatasetVersion(db: Executor, actor: Actor, versionId: string) {
-  const [row] = await db
-    .select({ version: rateDatasetVersions, dataset: rateDatasets })
-    .from(rateDatasetVersions)
-    .innerJoin(rateDatasets, eq(rateDatasets.id, rateDatasetVersions.datasetId))
-    .where(and(eq(rateDatasetVersions.id, versionId), eq(rateDatasets.teamId, actor.teamId)));
+  const row = await teamDatasetVersion(db, actor.teamId, versionId);
   if (!row) throw notFound("dataset version");
   assertCan(actor, "dataset.read", { teamId: row.dataset.teamId }, "dataset version");
   return row;
@@ -114,16 +111,7 @@ export async function saveFitAsKinetics(db: Database, actor: Actor, versionId: s
 export async function listKineticsSources(db: Executor, actor: Actor, kineticsVersionIds: string[]) {
   if (!kineticsVersionIds.length) return [];
   assertCan(actor, "kinetics.read");
-  const rows = await teamKineticsSources(db, actor.teamId, { kineticsVersionIds });
-  return rows.map((r) => ({
-    kineticsVersionId: r.kineticsVersionId,
-    kind: r.kind,
-    fit: r.fit,
-    datasetVersionId: r.datasetVersionId,
-    datasetId: r.datasetId,
-    datasetName: r.datasetName,
-    datasetVersion: r.datasetVersion,
-  }));
+  return teamKineticsSources(db, actor.teamId, { kineticsVersionIds });
 }
 
 /** A dataset of the actor's team and one of its versions by number (the latest when absent), for the fit screen. */
