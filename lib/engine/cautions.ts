@@ -1,7 +1,7 @@
 /**
  * The product's cautions, in one wording for every place that shows a result: the engine's output
  * (API and command line), the screens' cautions box, the design report and its PDF, the CSV files.
- * Plain data and one pure function, so client components import them from "@/lib/engine" without
+ * Plain data and one pure function, so client components import them from the engine's entry without
  * pulling the numerical core into the browser (the bundler keeps only what is used; checked with
  * `npm run build`).
  */
