@@ -1,3 +1,5 @@
+import { formatDateTime } from "@/lib/format/dates";
+
 export interface AuditRow {
   id: string;
   action: string;
@@ -7,7 +9,6 @@ export interface AuditRow {
   details: Record<string, unknown>;
 }
 
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 function summarise(details: Record<string, unknown>): string {
   return Object.entries(details)
@@ -30,7 +31,7 @@ export function AuditList({ entries }: { entries: AuditRow[] }) {
       <tbody>
         {entries.map((e) => (
           <tr key={e.id}>
-            <td className="num whitespace-nowrap">{fmt.format(new Date(e.at))}</td>
+            <td className="num whitespace-nowrap">{formatDateTime(e.at)}</td>
             <td>{e.actorName ?? e.actorEmail ?? "—"}</td>
             <td className="font-mono text-xs">{e.action}</td>
             <td className="text-ink-soft">{summarise(e.details)}</td>

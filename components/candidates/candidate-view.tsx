@@ -3,7 +3,8 @@
 import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
-import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { Cautions } from "@/components/cautions/cautions";
+import { thermalWarnings } from "@/lib/engine";
 import { candidateExportHref } from "@/components/reports/export-links";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
@@ -12,13 +13,14 @@ import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 import type { CandidateDetail, SweepView } from "@/components/sweeps/types";
 import { fetchJson } from "@/lib/client/fetch-json";
-import { formatNumber, formatVolume } from "@/lib/charts/volume-units";
+import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
 import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { PinForm } from "./pin-form";
 import { StageTable } from "./stage-table";
 import { VesselPlan } from "./vessel-plan";
 import { TemperatureProfile } from "./temperature-profile";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 export function CandidateView({ candidateId, canPin }: { candidateId: string; canPin: boolean }) {
   const params = useSearchParams();
@@ -81,8 +83,8 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
       <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
         {[
           ["Total volume", formatVolume(c.totalVolume, unit, 4)],
-          ["Total cost", formatNumber(c.totalCost, 4)],
-          ["Ratio to single PFR", c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4)}×`],
+          ["Total cost", formatNumber(c.totalCost, 4, TABLE_NUMBERS)],
+          ["Ratio to single PFR", c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4, TABLE_NUMBERS)}×`],
           ["Single CSTR / PFR", `${formatVolume(ref?.singleCSTR, unit)} / ${formatVolume(ref?.singlePFR, unit)}`],
         ].map(([k, v]) => (
           <div key={k} className="card px-3 py-2">

@@ -2,15 +2,16 @@ import { StageSwatch } from "@/components/charts/stage-patterns";
 import { StageGlyph } from "@/components/sweeps/stage-badges";
 import type { StoredStage } from "@/components/sweeps/types";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
-import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
+import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, unitLabel } from "@/lib/units/display";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 /** Stages of one train: type, conversions, temperatures, volume, residence time, vessels and cost. */
 export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; unit: VolumeUnit; caption: string }) {
   const anyCost = stages.some((s) => s.cost !== null);
   // Temperatures follow the user's display-unit setting; the engine's values are kelvin.
   const tUnit = useDisplayUnits().temperature;
-  const t = (k: number) => formatNumber(fromSI("temperature", k, tUnit), 5);
+  const t = (k: number) => formatNumber(fromSI("temperature", k, tUnit), 5, TABLE_NUMBERS);
   return (
     <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={caption}>
       <table className="table-dense" data-testid="stage-table">
@@ -38,17 +39,17 @@ export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; u
                 </span>
               </td>
               <td className="num whitespace-nowrap">
-                {formatNumber(s.conversionIn, 4)} → {formatNumber(s.conversionOut, 4)}
+                {formatNumber(s.conversionIn, 4, TABLE_NUMBERS)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
               </td>
               <td className="num whitespace-nowrap">
                 {t(s.temperatureIn)} → {t(s.temperatureOut)}
               </td>
               <td className="num whitespace-nowrap">{formatVolume(s.volume, unit, 4)}</td>
-              <td className="num">{formatNumber(s.residenceTime, 4)}</td>
+              <td className="num">{formatNumber(s.residenceTime, 4, TABLE_NUMBERS)}</td>
               <td className="num whitespace-nowrap">
                 {s.vessels.count} × {formatVolume(s.vessels.sizeEach, unit, 4)}
               </td>
-              {anyCost ? <td className="num">{formatNumber(s.cost, 4)}</td> : null}
+              {anyCost ? <td className="num">{formatNumber(s.cost, 4, TABLE_NUMBERS)}</td> : null}
             </tr>
           ))}
         </tbody>

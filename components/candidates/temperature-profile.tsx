@@ -4,8 +4,8 @@ import { ResponsiveLine } from "@nivo/line";
 import type { StoredStage } from "@/components/sweeps/types";
 import { axisTicks } from "@/components/charts/axis-ticks";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
-import { formatNumber } from "@/lib/charts/volume-units";
 import { fromSI, unitLabel } from "@/lib/units/display";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 /** Temperature against conversion through the train (adiabatic stages are straight lines in X). */
 export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
@@ -29,7 +29,7 @@ export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
   // Ticks fixed here so each axis shares one notation (components/charts/axis-ticks.ts).
   const xAxis = axisTicks(0, xMax, 5);
   const yAxis = axisTicks(yMin, yMax, 4);
-  const label = `Temperature profile: ${stages.map((s, i) => `stage ${i + 1} ${formatNumber(t(s.temperatureIn), 5)} to ${formatNumber(t(s.temperatureOut), 5)} ${tLabel}`).join("; ")}`;
+  const label = `Temperature profile: ${stages.map((s, i) => `stage ${i + 1} ${formatNumber(t(s.temperatureIn), 5, TABLE_NUMBERS)} to ${formatNumber(t(s.temperatureOut), 5, TABLE_NUMBERS)} ${tLabel}`).join("; ")}`;
   return (
     <div role="img" aria-label={label} style={{ height: 200 }} data-testid="temperature-profile">
       <ResponsiveLine

@@ -1,5 +1,6 @@
 import type { TrainPlan } from "@/lib/costs/train-plan";
-import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
+import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 /** Which vessel goes where: per stage, the reused inventory vessels and what is bought new, with the saving. */
 export function VesselPlan({ plan, installedCost, unit }: { plan: TrainPlan | null | undefined; installedCost: number | null | undefined; unit: VolumeUnit }) {
@@ -11,7 +12,7 @@ export function VesselPlan({ plan, installedCost, unit }: { plan: TrainPlan | nu
       </h2>
       {!plan ? (
         <p className="px-3 py-2 text-sm text-ink-soft">
-          Every vessel is bought new. Installed cost <span className="num">{formatNumber(installedCost, 4)}</span> (purchase × installation factor).
+          Every vessel is bought new. Installed cost <span className="num">{formatNumber(installedCost, 4, TABLE_NUMBERS)}</span> (purchase × installation factor).
         </p>
       ) : (
         <>
@@ -42,7 +43,7 @@ export function VesselPlan({ plan, installedCost, unit }: { plan: TrainPlan | nu
                       </td>
                       <td>{reused.length ? reused.map((x) => `${x.tag} (${formatVolume(x.volume, unit)})`).join(", ") : <span className="text-ink-soft">none</span>}</td>
                       <td className="num whitespace-nowrap">{bought.length ? `new: ${bought.length} × ${formatVolume(bought[0].volume, unit)}` : <span className="text-ink-soft">nothing</span>}</td>
-                      <td className="num">{formatNumber(s.cost, 4)}</td>
+                      <td className="num">{formatNumber(s.cost, 4, TABLE_NUMBERS)}</td>
                     </tr>
                   );
                 })}
@@ -50,8 +51,8 @@ export function VesselPlan({ plan, installedCost, unit }: { plan: TrainPlan | nu
             </table>
           </div>
           <p className="border-t border-line px-3 py-2 text-sm" data-testid="vessel-plan-saving">
-            Installed cost <span className="num">{formatNumber(plan.totalCost, 4)}</span> against <span className="num">{formatNumber(plan.allNewCost, 4)}</span> all new: saving{" "}
-            <strong className="num">{formatNumber(plan.saving, 4)}</strong> with {plan.reusedCount} vessel{plan.reusedCount === 1 ? "" : "s"} reused. A reused vessel takes one parallel
+            Installed cost <span className="num">{formatNumber(plan.totalCost, 4, TABLE_NUMBERS)}</span> against <span className="num">{formatNumber(plan.allNewCost, 4, TABLE_NUMBERS)}</span> all new: saving{" "}
+            <strong className="num">{formatNumber(plan.saving, 4, TABLE_NUMBERS)}</strong> with {plan.reusedCount} vessel{plan.reusedCount === 1 ? "" : "s"} reused. A reused vessel takes one parallel
             position of a stage when it holds at least that position&apos;s share of the volume.
           </p>
         </>

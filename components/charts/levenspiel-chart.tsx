@@ -3,8 +3,10 @@
 import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { chartGeometry, interpolate, ticks, type ChartStage, type Point } from "@/lib/charts/levenspiel-geometry";
 import { tickFormatter } from "./tick-format";
-import { formatNumber, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
-import { STAGE_STYLES, StagePattern } from "./stage-patterns";
+import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
+import { stageStyle } from "@/lib/charts/stage-styles";
+import { StagePattern } from "./stage-patterns";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 export interface LevenspielChartProps {
   curve: [number, number][];
@@ -55,11 +57,11 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
   const sx = (x: number) => m.left + (x / geo.xMax) * innerW;
   const sy = (y: number) => m.top + innerH - (Math.min(y, geo.yMax) / geo.yMax) * innerH;
   const path = (pts: Point[]) => pts.map(([x, y], i) => `${i ? "L" : "M"}${sx(x).toFixed(2)},${sy(y).toFixed(2)}`).join("");
-  const show = (m3: number) => formatNumber(fromCubicMetres(m3, volumeUnit));
+  const show = (m3: number) => formatNumber(fromCubicMetres(m3, volumeUnit), 3, TABLE_NUMBERS);
 
   const summary = stages.length
     ? `Levenspiel chart, ${stages.length} stage${stages.length === 1 ? "" : "s"}: ` +
-      geo.stages.map((s) => `${alternatives ? `single ${s.type}` : `stage ${s.index + 1} ${s.type}`} from X ${formatNumber(s.conversionIn)} to ${formatNumber(s.conversionOut)}, ${show(s.volume)} ${unit}`).join("; ")
+      geo.stages.map((s) => `${alternatives ? `single ${s.type}` : `stage ${s.index + 1} ${s.type}`} from X ${formatNumber(s.conversionIn, 3, TABLE_NUMBERS)} to ${formatNumber(s.conversionOut, 3, TABLE_NUMBERS)}, ${show(s.volume)} ${unit}`).join("; ")
     : "Levenspiel curve, no stages";
   // Numbering alternatives "1 CSTR", "2 PFR" would read as a two-stage train.
   const stageName = (s: { index: number; type: string }) => (alternatives ? `Single ${s.type}` : `${s.index + 1} ${s.type}`);
@@ -75,7 +77,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
           </defs>
           <rect x={0} y={0} width={width} height={h} fill="#fff" />
           {geo.stages.map((s) => (
-            <path key={s.index} d={path(s.polygon) + "Z"} fill={`url(#${uid}-p${s.index})`} stroke={STAGE_STYLES[s.index % STAGE_STYLES.length].stroke} strokeWidth={1} />
+            <path key={s.index} d={path(s.polygon) + "Z"} fill={`url(#${uid}-p${s.index})`} stroke={stageStyle(s.index).stroke} strokeWidth={1} />
           ))}
           {geo.curve.length > 1 ? <path d={path(geo.curve)} fill="none" stroke="#1c2430" strokeWidth={1} /> : null}
         </svg>
@@ -106,7 +108,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
   const readout =
     cursor === null
       ? ""
-      : `X ${formatNumber(cursor)}, FA0/(−rA) ${show(cursorY ?? 0)} ${unit}` +
+      : `X ${formatNumber(cursor, 3, TABLE_NUMBERS)}, FA0/(−rA) ${show(cursorY ?? 0)} ${unit}` +
         (cursorStage ? `, stage ${cursorStage.index + 1} ${cursorStage.type}, ${show(cursorStage.volume)} ${unit}` : "");
 
   return (
@@ -159,7 +161,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
 
           <g clipPath={`url(#${uid}-clip)`}>
             {geo.stages.map((s) => {
-              const style = STAGE_STYLES[s.index % STAGE_STYLES.length];
+              const style = stageStyle(s.index);
               return (
                 <g key={s.index} data-testid={`chart-stage-${s.index + 1}`} data-stage-type={s.type}>
                   <path d={path(s.polygon) + "Z"} fill={`url(#${uid}-p${s.index})`} stroke={style.stroke} strokeWidth={1.5} />
@@ -167,8 +169,8 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
               );
             })}
             {geo.curve.length > 1 ? <path d={path(geo.curve)} fill="none" stroke="#1c2430" strokeWidth={1.75} /> : null}
-            {target !== undefined ? <Marker x={sx(target)} y1={m.top} y2={m.top + innerH} colour="#115a54" dash="6 3" label={`target ${formatNumber(target)}`} /> : null}
-            {equilibrium ? <Marker x={sx(equilibrium)} y1={m.top + 14} y2={m.top + innerH} colour="#9a3412" dash="2 3" label={`equilibrium ${formatNumber(equilibrium)}`} /> : null}
+            {target !== undefined ? <Marker x={sx(target)} y1={m.top} y2={m.top + innerH} colour="#115a54" dash="6 3" label={`target ${formatNumber(target, 3, TABLE_NUMBERS)}`} /> : null}
+            {equilibrium ? <Marker x={sx(equilibrium)} y1={m.top + 14} y2={m.top + innerH} colour="#9a3412" dash="2 3" label={`equilibrium ${formatNumber(equilibrium, 3, TABLE_NUMBERS)}`} /> : null}
           </g>
 
           {/* labels above each stage: number, type and volume */}

@@ -1,22 +1,9 @@
 import { useId } from "react";
+import { stageStyle } from "@/lib/charts/stage-styles";
 
-/**
- * Fills of the chart's stages: each stage its own colour and its own pattern (hatch direction,
- * dots, grid), so that stages stay apart in grey print and for readers who do not tell the colours apart.
- */
-export const STAGE_STYLES = [
-  { fill: "#cfe9e5", stroke: "#136f67", kind: "diagonal" },
-  { fill: "#fde4c8", stroke: "#b45309", kind: "dots" },
-  { fill: "#dde3fb", stroke: "#3f51b5", kind: "antidiagonal" },
-  { fill: "#f9d8e4", stroke: "#a21caf", kind: "grid" },
-  { fill: "#e4f1cf", stroke: "#4d7c0f", kind: "horizontal" },
-  { fill: "#fbe9a8", stroke: "#854d0e", kind: "vertical" },
-  { fill: "#dcecf8", stroke: "#0369a1", kind: "cross" },
-  { fill: "#ece2f7", stroke: "#6d28d9", kind: "rings" },
-] as const;
-
+/** The SVG pattern of a stage's fill (styles in lib/charts/stage-styles.ts, shared with the PDF). */
 export function StagePattern({ id, index }: { id: string; index: number }) {
-  const { fill, stroke, kind } = STAGE_STYLES[index % STAGE_STYLES.length];
+  const { fill, stroke, kind } = stageStyle(index);
   const line = { stroke, strokeWidth: 1.2, strokeOpacity: 0.75 };
   return (
     <pattern id={id} width={8} height={8} patternUnits="userSpaceOnUse">
@@ -41,7 +28,7 @@ export function StageSwatch({ index, label }: { index: number; label?: string })
       <defs>
         <StagePattern id={id} index={index} />
       </defs>
-      <rect x={0.5} y={0.5} width={13} height={13} fill={`url(#${id})`} stroke={STAGE_STYLES[index % STAGE_STYLES.length].stroke} />
+      <rect x={0.5} y={0.5} width={13} height={13} fill={`url(#${id})`} stroke={stageStyle(index).stroke} />
     </svg>
   );
 }

@@ -14,8 +14,9 @@ import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-
 import type { CandidateDetail } from "@/components/sweeps/types";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
-import { formatNumber, formatVolume } from "@/lib/charts/volume-units";
+import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 const signed = (v: number | null, text: (n: number) => string) => (v === null ? "—" : v === 0 ? "best" : `+${text(v)}`);
 
@@ -91,10 +92,10 @@ export function CompareView() {
             </tr>
             <Row label="Total volume" list={list} cell={(c) => formatVolume(c.totalVolume, unit, 4)} />
             <Row label="Volume over the smallest" list={list} cell={(c) => signed(c.differences.volumeOverBest, (v) => formatVolume(v, unit, 3))} />
-            {anyCost ? <Row label="Total cost" list={list} cell={(c) => formatNumber(c.totalCost, 4)} /> : null}
-            {anyCost ? <Row label="Cost over the cheapest" list={list} cell={(c) => signed(c.differences.costOverBest, (v) => formatNumber(v, 3))} /> : null}
+            {anyCost ? <Row label="Total cost" list={list} cell={(c) => formatNumber(c.totalCost, 4, TABLE_NUMBERS)} /> : null}
+            {anyCost ? <Row label="Cost over the cheapest" list={list} cell={(c) => signed(c.differences.costOverBest, (v) => formatNumber(v, 3, TABLE_NUMBERS))} /> : null}
             <Row label="Stages" list={list} cell={(c) => `${c.stageCount}${c.stageCount > fewest ? ` (+${c.stageCount - fewest})` : ""}`} />
-            <Row label="Ratio to single PFR" list={list} cell={(c) => (c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4)}×`)} />
+            <Row label="Ratio to single PFR" list={list} cell={(c) => (c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4, TABLE_NUMBERS)}×`)} />
           </tbody>
         </table>
       </section>

@@ -4,9 +4,9 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { Field, FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { formatNumber } from "@/lib/charts/volume-units";
 import type { CostBasis } from "@/lib/schemas/costs";
 import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-state";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 interface CostsAnswer {
   costs: { basis: CostBasis; isDefault: boolean; standardSizes: number[] | null; updatedAt: string | null; permissions: { update: boolean } };
@@ -109,7 +109,7 @@ function CostBasisForm({ url, projectId, data }: { url: string; projectId: strin
         ) : null}
         {data.standardSizes && form["sizes.mode"] !== "any" ? (
           <p className="text-xs text-ink-soft" data-testid="saved-sizes">
-            Saved sizes: <span className="num">{data.standardSizes.map((s) => formatNumber(s, 3)).join(", ")}</span> m³
+            Saved sizes: <span className="num">{data.standardSizes.map((s) => formatNumber(s, 3, TABLE_NUMBERS)).join(", ")}</span> m³
           </p>
         ) : null}
         {input("maxVesselVolume", "Largest single vessel, m³ (blank: no limit)", "w-28", "A larger stage is split into the fewest identical parallel vessels")}

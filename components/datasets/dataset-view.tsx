@@ -3,12 +3,14 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
-import { formatNumber, fromSI } from "@/lib/units/display";
+import { fromSI } from "@/lib/units/display";
 import type { StoredRateRow } from "@/lib/datasets/table-law";
 import { datasetUnitOptions, DATASET_UNITS } from "@/lib/datasets/units";
 import { InverseRatePlot, type RatePoint } from "./inverse-rate-plot";
 import { Pager, usePage } from "./pager";
 import { TableKineticsForm } from "./table-kinetics-form";
+import { formatDateTime } from "@/lib/format/dates";
+import { formatNumber } from "@/lib/format/numbers";
 
 export interface DatasetViewProps {
   projectId: string;
@@ -19,7 +21,6 @@ export interface DatasetViewProps {
   models: { id: string; name: string }[];
 }
 
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 /** A dataset: pick a version, read its rows and its 1/(−rA) plot, use it as kinetics or fit it. */
 export function DatasetView({ projectId, dataset, versions, selected, canCreate, models }: DatasetViewProps) {
@@ -48,7 +49,7 @@ export function DatasetView({ projectId, dataset, versions, selected, canCreate,
           <select id={`${ids}-version`} className="input w-auto" value={selected.version} onChange={(e) => router.push(`/projects/${projectId}/datasets/${dataset.id}?version=${e.target.value}`)}>
             {versions.map((v) => (
               <option key={v.id} value={v.version}>
-                v{v.version} · {v.fileName} · {v.rowCount} rows · {fmt.format(new Date(v.createdAt))} UTC
+                v{v.version} · {v.fileName} · {v.rowCount} rows · {formatDateTime(v.createdAt)}
               </option>
             ))}
           </select>

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { formatDateTime } from "@/lib/format/dates";
 
 export interface DatasetRow {
   id: string;
@@ -6,7 +7,6 @@ export interface DatasetRow {
   latestVersion: { version: number; rowCount: number; fileName: string; createdAt: string } | null;
 }
 
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 /** The "Rate data" section of a project page: its measured-rate datasets and the way to upload one. */
 export function DatasetsPanel({ projectId, datasets, canUpload }: { projectId: string; datasets: DatasetRow[]; canUpload: boolean }) {
@@ -42,7 +42,7 @@ export function DatasetsPanel({ projectId, datasets, canUpload }: { projectId: s
                 </td>
                 <td className="num">v{d.latestVersion?.version ?? "—"}</td>
                 <td className="num">{d.latestVersion?.rowCount ?? "—"}</td>
-                <td className="num whitespace-nowrap">{d.latestVersion ? fmt.format(new Date(d.latestVersion.createdAt)) : "—"}</td>
+                <td className="num whitespace-nowrap">{formatDateTime(d.latestVersion?.createdAt)}</td>
               </tr>
             ))}
           </tbody>

@@ -2,7 +2,7 @@
 
 import { ResponsiveScatterPlot } from "@nivo/scatterplot";
 import { axisTicks } from "@/components/charts/axis-ticks";
-import { formatNumber } from "@/lib/units/display";
+import { formatNumber } from "@/lib/format/numbers";
 
 export interface RatePoint {
   conversion: number;

@@ -7,7 +7,8 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { TableKineticsInput } from "@/lib/schemas/datasets";
-import { formatNumber, fromSI, toSI } from "@/lib/units/display";
+import { fromSI, toSI } from "@/lib/units/display";
+import { formatNumber } from "@/lib/format/numbers";
 
 interface Props {
   projectId: string;

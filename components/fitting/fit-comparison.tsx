@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { FIT_LAW_INFO, type LawFitOut } from "@/lib/schemas/fits";
-import { sig } from "./fit-format";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 type Ok = Extract<LawFitOut, { ok: true }>;
 type SortKey = "rss" | "rSquared" | "aic";
@@ -70,17 +70,17 @@ export function FitComparison({ fits, selected, onSelect, criterion }: { fits: L
                     <ul className="space-y-0.5">
                       {f.parameters.map((p) => (
                         <li key={p.name} className="num whitespace-nowrap text-sm">
-                          {p.name} = {sig(p.value)} ± {sig(p.standardError, 2)} {p.unit !== "—" ? p.unit : ""}
+                          {p.name} = {formatNumber(p.value, 4, RECORD_NUMBERS)} ± {formatNumber(p.standardError, 2, RECORD_NUMBERS)} {p.unit !== "—" ? p.unit : ""}
                           <span className="text-ink-soft">
                             {" "}
-                            [{sig(p.interval95[0])}, {sig(p.interval95[1])}]
+                            [{formatNumber(p.interval95[0], 4, RECORD_NUMBERS)}, {formatNumber(p.interval95[1], 4, RECORD_NUMBERS)}]
                           </span>
                         </li>
                       ))}
-                      {f.referenceTemperature ? <li className="num text-xs text-ink-soft">T_ref = {sig(f.referenceTemperature)} K</li> : null}
+                      {f.referenceTemperature ? <li className="num text-xs text-ink-soft">T_ref = {formatNumber(f.referenceTemperature, 4, RECORD_NUMBERS)} K</li> : null}
                     </ul>
                   </td>
-                  <td className="num">{sig(f.rss, 3)}</td>
+                  <td className="num">{formatNumber(f.rss, 3, RECORD_NUMBERS)}</td>
                   <td className="num">{f.rSquared.toFixed(5)}</td>
                   <td className="num">{f.aic === null ? "−∞ (RSS = 0)" : f.aic.toFixed(2)}</td>
                   <td className="num">

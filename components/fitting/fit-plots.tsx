@@ -4,7 +4,7 @@ import { ResponsiveScatterPlot, type ScatterPlotLayerProps } from "@nivo/scatter
 import { useId } from "react";
 import { FIT_LAW_INFO, type LawFitOut } from "@/lib/schemas/fits";
 import { axisTicks } from "@/components/charts/axis-ticks";
-import { sig } from "./fit-format";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 type Ok = Extract<LawFitOut, { ok: true }>;
 type P = { x: number; y: number };
@@ -69,7 +69,7 @@ export function FitPlots({ fit }: { fit: Ok }) {
       <Figure
         testId="parity-plot"
         title={`Parity plot: ${label}`}
-        summary={`${fit.points} points; fitted against measured rate, both in ${RATE}, from ${sig(lo)} to ${sig(hi)}. The dashed line is y = x, where a perfect fit lies. R² = ${fit.rSquared.toFixed(5)}.`}
+        summary={`${fit.points} points; fitted against measured rate, both in ${RATE}, from ${formatNumber(lo, 4, RECORD_NUMBERS)} to ${formatNumber(hi, 4, RECORD_NUMBERS)}. The dashed line is y = x, where a perfect fit lies. R² = ${fit.rSquared.toFixed(5)}.`}
       >
         {(labelledBy, describedBy) => (
           <ResponsiveScatterPlot<P>
@@ -88,7 +88,7 @@ export function FitPlots({ fit }: { fit: Ok }) {
       <Figure
         testId="residual-plot"
         title={`Residuals: ${label}`}
-        summary={`Residual (measured − fitted) against measured rate, ${RATE}. Largest |residual| ${sig(maxRes, 3)} at measured ${sig(fit.parity[worst][0])}; ${positive} of ${fit.points} residuals are positive. A pattern rather than scatter about zero suggests the law misses something.`}
+        summary={`Residual (measured − fitted) against measured rate, ${RATE}. Largest |residual| ${formatNumber(maxRes, 3, RECORD_NUMBERS)} at measured ${formatNumber(fit.parity[worst][0], 4, RECORD_NUMBERS)}; ${positive} of ${fit.points} residuals are positive. A pattern rather than scatter about zero suggests the law misses something.`}
       >
         {(labelledBy, describedBy) => (
           <ResponsiveScatterPlot<P>

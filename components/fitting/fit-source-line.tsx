@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { FIT_LAW_INFO, type FitLaw, type FitParameterOut } from "@/lib/schemas/fits";
-import { sig, valuePlusMinus } from "./fit-format";
+import { valuePlusMinus } from "./fit-format";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 interface Source {
   kind: string;
@@ -25,7 +26,7 @@ export function FitSourceLine({ projectId, source, testId = "kinetics-source" }:
   const params = (fit.parameters ?? []).map(valuePlusMinus).join(", ");
   return (
     <span className="block text-xs text-ink" data-testid={testId}>
-      Fitted to {link} — {FIT_LAW_INFO[fit.law].label.toLowerCase()}, {params}, R² = {sig(fit.rSquared, 5)}
+      Fitted to {link} — {FIT_LAW_INFO[fit.law].label.toLowerCase()}, {params}, R² = {formatNumber(fit.rSquared, 5, RECORD_NUMBERS)}
     </span>
   );
 }

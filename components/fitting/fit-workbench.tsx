@@ -3,6 +3,7 @@
 import { useMutation } from "@tanstack/react-query";
 import { useState, type FormEvent } from "react";
 import { Cautions } from "@/components/cautions/cautions";
+import { CAUTIONS } from "@/lib/engine";
 import { ErrorText } from "@/components/kinetics/quantity-field";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
@@ -147,7 +148,8 @@ export function FitWorkbench({ projectId, versionId, columns, storedFeedConcA, m
           ) : null}
           <Cautions warnings={[]} />
           <ul className="list-disc pl-5 text-xs text-ink-soft" aria-label="Cautions on fitted laws">
-            {res.cautions.map((c) => (
+            {/* The general cautions are in the box above; here only what is particular to a fit. */}
+            {res.cautions.filter((c) => !CAUTIONS.includes(c)).map((c) => (
               <li key={c}>{c}</li>
             ))}
           </ul>

@@ -5,9 +5,9 @@ import { useState } from "react";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { formatNumber } from "@/lib/charts/volume-units";
 import { InventoryUpload } from "./inventory-upload";
 import { VesselForm } from "./vessel-form";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 export interface Vessel {
   id: string;
@@ -81,9 +81,9 @@ export function InventoryScreen() {
                   <tr key={v.id} data-testid="inventory-row">
                     <td className="font-medium">{v.tag}</td>
                     <td>{v.type}</td>
-                    <td className="num">{formatNumber(v.volume, 4)}</td>
+                    <td className="num">{formatNumber(v.volume, 4, TABLE_NUMBERS)}</td>
                     <td>{v.available ? <span className="badge border-accent-200 bg-accent-50 text-accent-800">✓ available</span> : <span className="badge border-line">in use</span>}</td>
-                    <td className="num">{formatNumber(v.reuseCost, 4)}</td>
+                    <td className="num">{formatNumber(v.reuseCost, 4, TABLE_NUMBERS)}</td>
                     <td>{v.location || <span className="text-ink-soft">—</span>}</td>
                     {permissions.manage ? (
                       <td className="whitespace-nowrap">
@@ -133,7 +133,7 @@ export function InventoryScreen() {
         onConfirm={() => removing && change.mutate({ id: removing.id, tag: removing.tag, remove: true })}
         onCancel={() => setRemoving(undefined)}
       >
-        {removing ? `${removing.tag} (${removing.type}, ${formatNumber(removing.volume, 4)} m³) leaves the idle-vessel inventory and is no longer offered for reuse in sweeps.` : null}
+        {removing ? `${removing.tag} (${removing.type}, ${formatNumber(removing.volume, 4, TABLE_NUMBERS)} m³) leaves the idle-vessel inventory and is no longer offered for reuse in sweeps.` : null}
       </ConfirmDialog>
     </div>
   );

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError } from "@/lib/client/fetch-json";
-import { formatNumber } from "@/lib/charts/volume-units";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 interface Preview {
   vessels: { row: number; tag: string; type: string; volume: number; available: boolean; reuseCost: number; location: string }[];
@@ -102,7 +102,7 @@ export function InventoryUpload({ onImported }: { onImported: () => void }) {
               <ul className="text-sm">
                 {preview.vessels.map((v) => (
                   <li key={v.row}>
-                    {v.tag}: {v.type}, <span className="num">{formatNumber(v.volume, 4)}</span> m³{v.available ? "" : " (in use)"}
+                    {v.tag}: {v.type}, <span className="num">{formatNumber(v.volume, 4, TABLE_NUMBERS)}</span> m³{v.available ? "" : " (in use)"}
                   </li>
                 ))}
               </ul>

@@ -4,11 +4,13 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { useEffect, useState } from "react";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
-import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { Cautions } from "@/components/cautions/cautions";
+import { thermalWarnings } from "@/lib/engine";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import type { KineticsPreview } from "@/lib/services/kinetics-checks";
-import { formatNumber, formatQuantity, type VolumeUnit } from "@/lib/units/display";
+import { formatQuantity, type VolumeUnit } from "@/lib/units/display";
+import { formatNumber } from "@/lib/format/numbers";
 
 /** The value, once it has stayed the same for `ms`. */
 export function useDebounced<T>(value: T, ms: number): T {

@@ -2,13 +2,15 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { Cautions, thermalWarnings } from "@/components/cautions/cautions";
+import { Cautions } from "@/components/cautions/cautions";
+import { thermalWarnings } from "@/lib/engine";
 import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { PIN_STATE } from "@/lib/glossary";
 import { reviewSchema } from "@/lib/schemas/sweeps";
-import { formatQuantity } from "@/lib/units/display";
+import { formatDateTime } from "@/lib/format/dates";
+import { PinSize } from "./pin-size";
 
 export interface PinRow {
   id: string;
@@ -30,8 +32,6 @@ export interface PinRow {
   /** The printable report page of this pin. */
   reportHref?: string;
 }
-
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 const STATE: Record<PinRow["state"], { text: string; glyph: string; tone: string }> = {
   proposed: { text: PIN_STATE.proposed.label, glyph: "◷", tone: "border-amber-400 bg-amber-50 text-amber-900" },
@@ -77,10 +77,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
         </span>
         {isCurrent ? <span className="badge border-ink bg-ink text-white">current</span> : null}
         <StageBadges sequence={pin.sequence} />
-        <span className="num text-sm">
-          {formatQuantity("volume", pin.totalVolume, "m3")}
-          {pin.totalCost !== null ? ` · cost ${pin.totalCost.toPrecision(4)}` : ""}
-        </span>
+        <PinSize totalVolume={pin.totalVolume} totalCost={pin.totalCost} />
         {pin.reportHref ? (
           <span className="ml-auto flex gap-2">
             <a href={pin.reportHref} className="btn-quiet py-0.5 text-xs" data-testid="pin-report">
@@ -95,7 +92,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
       <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[8rem_1fr]">
         <dt className="text-ink-soft">Pinned by</dt>
         <dd>
-          {pin.pinnedByName}, <span className="num">{fmt.format(new Date(pin.pinnedAt))} UTC</span>
+          {pin.pinnedByName}, <span className="num">{formatDateTime(pin.pinnedAt)}</span>
         </dd>
         <dt className="text-ink-soft">Note</dt>
         <dd>{pin.note || "—"}</dd>
@@ -121,7 +118,7 @@ function PinItem({ pin, isCurrent, canRun }: { pin: PinRow; isCurrent: boolean; 
             <dt className="text-ink-soft">Reviewed by</dt>
             <dd>
               {pin.reviewerName}
-              {pin.reviewedAt ? <span className="num">, {fmt.format(new Date(pin.reviewedAt))} UTC</span> : null}: “{pin.reviewComment}”
+              {pin.reviewedAt ? <span className="num">, {formatDateTime(pin.reviewedAt)}</span> : null}: “{pin.reviewComment}”
             </dd>
           </>
         ) : null}

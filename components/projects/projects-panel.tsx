@@ -8,11 +8,11 @@ import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { projectCreateSchema } from "@/lib/schemas/projects";
 import type { ProjectView } from "@/lib/services/projects";
 import { ProjectCreateForm } from "./project-create-form";
+import { formatDay } from "@/lib/format/dates";
 
 type Wire<T> = { [K in keyof T]: T[K] extends Date ? string : T[K] extends Date | null ? string | null : T[K] };
 export type ProjectRow = Wire<ProjectView>;
 
-const dateFmt = new Intl.DateTimeFormat("en-GB", { day: "2-digit", month: "short", year: "numeric" });
 
 export function ProjectsPanel({ initial, canCreate }: { initial: ProjectRow[]; canCreate: boolean }) {
   const queryClient = useQueryClient();
@@ -107,7 +107,7 @@ function ProjectRowView({ project, onChanged }: { project: ProjectRow; onChanged
       </td>
       <td className="text-ink-soft">{project.description}</td>
       <td>{project.createdByName}</td>
-      <td className="tabular-nums">{dateFmt.format(new Date(project.updatedAt))}</td>
+      <td className="tabular-nums">{formatDay(project.updatedAt)}</td>
       <td className="text-right">
         <div className="flex justify-end gap-2">
           {project.permissions.update && !archived ? (

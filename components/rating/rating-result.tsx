@@ -2,8 +2,8 @@
 
 import { Cautions } from "@/components/cautions/cautions";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
-import { formatNumber } from "@/lib/charts/volume-units";
 import { formatQuantity, fromSI, toSI, unitLabel, type UnitKind } from "@/lib/units/display";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 export interface RatingAnswer {
   kineticsVersion: { id: string; version: number; modelName: string };
@@ -30,10 +30,10 @@ export function RatingResultView({ result: r, typedUnits }: { result: RatingAnsw
   const multiple = r.stages.filter((s) => s.multiple);
   // The engine answers in SI; the screen speaks the user's display-unit choice ("as typed" by default).
   const u = useDisplayUnits(Math.max(0, ...r.stages.map((s) => s.volume)) || null, typedUnits);
-  const t = (k: number) => formatNumber(fromSI("temperature", k, u.temperature), 5);
+  const t = (k: number) => formatNumber(fromSI("temperature", k, u.temperature), 5, TABLE_NUMBERS);
   // A volumetric flow has no kind of its own: the shown volume per the shown time unit.
   const perTime = toSI("time", 1, u.time);
-  const flowText = (q: number) => `${formatNumber(fromSI("volume", q * perTime, u.volume), 4)} ${unitLabel("volume", u.volume)}/${unitLabel("time", u.time)}`;
+  const flowText = (q: number) => `${formatNumber(fromSI("volume", q * perTime, u.volume), 4, TABLE_NUMBERS)} ${unitLabel("volume", u.volume)}/${unitLabel("time", u.time)}`;
   return (
     <div className="space-y-4" data-testid="rating-result">
       <section className="card p-4" aria-labelledby="rate-summary-title">
@@ -42,7 +42,7 @@ export function RatingResultView({ result: r, typedUnits }: { result: RatingAnsw
           <div>
             <dt className="text-xs uppercase tracking-wide text-ink-soft">Conversion reached</dt>
             <dd className="num text-base" data-testid="rating-conversion">
-              {formatNumber(r.conversionOut, 5)} {r.meetsTarget ? "✓ meets" : "✕ below"} the target {formatNumber(r.target, 4)}
+              {formatNumber(r.conversionOut, 5, TABLE_NUMBERS)} {r.meetsTarget ? "✓ meets" : "✕ below"} the target {formatNumber(r.target, 4, TABLE_NUMBERS)}
             </dd>
           </div>
           <div>
@@ -81,14 +81,14 @@ export function RatingResultView({ result: r, typedUnits }: { result: RatingAnsw
                     <span className="num">{i + 1}</span> {s.type}
                     {s.tag ? <span className="text-ink-soft"> ({s.tag})</span> : null}
                   </td>
-                  <td className="num">{formatNumber(fromSI("volume", s.volume, u.volume), 4)}</td>
+                  <td className="num">{formatNumber(fromSI("volume", s.volume, u.volume), 4, TABLE_NUMBERS)}</td>
                   <td className="num whitespace-nowrap">
-                    {formatNumber(s.conversionIn, 4)} → {formatNumber(s.conversionOut, 4)}
+                    {formatNumber(s.conversionIn, 4, TABLE_NUMBERS)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
                   </td>
                   <td className="num whitespace-nowrap">
                     {t(s.temperatureIn)} → {t(s.temperatureOut)}
                   </td>
-                  <td>{s.multiple ? <strong>⚠ {s.steadyStates.length} (X = {s.steadyStates.map((x) => formatNumber(x.conversionOut, 3)).join(", ")})</strong> : "one"}</td>
+                  <td>{s.multiple ? <strong>⚠ {s.steadyStates.length} (X = {s.steadyStates.map((x) => formatNumber(x.conversionOut, 3, TABLE_NUMBERS)).join(", ")})</strong> : "one"}</td>
                 </tr>
               ))}
             </tbody>

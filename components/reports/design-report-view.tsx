@@ -6,7 +6,9 @@ import type { DesignReport } from "@/lib/reports/design-report";
 import type { DisplayPreference } from "@/lib/units/display-preference";
 import type { WordLine } from "@/lib/reports/kinetics-words";
 import { inputLines } from "@/lib/reports/input-lines";
-import { fmtConversion, fmtDate, fmtMoney, fmtPercent, fmtVolume, reportUnits, sig, stageColumns } from "@/lib/reports/report-format";
+import { fmtConversion, fmtMoney, fmtPercent, fmtVolume, reportUnits, stageColumns } from "@/lib/reports/report-format";
+import { formatDateTime } from "@/lib/format/dates";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
   return (
@@ -47,11 +49,11 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
         <h1 data-testid="report-train">{r.train.label || "Pinned design"}</h1>
         <Pairs
           lines={[
-            { label: "Review state", value: r.pin.reviewedBy ? `${r.pin.stateLabel} by ${r.pin.reviewedBy}, ${fmtDate(r.pin.reviewedAt)}` : r.pin.stateLabel },
+            { label: "Review state", value: r.pin.reviewedBy ? `${r.pin.stateLabel} by ${r.pin.reviewedBy}, ${formatDateTime(r.pin.reviewedAt)}` : r.pin.stateLabel },
             ...(r.pin.reviewComment ? [{ label: "Review comment", value: `“${r.pin.reviewComment}”` }] : []),
-            { label: "Pinned by", value: `${r.pin.pinnedBy}, ${fmtDate(r.pin.pinnedAt)}` },
+            { label: "Pinned by", value: `${r.pin.pinnedBy}, ${formatDateTime(r.pin.pinnedAt)}` },
             { label: "Kinetics", value: `${r.kinetics.label} (${r.kinetics.law})` },
-            { label: "Generated", value: fmtDate(r.generatedAt) },
+            { label: "Generated", value: formatDateTime(r.generatedAt) },
           ]}
         />
       </header>
@@ -66,7 +68,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
             { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
             { label: "Total volume", value: fmtVolume(r.train.totalVolume, units) },
             ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost, currency) }] : []),
-            { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : sig(r.train.ratioToPfr, 4) },
+            { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : formatNumber(r.train.ratioToPfr, 4, RECORD_NUMBERS) },
           ]}
         />
       </Section>
@@ -151,9 +153,9 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
                   {r.source.fit.parameters.map((p) => (
                     <tr key={p.name}>
                       <td>{p.name}</td>
-                      <td className="num text-right">{sig(p.value, 5)}</td>
-                      <td className="num text-right">{p.standardError === null ? "—" : `± ${sig(p.standardError, 3)}`}</td>
-                      <td className="num text-right">{p.interval95 ? `${sig(p.interval95[0], 4)} to ${sig(p.interval95[1], 4)}` : "—"}</td>
+                      <td className="num text-right">{formatNumber(p.value, 5, RECORD_NUMBERS)}</td>
+                      <td className="num text-right">{p.standardError === null ? "—" : `± ${formatNumber(p.standardError, 3, RECORD_NUMBERS)}`}</td>
+                      <td className="num text-right">{p.interval95 ? `${formatNumber(p.interval95[0], 4, RECORD_NUMBERS)} to ${formatNumber(p.interval95[1], 4, RECORD_NUMBERS)}` : "—"}</td>
                     </tr>
                   ))}
                 </tbody>
@@ -173,7 +175,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
               { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
               { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR, units) },
               { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
-              { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${sig(r.references.feedVolumetricFlow, 4)} m³/s` },
+              { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${formatNumber(r.references.feedVolumetricFlow, 4, RECORD_NUMBERS)} m³/s` },
             ]}
           />
         </Section>
@@ -195,7 +197,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
               <ul className="list-disc pl-5 text-sm">
                 {cs.correlations.map((c) => (
                   <li key={c.type}>
-                    {c.type}: cost = {sig(c.a)} + {sig(c.b)} · V^{sig(c.n)} (source: {c.source})
+                    {c.type}: cost = {formatNumber(c.a, 4, RECORD_NUMBERS)} + {formatNumber(c.b, 4, RECORD_NUMBERS)} · V^{formatNumber(c.n, 4, RECORD_NUMBERS)} (source: {c.source})
                   </li>
                 ))}
               </ul>
@@ -232,7 +234,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
                 label: "Probability of missing the target",
                 value: `${fmtPercent(r.robustness.probabilityOfMissingTarget)} ± ${fmtPercent(r.robustness.probabilityStandardError)} (target ${fmtConversion(r.robustness.target)})`,
               },
-              { label: "Finished", value: fmtDate(r.robustness.finishedAt) },
+              { label: "Finished", value: formatDateTime(r.robustness.finishedAt) },
             ]}
           />
         )}

@@ -6,10 +6,9 @@ import { ReviewForm } from "@/components/pins/pins-panel";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 import { fetchJson } from "@/lib/client/fetch-json";
-import { formatQuantity } from "@/lib/units/display";
 import { REVIEWS_QUERY, type ReviewsAnswer } from "./reviews-query";
-
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+import { formatDateTime } from "@/lib/format/dates";
+import { PinSize } from "@/components/pins/pin-size";
 
 /** Designs waiting for this manager's review across the team's projects, oldest first. */
 export function ReviewInbox() {
@@ -34,15 +33,12 @@ export function ReviewInbox() {
               {r.projectName}
             </Link>
             <StageBadges sequence={r.sequence} />
-            <span className="num text-sm">
-              {formatQuantity("volume", r.totalVolume, "m3")}
-              {r.totalCost !== null ? ` · cost ${r.totalCost.toPrecision(4)}` : ""}
-            </span>
+            <PinSize totalVolume={r.totalVolume} totalCost={r.totalCost} />
           </div>
           <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[8rem_1fr]">
-            <dt className="text-ink-soft">Proposed by</dt>
+            <dt className="text-ink-soft">Pinned by</dt>
             <dd>
-              {r.pinnedByName}, <span className="num">{fmt.format(new Date(r.pinnedAt))} UTC</span>
+              {r.pinnedByName}, <span className="num">{formatDateTime(r.pinnedAt)}</span>
             </dd>
             {r.sweepName ? (
               <>

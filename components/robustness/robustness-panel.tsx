@@ -9,6 +9,7 @@ import { RobustnessResult } from "./robustness-result";
 import type { OfferedField, RobustnessList, RobustnessRunView } from "./types";
 import { UncertainRow, type Draft } from "./uncertain-row";
 import { spreadFractionFromPercent } from "./spread-percent";
+import { formatDateTime } from "@/lib/format/dates";
 
 function toInput(d: Draft): UncertainInput | { field: string; kind: string } {
   const num = (s: string) => (s.trim() === "" ? Number.NaN : Number(s));
@@ -163,7 +164,7 @@ export function RobustnessPanel({ base, canRun }: { base: string; canRun: boolea
           <select id="rb-history" className="input" value={latestId ?? ""} onChange={(e) => setShownId(e.target.value)}>
             {list.data.runs.map((r) => (
               <option key={r.id} value={r.id}>
-                {new Date(r.createdAt).toLocaleString("en-GB")} · {r.request.samples.toLocaleString("en")} samples · {r.status}
+                {formatDateTime(r.createdAt)} · {r.request.samples.toLocaleString("en")} samples · {r.status}
               </option>
             ))}
           </select>

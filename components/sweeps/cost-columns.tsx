@@ -1,6 +1,6 @@
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures } from "@tanstack/react-table";
-import { formatNumber } from "@/lib/charts/volume-units";
 import type { CandidateRow } from "./types";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 export const COST_COLUMN_TITLES = { installedCost: "Installed cost", allNewCost: "Installed, all new", reused: "Reused" } as const;
 
@@ -14,7 +14,7 @@ export function costColumns() {
   return [
     helper.accessor("installedCost", {
       header: COST_COLUMN_TITLES.installedCost,
-      cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span>,
+      cell: (i) => <span className="num">{formatNumber(i.getValue(), 4, TABLE_NUMBERS)}</span>,
     }),
     // With reuse the rank follows the installed cost above; the all-new figure shows what reuse saves.
     helper.accessor((c) => c.allNewCost ?? null, {
@@ -22,7 +22,7 @@ export function costColumns() {
       header: COST_COLUMN_TITLES.allNewCost,
       // Sorted in the database by its own columns only; the rank already follows the cost with reuse.
       enableSorting: false,
-      cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(i.getValue() as number, 4)}</span>,
+      cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(i.getValue() as number, 4, TABLE_NUMBERS)}</span>,
     }),
     helper.accessor("reused", {
       header: COST_COLUMN_TITLES.reused,

@@ -5,11 +5,12 @@ import { useMemo } from "react";
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures, useTable, type SortingState } from "@tanstack/react-table";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
-import { formatNumber, formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
+import { formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
 import type { CandidateRow } from "./types";
 import type { OptionalColumn, SortKey, SweepViewState } from "./view-state";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 const helper = createColumnHelper<typeof features, CandidateRow>();
@@ -106,11 +107,11 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         }),
         helper.accessor("totalVolume", {
           header: `Total volume, ${VOLUME_LABEL[unit]}`,
-          cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4)}</span>,
+          cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4, TABLE_NUMBERS)}</span>,
         }),
-        helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4)}</span> }),
+        helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4, TABLE_NUMBERS)}</span> }),
         ...costColumns(),
-        helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3)}×`}</span> }),
+        helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3, TABLE_NUMBERS)}×`}</span> }),
         helper.accessor((r) => r.probabilityMeet ?? null, {
           id: "probabilityMeet",
           header: "P(meet target)",
@@ -122,7 +123,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
             <ol className="flex flex-wrap gap-x-3 gap-y-0.5 text-xs">
               {i.getValue().map((s, k) => (
                 <li key={k} className="num whitespace-nowrap">
-                  <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4)}
+                  <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
                 </li>
               ))}
             </ol>

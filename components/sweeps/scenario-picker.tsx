@@ -2,9 +2,10 @@
 
 import { labelFor } from "@/lib/schemas/field-labels";
 import { useRef, useState, type KeyboardEvent } from "react";
-import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
+import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, unitLabel, type UnitKind } from "@/lib/units/display";
 import type { ScenarioRow } from "./types";
+import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 const FIELD_NAMES: Record<string, string> = {
   "feed.flowA": "Feed flow FA0, mol/s",
@@ -37,17 +38,17 @@ export const fieldName = (path: string, units?: TypedUnits) => {
 /** A grid value (stored SI) on the axis, in the kinetics' typed unit when it has one. */
 export const axisValue = (path: string, si: number, units?: TypedUnits) => {
   const typed = axisUnit(path, units);
-  return formatNumber(typed ? fromSI(typed.kind, si, typed.unit) : si, 4);
+  return formatNumber(typed ? fromSI(typed.kind, si, typed.unit) : si, 4, TABLE_NUMBERS);
 };
 
 export function describeOverrides(overrides: Record<string, number>): string {
-  const parts = Object.entries(overrides).map(([k, v]) => `${fieldName(k).split(",")[0]} ${formatNumber(v, 4)}`);
+  const parts = Object.entries(overrides).map(([k, v]) => `${fieldName(k).split(",")[0]} ${formatNumber(v, 4, TABLE_NUMBERS)}`);
   return parts.length ? parts.join(" · ") : "Base case";
 }
 
 export function formatObjective(v: number | null, objective: "volume" | "cost", unit: VolumeUnit): string {
   if (v === null) return "no feasible train";
-  return objective === "cost" ? `cost ${formatNumber(v, 4)}` : formatVolume(v, unit);
+  return objective === "cost" ? `cost ${formatNumber(v, 4, TABLE_NUMBERS)}` : formatVolume(v, unit);
 }
 
 export function ScenarioPicker({
@@ -195,7 +196,7 @@ export function ObjectiveHeatMap({
     setActive(to);
     tableRef.current?.querySelector<HTMLButtonElement>(`[data-cell="${to[0]}-${to[1]}"]`)?.focus();
   };
-  const cellText = (v: number | null) => (v === null ? "—" : objective === "cost" ? formatNumber(v, 3) : formatVolume(v, unit, 3));
+  const cellText = (v: number | null) => (v === null ? "—" : objective === "cost" ? formatNumber(v, 3, TABLE_NUMBERS) : formatVolume(v, unit, 3));
 
   return (
     <section className="card p-4" aria-labelledby="heatmap-title" data-testid="heat-map">

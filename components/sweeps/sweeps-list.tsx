@@ -4,6 +4,7 @@ import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { SWEEP_STATUS } from "@/lib/glossary";
+import { formatDateTime } from "@/lib/format/dates";
 
 export interface SweepRow {
   id: string;
@@ -14,7 +15,6 @@ export interface SweepRow {
   progress: { done: number; total: number; fraction: number };
 }
 
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 const STATUS: Record<SweepRow["status"], { text: string; glyph: string; tone: string }> = {
   queued: { text: SWEEP_STATUS.queued.label, glyph: "◷", tone: "border-line text-ink-soft" },
@@ -99,7 +99,7 @@ export function SweepsList({ projectId, initial, canCreate }: { projectId: strin
                     </span>
                   </div>
                 </td>
-                <td className="num whitespace-nowrap">{fmt.format(new Date(s.createdAt))}</td>
+                <td className="num whitespace-nowrap">{formatDateTime(s.createdAt)}</td>
               </tr>
             ))}
           </tbody>

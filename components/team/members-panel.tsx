@@ -12,6 +12,7 @@ import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
+import { formatDay } from "@/lib/format/dates";
 
 interface Member {
   userId: string;
@@ -27,7 +28,6 @@ interface Invitation {
   expiresAt: string;
 }
 
-const day = new Intl.DateTimeFormat("en-GB", { day: "2-digit", month: "short", year: "numeric" });
 const message = (err: unknown) => (err instanceof ApiError ? err.message : "Could not reach the server.");
 
 export function MembersPanel({ selfId }: { selfId: string }) {
@@ -73,7 +73,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
               <tr key={m.userId}>
                 <td>{m.name}</td>
                 <td className="text-ink-soft">{m.email}</td>
-                <td className="tabular-nums">{day.format(new Date(m.joinedAt))}</td>
+                <td className="tabular-nums">{formatDay(m.joinedAt)}</td>
                 <td>
                   <select
                     aria-label={`Role of ${m.email}`}
@@ -114,7 +114,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                 <tr key={i.id}>
                   <td>{i.email}</td>
                   <td>{i.role}</td>
-                  <td className="tabular-nums">{day.format(new Date(i.expiresAt))}</td>
+                  <td className="tabular-nums">{formatDay(i.expiresAt)}</td>
                   <td className="text-right">
                     <button type="button" className="btn-danger py-1" onClick={() => setPendingRevoke(i)} disabled={revoke.isPending} aria-label={`Revoke the invitation of ${i.email}`}>
                       Revoke

@@ -70,6 +70,17 @@ function normaliseReaction(reaction: ReactionSpec): ReactionSpec {
 }
 
 /**
+ * The feed and reaction of a spec (a rating spec, a design spec or a stored kinetics description)
+ * with every quantity string converted to its SI number, the feed temperature's default written
+ * out; other fields are kept as they are. The kinetics editor reads stored specs through it, so
+ * the screens and the engine read a quantity the same way.
+ * @throws EngineError naming the field for an unreadable or mismatched unit.
+ */
+export function normaliseKinetics<S extends { feed: FeedSpec; reaction: ReactionSpec }>(spec: S): S {
+  return { ...spec, feed: normaliseFeed(spec.feed), reaction: normaliseReaction(spec.reaction) };
+}
+
+/**
  * The same rating spec with every quantity string converted to its SI number (the feed temperature's
  * default written out), so that numeric overrides can be applied to it field by field and each later
  * resolution parses no units. Rating the result gives what rating the original gives.
@@ -77,9 +88,7 @@ function normaliseReaction(reaction: ReactionSpec): ReactionSpec {
  */
 export function normaliseRatingSpec(spec: RatingSpec): RatingSpec {
   return {
-    ...spec,
-    feed: normaliseFeed(spec.feed),
-    reaction: normaliseReaction(spec.reaction),
+    ...normaliseKinetics(spec),
     stages: spec.stages.map((s, k) => ({ ...s, volume: toSI(s.volume, DIM.volume, `stages.${k}.volume`) })),
   };
 }

@@ -3,10 +3,9 @@
  * the JSON export and the CSV export all render. Sections whose tables hold no row say so
  * ("not recorded") rather than disappearing, so a reader sees what was never done.
  */
-import { CAUTION_TEXTS, thermalWarnings } from "@/components/cautions/cautions";
 import type { PinnedDesign } from "@/db/schema";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
-import { CAUTIONS as ENGINE_CAUTIONS } from "@/lib/engine/cautions";
+import { CAUTIONS, MODEL_ASSUMPTIONS, thermalWarnings } from "@/lib/engine";
 import { PIN_STATE } from "@/lib/glossary";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
@@ -324,7 +323,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
           refusedSamples: num(rres.refusedSamples),
         }
       : { recorded: false },
-    assumptions: { note: pin.note, model: [...ENGINE_CAUTIONS], spec },
+    assumptions: { note: pin.note, model: [...MODEL_ASSUMPTIONS], spec },
     chart: {
       curve,
       stages: stages.map((s, i) => ({ type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: Array.isArray(plots[i].area) ? (plots[i].area as Point[]) : undefined })),
@@ -333,7 +332,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
     },
     cautions: {
       warnings: thermalWarnings({ thermal: adiabatic ? (thermal as { mode: string }) : null, stageTemperatures: stages.map((s) => s.temperatureOut).filter(Number.isFinite) }),
-      general: [...CAUTION_TEXTS],
+      general: [...CAUTIONS],
     },
   };
 }

@@ -4,14 +4,16 @@
  */
 import Papa from "papaparse";
 import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
+import { CAUTIONS } from "@/lib/engine";
 import type { exportCandidates } from "@/lib/services/candidate-export";
 import type { DesignReport } from "./design-report";
 import { STAGE_COLUMNS, VESSEL_SIZE_COLUMN } from "./report-format";
 
-const PREFACE = "# preliminary sizing from ideal-reactor models; heat removal, runaway and pressure relief need their own studies; check under local codes";
-
 /** A leading "# " line carrying user text, safe to open in a spreadsheet (see commentText). */
 const commentLine = (text: string) => `# ${commentText(text)}`;
+
+/** The cautions, in the words of every other place they are shown, on one comment line. */
+const PREFACE = commentLine(CAUTIONS.join(" "));
 
 const cell = (v: unknown) => (v === null || v === undefined || (typeof v === "number" && !Number.isFinite(v)) ? "" : v);
 

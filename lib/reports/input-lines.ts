@@ -4,7 +4,7 @@
  * calculation read without reading a data format. Pure.
  */
 import { labelFor } from "@/lib/schemas/field-labels";
-import { sig } from "./kinetics-words";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 export interface InputLine {
   label: string;
@@ -31,7 +31,7 @@ const SI_UNITS: Record<string, string> = {
 const skip = new Set(["shownUnits"]);
 
 function valueText(key: string, v: unknown): string {
-  if (typeof v === "number") return SI_UNITS[key] ? `${sig(v, 6)} ${SI_UNITS[key]}` : sig(v, 6);
+  if (typeof v === "number") return SI_UNITS[key] ? `${formatNumber(v, 6, RECORD_NUMBERS)} ${SI_UNITS[key]}` : formatNumber(v, 6, RECORD_NUMBERS);
   if (typeof v === "boolean") return v ? "yes" : "no";
   return String(v);
 }

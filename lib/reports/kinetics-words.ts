@@ -6,6 +6,7 @@
 
 import { fromSI, SI_UNIT, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 export interface WordLine {
   label: string;
@@ -14,15 +15,6 @@ export interface WordLine {
 
 type Obj = Record<string, unknown>;
 const obj = (v: unknown): Obj => (v && typeof v === "object" && !Array.isArray(v) ? (v as Obj) : {});
-
-/** A number to `digits` significant figures (exponent for very large or small), "—" when absent. */
-export function sig(v: unknown, digits = 4): string {
-  if (typeof v !== "number" || !Number.isFinite(v)) return "—";
-  if (v === 0) return "0";
-  const a = Math.abs(v);
-  if (a >= 1e6 || a < 1e-3) return v.toExponential(digits - 1);
-  return String(Number(v.toPrecision(digits)));
-}
 
 /** The units a reader chose for the feed and temperatures; absent, the stored SI units are shown. */
 export type WordUnits = Partial<Pick<DisplayUnits, "molarFlow" | "concentration" | "temperature" | "temperatureDifference">>;
@@ -36,16 +28,16 @@ function shown(v: unknown, kind: keyof WordUnits, siLabel: string, units?: WordU
   // Five figures for temperatures, so 333.15 K reads as typed rather than as 333.1 K.
   const digits = kind === "temperature" ? 5 : 4;
   if (typeof v !== "number") return quantity(v, siLabel);
-  const si = `${sig(v, digits)} ${siLabel}`;
+  const si = `${formatNumber(v, digits, RECORD_NUMBERS)} ${siLabel}`;
   if (!unit || unit === SI_UNIT[kind]) return si;
-  return `${sig(fromSI(kind, v, unit), digits)} ${unitLabel(kind, unit)} (${si})`;
+  return `${formatNumber(fromSI(kind, v, unit), digits, RECORD_NUMBERS)} ${unitLabel(kind, unit)} (${si})`;
 }
 
 /** A spec value with its SI unit; a quantity string ("2 mol/L") is shown as given. */
 export function quantity(v: unknown, unit: string): string {
   if (typeof v === "string") return v;
   if (typeof v !== "number") return "—";
-  return unit ? `${sig(v)} ${unit}` : sig(v);
+  return unit ? `${formatNumber(v, 4, RECORD_NUMBERS)} ${unit}` : formatNumber(v, 4, RECORD_NUMBERS);
 }
 
 const orderText = (orders: unknown) =>
@@ -102,7 +94,7 @@ export function describeRate(rate: unknown): { law: string; formula: string; par
         formula: "−rA interpolated (PCHIP) between measured points, never extrapolated",
         parameters: [
           { label: "Points", value: String(xs.length) },
-          { label: "Conversion range", value: xs.length ? `${sig(xs[0])} to ${sig(xs[xs.length - 1])}` : "—" },
+          { label: "Conversion range", value: xs.length ? `${formatNumber(xs[0], 4, RECORD_NUMBERS)} to ${formatNumber(xs[xs.length - 1], 4, RECORD_NUMBERS)}` : "—" },
         ],
       };
     }
@@ -120,7 +112,7 @@ export function describeFeed(feed: unknown, units?: WordUnits): WordLine[] {
     { label: "Feed temperature (T0)", value: shown(f.temperature ?? 298.15, "temperature", "K", units) + (f.temperature === undefined ? " (default)" : "") },
   ];
   const ratios = Object.entries(obj(f.ratios));
-  if (ratios.length) lines.push({ label: "Other species (C_i0/C_A0)", value: ratios.map(([s, v]) => `${s} ${sig(v)}`).join(", ") });
+  if (ratios.length) lines.push({ label: "Other species (C_i0/C_A0)", value: ratios.map(([s, v]) => `${s} ${formatNumber(v, 4, RECORD_NUMBERS)}`).join(", ") });
   return lines;
 }
 
@@ -131,7 +123,7 @@ export function describeReaction(reaction: unknown, units?: WordUnits): WordLine
   const stoich = Object.entries(obj(r.stoichiometry));
   const lines: WordLine[] = [
     { label: "Phase", value: r.phase === "gas" ? "gas (isobaric, ideal)" : "liquid (constant density)" },
-    { label: "Stoichiometry", value: stoich.length ? stoich.map(([s, n]) => `${s} ${sig(n)}`).join(", ") : "A −1" },
+    { label: "Stoichiometry", value: stoich.length ? stoich.map(([s, n]) => `${s} ${formatNumber(n, 4, RECORD_NUMBERS)}`).join(", ") : "A −1" },
   ];
   if (t.mode === "adiabatic") {
     lines.push({ label: "Thermal mode", value: "adiabatic" });

@@ -1,24 +1,15 @@
 /**
  * How the report shows its numbers, in one place for the page, the PDF and the CSV: the
- * stage table's columns with their units, and the formatting of volumes, times and dates.
+ * stage table's columns with their units, and the formatting of volumes and times (dates: lib/format/dates.ts).
  */
 import type { DesignReport, ReportStage } from "./design-report";
-import { sig } from "./kinetics-words";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import { resolveDisplayUnits, type DisplayPreference, type DisplayUnits } from "@/lib/units/display-preference";
-
-export { sig };
-
-const dateFmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
-
-/** "2 Dec 2026, 04:40 UTC", or "—". */
-export function fmtDate(iso: string | null | undefined): string {
-  return iso ? `${dateFmt.format(new Date(iso))} UTC` : "—";
-}
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 /** Volume and temperature in the reader's units; without `units`, m³ and K as stored. */
 export const fmtVolume = (m3: number | null | undefined, units?: Pick<DisplayUnits, "volume">) =>
-  m3 === null || m3 === undefined || !Number.isFinite(m3) ? "—" : units ? `${sig(fromSI("volume", m3, units.volume), 4)} ${unitLabel("volume", units.volume)}` : `${sig(m3, 4)} m³`;
+  m3 === null || m3 === undefined || !Number.isFinite(m3) ? "—" : units ? `${formatNumber(fromSI("volume", m3, units.volume), 4, RECORD_NUMBERS)} ${unitLabel("volume", units.volume)}` : `${formatNumber(m3, 4, RECORD_NUMBERS)} m³`;
 export const fmtConversion = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? "—" : x.toFixed(4));
 export const fmtKelvin = (t: number | null | undefined, units?: Pick<DisplayUnits, "temperature">) =>
   t === null || t === undefined || !Number.isFinite(t) ? "—" : units ? `${fromSI("temperature", t, units.temperature).toFixed(1)} ${unitLabel("temperature", units.temperature)}` : `${t.toFixed(1)} K`;
@@ -35,7 +26,7 @@ export const fmtMoney = (v: number | null | undefined, currency?: string | null)
 /** Residence time in seconds with minutes beside it for readers who think in minutes. */
 export function fmtResidence(s: number | null | undefined): string {
   if (s === null || s === undefined || !Number.isFinite(s)) return "—";
-  return s >= 120 ? `${sig(s, 4)} s (${sig(s / 60, 3)} min)` : `${sig(s, 4)} s`;
+  return s >= 120 ? `${formatNumber(s, 4, RECORD_NUMBERS)} s (${formatNumber(s / 60, 3, RECORD_NUMBERS)} min)` : `${formatNumber(s, 4, RECORD_NUMBERS)} s`;
 }
 
 export interface StageColumn {

@@ -6,14 +6,16 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import PDFDocument from "pdfkit";
-import { STAGE_STYLES } from "@/components/charts/stage-patterns";
+import { stageStyle } from "@/lib/charts/stage-styles";
 import { chartGeometry, ticks, type Point } from "@/lib/charts/levenspiel-geometry";
 import type { DesignReport } from "./design-report";
 import type { WordLine } from "./kinetics-words";
 import { inputLines } from "./input-lines";
-import { fmtConversion, fmtDate, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, sig, stageColumns } from "./report-format";
+import { fmtConversion, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, stageColumns } from "./report-format";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
+import { formatDateTime } from "@/lib/format/dates";
+import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
 const FONT_DIR = path.join(process.cwd(), "node_modules", "dejavu-fonts-ttf", "ttf");
 let fonts: { regular: Buffer; bold: Buffer } | null = null;
@@ -100,13 +102,13 @@ function header(doc: Doc, r: DesignReport) {
   doc.font("body").fontSize(9).fillColor(SOFT).text(`Seriatim design report · ${r.project.name}`, MARGIN, MARGIN);
   doc.moveDown(0.3).font("bold").fontSize(20).fillColor(INK).text(r.train.label || "Pinned design");
   doc.moveDown(0.2).font("body").fontSize(10).fillColor(INK);
-  const review = r.pin.reviewedBy ? `${r.pin.stateLabel} by ${r.pin.reviewedBy}, ${fmtDate(r.pin.reviewedAt)}` : r.pin.stateLabel;
+  const review = r.pin.reviewedBy ? `${r.pin.stateLabel} by ${r.pin.reviewedBy}, ${formatDateTime(r.pin.reviewedAt)}` : r.pin.stateLabel;
   pairs(doc, [
     { label: "Review state", value: review },
     ...(r.pin.reviewComment ? [{ label: "Review comment", value: `“${r.pin.reviewComment}”` }] : []),
-    { label: "Pinned by", value: `${r.pin.pinnedBy}, ${fmtDate(r.pin.pinnedAt)}` },
+    { label: "Pinned by", value: `${r.pin.pinnedBy}, ${formatDateTime(r.pin.pinnedAt)}` },
     { label: "Kinetics", value: `${r.kinetics.label} (${r.kinetics.law})` },
-    { label: "Generated", value: fmtDate(r.generatedAt) },
+    { label: "Generated", value: formatDateTime(r.generatedAt) },
   ]);
 }
 
@@ -139,7 +141,7 @@ function summary(doc: Doc, r: DesignReport, units?: DisplayUnits) {
     { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
     { label: "Total volume", value: fmtVolume(r.train.totalVolume, units) },
     ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost) }] : []),
-    { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : sig(r.train.ratioToPfr, 4) },
+    { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : formatNumber(r.train.ratioToPfr, 4, RECORD_NUMBERS) },
   ]);
 }
 
@@ -156,7 +158,7 @@ function axes(doc: Doc, box: { x: number; y: number; w: number; h: number }, xMa
   }
   for (const t of ticks(xMax, 5).filter((t) => t <= xMax)) {
     doc.moveTo(sx(t), box.y + box.h).lineTo(sx(t), box.y + box.h + 3).lineWidth(0.6).strokeColor(SOFT).stroke();
-    doc.font("body").fontSize(7.5).fillColor(SOFT).text(sig(t, 3), sx(t) - 20, box.y + box.h + 5, { width: 40, align: "center" });
+    doc.font("body").fontSize(7.5).fillColor(SOFT).text(formatNumber(t, 3, RECORD_NUMBERS), sx(t) - 20, box.y + box.h + 5, { width: 40, align: "center" });
   }
   doc.moveTo(box.x, box.y).lineTo(box.x, box.y + box.h).lineTo(box.x + box.w, box.y + box.h).lineWidth(0.8).strokeColor(SOFT).stroke();
   doc.font("body").fontSize(8.5).fillColor(INK).text(xLabel, box.x, box.y + box.h + 17, { width: box.w, align: "center" });
@@ -180,11 +182,11 @@ function levenspiel(doc: Doc, r: DesignReport) {
   const h = 230;
   ensureSpace(doc, h + 50);
   const box = { x: MARGIN + 64, y: doc.y + 8, w: width(doc) - 76, h };
-  const { sx, sy } = axes(doc, box, geo.xMax, 0, geo.yMax, "Conversion X", "FA0/(−rA), m³", (v) => sig(v, 3));
+  const { sx, sy } = axes(doc, box, geo.xMax, 0, geo.yMax, "Conversion X", "FA0/(−rA), m³", (v) => formatNumber(v, 3, RECORD_NUMBERS));
   doc.save();
   doc.rect(box.x, box.y, box.w, box.h).clip();
   for (const s of geo.stages) {
-    const style = STAGE_STYLES[s.index % STAGE_STYLES.length];
+    const style = stageStyle(s.index);
     polygonPath(doc, s.polygon, sx, sy);
     doc.fillColor(style.fill).fill();
     // Hatch inside the outline, one direction per stage, so stages stay apart in grey print.
@@ -276,9 +278,9 @@ function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   ensureSpace(doc, h + 45);
   const box = { x: MARGIN + 64, y: doc.y + 6, w: width(doc) - 76, h };
   const xMax = Math.min(1, Math.max(...r.stages.map((s) => s.conversionOut)) * 1.05 || 1);
-  const { sx, sy } = axes(doc, box, xMax, lo, hi, "Conversion X", `Temperature, ${units ? unitLabel("temperature", units.temperature) : "K"}`, (v) => sig(units ? fromSI("temperature", v, units.temperature) : v, 4));
+  const { sx, sy } = axes(doc, box, xMax, lo, hi, "Conversion X", `Temperature, ${units ? unitLabel("temperature", units.temperature) : "K"}`, (v) => formatNumber(units ? fromSI("temperature", v, units.temperature) : v, 4, RECORD_NUMBERS));
   for (const s of r.stages) {
-    const style = STAGE_STYLES[(s.index - 1) % STAGE_STYLES.length];
+    const style = stageStyle(s.index - 1);
     doc.moveTo(sx(s.conversionIn), sy(s.temperatureIn)).lineTo(sx(s.conversionOut), sy(s.temperatureOut)).lineWidth(1.6).strokeColor(style.stroke).stroke();
     doc.circle(sx(s.conversionOut), sy(s.temperatureOut), 2).fill(style.stroke);
     doc.font("body").fontSize(7.5).fillColor(INK).text(`${s.index} ${s.type} ${fmtKelvin(s.temperatureOut, units)}`, sx(s.conversionOut) - 80, sy(s.temperatureOut) - 11, { width: 78, align: "right" });
@@ -314,7 +316,7 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
       table(
         doc,
         ["Parameter", "Value", "Standard error", "95 % interval"],
-        r.source.fit.parameters.map((p) => [p.name, sig(p.value, 5), p.standardError === null ? "—" : `± ${sig(p.standardError, 3)}`, p.interval95 ? `${sig(p.interval95[0], 4)} to ${sig(p.interval95[1], 4)}` : "—"]),
+        r.source.fit.parameters.map((p) => [p.name, formatNumber(p.value, 5, RECORD_NUMBERS), p.standardError === null ? "—" : `± ${formatNumber(p.standardError, 3, RECORD_NUMBERS)}`, p.interval95 ? `${formatNumber(p.interval95[0], 4, RECORD_NUMBERS)} to ${formatNumber(p.interval95[1], 4, RECORD_NUMBERS)}` : "—"]),
         [1, 1, 1, 1.4],
         [false, true, true, true],
       );
@@ -327,7 +329,7 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
     { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
     { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR, units) },
     { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
-    { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${sig(r.references.feedVolumetricFlow, 4)} m³/s` },
+    { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${formatNumber(r.references.feedVolumetricFlow, 4, RECORD_NUMBERS)} m³/s` },
   ]);
   heading(doc, "Costs");
   const cs = r.costs.settings;
@@ -341,7 +343,7 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
     table(
       doc,
       ["Type", "a", "b", "n", "Source"],
-      cs.correlations.map((c) => [c.type, sig(c.a), sig(c.b), sig(c.n), c.source]),
+      cs.correlations.map((c) => [c.type, formatNumber(c.a, 4, RECORD_NUMBERS), formatNumber(c.b, 4, RECORD_NUMBERS), formatNumber(c.n, 4, RECORD_NUMBERS), c.source]),
       [0.6, 0.8, 0.8, 0.6, 2.5],
       [false, true, true, true, false],
     );
@@ -368,7 +370,7 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
       { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(rb.p5)} / ${fmtConversion(rb.p50)} / ${fmtConversion(rb.p95)}` },
       { label: "Mean outlet conversion", value: fmtConversion(rb.mean) },
       { label: "Probability of missing the target", value: `${fmtPercent(rb.probabilityOfMissingTarget)} ± ${fmtPercent(rb.probabilityStandardError)} (target ${fmtConversion(rb.target)})` },
-      { label: "Finished", value: fmtDate(rb.finishedAt) },
+      { label: "Finished", value: formatDateTime(rb.finishedAt) },
     ]);
   }
   heading(doc, "Assumptions");
@@ -388,7 +390,7 @@ function footers(doc: Doc, r: DesignReport) {
     const saved = doc.page.margins.bottom;
     doc.page.margins.bottom = 0;
     doc.font("body").fontSize(7.5).fillColor(SOFT);
-    doc.text(`${r.project.name} · ${r.train.label} · generated ${fmtDate(r.generatedAt)}`, MARGIN, y, { width: width(doc) - 80, lineBreak: false });
+    doc.text(`${r.project.name} · ${r.train.label} · generated ${formatDateTime(r.generatedAt)}`, MARGIN, y, { width: width(doc) - 80, lineBreak: false });
     doc.text(`Page ${i + 1} of ${range.count}`, MARGIN + width(doc) - 80, y, { width: 80, align: "right", lineBreak: false });
     doc.page.margins.bottom = saved;
   }

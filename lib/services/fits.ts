@@ -4,6 +4,7 @@ import { kineticsModels, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { teamKineticsSources } from "@/db/queries/kinetics-sources";
 import { teamDatasetVersion } from "@/db/queries/team-dataset-versions";
 import { assertCan, type Actor } from "@/lib/authz/policy";
+import { CAUTIONS } from "@/lib/engine";
 import { AppError, notFound } from "@/lib/errors";
 import { AIC_CRITERION, dataRange, fitSummary, MissingFeedConcentration, preparePoints, toEngineLaw, tryFit, type DatasetRow, type PreparedPoints } from "@/lib/fitting/from-dataset";
 import type { FitRequest, FitResponse, FitSave, LawFitOut } from "@/lib/schemas/fits";
@@ -15,7 +16,8 @@ import { addKineticsVersion, createKineticsModel } from "./kinetics";
 export const FIT_CAUTIONS = [
   "A fitted rate law is only valid inside the measured range of conversion, concentration and temperature; a design that runs outside it extrapolates.",
   "Standard errors and 95 % intervals come from the linearised covariance at the optimum and assume independent, equal-variance errors.",
-  "Ideal reactors only: the sizes built on this law ignore heat removal, runaway and pressure relief, which need their own studies; have a licensed engineer review any design under your local codes.",
+  // The sizes built on the law carry the product's cautions, in the one wording shown everywhere.
+  ...CAUTIONS,
 ];
 
 /** A dataset version of the actor's team with its dataset, or 404 (also for another team's id). */

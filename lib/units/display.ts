@@ -8,6 +8,8 @@
  * Pure functions, no I/O; shared by the kinetics editor, the sweep builder and the result tables.
  */
 
+import { formatNumber } from "@/lib/format/numbers";
+
 export interface UnitDef {
   /** Label shown in pickers and beside numbers. */
   label: string;
@@ -153,15 +155,6 @@ export function rateConstantLabel(order: number, concentration: string, time: st
   const [amount, volume] = c.split("/");
   const base = `(${volume}/${amount})`;
   return `${base}${p === 1 ? "" : `^${p}`}/${t}`;
-}
-
-/** A number for display: significant digits, no trailing noise, exponent for very large or small. */
-export function formatNumber(value: number | null | undefined, digits = 4): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
-  if (value === 0) return "0";
-  const abs = Math.abs(value);
-  if (abs >= 1e6 || abs < 1e-3) return value.toExponential(digits - 1).replace(/\.?0+e/, "e");
-  return String(Number(value.toPrecision(digits)));
 }
 
 /** An SI value shown in `unit` with its label, e.g. "38.38 L". */

@@ -1,7 +1,7 @@
 import { mkdirSync, readFileSync } from "node:fs";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
 import { PDFParse } from "pdf-parse";
-import { CAUTION_TEXTS } from "@/components/cautions/cautions";
+import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
 import { appReady, DEMO_PASSWORD, USERS, type Who } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 

@@ -3,7 +3,7 @@ import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import Papa from "papaparse";
 import { PDFParse } from "pdf-parse";
-import { CAUTION_TEXTS } from "@/components/cautions/cautions";
+import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
 import type { DesignReport } from "@/lib/reports/design-report";
 import { signedInContext, USERS } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";

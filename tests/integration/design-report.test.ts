@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import Papa from "papaparse";
 import { PDFParse } from "pdf-parse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { CAUTION_TEXTS } from "@/components/cautions/cautions";
+import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
 import { candidates, inventoryVessels, kineticsSources, pinnedDesigns, projectCostSettings, projects, rateDatasets, rateDatasetVersions, robustnessRuns, users } from "@/db/schema";
 import { seedDemoData } from "@/lib/demo/seed";
 import { loadActor } from "@/lib/authz/actor";

@@ -22,6 +22,6 @@ describe("engine boundaries", () => {
   });
 
   it("index.ts exports exactly the public API", () => {
-    expect(Object.keys(engine).sort()).toEqual(["DIM", "EMPTY_STAGE_STEP", "EngineError", "GAS_CONSTANT", "MAX_RATED_VESSEL", "MAX_STAGES", "VOLUME_LIMITS", "designTrains", "normaliseRatingSpec", "rateTrain", "rateTrainOutlet", "toSI"]);
+    expect(Object.keys(engine).sort()).toEqual(["CAUTIONS", "DIM", "EMPTY_STAGE_STEP", "EngineError", "GAS_CONSTANT", "MAX_RATED_VESSEL", "MAX_STAGES", "MODEL_ASSUMPTIONS", "VOLUME_LIMITS", "designTrains", "normaliseKinetics", "normaliseRatingSpec", "rateTrain", "rateTrainOutlet", "thermalWarnings", "toSI"]);
   });
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
+import { formatNumber } from "@/lib/format/numbers";
 import {
   convert,
-  formatNumber,
   formatQuantity,
   fromSI,
   rateConstantFromSI,

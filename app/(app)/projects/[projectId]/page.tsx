@@ -14,10 +14,10 @@ import { pinLabels } from "@/lib/services/pin-labels";
 import { listPins } from "@/lib/services/pins";
 import { listSweeps } from "@/lib/services/sweeps";
 import { loadProjectPage } from "./project-data";
+import { formatDateTime } from "@/lib/format/dates";
 
 export const dynamic = "force-dynamic";
 
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 const wire = <T,>(v: unknown) => JSON.parse(JSON.stringify(v)) as T;
 
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
@@ -105,7 +105,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
                     <tr key={m.id}>
                       <td className="font-medium">{m.name}</td>
                       <td className="num">v{m.latestVersion?.version ?? "—"}</td>
-                      <td className="num whitespace-nowrap">{m.latestVersion ? fmt.format(m.latestVersion.createdAt) : "—"}</td>
+                      <td className="num whitespace-nowrap">{formatDateTime(m.latestVersion?.createdAt)}</td>
                       <td className="text-right">
                         <Link href={`/projects/${project.id}/kinetics/${m.id}`} className="btn-quiet py-1" aria-label={`Edit ${m.name} (saves a new version)`}>
                           {canAuthor ? "Edit / new version" : "Open"}

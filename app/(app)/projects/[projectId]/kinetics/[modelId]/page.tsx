@@ -3,21 +3,21 @@ import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { notFound } from "next/navigation";
 import { specToForm } from "@/components/kinetics/kinetics-form-state";
 import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
-import { normaliseKineticsSpec } from "@/components/kinetics/normalise-spec";
 import { loadProjectPage, orNotFound } from "../../project-data";
 import { FormMessage } from "@/components/ui/field";
 import { getDb } from "@/db/client";
+import { normaliseKinetics } from "@/lib/engine";
 import { can } from "@/lib/authz/policy";
 import { uuidSchema } from "@/lib/schemas/ids";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { getKineticsModel } from "@/lib/services/kinetics";
 import { FitSourceLine } from "@/components/fitting/fit-source-line";
 import { listKineticsSources } from "@/lib/services/fits";
+import { formatDateTime } from "@/lib/format/dates";
 
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Kinetics" };
 
-const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 export default async function KineticsModelPage({
   params,
@@ -36,7 +36,7 @@ export default async function KineticsModelPage({
   const sources = new Map((await listKineticsSources(getDb(), actor, model.versions.map((v) => v.id))).map((s) => [s.kineticsVersionId, s]));
   let initial;
   try {
-    initial = specToForm(normaliseKineticsSpec(latest.spec as KineticsSpec), { note: "" });
+    initial = specToForm(normaliseKinetics(latest.spec as KineticsSpec), { note: "" });
   } catch {
     initial = null;
   }
@@ -48,7 +48,7 @@ export default async function KineticsModelPage({
         <div>
           <h1 data-testid="kinetics-title">{model.name}</h1>
           <p className="text-ink-soft">
-            Latest: version {latest.version}, {fmt.format(latest.createdAt)} UTC{latest.note ? ` · ${latest.note}` : ""}
+            Latest: version {latest.version}, {formatDateTime(latest.createdAt)}{latest.note ? ` · ${latest.note}` : ""}
           </p>
           {sources.has(latest.id) ? <FitSourceLine projectId={project.id} source={sources.get(latest.id)!} testId="latest-source" /> : null}
         </div>
@@ -85,7 +85,7 @@ export default async function KineticsModelPage({
             {model.versions.map((v) => (
               <tr key={v.id}>
                 <td className="num">v{v.version}</td>
-                <td className="num whitespace-nowrap">{fmt.format(v.createdAt)}</td>
+                <td className="num whitespace-nowrap">{formatDateTime(v.createdAt)}</td>
                 <td>{((v.spec as KineticsSpec).reaction?.rate?.law ?? "—").toString()}</td>
                 <td className="text-ink-soft">
                   {v.note || (sources.has(v.id) ? null : "—")}
