@@ -1,17 +1,12 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
+import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
 const stamp = Date.now().toString(36);
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
 
 async function newProject(name: string) {
   const res = await engineer.post("/api/projects", { data: { name, description: "confirmations" } });
@@ -21,7 +16,7 @@ async function newProject(name: string) {
 
 test.beforeAll(async ({ browser }) => {
   engineer = await signedInContext("engineer");
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
 test.afterAll(async () => {
   await browserCtx.close();
@@ -38,7 +33,7 @@ test("removing a vessel asks first; Escape keeps it, confirming removes it and s
   await remove.click();
   const dialog = page.getByRole("dialog", { name: `Remove ${tag}?` });
   await expect(dialog).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
   await expect(remove).toBeFocused();
@@ -79,7 +74,7 @@ test("a candidate already pinned says so, pinning over a waiting design warns fi
   await page.getByTestId("pin-button").click();
   const dialog = page.getByRole("dialog", { name: "Supersede the current design?" });
   await expect(dialog).toContainText("pending review");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
   const before = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { state: string }[] };

@@ -1,18 +1,13 @@
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { appReady, signedInContext } from "./fixtures";
 import { insertMember } from "./member-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs } from "./helpers/sign-in";
 
 // The team page asks before revoking an invitation or changing a role. Every test works on an
 // invitation or member it makes itself: the demo users' roles are what other specs sign in as.
 let admin: APIRequestContext;
 let browserCtx: BrowserContext;
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
 
 async function openInvitationEmails(): Promise<string[]> {
   const res = await admin.get("/api/team/invitations");
@@ -35,7 +30,7 @@ async function teamPage(): Promise<Page> {
 
 test.beforeAll(async ({ browser }) => {
   admin = await signedInContext("admin");
-  browserCtx = await browser.newContext({ storageState: await admin.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, admin);
 });
 test.afterAll(async () => {
   await browserCtx.close();
@@ -56,7 +51,7 @@ test("revoking an invitation asks first; Escape keeps it and gives focus back, c
   await expect(dialog).toBeVisible();
   await expect(dialog).toContainText(invitee);
   await expect(dialog.getByRole("button", { name: "Revoke invitation" })).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
@@ -92,7 +87,7 @@ test("changing a role asks first; the drop-down keeps the old role until confirm
   await expect(dialog).toContainText(`${member.email} goes from engineer to viewer`);
   // Nothing is changed yet: the drop-down behind the question still shows the role the member has.
   await expect(select).toHaveValue("engineer");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();

@@ -1,9 +1,9 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
+import { appReady, signedInContext } from "./fixtures";
 import { emptyStageCount, leadingNumber, listCandidates } from "./ranked-rows";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, signInWithForm } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -16,31 +16,15 @@ test.beforeAll(async ({ browser }) => {
   projectId = await firstProjectId(engineer);
   modelLabel = `Read-right kinetics ${Date.now()}`;
   versionId = (await createModel(engineer, projectId, modelLabel)).version.id;
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
 test.afterAll(async () => {
   await browserCtx.close();
   await engineer.dispose();
 });
 
-/** No serious or critical axe-core violation inside `selector`, as the page stands. */
-async function expectAccessible(page: Page, selector: string) {
-  const result = await new AxeBuilder({ page }).include(selector).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
-
-async function signInAsEngineer(page: Page) {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS.engineer, DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
-  await appReady(page);
-}
-
 test("the kinetics preview never shows a figure it cannot stand behind", async ({ page }) => {
-  await signInAsEngineer(page);
+  await signInWithForm(page, "engineer");
   const name = `Preview limits ${Date.now()}`;
   const create = page.getByRole("form", { name: "New project" });
   await create.getByLabel("New project").fill(name);
@@ -69,8 +53,7 @@ test("the kinetics preview never shows a figure it cannot stand behind", async (
 
   await k.fill("0.002");
   await expect(pfr).toHaveText("38.38 L");
-  const axe = await new AxeBuilder({ page }).include("[data-testid=kinetics-preview]").analyze();
-  expect(axe.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => v.id)).toEqual([]);
+  await expectNoSeriousA11yViolations(page, "[data-testid=kinetics-preview]");
 });
 
 test("an expression whose rate overflows is named in the preview, never drawn as 0 L", async () => {
@@ -103,7 +86,7 @@ test("rating a 1e30 m³ vessel is refused with a message naming the stage volume
   await expect(first).toContainText("Stage 1 volume");
   await expect(page.getByText("Nothing was rated")).toBeVisible();
   await expect(page.getByTestId("rating-result")).toHaveCount(0);
-  await expectAccessible(page, "main");
+  await expectNoSeriousA11yViolations(page, "main");
   // A sensible vessel after the slip is rated as usual.
   await first.getByLabel("Volume").fill("10");
   await first.getByLabel("Unit").selectOption("L");
@@ -263,7 +246,7 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   await values.fill("1,,2");
   await expect(page.locator("#s-grid-0-values-error")).toContainText("missing between two commas");
   await expect(trains).toHaveText("—");
-  await expectAccessible(page, "form[aria-label='New sweep']");
+  await expectNoSeriousA11yViolations(page, "form[aria-label='New sweep']");
   await values.fill("1, 2");
   await expect(page.getByTestId("scenario-count")).toHaveText("2");
   await expect(trains).toHaveText("28");

@@ -1,6 +1,7 @@
 import { expect, test, type APIRequestContext, type Browser, type Locator, type Page } from "@playwright/test";
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId } from "./sweep-fixtures";
+import { browserAs } from "./helpers/sign-in";
 
 // A message a person reads names fields by their labels: no camel-case key, no dotted path.
 const PATHY = /\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+/;
@@ -68,7 +69,7 @@ test("a finished sweep reads the same on the project list and on its page", asyn
 // --- On screen, as the demo design engineer: every alert a form shows reads in labels. ---
 
 async function engineerPage(browser: Browser, path: string): Promise<Page> {
-  const ctx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  const ctx = await browserAs(browser, engineer);
   const page = await ctx.newPage();
   await page.goto(path);
   await appReady(page);
