@@ -17,7 +17,8 @@ import { rateFixedTrain } from "@/lib/services/rating";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
 import { listReviewInbox } from "@/lib/services/reviews";
 import type { TestDatabase } from "../helpers/test-db";
-import { accessOutcome, DEMO_EMAILS, demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase, type DemoPerson } from "./helpers/demo-team";
+import { DEMO_USERS, type DemoPerson } from "../helpers/demo-people";
+import { accessOutcome, demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 
 type Who = DemoPerson;
 type Outcome = "ok" | "forbidden" | "not_found";
@@ -126,7 +127,7 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
 
 describe("authorisation matrix over the services", () => {
   for (const row of MATRIX) {
-    for (const who of Object.keys(DEMO_EMAILS) as Who[]) {
+    for (const who of Object.keys(DEMO_USERS) as Who[]) {
       it(`${row.name} as ${who} → ${row.expect[who]}`, async () => {
         expect(await accessOutcome(() => row.run(actors[who]))).toBe(row.expect[who]);
       });
@@ -142,7 +143,7 @@ describe("authorisation matrix over the services", () => {
     const theirs = await listProjects(t.db, actors.otherTeam, { includeArchived: true });
     expect(theirs.map((p) => p.id)).not.toContain(engineersProject);
     const members = await listMembers(t.db, actors.otherTeam);
-    expect(members.map((m) => m.email)).toEqual([DEMO_EMAILS.otherTeam]);
+    expect(members.map((m) => m.email)).toEqual([DEMO_USERS.otherTeam]);
     const audit = await listAuditEntries(t.db, actors.otherTeam);
     expect(audit.every((e) => e.entityId !== engineersProject)).toBe(true);
   });
@@ -208,7 +209,7 @@ describe("authorisation matrix over the rate-data services", () => {
   ];
   const expected: Record<Who, Outcome> = { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" };
   for (const row of DATASET_MATRIX) {
-    for (const who of Object.keys(DEMO_EMAILS) as Who[]) {
+    for (const who of Object.keys(DEMO_USERS) as Who[]) {
       it(`${row.name} as ${who} → ${expected[who]}`, async () => {
         expect(await accessOutcome(() => row.run(actors[who]))).toBe(expected[who]);
       });

@@ -12,7 +12,8 @@ import { datasetCreateFieldsSchema, type DatasetMapping } from "@/lib/schemas/da
 import { addDatasetVersion, createDataset, createTableKinetics, getDataset, getDatasetVersion, listDatasetSources, listDatasets, previewDataset } from "@/lib/services/datasets";
 import { createKineticsModel } from "@/lib/services/kinetics";
 import { actorByEmail, type TestDatabase } from "../helpers/test-db";
-import { DEMO_EMAILS, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
+import { DEMO_USERS } from "../helpers/demo-people";
+import { ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 import { refusal } from "../helpers/refusal";
 
 const fixture = (name: string) => new Uint8Array(readFileSync(`tests/fixtures/datasets/${name}`));
@@ -40,7 +41,7 @@ async function counts() {
 
 beforeAll(async () => {
   t = await seededTestDatabase();
-  engineer = await actorByEmail(t.db, DEMO_EMAILS.engineer);
+  engineer = await actorByEmail(t.db, DEMO_USERS.engineer);
   projectId = await projectIdNamed(t.db, ESTER_PROJECT);
 });
 afterAll(() => t.drop());

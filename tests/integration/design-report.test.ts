@@ -13,7 +13,8 @@ import { exportCandidates } from "@/lib/services/candidate-export";
 import { listCandidates } from "@/lib/services/candidates";
 import { reviewPin } from "@/lib/services/pins";
 import type { TestDatabase } from "../helpers/test-db";
-import { accessOutcome, demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase, type DemoPerson } from "./helpers/demo-team";
+import type { DemoPerson } from "../helpers/demo-people";
+import { accessOutcome, demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 
 let t: TestDatabase;
 let actors: Record<DemoPerson, Actor>;

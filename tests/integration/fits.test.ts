@@ -8,7 +8,8 @@ import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
 import { createKineticsModel } from "@/lib/services/kinetics";
 import { actorByEmail, type TestDatabase } from "../helpers/test-db";
 import { refusal } from "../helpers/refusal";
-import { DEMO_EMAILS, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
+import { DEMO_USERS } from "../helpers/demo-people";
+import { ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 
 const R = 8.314462618; // J/(mol K), CODATA 2018 exact
 
@@ -29,8 +30,8 @@ async function insertVersion(name: string, rows: Record<string, number>[], feedC
 
 beforeAll(async () => {
   t = await seededTestDatabase();
-  engineer = await actorByEmail(t.db, DEMO_EMAILS.engineer);
-  otherTeam = await actorByEmail(t.db, DEMO_EMAILS.otherTeam);
+  engineer = await actorByEmail(t.db, DEMO_USERS.engineer);
+  otherTeam = await actorByEmail(t.db, DEMO_USERS.otherTeam);
   projectId = await projectIdNamed(t.db, ESTER_PROJECT);
   // Noise-free demo data generated from the closed-form laws (invented parameters).
   const C = Array.from({ length: 15 }, (_, i) => 80 + i * 60);

@@ -4,18 +4,8 @@ import { projects } from "@/db/schema";
 import { seedDemoData } from "@/db/seed";
 import type { Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
+import { DEMO_USERS, type DemoPerson } from "../../helpers/demo-people";
 import { actorByEmail, createTestDatabase, type TestDatabase } from "../../helpers/test-db";
-
-/** The demo team's people, one of each role, and an admin of the other demo team (all seeded by db/seed). */
-export const DEMO_EMAILS = {
-  admin: "ada.admin@brightwater.example",
-  manager: "marta.manager@brightwater.example",
-  engineer: "eli.engineer@brightwater.example",
-  viewer: "vic.viewer@brightwater.example",
-  otherTeam: "kai.admin@kestrel.example",
-} as const;
-
-export type DemoPerson = keyof typeof DEMO_EMAILS;
 
 /** The seeded project most tests work in. */
 export const ESTER_PROJECT = "Ester line 3 revamp";
@@ -29,8 +19,8 @@ export async function seededTestDatabase(): Promise<TestDatabase> {
 
 /** Each demo person as an actor in their active team. */
 export async function demoActors(db: Database): Promise<Record<DemoPerson, Actor>> {
-  const people = Object.keys(DEMO_EMAILS) as DemoPerson[];
-  const actors = await Promise.all(people.map((who) => actorByEmail(db, DEMO_EMAILS[who])));
+  const people = Object.keys(DEMO_USERS) as DemoPerson[];
+  const actors = await Promise.all(people.map((who) => actorByEmail(db, DEMO_USERS[who])));
   return Object.fromEntries(people.map((who, i) => [who, actors[i]])) as Record<DemoPerson, Actor>;
 }
 
