@@ -2,7 +2,7 @@ import { expect, test, type APIRequestContext, type BrowserContext } from "@play
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -18,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
   engineer = await signedInContext("engineer");
   browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 test("removing a vessel asks first; Escape keeps it, confirming removes it and says so", async () => {
   const tag = `R-${stamp}`;

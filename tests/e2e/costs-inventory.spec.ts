@@ -2,7 +2,7 @@ import { expect, test, type APIRequestContext, type BrowserContext } from "@play
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId, SECOND_ORDER } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -18,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
   versionId = (await createModel(engineer, projectId, modelLabel)).version.id;
   browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where", async () => {
   const page = await browserCtx.newPage();

@@ -1,7 +1,7 @@
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { signedInContext } from "./fixtures";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -18,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
     });
   });
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 function watchConsole(page: Page) {
   page.on("console", (m) => {

@@ -3,7 +3,7 @@ import { appReady, signedInContext } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 // The keyboard path of an engineer on the sweep page: a 4 x 3 grid, so the heat map has twelve
 // cells, any of which used to be its own tab stop.
@@ -30,10 +30,7 @@ test.beforeAll(async ({ browser }) => {
   sweepUrl = `/projects/${projectId}/sweeps/${sweep.id}`;
   browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx?.close();
-  await engineer?.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 async function openSweep(page: Page) {
   await page.goto(sweepUrl);

@@ -2,7 +2,7 @@ import { expect, test, type APIRequestContext, type BrowserContext, type Page } 
 import { appReady, signedInContext } from "./fixtures";
 import { insertMember } from "./member-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 // The team page asks before revoking an invitation or changing a role. Every test works on an
 // invitation or member it makes itself: the demo users' roles are what other specs sign in as.
@@ -32,10 +32,7 @@ test.beforeAll(async ({ browser }) => {
   admin = await signedInContext("admin");
   browserCtx = await browserAs(browser, admin);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await admin.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, admin));
 
 test("revoking an invitation asks first; Escape keeps it and gives focus back, confirming revokes it", async () => {
   const invitee = `revoke.me.${Date.now()}@brightwater.example`;

@@ -5,7 +5,7 @@ import { CAUTION_TEXTS } from "@/components/cautions/cautions";
 import type { DesignReport } from "@/lib/reports/design-report";
 import { signedInContext, USERS } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { pdfText } from "./helpers/pdf-text";
 
@@ -25,10 +25,7 @@ test.beforeAll(async ({ browser }) => {
   pinId = pins.pins.find((p) => p.note === DEMO_NOTE)!.id;
   browserCtx = await browserAs(browser, manager, { acceptDownloads: true });
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await manager.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, manager));
 
 test("the manager opens the demo pin's report from the project page, reads the train and cautions, and downloads the PDF", async () => {
   const report = ((await (await manager.get(`/api/pins/${pinId}/export.json`)).json()) as { report: DesignReport }).report;

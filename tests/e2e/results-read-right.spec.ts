@@ -3,7 +3,7 @@ import { appReady, signedInContext } from "./fixtures";
 import { emptyStageCount, leadingNumber, listCandidates } from "./ranked-rows";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs, signInWithForm } from "./helpers/sign-in";
+import { browserAs, closeAll, signInWithForm } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -18,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
   versionId = (await createModel(engineer, projectId, modelLabel)).version.id;
   browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 test("the kinetics preview never shows a figure it cannot stand behind", async ({ page }) => {
   await signInWithForm(page, "engineer");

@@ -2,7 +2,7 @@ import { expect, test, type APIRequestContext } from "@playwright/test";
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let manager: APIRequestContext;
@@ -28,10 +28,7 @@ test.beforeAll(async () => {
   expect(pinned.status()).toBe(201);
   pinId = ((await pinned.json()) as { pin: { id: string } }).pin.id;
 });
-test.afterAll(async () => {
-  await engineer.dispose();
-  await manager.dispose();
-});
+test.afterAll(() => closeAll(engineer, manager));
 
 test("the manager's inbox lists the waiting pin, the header counts it, and approving removes it from both", async ({ browser }) => {
   const ctx = await browserAs(browser, manager);

@@ -3,7 +3,7 @@ import { expectReadableAxes } from "./chart-fixtures";
 import { appReady, signedInContext } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -18,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
   pin = pins.pins.find((p) => p.note.includes("(demo)"))!;
   browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 const percent = (text: string) => Number(text.replace(/[^0-9.]/g, "")) / 100;
 

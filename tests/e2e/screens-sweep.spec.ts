@@ -3,7 +3,7 @@ import { expect, test, type APIRequestContext, type BrowserContext, type Page } 
 import { signedInContext } from "./fixtures";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
-import { browserAs } from "./helpers/sign-in";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 const SCREENS = "test-results/screens";
 let engineer: APIRequestContext;
@@ -18,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
   versionId = (await createModel(engineer, projectId, `Screens kinetics ${Date.now()}`)).version.id;
   browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 /** The numbers of one column of the ranked table, top to bottom. */
 async function columnNumbers(page: Page, column: number): Promise<number[]> {

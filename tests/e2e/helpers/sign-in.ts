@@ -22,3 +22,14 @@ export async function signInWithForm(page: Page, who: Who, timeout = 30_000) {
 export async function browserAs(browser: Browser, api: APIRequestContext, opts: { acceptDownloads?: boolean } = {}): Promise<BrowserContext> {
   return browser.newContext({ storageState: await api.storageState(), viewport: DESKTOP, ...opts });
 }
+
+type Closable = { close(): Promise<void> } | { dispose(): Promise<void> } | undefined;
+
+/** For afterAll: closes the browser contexts and disposes the API contexts a spec opened, in the order given. */
+export async function closeAll(...opened: Closable[]) {
+  for (const c of opened) {
+    if (!c) continue;
+    if ("close" in c) await c.close();
+    else await c.dispose();
+  }
+}
