@@ -1,10 +1,8 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
+import { useSchemaForm } from "@/components/ui/use-schema-form";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationAcceptSchema } from "@/lib/schemas/accounts";
@@ -14,10 +12,7 @@ import { useHydrated } from "@/components/ui/use-hydrated";
 export function AcceptInvitationForm({ token, email }: { token: string; email: string }) {
   const [formError, setFormError] = useState<string>();
   const [existing, setExisting] = useState(false);
-  const form = useForm<z.input<typeof invitationAcceptSchema>, unknown, z.output<typeof invitationAcceptSchema>>({
-    resolver: zodResolver(invitationAcceptSchema),
-    defaultValues: { token, name: "", password: "" },
-  });
+  const form = useSchemaForm(invitationAcceptSchema, { defaultValues: { token, name: "", password: "" } });
   const { errors, isSubmitting } = form.formState;
   const hydrated = useHydrated();
 

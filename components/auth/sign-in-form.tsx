@@ -1,10 +1,8 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
+import { useSchemaForm } from "@/components/ui/use-schema-form";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/accounts";
 import { requestSignInLink, signInWithPassword } from "./auth-client";
@@ -49,9 +47,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
 function PasswordForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => void }) {
   const [formError, setFormError] = useState<string>();
   const hydrated = useHydrated();
-  const form = useForm<z.input<typeof passwordSignInSchema>, unknown, z.output<typeof passwordSignInSchema>>({
-    resolver: zodResolver(passwordSignInSchema),
-  });
+  const form = useSchemaForm(passwordSignInSchema);
   const { errors, isSubmitting } = form.formState;
 
   const clearStale = () => {
@@ -89,9 +85,7 @@ function LinkForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => 
   const [sentTo, setSentTo] = useState<string>();
   const hydrated = useHydrated();
   const [formError, setFormError] = useState<string>();
-  const form = useForm<z.input<typeof linkSignInSchema>, unknown, z.output<typeof linkSignInSchema>>({
-    resolver: zodResolver(linkSignInSchema),
-  });
+  const form = useSchemaForm(linkSignInSchema);
   const { errors, isSubmitting } = form.formState;
 
   const clearStale = () => {

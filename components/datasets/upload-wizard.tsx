@@ -6,9 +6,10 @@ import { useId, useMemo, useState } from "react";
 import { Field, FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { guessMapping } from "@/lib/datasets/guess-mapping";
-import { COLUMN_ROLES, DATASET_UNITS, datasetUnitOptions, DEFAULT_UNITS, ROLE_LABELS, ROLE_UNIT_KIND, type ColumnRole, type ValueRole } from "@/lib/datasets/units";
+import { COLUMN_ROLES, DATASET_UNITS, DEFAULT_UNITS, ROLE_LABELS, ROLE_UNIT_KIND, type ColumnRole, type ValueRole } from "@/lib/datasets/units";
 import type { DatasetMapping } from "@/lib/schemas/datasets";
 import type { DatasetPreview, PreviewLine } from "@/lib/services/datasets";
+import { DatasetUnitOptions } from "./dataset-unit-options";
 import { Pager, usePage } from "./pager";
 
 export type UploadTarget = { kind: "new"; projectId: string } | { kind: "version"; projectId: string; datasetId: string; datasetName: string; nextVersion: number };
@@ -144,11 +145,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                         <span className="text-ink-soft">—</span>
                       ) : (
                         <select aria-label={`Unit of column "${h}"`} className="input w-auto" value={mapping.units[role] ?? DEFAULT_UNITS[role]} onChange={(e) => setUnit(role, e.target.value)}>
-                          {datasetUnitOptions(ROLE_UNIT_KIND[role]).map((o) => (
-                            <option key={o.value} value={o.value}>
-                              {o.label}
-                            </option>
-                          ))}
+                          <DatasetUnitOptions kind={ROLE_UNIT_KIND[role]} />
                         </select>
                       )}
                     </td>
@@ -220,11 +217,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                 <div className="flex gap-2">
                   <input id={`${ids}-feed`} className="input num min-w-0 flex-1" inputMode="decimal" value={feedConc} onChange={(e) => setFeedConc(e.target.value)} />
                   <select aria-label="Feed concentration unit" className="input w-auto" value={feedUnit} onChange={(e) => setFeedUnit(e.target.value)}>
-                    {datasetUnitOptions("concentration").map((o) => (
-                      <option key={o.value} value={o.value}>
-                        {o.label}
-                      </option>
-                    ))}
+                    <DatasetUnitOptions kind="concentration" />
                   </select>
                 </div>
                 <p className="mt-1 text-xs text-ink-soft">Converts concentrations of A to conversion, X = 1 − C_A/C_A0.</p>

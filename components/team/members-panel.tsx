@@ -1,13 +1,11 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import type { Role } from "@/db/schema";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Field, FormMessage } from "@/components/ui/field";
+import { useSchemaForm } from "@/components/ui/use-schema-form";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
@@ -82,11 +80,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                     disabled={changeRole.isPending || m.userId === selfId}
                     onChange={(e) => setPendingRole({ userId: m.userId, email: m.email, from: m.role, role: e.target.value as Role })}
                   >
-                    {ROLES.map((r) => (
-                      <option key={r} value={r}>
-                        {r}
-                      </option>
-                    ))}
+                    <RoleOptions />
                   </select>
                 </td>
               </tr>
@@ -153,10 +147,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
 
 function InviteForm({ onInvited }: { onInvited: () => void }) {
   const [notice, setNotice] = useState<{ kind: "error" | "info"; text: string }>();
-  const form = useForm<z.input<typeof invitationCreateSchema>, unknown, z.output<typeof invitationCreateSchema>>({
-    resolver: zodResolver(invitationCreateSchema),
-    defaultValues: { email: "", role: "engineer" },
-  });
+  const form = useSchemaForm(invitationCreateSchema, { defaultValues: { email: "", role: "engineer" } });
   const { errors, isSubmitting } = form.formState;
   const onSubmit = form.handleSubmit(async (values) => {
     setNotice(undefined);
@@ -180,11 +171,7 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
       </Field>
       <Field id="invite-role" label="Role" error={errors.role?.message}>
         <select id="invite-role" className="input" {...form.register("role")}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {r}
-            </option>
-          ))}
+          <RoleOptions />
         </select>
       </Field>
       <div className="md:pt-5">
@@ -198,5 +185,18 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
         </div>
       ) : null}
     </form>
+  );
+}
+
+/** The roles a member can hold, as the <option>s of a picker. */
+function RoleOptions() {
+  return (
+    <>
+      {ROLES.map((r) => (
+        <option key={r} value={r}>
+          {r}
+        </option>
+      ))}
+    </>
   );
 }
