@@ -5,11 +5,14 @@ import { useState } from "react";
 import type { Role } from "@/db/schema";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Field, FormMessage } from "@/components/ui/field";
+import { OptionList } from "@/components/ui/unit-options";
 import { useSchemaForm } from "@/components/ui/use-schema-form";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
+
+const ROLE_OPTIONS = ROLES.map((r) => ({ value: r, label: r }));
 
 interface Member {
   userId: string;
@@ -80,7 +83,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                     disabled={changeRole.isPending || m.userId === selfId}
                     onChange={(e) => setPendingRole({ userId: m.userId, email: m.email, from: m.role, role: e.target.value as Role })}
                   >
-                    <RoleOptions />
+                    <OptionList options={ROLE_OPTIONS} />
                   </select>
                 </td>
               </tr>
@@ -171,7 +174,7 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
       </Field>
       <Field id="invite-role" label="Role" error={errors.role?.message}>
         <select id="invite-role" className="input" {...form.register("role")}>
-          <RoleOptions />
+          <OptionList options={ROLE_OPTIONS} />
         </select>
       </Field>
       <div className="md:pt-5">
@@ -188,15 +191,3 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
   );
 }
 
-/** The roles a member can hold, as the <option>s of a picker. */
-function RoleOptions() {
-  return (
-    <>
-      {ROLES.map((r) => (
-        <option key={r} value={r}>
-          {r}
-        </option>
-      ))}
-    </>
-  );
-}
