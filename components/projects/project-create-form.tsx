@@ -2,9 +2,8 @@
 
 import { useState } from "react";
 import { Field, FormMessage } from "@/components/ui/field";
-import { useSchemaForm } from "@/components/ui/use-schema-form";
-import { applyServerFieldErrors } from "@/components/ui/server-errors";
-import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { messageAfterRefusal, useSchemaForm } from "@/components/ui/use-schema-form";
+import { fetchJson } from "@/lib/client/fetch-json";
 import { projectCreateSchema } from "@/lib/schemas/projects";
 
 export function ProjectCreateForm({ onCreated }: { onCreated: () => void }) {
@@ -19,8 +18,7 @@ export function ProjectCreateForm({ onCreated }: { onCreated: () => void }) {
       form.reset();
       onCreated();
     } catch (err) {
-      const rest = err instanceof ApiError ? applyServerFieldErrors(err.fields, form.setError, ["name", "description"]) : [];
-      setFormError(err instanceof ApiError ? (rest.length || !err.fields ? err.message : undefined) : "Could not reach the server.");
+      setFormError(messageAfterRefusal(err, form.setError, ["name", "description"]));
     }
   });
 

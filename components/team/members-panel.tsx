@@ -6,8 +6,7 @@ import type { Role } from "@/db/schema";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Field, FormMessage } from "@/components/ui/field";
 import { OptionList } from "@/components/ui/unit-options";
-import { useSchemaForm } from "@/components/ui/use-schema-form";
-import { applyServerFieldErrors } from "@/components/ui/server-errors";
+import { messageAfterRefusal, useSchemaForm } from "@/components/ui/use-schema-form";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
@@ -163,8 +162,8 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
       form.reset({ email: "", role: values.role });
       onInvited();
     } catch (err) {
-      const rest = err instanceof ApiError ? applyServerFieldErrors(err.fields, form.setError, ["email", "role"]) : [];
-      if (!(err instanceof ApiError) || rest.length || !err.fields) setNotice({ kind: "error", text: message(err) });
+      const text = messageAfterRefusal(err, form.setError, ["email", "role"]);
+      if (text) setNotice({ kind: "error", text });
     }
   });
   return (
