@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { browserAs, closeAll } from "./helpers/sign-in";
@@ -23,9 +23,7 @@ test.afterAll(() => closeAll(browserCtx, engineer));
 test("removing a vessel asks first; Escape keeps it, confirming removes it and says so", async () => {
   const tag = `R-${stamp}`;
   expect((await engineer.post("/api/inventory", { data: { tag, type: "CSTR", volume: 2, available: true } })).status()).toBe(201);
-  const page = await browserCtx.newPage();
-  await page.goto("/inventory");
-  await appReady(page);
+  const page = await openPage(browserCtx, "/inventory");
   const remove = page.getByRole("button", { name: `Remove ${tag}` });
   await remove.click();
   const dialog = page.getByRole("dialog", { name: `Remove ${tag}?` });
@@ -129,9 +127,7 @@ test("a second project with the same name, whatever its case and spacing, is ref
   expect(res.status()).toBe(409);
   const body = (await res.json()) as { error: { message: string; fields: Record<string, string[]> } };
   expect(body.error.message).toContain("Project name");
-  const page = await browserCtx.newPage();
-  await page.goto("/");
-  await appReady(page);
+  const page = await openPage(browserCtx, "/");
   const form = page.getByRole("form", { name: "New project" });
   await form.getByLabel("New project").fill(name.toLowerCase());
   await form.getByRole("button", { name: "Create project" }).click();

@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { createModel, firstProjectId, SECOND_ORDER } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { browserAs, closeAll } from "./helpers/sign-in";
@@ -82,9 +82,7 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
 });
 
 test("rate a fixed train: conversion, largest feed and cautions", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}`);
   await page.getByTestId("project-rate-link").click();
   await expect(page.getByRole("heading", { name: "Rate a fixed train", level: 1 })).toBeVisible();
   await page.getByLabel("Kinetics version").selectOption({ label: `${modelLabel} · v1` });
@@ -123,9 +121,7 @@ test("a model typed in mol/s, mol/m³ and K rates in those units, as typed", asy
   expect(api.status()).toBe(200);
   const flowA = ((await api.json()) as { rating: { largestFeed: { flowA: number } } }).rating.largestFeed.flowA;
 
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/rate`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/rate`);
   await page.getByLabel("Kinetics version").selectOption({ label: `${name} · v1` });
   await page.getByLabel("Target conversion").fill("0.8");
   const first = page.getByTestId("rate-stage").first();

@@ -1,4 +1,4 @@
-import { expect, request as playwrightRequest, type APIRequestContext, type Page } from "@playwright/test";
+import { expect, request as playwrightRequest, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { DEMO_USERS, type DemoPerson } from "../helpers/demo-people";
 
 export const DEMO_PASSWORD = "seriatim-demo-2026";
@@ -77,4 +77,12 @@ export async function signedInContext(who: Who | "anonymous"): Promise<APIReques
  */
 export async function appReady(page: Page) {
   await expect(page.getByRole("button", { name: "Sign out" })).toBeEnabled();
+}
+
+/** A new tab of a signed-in browser context on `url`, loaded and ready for typing and clicking. */
+export async function openPage(ctx: BrowserContext, url: string): Promise<Page> {
+  const page = await ctx.newPage();
+  await page.goto(url);
+  await appReady(page);
+  return page;
 }

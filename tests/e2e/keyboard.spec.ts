@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext, type BrowserContext, type Locator, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
@@ -146,9 +146,7 @@ test("skip links: the first Tab on every page offers the main content, the sweep
   await expectNoSeriousA11yViolations(page);
 
   // A signed-in page: the project list.
-  const own = await browserCtx.newPage();
-  await own.goto("/");
-  await appReady(own);
+  const own = await openPage(browserCtx, "/");
   await own.keyboard.press("Tab");
   await expect(own.getByRole("link", { name: "Skip to main content" })).toBeFocused();
   await expect(own.getByRole("link", { name: "Skip to the ranked table" })).toHaveCount(0);

@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { insertMember } from "./member-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { browserAs, closeAll } from "./helpers/sign-in";
@@ -22,9 +22,7 @@ async function roleOf(userId: string): Promise<string | undefined> {
 }
 
 async function teamPage(): Promise<Page> {
-  const page = await browserCtx.newPage();
-  await page.goto("/team");
-  await appReady(page);
+  const page = await openPage(browserCtx, "/team");
   return page;
 }
 

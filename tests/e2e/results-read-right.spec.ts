@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { openPage, signedInContext } from "./fixtures";
 import { emptyStageCount, leadingNumber, listCandidates } from "./ranked-rows";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
@@ -54,9 +54,7 @@ test("the kinetics preview never shows a figure it cannot stand behind", async (
 });
 
 test("an expression whose rate overflows is named in the preview, never drawn as 0 L", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/kinetics/new`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/kinetics/new`);
   const pfr = page.getByTestId("single-pfr-volume");
   await expect(pfr).not.toHaveText("—");
   await page.getByRole("radiogroup", { name: "Rate law" }).getByRole("radio", { name: /Expression/ }).check();
@@ -70,9 +68,7 @@ test("an expression whose rate overflows is named in the preview, never drawn as
 });
 
 test("rating a 1e30 m³ vessel is refused with a message naming the stage volume", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/rate`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/rate`);
   await expect(page.getByRole("heading", { name: "Rate a fixed train", level: 1 })).toBeVisible();
   await page.getByLabel("Kinetics version").selectOption({ label: `${modelLabel} · v1` });
   await page.getByLabel("Target conversion").fill("0.8");
@@ -107,9 +103,7 @@ test("least volume: the top rows are trains whose every stage does work; padded 
   // only adds volume and its best size is zero (common practice): trains like CSTR then PFR are padded.
   const sweep = await submitSweep(engineer, projectId, versionId, [], 3);
   await waitForSweep(engineer, sweep.id);
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/${sweep.id}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/${sweep.id}`);
   await expect(page.getByTestId("sweep-status")).toHaveText("Finished");
 
   const items = await listCandidates(engineer, sweep.id);
@@ -152,9 +146,7 @@ test("with reuse of idle vessels and the cost objective, ranks follow the cost w
   const added = await engineer.post("/api/inventory", { data: { tag, type: "CSTR", volume: 0.05, reuseCost: 0 } });
   expect(added.status(), await added.text()).toBe(201);
 
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/new?version=${versionId}`);
   await page.getByLabel("Least vessel cost").check();
   await expect(page.getByText(/Filled from the project's cost basis/)).toBeVisible();
   await page.getByLabel("Reuse idle vessels from the inventory").check();
@@ -203,9 +195,7 @@ test("with reuse of idle vessels and the cost objective, ranks follow the cost w
 });
 
 test("sweep builder: refuses bad values as typed, starts costs from the project's basis, drops a stale server message", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/new?version=${versionId}`);
   const trains = page.getByTestId("optimisation-count");
   await expect(trains).not.toHaveText("—");
 

@@ -1,5 +1,5 @@
 import { expect, test, type APIRequestContext } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { openPage, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { browserAs, closeAll } from "./helpers/sign-in";
@@ -32,9 +32,7 @@ test.afterAll(() => closeAll(engineer, manager));
 
 test("the manager's inbox lists the waiting pin, the header counts it, and approving removes it from both", async ({ browser }) => {
   const ctx = await browserAs(browser, manager);
-  const page = await ctx.newPage();
-  await page.goto("/reviews");
-  await appReady(page);
+  const page = await openPage(ctx, "/reviews");
   const item = page.getByTestId("review-item").filter({ hasText: projectName });
   await expect(item).toBeVisible();
   await expect(item).toContainText("inbox check");
@@ -55,9 +53,7 @@ test("the manager's inbox lists the waiting pin, the header counts it, and appro
 
 test("engineers have no inbox and no count in the header", async ({ browser }) => {
   const ctx = await browserAs(browser, engineer);
-  const page = await ctx.newPage();
-  await page.goto("/");
-  await appReady(page);
+  const page = await openPage(ctx, "/");
   await expect(page.getByRole("link", { name: /^Reviews/ })).toHaveCount(0);
   expect((await engineer.get("/api/reviews")).status()).toBe(403);
   await ctx.close();

@@ -1,6 +1,6 @@
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import { expectReadableAxes } from "./chart-fixtures";
-import { appReady, signedInContext } from "./fixtures";
+import { openPage, signedInContext } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { browserAs, closeAll } from "./helpers/sign-in";
@@ -23,9 +23,7 @@ test.afterAll(() => closeAll(browserCtx, engineer));
 const percent = (text: string) => Number(text.replace(/[^0-9.]/g, "")) / 100;
 
 test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the chart and a text summary", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("Input", { exact: true }).selectOption("reaction.rate.k");
@@ -58,9 +56,7 @@ test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the cha
 test("a bad range is refused beside its field and nothing runs", async () => {
   const runs = async () => ((await (await engineer.get(`/api/candidates/${pin.candidateId}/robustness`)).json()) as { runs: unknown[] }).runs.length;
   const before = await runs();
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("± %", { exact: true }).fill("150");
@@ -71,9 +67,7 @@ test("a bad range is refused beside its field and nothing runs", async () => {
 });
 
 test("pinned design: a run above 2,000 samples is queued, polled and shown when the worker is done", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}`);
   const item = page.getByTestId("pin").filter({ hasText: "(demo)" });
   await item.getByRole("button", { name: "Robustness" }).click();
   const panel = item.getByRole("region", { name: "Robustness of this pinned design" });
