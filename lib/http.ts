@@ -50,6 +50,9 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.out
 
 export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });
 
+/** 204: done, nothing to send back (a removal). */
+export const noContent = () => new Response(null, { status: 204 });
+
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** A uuid path parameter; anything else is "not found" (never a 500 from the database). */

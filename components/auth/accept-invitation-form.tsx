@@ -1,25 +1,19 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
+import { ProblemAndSubmit } from "./problem-and-submit";
+import { useSchemaForm } from "@/components/ui/use-schema-form";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationAcceptSchema } from "@/lib/schemas/accounts";
 import { signInWithPassword } from "./auth-client";
-import { useHydrated } from "@/components/ui/use-hydrated";
 
 export function AcceptInvitationForm({ token, email }: { token: string; email: string }) {
   const [formError, setFormError] = useState<string>();
   const [existing, setExisting] = useState(false);
-  const form = useForm<z.input<typeof invitationAcceptSchema>, unknown, z.output<typeof invitationAcceptSchema>>({
-    resolver: zodResolver(invitationAcceptSchema),
-    defaultValues: { token, name: "", password: "" },
-  });
+  const form = useSchemaForm(invitationAcceptSchema, { defaultValues: { token, name: "", password: "" } });
   const { errors, isSubmitting } = form.formState;
-  const hydrated = useHydrated();
 
   const onSubmit = form.handleSubmit(async (values) => {
     setFormError(undefined);
@@ -55,10 +49,7 @@ export function AcceptInvitationForm({ token, email }: { token: string; email: s
       <Field id="new-password" label="Password" error={errors.password?.message} hint="At least 10 characters.">
         <input id="new-password" type="password" autoComplete="new-password" className="input" aria-invalid={!!errors.password} {...form.register("password")} />
       </Field>
-      {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={!hydrated || isSubmitting}>
-        {isSubmitting ? "Creating account…" : "Create account and sign in"}
-      </button>
+      <ProblemAndSubmit problem={formError} isSubmitting={isSubmitting} label="Create account and sign in" busyLabel="Creating account…" />
     </form>
   );
 }

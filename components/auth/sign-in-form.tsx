@@ -1,10 +1,9 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
+import { ProblemAndSubmit } from "./problem-and-submit";
+import { useSchemaForm } from "@/components/ui/use-schema-form";
 import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { linkSignInSchema, passwordSignInSchema } from "@/lib/schemas/accounts";
 import { requestSignInLink, signInWithPassword } from "./auth-client";
@@ -48,10 +47,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
 
 function PasswordForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => void }) {
   const [formError, setFormError] = useState<string>();
-  const hydrated = useHydrated();
-  const form = useForm<z.input<typeof passwordSignInSchema>, unknown, z.output<typeof passwordSignInSchema>>({
-    resolver: zodResolver(passwordSignInSchema),
-  });
+  const form = useSchemaForm(passwordSignInSchema);
   const { errors, isSubmitting } = form.formState;
 
   const clearStale = () => {
@@ -77,21 +73,15 @@ function PasswordForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: ()
       <Field id="password" label="Password" error={errors.password?.message}>
         <input id="password" type="password" autoComplete="current-password" className="input" aria-invalid={!!errors.password} {...form.register("password")} />
       </Field>
-      {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={!hydrated || isSubmitting}>
-        {isSubmitting ? "Signing in…" : "Sign in"}
-      </button>
+      <ProblemAndSubmit problem={formError} isSubmitting={isSubmitting} label="Sign in" busyLabel="Signing in…" />
     </form>
   );
 }
 
 function LinkForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => void }) {
   const [sentTo, setSentTo] = useState<string>();
-  const hydrated = useHydrated();
   const [formError, setFormError] = useState<string>();
-  const form = useForm<z.input<typeof linkSignInSchema>, unknown, z.output<typeof linkSignInSchema>>({
-    resolver: zodResolver(linkSignInSchema),
-  });
+  const form = useSchemaForm(linkSignInSchema);
   const { errors, isSubmitting } = form.formState;
 
   const clearStale = () => {
@@ -120,10 +110,7 @@ function LinkForm({ callbackUrl, onEdit }: { callbackUrl: string; onEdit: () => 
       <Field id="link-email" label="E-mail" error={errors.email?.message} hint="We send a one-time link; no password needed.">
         <input id="link-email" type="email" autoComplete="username" className="input" aria-invalid={!!errors.email} {...form.register("email")} />
       </Field>
-      {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={!hydrated || isSubmitting}>
-        {isSubmitting ? "Sending…" : "Send sign-in link"}
-      </button>
+      <ProblemAndSubmit problem={formError} isSubmitting={isSubmitting} label="Send sign-in link" busyLabel="Sending…" />
     </form>
   );
 }

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
 import { fromSI } from "@/lib/units/display";
 import type { StoredRateRow } from "@/lib/datasets/table-law";
+import { OptionList } from "@/components/ui/unit-options";
 import { datasetUnitOptions, DATASET_UNITS } from "@/lib/datasets/units";
 import { InverseRatePlot, type RatePoint } from "./inverse-rate-plot";
 import { Pager, usePage } from "./pager";
@@ -72,19 +73,11 @@ export function DatasetView({ projectId, dataset, versions, selected, canCreate,
             <h2 id={`${ids}-rows`}>Rows of v{selected.version}</h2>
             <div className="flex gap-2">
               <select aria-label="Show the rate in" className="input w-auto py-1" value={rateUnit} onChange={(e) => setRateUnit(e.target.value)}>
-                {datasetUnitOptions("rate").map((o) => (
-                  <option key={o.value} value={o.value}>
-                    {o.label}
-                  </option>
-                ))}
+                <OptionList options={datasetUnitOptions("rate")} />
               </select>
               {has("concA") || has("concR") ? (
                 <select aria-label="Show concentrations in" className="input w-auto py-1" value={concUnit} onChange={(e) => setConcUnit(e.target.value)}>
-                  {datasetUnitOptions("concentration").map((o) => (
-                    <option key={o.value} value={o.value}>
-                      {o.label}
-                    </option>
-                  ))}
+                  <OptionList options={datasetUnitOptions("concentration")} />
                 </select>
               ) : null}
             </div>

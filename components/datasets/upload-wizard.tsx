@@ -4,12 +4,15 @@ import { keepPreviousData, useMutation, useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useId, useMemo, useState } from "react";
 import { Field, FormMessage } from "@/components/ui/field";
+import { OptionList } from "@/components/ui/unit-options";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { guessMapping } from "@/lib/datasets/guess-mapping";
 import { COLUMN_ROLES, DATASET_UNITS, datasetUnitOptions, DEFAULT_UNITS, ROLE_LABELS, ROLE_UNIT_KIND, type ColumnRole, type ValueRole } from "@/lib/datasets/units";
 import type { DatasetMapping } from "@/lib/schemas/datasets";
 import type { DatasetPreview, PreviewLine } from "@/lib/services/datasets";
 import { Pager, usePage } from "./pager";
+
+const COLUMN_ROLE_OPTIONS = COLUMN_ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
 export type UploadTarget = { kind: "new"; projectId: string } | { kind: "version"; projectId: string; datasetId: string; datasetName: string; nextVersion: number };
 
@@ -132,11 +135,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                     </th>
                     <td>
                       <select aria-label={`Column "${h}" holds`} className="input w-auto" value={role} onChange={(e) => setRole(h, e.target.value as ColumnRole)} id={`${ids}-role-${i}`}>
-                        {COLUMN_ROLES.map((r) => (
-                          <option key={r} value={r}>
-                            {ROLE_LABELS[r]}
-                          </option>
-                        ))}
+                        <OptionList options={COLUMN_ROLE_OPTIONS} />
                       </select>
                     </td>
                     <td>
@@ -144,11 +143,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                         <span className="text-ink-soft">—</span>
                       ) : (
                         <select aria-label={`Unit of column "${h}"`} className="input w-auto" value={mapping.units[role] ?? DEFAULT_UNITS[role]} onChange={(e) => setUnit(role, e.target.value)}>
-                          {datasetUnitOptions(ROLE_UNIT_KIND[role]).map((o) => (
-                            <option key={o.value} value={o.value}>
-                              {o.label}
-                            </option>
-                          ))}
+                          <OptionList options={datasetUnitOptions(ROLE_UNIT_KIND[role])} />
                         </select>
                       )}
                     </td>
@@ -220,11 +215,7 @@ export function UploadWizard({ target, initialMapping }: { target: UploadTarget;
                 <div className="flex gap-2">
                   <input id={`${ids}-feed`} className="input num min-w-0 flex-1" inputMode="decimal" value={feedConc} onChange={(e) => setFeedConc(e.target.value)} />
                   <select aria-label="Feed concentration unit" className="input w-auto" value={feedUnit} onChange={(e) => setFeedUnit(e.target.value)}>
-                    {datasetUnitOptions("concentration").map((o) => (
-                      <option key={o.value} value={o.value}>
-                        {o.label}
-                      </option>
-                    ))}
+                    <OptionList options={datasetUnitOptions("concentration")} />
                   </select>
                 </div>
                 <p className="mt-1 text-xs text-ink-soft">Converts concentrations of A to conversion, X = 1 − C_A/C_A0.</p>

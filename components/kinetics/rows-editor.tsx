@@ -27,7 +27,7 @@ export function RowsEditor({
   /** A read-only first row, e.g. A: −1 in the stoichiometry. */
   fixed?: { name: string; value: string };
 }) {
-  const { control, register, formState } = useFormContext();
+  const { control, formState } = useFormContext();
   const { fields, append, remove } = useFieldArray({ control, name: path });
   const groupId = fieldId(path);
   const groupError = messageAt(formState.errors, path) ?? external?.[path];
@@ -51,23 +51,8 @@ export function RowsEditor({
           return (
             <div key={f.id}>
               <div className="grid grid-cols-[1fr_1fr_auto] gap-1.5">
-                <input
-                  id={nid}
-                  className="input"
-                  aria-label={`${nameLabel} ${i + 1}`}
-                  aria-invalid={!!nameErr}
-                  autoComplete="off"
-                  {...register(`${path}.${i}.name`)}
-                />
-                <input
-                  id={vid}
-                  className="input num"
-                  aria-label={`${valueLabel} ${i + 1}`}
-                  aria-invalid={!!valueErr}
-                  inputMode="decimal"
-                  autoComplete="off"
-                  {...register(`${path}.${i}.value`)}
-                />
+                <RowInput path={`${path}.${i}.name`} label={`${nameLabel} ${i + 1}`} error={nameErr} />
+                <RowInput path={`${path}.${i}.value`} label={`${valueLabel} ${i + 1}`} error={valueErr} numeric />
                 <button type="button" className="btn-quiet w-[4.5rem] justify-center py-1" onClick={() => remove(i)} aria-label={`Remove ${nameLabel.toLowerCase()} ${i + 1}`}>
                   Remove
                 </button>
@@ -83,5 +68,21 @@ export function RowsEditor({
       </button>
       <ErrorText id={groupId} message={groupError} />
     </fieldset>
+  );
+}
+
+/** One cell of a row: the name, or (numeric) the value, registered with the form at `path`. */
+function RowInput({ path, label, error, numeric = false }: { path: string; label: string; error?: string; numeric?: boolean }) {
+  const { register } = useFormContext();
+  return (
+    <input
+      id={fieldId(path)}
+      className={numeric ? "input num" : "input"}
+      aria-label={label}
+      aria-invalid={!!error}
+      inputMode={numeric ? "decimal" : undefined}
+      autoComplete="off"
+      {...register(path)}
+    />
   );
 }

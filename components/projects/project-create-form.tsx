@@ -1,20 +1,14 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import { Field, FormMessage } from "@/components/ui/field";
-import { applyServerFieldErrors } from "@/components/ui/server-errors";
-import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { messageAfterRefusal, useSchemaForm } from "@/components/ui/use-schema-form";
+import { fetchJson } from "@/lib/client/fetch-json";
 import { projectCreateSchema } from "@/lib/schemas/projects";
 
 export function ProjectCreateForm({ onCreated }: { onCreated: () => void }) {
   const [formError, setFormError] = useState<string>();
-  const form = useForm<z.input<typeof projectCreateSchema>, unknown, z.output<typeof projectCreateSchema>>({
-    resolver: zodResolver(projectCreateSchema),
-    defaultValues: { name: "", description: "" },
-  });
+  const form = useSchemaForm(projectCreateSchema, { defaultValues: { name: "", description: "" } });
   const { errors, isSubmitting } = form.formState;
 
   const onSubmit = form.handleSubmit(async (values) => {
@@ -24,8 +18,7 @@ export function ProjectCreateForm({ onCreated }: { onCreated: () => void }) {
       form.reset();
       onCreated();
     } catch (err) {
-      const rest = err instanceof ApiError ? applyServerFieldErrors(err.fields, form.setError, ["name", "description"]) : [];
-      setFormError(err instanceof ApiError ? (rest.length || !err.fields ? err.message : undefined) : "Could not reach the server.");
+      setFormError(messageAfterRefusal(err, form.setError, ["name", "description"]));
     }
   });
 

@@ -64,20 +64,8 @@ export function UncertainRow({
           <option value="normal">Normal</option>
         </select>
       </div>
-      <div>
-        <label htmlFor={`${id}-a`} className="field-label">
-          {first}
-        </label>
-        <input id={`${id}-a`} className="input w-32" inputMode="decimal" value={draft.a} onChange={(e) => onChange({ ...draft, a: e.target.value })} />
-      </div>
-      {second ? (
-        <div>
-          <label htmlFor={`${id}-b`} className="field-label">
-            {second}
-          </label>
-          <input id={`${id}-b`} className="input w-32" inputMode="decimal" value={draft.b} onChange={(e) => onChange({ ...draft, b: e.target.value })} />
-        </div>
-      ) : null}
+      <NumberBox id={`${id}-a`} label={first} value={draft.a} onChange={(a) => onChange({ ...draft, a })} />
+      {second ? <NumberBox id={`${id}-b`} label={second} value={draft.b} onChange={(b) => onChange({ ...draft, b })} /> : null}
       {onRemove ? (
         <button type="button" className="btn-quiet text-sm" onClick={onRemove} aria-label={`Remove uncertain input ${index + 1}`}>
           Remove
@@ -88,6 +76,18 @@ export function UncertainRow({
           {error}
         </p>
       ) : null}
+    </div>
+  );
+}
+
+/** A labelled number of the distribution (± %, low, high, mean or standard deviation). */
+function NumberBox({ id, label, value, onChange }: { id: string; label: string; value: string; onChange: (v: string) => void }) {
+  return (
+    <div>
+      <label htmlFor={id} className="field-label">
+        {label}
+      </label>
+      <input id={id} className="input w-32" inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)} />
     </div>
   );
 }

@@ -3,6 +3,7 @@
  * with the counts shown before submitting. Pure.
  */
 import { z } from "zod";
+import { labelFor } from "@/lib/schemas/field-labels";
 import { sweepCreateSchema, type SweepCreate } from "@/lib/schemas/sweeps";
 import { toSI, type UnitKind } from "@/lib/units/display";
 
@@ -47,21 +48,48 @@ export const builderValuesSchema = z.object({
 export type BuilderValues = z.infer<typeof builderValuesSchema>;
 export type AxisValues = z.infer<typeof axis>;
 
-/** Fields one can vary by picking, with the unit kind of their values (null: a plain number). */
-export const GRID_FIELDS: { field: string; label: string; kind: UnitKind | null; defaultUnit: string }[] = [
-  { field: "feed.flowA", label: "Feed flow of A, FA0", kind: "molarFlow", defaultUnit: "mol/s" },
-  { field: "target.conversion", label: "Target conversion", kind: null, defaultUnit: "" },
-  { field: "feed.temperature", label: "Feed temperature", kind: "temperature", defaultUnit: "K" },
-  { field: "feed.concA", label: "Feed concentration of A", kind: "concentration", defaultUnit: "mol/L" },
-  { field: "reaction.rate.k", label: "Rate constant k (m³, mol, s basis)", kind: null, defaultUnit: "" },
-  { field: "reaction.rate.activationEnergy", label: "Activation energy", kind: "energyPerMol", defaultUnit: "kJ/mol" },
-  { field: "reaction.thermal.adiabaticRise", label: "Adiabatic temperature rise", kind: "temperatureDifference", defaultUnit: "K" },
-  { field: "reaction.thermal.maxTemperature", label: "Highest temperature allowed", kind: "temperature", defaultUnit: "K" },
+export interface GridField {
+  /** The field's path in the sweep body (a kinetics spec field), or "custom" for one named by hand. */
+  field: string;
+  /** What the form and the results call it: labelFor's words, so it reads as on the kinetics form and in the report. */
+  label: string;
+  /** The unit kind of its values; null for a plain number (in the units `basis` names, if any). */
+  kind: UnitKind | null;
+  defaultUnit: string;
+  /** For a number without a unit kind: the units it is counted in, said beside its name. */
+  basis?: string;
+}
+
+const gridField = (field: string, kind: UnitKind | null, defaultUnit: string, basis?: string): GridField => ({
+  field,
+  label: basis ? `${labelFor(field)} (${basis})` : labelFor(field),
+  kind,
+  defaultUnit,
+  basis,
+});
+
+/**
+ * The one list of inputs one can vary by picking: the builder offers them, the results page names
+ * its axes and scenarios from them.
+ */
+export const GRID_FIELDS: GridField[] = [
+  gridField("feed.flowA", "molarFlow", "mol/s"),
+  gridField("target.conversion", null, ""),
+  gridField("feed.temperature", "temperature", "K"),
+  gridField("feed.concA", "concentration", "mol/L"),
+  // The engine keeps k on a cubic metre, mole and second basis whatever the model was typed in.
+  gridField("reaction.rate.k", null, "", "m³, mol, s basis"),
+  gridField("reaction.rate.activationEnergy", "energyPerMol", "kJ/mol"),
+  gridField("reaction.thermal.adiabaticRise", "temperatureDifference", "K"),
+  gridField("reaction.thermal.maxTemperature", "temperature", "K"),
   { field: "custom", label: "Another input, by its name in a sweep file (SI units)", kind: null, defaultUnit: "" },
 ];
 
+/** The offered field at this path, if it is one. */
+export const gridFieldAt = (field: string): GridField | undefined => GRID_FIELDS.find((g) => g.field === field);
+
 export function newAxis(field = "feed.flowA"): AxisValues {
-  const f = GRID_FIELDS.find((g) => g.field === field) ?? GRID_FIELDS[0];
+  const f = gridFieldAt(field) ?? GRID_FIELDS[0];
   return { field, customField: "", unit: f.defaultUnit, kind: "values", values: "", from: "", to: "", steps: "3", scale: "linear" };
 }
 
@@ -209,7 +237,7 @@ export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; 
 
   const grid: SweepCreate["grid"] = [];
   v.grid.forEach((a, i) => {
-    const preset = GRID_FIELDS.find((g) => g.field === a.field);
+    const preset = gridFieldAt(a.field);
     const field = a.field === "custom" ? a.customField.trim() : a.field;
     if (!field) issues.push({ path: `grid.${i}.customField`, message: "Enter the input to vary" });
     const si = (n: number) => (preset?.kind && a.unit ? toSI(preset.kind, n, a.unit) : n);

@@ -3,46 +3,39 @@
 import { labelFor } from "@/lib/schemas/field-labels";
 import { useRef, useState, type KeyboardEvent } from "react";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
-import { fromSI, isUnit, unitLabel, type UnitKind } from "@/lib/units/display";
+import { fromSI, isUnit, SI_UNIT, unitLabel, type UnitKind } from "@/lib/units/display";
+import { gridFieldAt } from "@/components/sweep-builder/builder-form-state";
 import type { ScenarioRow } from "./types";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
-
-const FIELD_NAMES: Record<string, string> = {
-  "feed.flowA": "Feed flow FA0, mol/s",
-  "feed.concA": "Feed concentration CA0, mol/m³",
-  "feed.temperature": "Feed temperature, K",
-  "target.conversion": "Target conversion",
-  "reaction.rate.k": "Rate constant k (m³, mol, s basis)",
-  "reaction.rate.activationEnergy": "Activation energy, J/mol",
-  "reaction.thermal.adiabaticRise": "Adiabatic temperature rise, K",
-  "reaction.thermal.maxTemperature": "Highest temperature allowed, K",
-};
-/** The grid's fields that carry a unit, and their kind: the axis shows them in the kinetics' typed unit. */
-const AXIS_KIND: Record<string, UnitKind> = { "feed.flowA": "molarFlow", "feed.concA": "concentration", "feed.temperature": "temperature" };
 
 /** The units the kinetics was typed in, by kind (from lib/units/typed-units). */
 export type TypedUnits = Partial<Record<UnitKind, string>>;
 
-const axisUnit = (path: string, units: TypedUnits | undefined) => {
-  const kind = AXIS_KIND[path];
-  const unit = kind ? units?.[kind] : undefined;
-  return kind && unit && isUnit(kind, unit) ? { kind, unit } : null;
+/** The unit a grid field's values are shown in: the one the kinetics was typed in, else the stored SI one. */
+const axisUnit = (path: string, units: TypedUnits | undefined): { kind: UnitKind; unit: string } | null => {
+  const kind = gridFieldAt(path)?.kind;
+  if (!kind) return null;
+  const typed = units?.[kind];
+  return { kind, unit: typed && isUnit(kind, typed) ? typed : SI_UNIT[kind] };
 };
 
+/** A varied input's name, without its unit: the builder's words, or labelFor's for any other field. */
+const fieldLabel = (path: string) => gridFieldAt(path)?.label ?? labelFor(path);
+
+/** A varied input's name with the unit its values are shown in ("Feed temperature, °C"). */
 export const fieldName = (path: string, units?: TypedUnits) => {
-  const typed = axisUnit(path, units);
-  const name = FIELD_NAMES[path] ?? labelFor(path);
-  return typed ? `${name.split(",")[0]}, ${unitLabel(typed.kind, typed.unit)}` : name;
+  const shown = axisUnit(path, units);
+  return shown ? `${fieldLabel(path)}, ${unitLabel(shown.kind, shown.unit)}` : fieldLabel(path);
 };
 
 /** A grid value (stored SI) on the axis, in the kinetics' typed unit when it has one. */
 export const axisValue = (path: string, si: number, units?: TypedUnits) => {
-  const typed = axisUnit(path, units);
-  return formatNumber(typed ? fromSI(typed.kind, si, typed.unit) : si, 4, TABLE_NUMBERS);
+  const shown = axisUnit(path, units);
+  return formatNumber(shown ? fromSI(shown.kind, si, shown.unit) : si, 4, TABLE_NUMBERS);
 };
 
 export function describeOverrides(overrides: Record<string, number>): string {
-  const parts = Object.entries(overrides).map(([k, v]) => `${fieldName(k).split(",")[0]} ${formatNumber(v, 4, TABLE_NUMBERS)}`);
+  const parts = Object.entries(overrides).map(([k, v]) => `${fieldLabel(k)} ${formatNumber(v, 4, TABLE_NUMBERS)}`);
   return parts.length ? parts.join(" · ") : "Base case";
 }
 

@@ -1,18 +1,18 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
-import type { z } from "zod";
 import type { Role } from "@/db/schema";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { Field, FormMessage } from "@/components/ui/field";
-import { applyServerFieldErrors } from "@/components/ui/server-errors";
+import { OptionList } from "@/components/ui/unit-options";
+import { messageAfterRefusal, useSchemaForm } from "@/components/ui/use-schema-form";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
 import { formatDay } from "@/lib/format/dates";
+
+const ROLE_OPTIONS = ROLES.map((r) => ({ value: r, label: r }));
 
 interface Member {
   userId: string;
@@ -82,11 +82,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
                     disabled={changeRole.isPending || m.userId === selfId}
                     onChange={(e) => setPendingRole({ userId: m.userId, email: m.email, from: m.role, role: e.target.value as Role })}
                   >
-                    {ROLES.map((r) => (
-                      <option key={r} value={r}>
-                        {r}
-                      </option>
-                    ))}
+                    <OptionList options={ROLE_OPTIONS} />
                   </select>
                 </td>
               </tr>
@@ -153,10 +149,7 @@ export function MembersPanel({ selfId }: { selfId: string }) {
 
 function InviteForm({ onInvited }: { onInvited: () => void }) {
   const [notice, setNotice] = useState<{ kind: "error" | "info"; text: string }>();
-  const form = useForm<z.input<typeof invitationCreateSchema>, unknown, z.output<typeof invitationCreateSchema>>({
-    resolver: zodResolver(invitationCreateSchema),
-    defaultValues: { email: "", role: "engineer" },
-  });
+  const form = useSchemaForm(invitationCreateSchema, { defaultValues: { email: "", role: "engineer" } });
   const { errors, isSubmitting } = form.formState;
   const onSubmit = form.handleSubmit(async (values) => {
     setNotice(undefined);
@@ -169,8 +162,8 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
       form.reset({ email: "", role: values.role });
       onInvited();
     } catch (err) {
-      const rest = err instanceof ApiError ? applyServerFieldErrors(err.fields, form.setError, ["email", "role"]) : [];
-      if (!(err instanceof ApiError) || rest.length || !err.fields) setNotice({ kind: "error", text: message(err) });
+      const text = messageAfterRefusal(err, form.setError, ["email", "role"]);
+      if (text) setNotice({ kind: "error", text });
     }
   });
   return (
@@ -180,11 +173,7 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
       </Field>
       <Field id="invite-role" label="Role" error={errors.role?.message}>
         <select id="invite-role" className="input" {...form.register("role")}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {r}
-            </option>
-          ))}
+          <OptionList options={ROLE_OPTIONS} />
         </select>
       </Field>
       <div className="md:pt-5">
@@ -200,3 +189,4 @@ function InviteForm({ onInvited }: { onInvited: () => void }) {
     </form>
   );
 }
+

@@ -1,17 +1,12 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
 const stamp = Date.now().toString(36);
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
 
 async function newProject(name: string) {
   const res = await engineer.post("/api/projects", { data: { name, description: "confirmations" } });
@@ -21,24 +16,19 @@ async function newProject(name: string) {
 
 test.beforeAll(async ({ browser }) => {
   engineer = await signedInContext("engineer");
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 test("removing a vessel asks first; Escape keeps it, confirming removes it and says so", async () => {
   const tag = `R-${stamp}`;
   expect((await engineer.post("/api/inventory", { data: { tag, type: "CSTR", volume: 2, available: true } })).status()).toBe(201);
-  const page = await browserCtx.newPage();
-  await page.goto("/inventory");
-  await appReady(page);
+  const page = await openPage(browserCtx, "/inventory");
   const remove = page.getByRole("button", { name: `Remove ${tag}` });
   await remove.click();
   const dialog = page.getByRole("dialog", { name: `Remove ${tag}?` });
   await expect(dialog).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
   await expect(remove).toBeFocused();
@@ -79,7 +69,7 @@ test("a candidate already pinned says so, pinning over a waiting design warns fi
   await page.getByTestId("pin-button").click();
   const dialog = page.getByRole("dialog", { name: "Supersede the current design?" });
   await expect(dialog).toContainText("pending review");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
   const before = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { state: string }[] };
@@ -137,9 +127,7 @@ test("a second project with the same name, whatever its case and spacing, is ref
   expect(res.status()).toBe(409);
   const body = (await res.json()) as { error: { message: string; fields: Record<string, string[]> } };
   expect(body.error.message).toContain("Project name");
-  const page = await browserCtx.newPage();
-  await page.goto("/");
-  await appReady(page);
+  const page = await openPage(browserCtx, "/");
   const form = page.getByRole("form", { name: "New project" });
   await form.getByLabel("New project").fill(name.toLowerCase());
   await form.getByRole("button", { name: "Create project" }).click();

@@ -1,7 +1,8 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { createModel, firstProjectId, SECOND_ORDER } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -15,18 +16,9 @@ test.beforeAll(async ({ browser }) => {
   projectId = await firstProjectId(engineer);
   modelLabel = `Costs kinetics ${Date.now()}`;
   versionId = (await createModel(engineer, projectId, modelLabel)).version.id;
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where", async () => {
   const page = await browserCtx.newPage();
@@ -44,7 +36,7 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
   await page.getByLabel("Installation factor (installed cost = purchase × factor)").fill("3.5");
   await page.getByRole("button", { name: "Save cost basis" }).click();
   await expect(page.getByText("Cost basis saved.")).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   // 2. An idle vessel, from the header's Inventory link.
   await page.getByRole("link", { name: "Inventory" }).click();
@@ -56,7 +48,7 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
   await page.getByLabel("Reuse cost").fill("0");
   await page.getByRole("button", { name: "Add vessel" }).click();
   await expect(page.getByTestId("inventory-row").filter({ hasText: tag })).toContainText("0.03");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   // 3. A cost sweep that reuses idle vessels, prefilled from the project's basis.
   await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
@@ -86,13 +78,11 @@ test("cost basis, an idle vessel, a sweep with reuse and which vessel goes where
   await expect(plan).toBeVisible();
   await expect(plan).toContainText(tag);
   await expect(page.getByTestId("vessel-plan-saving")).toContainText("saving");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 });
 
 test("rate a fixed train: conversion, largest feed and cautions", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}`);
   await page.getByTestId("project-rate-link").click();
   await expect(page.getByRole("heading", { name: "Rate a fixed train", level: 1 })).toBeVisible();
   await page.getByLabel("Kinetics version").selectOption({ label: `${modelLabel} · v1` });
@@ -118,7 +108,7 @@ test("rate a fixed train: conversion, largest feed and cautions", async () => {
   await expect(stages.getByRole("row").nth(2).getByRole("cell").nth(1)).toHaveText("25");
   await expect(page.getByText(/space time/)).toBeVisible();
   await expect(page.getByTestId("cautions")).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 });
 
 test("a model typed in mol/s, mol/m³ and K rates in those units, as typed", async () => {
@@ -131,9 +121,7 @@ test("a model typed in mol/s, mol/m³ and K rates in those units, as typed", asy
   expect(api.status()).toBe(200);
   const flowA = ((await api.json()) as { rating: { largestFeed: { flowA: number } } }).rating.largestFeed.flowA;
 
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/rate`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/rate`);
   await page.getByLabel("Kinetics version").selectOption({ label: `${name} · v1` });
   await page.getByLabel("Target conversion").fill("0.8");
   const first = page.getByTestId("rate-stage").first();

@@ -1,6 +1,7 @@
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { signedInContext } from "./fixtures";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -8,7 +9,7 @@ const violations: string[] = [];
 
 test.beforeAll(async ({ browser }) => {
   engineer = await signedInContext("engineer");
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
   // Every violation the page itself sees, reported back through a binding.
   await browserCtx.exposeBinding("reportCspViolation", (_source, text: string) => void violations.push(text));
   await browserCtx.addInitScript(() => {
@@ -17,10 +18,7 @@ test.beforeAll(async ({ browser }) => {
     });
   });
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 function watchConsole(page: Page) {
   page.on("console", (m) => {

@@ -1,9 +1,8 @@
 import { mkdirSync } from "node:fs";
-import AxeBuilder from "@axe-core/playwright";
-import { expect as baseExpect, test, type Page } from "@playwright/test";
+import { expect as baseExpect, test } from "@playwright/test";
 import { expectReadableAxes } from "./chart-fixtures";
-import { appReady, DEMO_PASSWORD, USERS } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { signInWithForm } from "./helpers/sign-in";
 
 const SHOTS = "test-results/screens";
 mkdirSync(SHOTS, { recursive: true });
@@ -11,23 +10,8 @@ const FIXTURES = "tests/fixtures/datasets";
 // Server pages and previews can take several seconds while other jobs share the machine.
 const expect = baseExpect.configure({ timeout: 20_000 });
 
-async function signInAsEngineer(page: Page) {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS.engineer, DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible({ timeout: 30_000 });
-  await appReady(page);
-}
-
-async function expectNoSeriousA11yViolations(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`)).toEqual([]);
-}
-
 test("an engineer uploads bench rates, fixes the bad rows, accepts them and uses them as a measured rate table", async ({ page }) => {
-  await signInAsEngineer(page);
+  await signInWithForm(page, "engineer");
   await page.getByRole("link", { name: "Ester line 3 revamp" }).click();
   await expect(page.getByTestId("project-title")).toHaveText("Ester line 3 revamp");
   const rateData = page.getByRole("region", { name: "Rate data" });

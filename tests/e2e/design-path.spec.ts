@@ -1,9 +1,9 @@
 import { mkdirSync, readFileSync } from "node:fs";
-import { expect as baseExpect, test, type Page } from "@playwright/test";
-import { PDFParse } from "pdf-parse";
+import { expect as baseExpect, test } from "@playwright/test";
 import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
-import { appReady, DEMO_PASSWORD, USERS, type Who } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { appReady } from "./fixtures";
+import { signInWithForm } from "./helpers/sign-in";
+import { pdfText } from "./helpers/pdf-text";
 
 /**
  * The whole path through the screens, from bench data to the downloaded report: upload rates with
@@ -17,24 +17,6 @@ const FIXTURES = "tests/fixtures/datasets";
 // The machine is shared by several jobs: every wait is generous, none is asserted as a speed.
 const expect = baseExpect.configure({ timeout: 30_000 });
 
-async function signIn(page: Page, who: Who) {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS[who], DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible({ timeout: 60_000 });
-  await appReady(page);
-}
-
-async function pdfText(buf: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(buf) });
-  try {
-    return (await parser.getText()).text.replace(/\s+/g, " ");
-  } finally {
-    await parser.destroy();
-  }
-}
-
 test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, approve, report and PDF", async ({ browser }) => {
   test.setTimeout(600_000);
   const stamp = Date.now();
@@ -44,7 +26,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
 
   const engineerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
   const page = await engineerCtx.newPage();
-  await signIn(page, "engineer");
+  await signInWithForm(page, "engineer", 60_000);
 
   // 1. Upload the file with bad rows, say what the columns hold, see each bad row marked.
   await page.getByRole("link", { name: "Ester line 3 revamp" }).click();
@@ -141,7 +123,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   // 6. The manager approves it on the project page.
   const managerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
   const managerPage = await managerCtx.newPage();
-  await signIn(managerPage, "manager");
+  await signInWithForm(managerPage, "manager", 60_000);
   await managerPage.getByRole("link", { name: "Ester line 3 revamp" }).click();
   const toReview = managerPage.getByTestId("pin").filter({ hasText: note });
   await toReview.getByLabel("Review comment").fill(`Approved for the line 3 design basis ${stamp}`);

@@ -3,11 +3,11 @@ import { PDFParse } from "pdf-parse";
 import type { DesignReport } from "@/lib/reports/design-report";
 import { reportUnits } from "@/lib/reports/report-format";
 import { unitLabel } from "@/lib/units/display";
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { resolveDisplayUnits } from "@/lib/units/display-preference";
 import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 
 let engineer: APIRequestContext;
 let manager: APIRequestContext;
@@ -24,12 +24,6 @@ test.afterAll(async () => {
   }
 });
 
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
-
 async function chooseUnits(page: Page, label: RegExp) {
   await page.goto("/");
   await appReady(page);
@@ -40,7 +34,7 @@ async function chooseUnits(page: Page, label: RegExp) {
   await page.getByRole("button", { name: "Save units" }).click();
   await expect(page.getByTestId("display-units-status")).toContainText("Saved");
   await expect(page).toHaveTitle(/Settings/);
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 }
 
 test("a choice outside the offered sets is a 400 naming the field, and nothing changes", async () => {
@@ -83,7 +77,7 @@ test("engineer and manager see results in the units they chose: ranked table, ca
   await page.getByTestId("candidate-link").first().click();
   await expect(page.getByTestId("stage-table")).toBeVisible({ timeout: 60_000 });
   await expect(page.getByRole("columnheader", { name: "T in → out, °C" })).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   const candidateUrl = page.url().replace(/\?.*$/, "");
   await eCtx.close();
 
@@ -116,7 +110,7 @@ test("the manager reads the demo design report and its PDF in litres and degrees
   await expect(table.locator("tbody tr").first()).toContainText(` ${volume}`);
   await expect(table.locator("tbody tr").first()).toContainText("°C");
   await expect(table).not.toContainText(" K");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   // The PDF speaks the same units; its CSV keeps SI with the unit in each header.
   const pdf = await manager.get(`/api/pins/${pinId}/report.pdf`);

@@ -1,19 +1,13 @@
 import { mkdirSync } from "node:fs";
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import { insertDatasetVersion } from "./dataset-fixtures";
 import { expectReadableAxes } from "./chart-fixtures";
-import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { appReady, signedInContext, USERS } from "./fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { signInWithForm } from "./helpers/sign-in";
 
 const SHOTS = "test-results/screens";
 mkdirSync(SHOTS, { recursive: true });
-
-async function expectNoSeriousA11yViolations(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`)).toEqual([]);
-}
 
 // Demo bench data (invented): a saturating rate with ±1 % deterministic scatter, so R² < 1.
 const ROWS = Array.from({ length: 12 }, (_, i) => {
@@ -25,11 +19,7 @@ test("an engineer fits two laws to a dataset version, compares them and saves on
   const name = `Lipase bench rates ${Date.now()}`;
   const { projectId, datasetId } = await insertDatasetVersion({ email: USERS.engineer, projectName: "Ester line 3 revamp", name, rows: ROWS });
 
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS.engineer, DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
+  await signInWithForm(page, "engineer");
 
   await page.goto(`/projects/${projectId}/datasets/${datasetId}/fit?version=1`);
   await appReady(page);

@@ -1,14 +1,9 @@
-import { expect, request as playwrightRequest, type APIRequestContext, type Page } from "@playwright/test";
+import { expect, request as playwrightRequest, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
+import { DEMO_USERS, type DemoPerson } from "../helpers/demo-people";
 
 export const DEMO_PASSWORD = "seriatim-demo-2026";
-export const USERS = {
-  admin: "ada.admin@brightwater.example",
-  manager: "marta.manager@brightwater.example",
-  engineer: "eli.engineer@brightwater.example",
-  viewer: "vic.viewer@brightwater.example",
-  otherTeam: "kai.admin@kestrel.example",
-} as const;
-export type Who = keyof typeof USERS;
+export const USERS = DEMO_USERS;
+export type Who = DemoPerson;
 
 export const baseURL = `http://127.0.0.1:${process.env.E2E_PORT ?? 3100}`;
 const mailApi = `http://127.0.0.1:${process.env.MAIL_FAKE_HTTP_PORT ?? 2680}/api/messages`;
@@ -82,4 +77,12 @@ export async function signedInContext(who: Who | "anonymous"): Promise<APIReques
  */
 export async function appReady(page: Page) {
   await expect(page.getByRole("button", { name: "Sign out" })).toBeEnabled();
+}
+
+/** A new tab of a signed-in browser context on `url`, loaded and ready for typing and clicking. */
+export async function openPage(ctx: BrowserContext, url: string): Promise<Page> {
+  const page = await ctx.newPage();
+  await page.goto(url);
+  await appReady(page);
+  return page;
 }

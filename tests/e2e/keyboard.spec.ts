@@ -1,8 +1,9 @@
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Locator, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 // The keyboard path of an engineer on the sweep page: a 4 x 3 grid, so the heat map has twelve
 // cells, any of which used to be its own tab stop.
@@ -27,18 +28,9 @@ test.beforeAll(async ({ browser }) => {
   const done = await waitForSweep(engineer, sweep.id);
   expect(done.status).toBe("succeeded");
   sweepUrl = `/projects/${projectId}/sweeps/${sweep.id}`;
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx?.close();
-  await engineer?.dispose();
-});
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 async function openSweep(page: Page) {
   await page.goto(sweepUrl);
@@ -137,7 +129,7 @@ test("the heat map is one tab stop: arrows, Home and End move, Enter opens the s
   await expect.poll(() => focusedCell(page)).toBe(`${down}-0`);
   await page.keyboard.press(" ");
   await expect(page.getByTestId("heat-map").locator(`button[data-cell="${down}-0"]`)).toHaveAttribute("aria-pressed", "true");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.close();
 });
 
@@ -151,12 +143,10 @@ test("skip links: the first Tab on every page offers the main content, the sweep
   await expect(skipMain).toBeVisible();
   await page.keyboard.press("Enter");
   await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe("main-content");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   // A signed-in page: the project list.
-  const own = await browserCtx.newPage();
-  await own.goto("/");
-  await appReady(own);
+  const own = await openPage(browserCtx, "/");
   await own.keyboard.press("Tab");
   await expect(own.getByRole("link", { name: "Skip to main content" })).toBeFocused();
   await expect(own.getByRole("link", { name: "Skip to the ranked table" })).toHaveCount(0);
@@ -223,6 +213,6 @@ test("a focused drop-down list and a focused text field show a solid outline of 
   expect(select.style).toBe("solid");
   expect(select.width).toBeGreaterThanOrEqual(2);
   expect(contrast(select.color, select.bg)).toBeGreaterThanOrEqual(3);
-  await expectAccessible(own);
+  await expectNoSeriousA11yViolations(own);
   await own.close();
 });

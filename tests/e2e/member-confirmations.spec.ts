@@ -1,18 +1,13 @@
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { insertMember } from "./member-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 // The team page asks before revoking an invitation or changing a role. Every test works on an
 // invitation or member it makes itself: the demo users' roles are what other specs sign in as.
 let admin: APIRequestContext;
 let browserCtx: BrowserContext;
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
 
 async function openInvitationEmails(): Promise<string[]> {
   const res = await admin.get("/api/team/invitations");
@@ -27,20 +22,15 @@ async function roleOf(userId: string): Promise<string | undefined> {
 }
 
 async function teamPage(): Promise<Page> {
-  const page = await browserCtx.newPage();
-  await page.goto("/team");
-  await appReady(page);
+  const page = await openPage(browserCtx, "/team");
   return page;
 }
 
 test.beforeAll(async ({ browser }) => {
   admin = await signedInContext("admin");
-  browserCtx = await browser.newContext({ storageState: await admin.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, admin);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await admin.dispose();
-});
+test.afterAll(() => closeAll(browserCtx, admin));
 
 test("revoking an invitation asks first; Escape keeps it and gives focus back, confirming revokes it", async () => {
   const invitee = `revoke.me.${Date.now()}@brightwater.example`;
@@ -56,7 +46,7 @@ test("revoking an invitation asks first; Escape keeps it and gives focus back, c
   await expect(dialog).toBeVisible();
   await expect(dialog).toContainText(invitee);
   await expect(dialog.getByRole("button", { name: "Revoke invitation" })).toBeVisible();
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();
@@ -92,7 +82,7 @@ test("changing a role asks first; the drop-down keeps the old role until confirm
   await expect(dialog).toContainText(`${member.email} goes from engineer to viewer`);
   // Nothing is changed yet: the drop-down behind the question still shows the role the member has.
   await expect(select).toHaveValue("engineer");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   await page.keyboard.press("Escape");
   await expect(dialog).toBeHidden();

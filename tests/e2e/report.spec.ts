@@ -1,12 +1,13 @@
 import { mkdirSync, readFileSync } from "node:fs";
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import Papa from "papaparse";
-import { PDFParse } from "pdf-parse";
 import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
 import type { DesignReport } from "@/lib/reports/design-report";
 import { signedInContext, USERS } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
+import { browserAs, closeAll } from "./helpers/sign-in";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { pdfText } from "./helpers/pdf-text";
 
 const DEMO_NOTE = "Least volume at the design feed of 0.02 mol/s and X = 0.9 (demo).";
 
@@ -22,21 +23,9 @@ test.beforeAll(async ({ browser }) => {
   const pins = (await (await manager.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string; note: string }[] };
   // The seeded demo pin (other specs may pin more designs to the same project).
   pinId = pins.pins.find((p) => p.note === DEMO_NOTE)!.id;
-  browserCtx = await browser.newContext({ storageState: await manager.storageState(), viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+  browserCtx = await browserAs(browser, manager, { acceptDownloads: true });
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await manager.dispose();
-});
-
-async function pdfText(buf: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(buf) });
-  try {
-    return (await parser.getText()).text.replace(/\s+/g, " ");
-  } finally {
-    await parser.destroy();
-  }
-}
+test.afterAll(() => closeAll(browserCtx, manager));
 
 test("the manager opens the demo pin's report from the project page, reads the train and cautions, and downloads the PDF", async () => {
   const report = ((await (await manager.get(`/api/pins/${pinId}/export.json`)).json()) as { report: DesignReport }).report;
@@ -57,9 +46,7 @@ test("the manager opens the demo pin's report from the project page, reads the t
 
   mkdirSync("test-results/screens", { recursive: true });
   await page.screenshot({ path: "test-results/screens/design-report.png", fullPage: true });
-  const axe = await new AxeBuilder({ page }).analyze();
-  const bad = axe.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+  await expectNoSeriousA11yViolations(page);
 
   // Printing hides the app's header and the buttons.
   await page.emulateMedia({ media: "print" });

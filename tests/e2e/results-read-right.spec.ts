@@ -1,9 +1,9 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
-import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
+import { openPage, signedInContext } from "./fixtures";
 import { emptyStageCount, leadingNumber, listCandidates } from "./ranked-rows";
 import { createModel, firstProjectId, submitSweep, waitForSweep } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll, signInWithForm } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -16,31 +16,12 @@ test.beforeAll(async ({ browser }) => {
   projectId = await firstProjectId(engineer);
   modelLabel = `Read-right kinetics ${Date.now()}`;
   versionId = (await createModel(engineer, projectId, modelLabel)).version.id;
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
-
-/** No serious or critical axe-core violation inside `selector`, as the page stands. */
-async function expectAccessible(page: Page, selector: string) {
-  const result = await new AxeBuilder({ page }).include(selector).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
-
-async function signInAsEngineer(page: Page) {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS.engineer, DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
-  await appReady(page);
-}
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 test("the kinetics preview never shows a figure it cannot stand behind", async ({ page }) => {
-  await signInAsEngineer(page);
+  await signInWithForm(page, "engineer");
   const name = `Preview limits ${Date.now()}`;
   const create = page.getByRole("form", { name: "New project" });
   await create.getByLabel("New project").fill(name);
@@ -69,14 +50,11 @@ test("the kinetics preview never shows a figure it cannot stand behind", async (
 
   await k.fill("0.002");
   await expect(pfr).toHaveText("38.38 L");
-  const axe = await new AxeBuilder({ page }).include("[data-testid=kinetics-preview]").analyze();
-  expect(axe.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => v.id)).toEqual([]);
+  await expectNoSeriousA11yViolations(page, "[data-testid=kinetics-preview]");
 });
 
 test("an expression whose rate overflows is named in the preview, never drawn as 0 L", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/kinetics/new`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/kinetics/new`);
   const pfr = page.getByTestId("single-pfr-volume");
   await expect(pfr).not.toHaveText("—");
   await page.getByRole("radiogroup", { name: "Rate law" }).getByRole("radio", { name: /Expression/ }).check();
@@ -90,9 +68,7 @@ test("an expression whose rate overflows is named in the preview, never drawn as
 });
 
 test("rating a 1e30 m³ vessel is refused with a message naming the stage volume", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/rate`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/rate`);
   await expect(page.getByRole("heading", { name: "Rate a fixed train", level: 1 })).toBeVisible();
   await page.getByLabel("Kinetics version").selectOption({ label: `${modelLabel} · v1` });
   await page.getByLabel("Target conversion").fill("0.8");
@@ -103,7 +79,7 @@ test("rating a 1e30 m³ vessel is refused with a message naming the stage volume
   await expect(first).toContainText("Stage 1 volume");
   await expect(page.getByText("Nothing was rated")).toBeVisible();
   await expect(page.getByTestId("rating-result")).toHaveCount(0);
-  await expectAccessible(page, "main");
+  await expectNoSeriousA11yViolations(page, "main");
   // A sensible vessel after the slip is rated as usual.
   await first.getByLabel("Volume").fill("10");
   await first.getByLabel("Unit").selectOption("L");
@@ -127,9 +103,7 @@ test("least volume: the top rows are trains whose every stage does work; padded 
   // only adds volume and its best size is zero (common practice): trains like CSTR then PFR are padded.
   const sweep = await submitSweep(engineer, projectId, versionId, [], 3);
   await waitForSweep(engineer, sweep.id);
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/${sweep.id}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/${sweep.id}`);
   await expect(page.getByTestId("sweep-status")).toHaveText("Finished");
 
   const items = await listCandidates(engineer, sweep.id);
@@ -172,9 +146,7 @@ test("with reuse of idle vessels and the cost objective, ranks follow the cost w
   const added = await engineer.post("/api/inventory", { data: { tag, type: "CSTR", volume: 0.05, reuseCost: 0 } });
   expect(added.status(), await added.text()).toBe(201);
 
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/new?version=${versionId}`);
   await page.getByLabel("Least vessel cost").check();
   await expect(page.getByText(/Filled from the project's cost basis/)).toBeVisible();
   await page.getByLabel("Reuse idle vessels from the inventory").check();
@@ -223,9 +195,7 @@ test("with reuse of idle vessels and the cost objective, ranks follow the cost w
 });
 
 test("sweep builder: refuses bad values as typed, starts costs from the project's basis, drops a stale server message", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/new?version=${versionId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/new?version=${versionId}`);
   const trains = page.getByTestId("optimisation-count");
   await expect(trains).not.toHaveText("—");
 
@@ -263,7 +233,7 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   await values.fill("1,,2");
   await expect(page.locator("#s-grid-0-values-error")).toContainText("missing between two commas");
   await expect(trains).toHaveText("—");
-  await expectAccessible(page, "form[aria-label='New sweep']");
+  await expectNoSeriousA11yViolations(page, "form[aria-label='New sweep']");
   await values.fill("1, 2");
   await expect(page.getByTestId("scenario-count")).toHaveText("2");
   await expect(trains).toHaveText("28");

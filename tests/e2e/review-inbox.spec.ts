@@ -1,18 +1,13 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { expect, test, type APIRequestContext } from "@playwright/test";
+import { openPage, signedInContext } from "./fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let manager: APIRequestContext;
 let pinId: string;
 const projectName = `Inbox study ${Date.now().toString(36)}`;
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
 
 const inboxIds = async () => ((await (await manager.get("/api/reviews")).json()) as { reviews: { pinId: string }[] }).reviews.map((r) => r.pinId);
 const inboxCount = async () => ((await (await manager.get("/api/reviews")).json()) as { count: number }).count;
@@ -33,23 +28,18 @@ test.beforeAll(async () => {
   expect(pinned.status()).toBe(201);
   pinId = ((await pinned.json()) as { pin: { id: string } }).pin.id;
 });
-test.afterAll(async () => {
-  await engineer.dispose();
-  await manager.dispose();
-});
+test.afterAll(() => closeAll(engineer, manager));
 
 test("the manager's inbox lists the waiting pin, the header counts it, and approving removes it from both", async ({ browser }) => {
-  const ctx = await browser.newContext({ storageState: await manager.storageState(), viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  await page.goto("/reviews");
-  await appReady(page);
+  const ctx = await browserAs(browser, manager);
+  const page = await openPage(ctx, "/reviews");
   const item = page.getByTestId("review-item").filter({ hasText: projectName });
   await expect(item).toBeVisible();
   await expect(item).toContainText("inbox check");
   await expect(item.getByRole("link", { name: projectName })).toHaveAttribute("href", /\/projects\/[0-9a-f-]{36}$/);
   // Other specs pin at the same time: the header shows what the server counts at that moment.
   await expect.poll(async () => Number(await page.getByTestId("review-count").textContent()) === (await inboxCount())).toBe(true);
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
 
   await item.getByLabel("Review comment").fill("Volume within the plot allowance");
   await item.getByRole("button", { name: "Approve" }).click();
@@ -62,10 +52,8 @@ test("the manager's inbox lists the waiting pin, the header counts it, and appro
 });
 
 test("engineers have no inbox and no count in the header", async ({ browser }) => {
-  const ctx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  await page.goto("/");
-  await appReady(page);
+  const ctx = await browserAs(browser, engineer);
+  const page = await openPage(ctx, "/");
   await expect(page.getByRole("link", { name: /^Reviews/ })).toHaveCount(0);
   expect((await engineer.get("/api/reviews")).status()).toBe(403);
   await ctx.close();

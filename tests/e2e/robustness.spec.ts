@@ -1,8 +1,9 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
+import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import { expectReadableAxes } from "./chart-fixtures";
-import { appReady, signedInContext } from "./fixtures";
+import { openPage, signedInContext } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -15,25 +16,14 @@ test.beforeAll(async ({ browser }) => {
   // The demo data's finished sweep has its best train at the design point pinned for review.
   const pins = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string; sweepId: string; candidateId: string; note: string }[] };
   pin = pins.pins.find((p) => p.note.includes("(demo)"))!;
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
-
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 const percent = (text: string) => Number(text.replace(/[^0-9.]/g, "")) / 100;
 
 test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the chart and a text summary", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("Input", { exact: true }).selectOption("reaction.rate.k");
@@ -59,16 +49,14 @@ test("candidate view: k ± 20 % gives P5/P50/P95 as the API stores them, the cha
   expect(percent(shown[1])).toBeCloseTo(run.result.p50, 4);
   expect(percent(shown[2])).toBeCloseTo(run.result.p95, 4);
   expect(run.result.p5).toBeLessThan(run.result.p95);
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.close();
 });
 
 test("a bad range is refused beside its field and nothing runs", async () => {
   const runs = async () => ((await (await engineer.get(`/api/candidates/${pin.candidateId}/robustness`)).json()) as { runs: unknown[] }).runs.length;
   const before = await runs();
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/${pin.sweepId}/candidates/${pin.candidateId}`);
   const panel = page.getByRole("region", { name: "Robustness" });
   await expect(panel.getByLabel("± %", { exact: true })).toBeVisible({ timeout: 30_000 });
   await panel.getByLabel("± %", { exact: true }).fill("150");
@@ -79,9 +67,7 @@ test("a bad range is refused beside its field and nothing runs", async () => {
 });
 
 test("pinned design: a run above 2,000 samples is queued, polled and shown when the worker is done", async () => {
-  const page = await browserCtx.newPage();
-  await page.goto(`/projects/${projectId}`);
-  await appReady(page);
+  const page = await openPage(browserCtx, `/projects/${projectId}`);
   const item = page.getByTestId("pin").filter({ hasText: "(demo)" });
   await item.getByRole("button", { name: "Robustness" }).click();
   const panel = item.getByRole("region", { name: "Robustness of this pinned design" });
@@ -91,6 +77,6 @@ test("pinned design: a run above 2,000 samples is queued, polled and shown when 
   await panel.getByTestId("robustness-run").click();
   await expect(panel.getByTestId("robustness-waiting")).toBeVisible();
   await expect(panel.getByTestId("robustness-summary")).toContainText("3,000 samples (random seed 5)", { timeout: 60_000 });
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.close();
 });

@@ -1,30 +1,15 @@
 import { mkdirSync } from "node:fs";
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type Page } from "@playwright/test";
-import { appReady, DEMO_PASSWORD, signedInContext, USERS, type Who } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { expect, test } from "@playwright/test";
+import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { signInWithForm } from "./helpers/sign-in";
 
 const SHOTS = "test-results/screens";
 mkdirSync(SHOTS, { recursive: true });
 
-async function signIn(page: Page, who: Who) {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS[who], DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
-  await appReady(page);
-}
-
-async function expectNoSeriousA11yViolations(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`)).toEqual([]);
-}
-
 test("an engineer defines kinetics with a live plot, builds a sweep over a grid and lands on its page", async ({ page }) => {
-  await signIn(page, "engineer");
+  await signInWithForm(page, "engineer");
   const name = `Ethyl acetate pilot ${Date.now()}`;
   const create = page.getByRole("form", { name: "New project" });
   await create.getByLabel("New project").fill(name);
@@ -103,7 +88,7 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   await engineer.dispose();
 
   const managerPage = await (await browser.newContext()).newPage();
-  await signIn(managerPage, "manager");
+  await signInWithForm(managerPage, "manager");
   await managerPage.goto(`/projects/${projectId}`);
   await appReady(managerPage);
   const pin = managerPage.getByTestId("pin").filter({ hasText: note });
@@ -123,7 +108,7 @@ test("a manager approves a pinned design on the project page; a viewer sees it a
   await expectNoSeriousA11yViolations(managerPage);
 
   const viewerPage = await (await browser.newContext()).newPage();
-  await signIn(viewerPage, "viewer");
+  await signInWithForm(viewerPage, "viewer");
   await viewerPage.goto(`/projects/${projectId}`);
   const seen = viewerPage.getByTestId("pin").filter({ hasText: note });
   await expect(seen.getByTestId("pin-state")).toHaveText(/approved/i);

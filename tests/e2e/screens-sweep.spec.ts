@@ -1,8 +1,9 @@
 import { mkdirSync } from "node:fs";
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type APIRequestContext, type BrowserContext, type Page } from "@playwright/test";
 import { signedInContext } from "./fixtures";
 import { createModel, firstProjectId, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { browserAs, closeAll } from "./helpers/sign-in";
 
 const SCREENS = "test-results/screens";
 let engineer: APIRequestContext;
@@ -15,19 +16,9 @@ test.beforeAll(async ({ browser }) => {
   engineer = await signedInContext("engineer");
   projectId = await firstProjectId(engineer);
   versionId = (await createModel(engineer, projectId, `Screens kinetics ${Date.now()}`)).version.id;
-  browserCtx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
+  browserCtx = await browserAs(browser, engineer);
 });
-test.afterAll(async () => {
-  await browserCtx.close();
-  await engineer.dispose();
-});
-
-/** No serious or critical axe-core violation on the page as it stands. */
-async function expectAccessible(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-}
+test.afterAll(() => closeAll(browserCtx, engineer));
 
 /** The numbers of one column of the ranked table, top to bottom. */
 async function columnNumbers(page: Page, column: number): Promise<number[]> {
@@ -87,7 +78,7 @@ test("sweep page: progress to 100 %, heat map, sort by volume kept in the URL, c
   await page.reload();
   await expect(page.getByRole("columnheader", { name: /Total volume, L/ })).toHaveAttribute("aria-sort", "descending");
   await expect.poll(() => columnNumbers(page, COL.rank)).toEqual(ranks);
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: `${SCREENS}/sweep-page.png`, fullPage: true });
 
   // Two trains to compare.
@@ -99,7 +90,7 @@ test("sweep page: progress to 100 %, heat map, sort by volume kept in the URL, c
   await expect(page.getByTestId("compare-card")).toHaveCount(2);
   await expect(page.getByTestId("compare-differences")).toContainText("Volume over the smallest");
   await expect(page.getByTestId("levenspiel-chart")).toHaveCount(2);
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: `${SCREENS}/compare.png`, fullPage: true });
 
   // A candidate's chart, then pin it.
@@ -114,7 +105,7 @@ test("sweep page: progress to 100 %, heat map, sort by volume kept in the URL, c
   await chart.focus();
   await page.keyboard.press("ArrowRight");
   await expect(page.getByTestId("chart-readout")).toContainText("FA0/(−rA)");
-  await expectAccessible(page);
+  await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: `${SCREENS}/candidate.png`, fullPage: true });
   await page.getByLabel("Note for the reviewer").fill("Smallest train at the design feed; check the jacket duty");
   await page.getByTestId("pin-button").click();

@@ -5,6 +5,7 @@ import Papa from "papaparse";
 import { apiContext, baseURL, postCredentials, signedInContext } from "./fixtures";
 import { insertMember, MEMBER_PASSWORD } from "./member-fixtures";
 import { createModel, submitSweep, waitForSweep, type CandidatePage } from "./sweep-fixtures";
+import { closeAll } from "./helpers/sign-in";
 
 let engineer: APIRequestContext;
 let admin: APIRequestContext;
@@ -14,10 +15,7 @@ test.beforeAll(async () => {
   engineer = await signedInContext("engineer");
   admin = await signedInContext("admin");
 });
-test.afterAll(async () => {
-  await engineer.dispose();
-  await admin.dispose();
-});
+test.afterAll(() => closeAll(engineer, admin));
 
 async function projectNames(): Promise<string[]> {
   const body = (await (await engineer.get("/api/projects")).json()) as { projects: { name: string }[] };

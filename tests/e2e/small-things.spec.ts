@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
+import { appReady, DEMO_PASSWORD, openPage, signedInContext, USERS } from "./fixtures";
 import { SignInPage } from "./pages/sign-in-page";
 import { firstProjectId } from "./sweep-fixtures";
 
@@ -70,9 +70,7 @@ test("the printed report leaves out the chart's pointing hint (manager)", async 
   const projectId = await firstProjectId(manager);
   const pins = (await (await manager.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { id: string }[] };
   const ctx = await browser.newContext({ storageState: await manager.storageState() });
-  const page = await ctx.newPage();
-  await page.goto(`/projects/${projectId}/pins/${pins.pins[0].id}/report`);
-  await appReady(page);
+  const page = await openPage(ctx, `/projects/${projectId}/pins/${pins.pins[0].id}/report`);
   const hint = page.getByText("Hover or focus the chart").first();
   await expect(hint).toBeVisible();
   await page.emulateMedia({ media: "print" });
@@ -91,9 +89,7 @@ test("the inventory title counts idle vessels only (engineer)", async ({ browser
   // The demo inventory holds a vessel on loan (lib/demo/inventory.ts), so the two counts differ.
   expect(inUse).toBeGreaterThan(0);
   const ctx = await browser.newContext({ storageState: await engineer.storageState() });
-  const page = await ctx.newPage();
-  await page.goto("/inventory");
-  await appReady(page);
+  const page = await openPage(ctx, "/inventory");
   await expect(page.getByTestId("inventory-count")).toHaveText(`(${idle}; ${inUse} more in use)`);
   await ctx.close();
   await engineer.dispose();
@@ -102,9 +98,7 @@ test("the inventory title counts idle vessels only (engineer)", async ({ browser
 test("the demo project reads as the bench study its litre-sized reactor is (engineer)", async ({ browser }) => {
   const engineer = await signedInContext("engineer");
   const ctx = await browser.newContext({ storageState: await engineer.storageState() });
-  const page = await ctx.newPage();
-  await page.goto("/");
-  await appReady(page);
+  const page = await openPage(ctx, "/");
   await page.getByRole("link", { name: "Ester line 3 revamp" }).click();
   await expect(page.getByTestId("project-title")).toHaveText("Ester line 3 revamp");
   await expect(page.getByText(/bench-scale study/)).toBeVisible();

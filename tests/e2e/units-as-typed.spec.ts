@@ -1,30 +1,15 @@
-import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type Page } from "@playwright/test";
-import { appReady, DEMO_PASSWORD, signedInContext, USERS } from "./fixtures";
-import { SignInPage } from "./pages/sign-in-page";
+import { expect, test } from "@playwright/test";
+import { appReady, signedInContext } from "./fixtures";
 import { createModel, firstProjectId, waitForSweep } from "./sweep-fixtures";
+import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
+import { signInWithForm } from "./helpers/sign-in";
 
 // Exact definitions (lib/units/display.ts): T[K] = T[degC] + 273.15; 1 kmol/h = 1000 mol / 3600 s.
-
-async function signIn(page: Page) {
-  await page.setViewportSize({ width: 1280, height: 900 });
-  const form = new SignInPage(page);
-  await form.open();
-  await form.withPassword(USERS.engineer, DEMO_PASSWORD);
-  await expect(page.getByRole("heading", { name: "Brightwater Fine Chemicals" })).toBeVisible();
-  await appReady(page);
-}
-
-async function expectNoSeriousA11yViolations(page: Page) {
-  const result = await new AxeBuilder({ page }).analyze();
-  const bad = result.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-  expect(bad.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
-}
 
 test("the design engineer's units stay as typed: picking a unit keeps the number, the model reopens as typed", async ({ page }) => {
   const api = await signedInContext("engineer");
   const projectId = await firstProjectId(api);
-  await signIn(page);
+  await signInWithForm(page, "engineer");
   await page.goto(`/projects/${projectId}/kinetics/new`);
   await appReady(page);
   await expect(page.getByRole("heading", { name: "New kinetics" })).toBeVisible();
@@ -94,7 +79,7 @@ test("a spec with a target of \"90 %\" is accepted and the sweep's grid axis sho
   expect(await bad.text()).toContain("Target conversion");
   await waitForSweep(api, sweep.id);
 
-  await signIn(page);
+  await signInWithForm(page, "engineer");
   await page.goto(`/projects/${projectId}/sweeps/${sweep.id}`);
   await appReady(page);
   const map = page.getByTestId("heat-map");

@@ -1,6 +1,7 @@
 import { expect, test, type APIRequestContext, type Browser, type Locator, type Page } from "@playwright/test";
-import { appReady, signedInContext } from "./fixtures";
+import { openPage, signedInContext } from "./fixtures";
 import { createModel, firstProjectId } from "./sweep-fixtures";
+import { browserAs } from "./helpers/sign-in";
 
 // A message a person reads names fields by their labels: no camel-case key, no dotted path.
 const PATHY = /\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+/;
@@ -55,9 +56,7 @@ test("kinetics with an unreadable unit and a project of one letter read in label
 
 test("a finished sweep reads the same on the project list and on its page", async ({ browser }) => {
   const ctx = await browser.newContext({ storageState: await engineer.storageState() });
-  const page = await ctx.newPage();
-  await page.goto(`/projects/${projectId}`);
-  await appReady(page);
+  const page = await openPage(ctx, `/projects/${projectId}`);
   const row = page.getByRole("row").filter({ has: page.getByRole("link") }).filter({ hasText: "Finished" }).first();
   await expect(row).toBeVisible({ timeout: 60_000 });
   await row.getByRole("link").first().click();
@@ -68,10 +67,8 @@ test("a finished sweep reads the same on the project list and on its page", asyn
 // --- On screen, as the demo design engineer: every alert a form shows reads in labels. ---
 
 async function engineerPage(browser: Browser, path: string): Promise<Page> {
-  const ctx = await browser.newContext({ storageState: await engineer.storageState(), viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  await page.goto(path);
-  await appReady(page);
+  const ctx = await browserAs(browser, engineer);
+  const page = await openPage(ctx, path);
   return page;
 }
 

@@ -1,8 +1,6 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/lib/demo/seed";
-import { inventoryVessels, kineticsModels, kineticsVersions, pinnedDesigns, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
-import { loadActor } from "@/lib/authz/actor";
+import { inventoryVessels, kineticsModels, kineticsVersions, pinnedDesigns, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import { POLICY, type Actor } from "@/lib/authz/policy";
 import { AppError } from "@/lib/errors";
 import { listAuditEntries } from "@/lib/services/audit";
@@ -18,21 +16,15 @@ import { createVessel, deleteVessel, getVessel, importInventory, listInventory, 
 import { rateFixedTrain } from "@/lib/services/rating";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
 import { listReviewInbox } from "@/lib/services/reviews";
-import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+import type { TestDatabase } from "../helpers/test-db";
+import { DEMO_USERS, type DemoPerson } from "../helpers/demo-people";
+import { accessOutcome, demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 
-type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
+type Who = DemoPerson;
 type Outcome = "ok" | "forbidden" | "not_found";
 
-const EMAILS: Record<Who, string> = {
-  admin: "ada.admin@brightwater.example",
-  manager: "marta.manager@brightwater.example",
-  engineer: "eli.engineer@brightwater.example",
-  viewer: "vic.viewer@brightwater.example",
-  otherTeam: "kai.admin@kestrel.example",
-};
-
 let t: TestDatabase;
-const actors = {} as Record<Who, Actor>;
+let actors: Record<Who, Actor>;
 let engineersProject: string;
 let managersProject: string;
 let viewerId: string;
@@ -44,21 +36,16 @@ let candidateRunId: string;
 const UNCERTAIN = { uncertain: [{ field: "reaction.rate.k" as const, kind: "plusMinus" as const, fraction: 0.2 }], samples: 20, seed: 1 };
 
 beforeAll(async () => {
-  t = await createTestDatabase();
-  await seedDemoData(t.db);
-  for (const who of Object.keys(EMAILS) as Who[]) {
-    const [u] = await t.db.select().from(users).where(eq(users.email, EMAILS[who]));
-    actors[who] = (await loadActor(t.db, u.id))!;
-  }
+  t = await seededTestDatabase();
+  actors = await demoActors(t.db);
   viewerId = actors.viewer.userId;
-  const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
-  engineersProject = p.id;
+  engineersProject = await projectIdNamed(t.db, ESTER_PROJECT);
   [{ id: vesselId }] = await t.db.select({ id: inventoryVessels.id }).from(inventoryVessels).where(eq(inventoryVessels.tag, "R-302"));
   [{ id: kineticsVersionId }] = await t.db
     .select({ id: kineticsVersions.id })
     .from(kineticsVersions)
     .innerJoin(kineticsModels, eq(kineticsModels.id, kineticsVersions.modelId))
-    .where(eq(kineticsModels.projectId, p.id));
+    .where(eq(kineticsModels.projectId, engineersProject));
   managersProject = (await createProject(t.db, actors.manager, { name: "Manager's own study", description: "" })).id;
   // A dataset version written straight to the tables (the upload is another feature's route).
   const [ds] = await t.db.insert(rateDatasets).values({ teamId: actors.engineer.teamId, projectId: engineersProject, name: "Matrix rates", createdBy: actors.engineer.userId }).returning();
@@ -71,15 +58,6 @@ beforeAll(async () => {
 });
 afterAll(() => t.drop());
 
-async function outcomeOf(fn: () => Promise<unknown>): Promise<Outcome> {
-  try {
-    await fn();
-    return "ok";
-  } catch (err) {
-    if (err instanceof AppError && (err.code === "forbidden" || err.code === "not_found")) return err.code;
-    throw err;
-  }
-}
 
 // Every service operation behind a route handler, with the outcome each actor must get.
 // "otherTeam" is an admin of another team acting on this team's records.
@@ -149,23 +127,23 @@ const MATRIX: { name: string; run: (a: Actor) => Promise<unknown>; expect: Recor
 
 describe("authorisation matrix over the services", () => {
   for (const row of MATRIX) {
-    for (const who of Object.keys(EMAILS) as Who[]) {
+    for (const who of Object.keys(DEMO_USERS) as Who[]) {
       it(`${row.name} as ${who} → ${row.expect[who]}`, async () => {
-        expect(await outcomeOf(() => row.run(actors[who]))).toBe(row.expect[who]);
+        expect(await accessOutcome(() => row.run(actors[who]))).toBe(row.expect[who]);
       });
     }
   }
 
   it("archiving a project of someone else needs more than the engineer role", async () => {
-    expect(await outcomeOf(() => updateProject(t.db, actors.engineer, managersProject, { archived: true }))).toBe("forbidden");
-    expect(await outcomeOf(() => updateProject(t.db, actors.viewer, engineersProject, { archived: true }))).toBe("forbidden");
+    expect(await accessOutcome(() => updateProject(t.db, actors.engineer, managersProject, { archived: true }))).toBe("forbidden");
+    expect(await accessOutcome(() => updateProject(t.db, actors.viewer, engineersProject, { archived: true }))).toBe("forbidden");
   });
 
   it("another team's listings never include this team's records", async () => {
     const theirs = await listProjects(t.db, actors.otherTeam, { includeArchived: true });
     expect(theirs.map((p) => p.id)).not.toContain(engineersProject);
     const members = await listMembers(t.db, actors.otherTeam);
-    expect(members.map((m) => m.email)).toEqual([EMAILS.otherTeam]);
+    expect(members.map((m) => m.email)).toEqual([DEMO_USERS.otherTeam]);
     const audit = await listAuditEntries(t.db, actors.otherTeam);
     expect(audit.every((e) => e.entityId !== engineersProject)).toBe(true);
   });
@@ -192,17 +170,17 @@ describe("authorisation matrix over the services", () => {
     expect(renamed).toBeInstanceOf(AppError);
     expect((renamed as AppError).code).toBe("conflict");
     // Another team may use the name.
-    expect(await outcomeOf(() => createProject(t.db, actors.otherTeam, { name: "Glycol Dehydration Study", description: "" }))).toBe("ok");
+    expect(await accessOutcome(() => createProject(t.db, actors.otherTeam, { name: "Glycol Dehydration Study", description: "" }))).toBe("ok");
   });
 
   it("invitations: only admins create and revoke, only in their own team", async () => {
     for (const who of ["manager", "engineer", "viewer"] as const) {
-      expect(await outcomeOf(() => createInvitation(t.db, actors[who], { email: `x-${who}@new.example`, role: "viewer" }))).toBe("forbidden");
+      expect(await accessOutcome(() => createInvitation(t.db, actors[who], { email: `x-${who}@new.example`, role: "viewer" }))).toBe("forbidden");
     }
     const inv = await createInvitation(t.db, actors.admin, { email: "new.colleague@brightwater.example", role: "engineer" });
-    expect(await outcomeOf(() => revokeInvitation(t.db, actors.otherTeam, inv.id))).toBe("not_found");
-    expect(await outcomeOf(() => revokeInvitation(t.db, actors.manager, inv.id))).toBe("forbidden");
-    expect(await outcomeOf(() => revokeInvitation(t.db, actors.admin, inv.id))).toBe("ok");
+    expect(await accessOutcome(() => revokeInvitation(t.db, actors.otherTeam, inv.id))).toBe("not_found");
+    expect(await accessOutcome(() => revokeInvitation(t.db, actors.manager, inv.id))).toBe("forbidden");
+    expect(await accessOutcome(() => revokeInvitation(t.db, actors.admin, inv.id))).toBe("ok");
   });
 
   it("the policy table covers every action with at least one role", () => {
@@ -231,9 +209,9 @@ describe("authorisation matrix over the rate-data services", () => {
   ];
   const expected: Record<Who, Outcome> = { admin: "ok", manager: "ok", engineer: "ok", viewer: "forbidden", otherTeam: "not_found" };
   for (const row of DATASET_MATRIX) {
-    for (const who of Object.keys(EMAILS) as Who[]) {
+    for (const who of Object.keys(DEMO_USERS) as Who[]) {
       it(`${row.name} as ${who} → ${expected[who]}`, async () => {
-        expect(await outcomeOf(() => row.run(actors[who]))).toBe(expected[who]);
+        expect(await accessOutcome(() => row.run(actors[who]))).toBe(expected[who]);
       });
     }
   }

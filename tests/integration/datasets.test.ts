@@ -3,8 +3,7 @@ import ExcelJS from "exceljs";
 import { and, count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { seedDemoData } from "@/lib/demo/seed";
-import { auditEntries, kineticsModels, kineticsSources, kineticsVersions, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
-import { loadActor } from "@/lib/authz/actor";
+import { auditEntries, kineticsModels, kineticsSources, kineticsVersions, projects, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
 import { readUpload } from "@/lib/http/read-upload";
 import type { Upload } from "@/lib/datasets/parse-upload";
@@ -12,7 +11,9 @@ import { designTrains, type DesignSpec } from "@/lib/engine";
 import { datasetCreateFieldsSchema, type DatasetMapping } from "@/lib/schemas/datasets";
 import { addDatasetVersion, createDataset, createTableKinetics, getDataset, getDatasetVersion, listDatasetSources, listDatasets, previewDataset } from "@/lib/services/datasets";
 import { createKineticsModel } from "@/lib/services/kinetics";
-import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+import { actorByEmail, type TestDatabase } from "../helpers/test-db";
+import { DEMO_USERS } from "../helpers/demo-people";
+import { ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 import { refusal } from "../helpers/refusal";
 
 const fixture = (name: string) => new Uint8Array(readFileSync(`tests/fixtures/datasets/${name}`));
@@ -39,11 +40,9 @@ async function counts() {
 
 
 beforeAll(async () => {
-  t = await createTestDatabase();
-  await seedDemoData(t.db);
-  const [u] = await t.db.select().from(users).where(eq(users.email, "eli.engineer@brightwater.example"));
-  engineer = (await loadActor(t.db, u.id))!;
-  [{ id: projectId }] = await t.db.select({ id: projects.id }).from(projects).where(eq(projects.name, "Ester line 3 revamp"));
+  t = await seededTestDatabase();
+  engineer = await actorByEmail(t.db, DEMO_USERS.engineer);
+  projectId = await projectIdNamed(t.db, ESTER_PROJECT);
 });
 afterAll(() => t.drop());
 

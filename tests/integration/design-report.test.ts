@@ -3,11 +3,8 @@ import Papa from "papaparse";
 import { PDFParse } from "pdf-parse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
-import { candidates, inventoryVessels, kineticsSources, pinnedDesigns, projectCostSettings, projects, rateDatasets, rateDatasetVersions, robustnessRuns, users } from "@/db/schema";
-import { seedDemoData } from "@/lib/demo/seed";
-import { loadActor } from "@/lib/authz/actor";
+import { candidates, inventoryVessels, kineticsSources, pinnedDesigns, projectCostSettings, rateDatasets, rateDatasetVersions, robustnessRuns } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
-import { AppError } from "@/lib/errors";
 import { getDesignReport } from "@/lib/services/design-reports";
 import { candidatesCsv, stageTableCsv } from "@/lib/reports/exports";
 import { fmtVolume, reportFileName } from "@/lib/reports/report-format";
@@ -15,31 +12,19 @@ import { renderReportPdf } from "@/lib/reports/report-pdf";
 import { exportCandidates } from "@/lib/services/candidate-export";
 import { listCandidates } from "@/lib/services/candidates";
 import { reviewPin } from "@/lib/services/pins";
-import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
-
-type Who = "admin" | "manager" | "engineer" | "viewer" | "otherTeam";
-const EMAILS: Record<Who, string> = {
-  admin: "ada.admin@brightwater.example",
-  manager: "marta.manager@brightwater.example",
-  engineer: "eli.engineer@brightwater.example",
-  viewer: "vic.viewer@brightwater.example",
-  otherTeam: "kai.admin@kestrel.example",
-};
+import type { TestDatabase } from "../helpers/test-db";
+import type { DemoPerson } from "../helpers/demo-people";
+import { accessOutcome, demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 
 let t: TestDatabase;
-const actors = {} as Record<Who, Actor>;
+let actors: Record<DemoPerson, Actor>;
 let pinId: string;
 let projectId: string;
 
 beforeAll(async () => {
-  t = await createTestDatabase();
-  await seedDemoData(t.db);
-  for (const who of Object.keys(EMAILS) as Who[]) {
-    const [u] = await t.db.select().from(users).where(eq(users.email, EMAILS[who]));
-    actors[who] = (await loadActor(t.db, u.id))!;
-  }
-  const [p] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
-  projectId = p.id;
+  t = await seededTestDatabase();
+  actors = await demoActors(t.db);
+  projectId = await projectIdNamed(t.db, ESTER_PROJECT);
   const [pin] = await t.db.select().from(pinnedDesigns).where(eq(pinnedDesigns.projectId, projectId));
   pinId = pin.id;
 });
@@ -53,16 +38,6 @@ async function pdfText(pdf: Buffer): Promise<string> {
     return text.replace(/\s+/g, " ");
   } finally {
     await parser.destroy();
-  }
-}
-
-async function outcome(fn: () => Promise<unknown>): Promise<"ok" | "forbidden" | "not_found"> {
-  try {
-    await fn();
-    return "ok";
-  } catch (err) {
-    if (err instanceof AppError && (err.code === "forbidden" || err.code === "not_found")) return err.code;
-    throw err;
   }
 }
 
@@ -122,7 +97,7 @@ describe("design report of the demo pin", () => {
   });
 
   it("after approval the report and its PDF name the reviewer, and the viewer may read it", async () => {
-    expect(await outcome(() => getDesignReport(t.db, actors.viewer, pinId))).toBe("not_found");
+    expect(await accessOutcome(() => getDesignReport(t.db, actors.viewer, pinId))).toBe("not_found");
     await reviewPin(t.db, actors.manager, pinId, { decision: "approve", comment: "Within the envelope of the bench data" });
     const r = await getDesignReport(t.db, actors.viewer, pinId);
     expect(r.pin.state).toBe("approved");
@@ -130,7 +105,7 @@ describe("design report of the demo pin", () => {
     const text = await pdfText(await renderReportPdf(r));
     expect(text).toContain("Approved by Marta Lindqvist");
     expect(text).toContain("Within the envelope of the bench data");
-    expect(await outcome(() => getDesignReport(t.db, actors.otherTeam, pinId))).toBe("not_found");
+    expect(await accessOutcome(() => getDesignReport(t.db, actors.otherTeam, pinId))).toBe("not_found");
   });
 
   it("with rows in kinetics_sources, project_cost_settings, robustness_runs and an inventory plan, the report carries those sections", async () => {
@@ -233,7 +208,7 @@ describe("exports", () => {
 
   it("exports refuse viewers and other teams like the ranked table", async () => {
     const [pin] = await t.db.select().from(pinnedDesigns).where(and(eq(pinnedDesigns.id, pinId)));
-    expect(await outcome(() => exportCandidates(t.db, actors.viewer, pin.sweepId!, 0, { sort: "rank", dir: "asc" }))).toBe("forbidden");
-    expect(await outcome(() => exportCandidates(t.db, actors.otherTeam, pin.sweepId!, 0, { sort: "rank", dir: "asc" }))).toBe("not_found");
+    expect(await accessOutcome(() => exportCandidates(t.db, actors.viewer, pin.sweepId!, 0, { sort: "rank", dir: "asc" }))).toBe("forbidden");
+    expect(await accessOutcome(() => exportCandidates(t.db, actors.otherTeam, pin.sweepId!, 0, { sort: "rank", dir: "asc" }))).toBe("not_found");
   });
 });

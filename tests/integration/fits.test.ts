@@ -1,15 +1,15 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemoData } from "@/lib/demo/seed";
-import { auditEntries, kineticsModels, kineticsSources, kineticsVersions, projects, rateDatasets, rateDatasetVersions, users } from "@/db/schema";
-import { loadActor } from "@/lib/authz/actor";
+import { auditEntries, kineticsModels, kineticsSources, kineticsVersions, rateDatasets, rateDatasetVersions } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
-import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/http";
 import { fitRequestSchema, fitSaveSchema } from "@/lib/schemas/fits";
 import { fitDatasetVersion, saveFitAsKinetics } from "@/lib/services/fits";
 import { createKineticsModel } from "@/lib/services/kinetics";
-import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
+import { actorByEmail, type TestDatabase } from "../helpers/test-db";
+import { refusal } from "../helpers/refusal";
+import { DEMO_USERS } from "../helpers/demo-people";
+import { ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
 
 const R = 8.314462618; // J/(mol K), CODATA 2018 exact
 
@@ -29,15 +29,10 @@ async function insertVersion(name: string, rows: Record<string, number>[], feedC
 }
 
 beforeAll(async () => {
-  t = await createTestDatabase();
-  await seedDemoData(t.db);
-  const actorOf = async (email: string) => {
-    const [u] = await t.db.select().from(users).where(eq(users.email, email));
-    return (await loadActor(t.db, u.id))!;
-  };
-  engineer = await actorOf("eli.engineer@brightwater.example");
-  otherTeam = await actorOf("kai.admin@kestrel.example");
-  [{ id: projectId }] = await t.db.select().from(projects).where(eq(projects.name, "Ester line 3 revamp"));
+  t = await seededTestDatabase();
+  engineer = await actorByEmail(t.db, DEMO_USERS.engineer);
+  otherTeam = await actorByEmail(t.db, DEMO_USERS.otherTeam);
+  projectId = await projectIdNamed(t.db, ESTER_PROJECT);
   // Noise-free demo data generated from the closed-form laws (invented parameters).
   const C = Array.from({ length: 15 }, (_, i) => 80 + i * 60);
   versions.concentration = await insertVersion("Closed-form power", C.map((c) => ({ concA: c, rate: 2.5e-5 * c ** 1.3 })));
@@ -52,16 +47,6 @@ beforeAll(async () => {
   );
 });
 afterAll(() => t.drop());
-
-async function refusal(p: Promise<unknown>): Promise<AppError> {
-  try {
-    await p;
-  } catch (err) {
-    if (err instanceof AppError) return err;
-    throw err;
-  }
-  throw new Error("expected a refusal");
-}
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 const FEED = { flowA: 0.4, concA: "1 mol/L", temperature: "70 degC" };

@@ -1,12 +1,10 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readQuery, route } from "@/lib/http";
+import { json, readQuery } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 import { auditQuerySchema } from "@/lib/schemas/audit";
 import { listAuditEntries } from "@/lib/services/audit";
 
-export const GET = route(async (req) => {
-  const actor = await requireActor();
+export const GET = signedInRoute(async ({ req, actor, db }) => {
   const { entityType, entityId } = readQuery(req, auditQuerySchema);
-  const entries = await listAuditEntries(getDb(), actor, { entityType, entityId });
+  const entries = await listAuditEntries(db, actor, { entityType, entityId });
   return json({ entries });
 });

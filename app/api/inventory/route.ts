@@ -1,16 +1,11 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 import { inventoryVesselSchema } from "@/lib/schemas/inventory";
 import { createVessel, listInventory } from "@/lib/services/inventory";
 
-export const GET = route(async () => {
-  const actor = await requireActor();
-  return json(await listInventory(getDb(), actor));
-});
+export const GET = signedInRoute(async ({ actor, db }) => json(await listInventory(db, actor)));
 
-export const POST = route(async (req) => {
-  const actor = await requireActor();
+export const POST = signedInRoute(async ({ req, actor, db }) => {
   const input = await readJson(req, inventoryVesselSchema);
-  return json({ vessel: await createVessel(getDb(), actor, input) }, 201);
+  return json({ vessel: await createVessel(db, actor, input) }, 201);
 });

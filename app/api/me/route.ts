@@ -1,10 +1,8 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
 import { listTeamsOfUser } from "@/lib/authz/actor";
-import { json, route } from "@/lib/http";
+import { json } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 
-export const GET = route(async () => {
-  const actor = await requireActor();
-  const teams = await listTeamsOfUser(getDb(), actor.userId);
+export const GET = signedInRoute(async ({ actor, db }) => {
+  const teams = await listTeamsOfUser(db, actor.userId);
   return json({ user: { id: actor.userId, email: actor.email, name: actor.name }, team: { id: actor.teamId, name: actor.teamName, role: actor.role }, teams });
 });

@@ -1,11 +1,9 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route } from "@/lib/http";
+import { json } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 import { listReviewInbox } from "@/lib/services/reviews";
 
 /** The signed-in manager's review inbox; the header's count reads it too. */
-export const GET = route(async () => {
-  const actor = await requireActor();
-  const reviews = await listReviewInbox(getDb(), actor);
+export const GET = signedInRoute(async ({ actor, db }) => {
+  const reviews = await listReviewInbox(db, actor);
   return json({ reviews, count: reviews.length });
 });

@@ -1,17 +1,12 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 import { tokenCreateSchema } from "@/lib/schemas/sweeps";
 import { createApiToken, listApiTokens } from "@/lib/services/tokens";
 
-export const GET = route(async () => {
-  const actor = await requireActor();
-  return json({ tokens: await listApiTokens(getDb(), actor) });
-});
+export const GET = signedInRoute(async ({ actor, db }) => json({ tokens: await listApiTokens(db, actor) }));
 
 /** The token is in this response only; it is stored as a hash. */
-export const POST = route(async (req) => {
-  const actor = await requireActor();
+export const POST = signedInRoute(async ({ req, actor, db }) => {
   const input = await readJson(req, tokenCreateSchema);
-  return json({ token: await createApiToken(getDb(), actor, input) }, 201);
+  return json({ token: await createApiToken(db, actor, input) }, 201);
 });

@@ -1,46 +1,21 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import { cheapestByBruteForce, inventoryVesselArb } from "../helpers/cheapest-by-brute-force";
 import { fits, planFromInventory, type InventoryVessel, type StageNeed } from "@/lib/costs/inventory";
 
 /** Exhaustive enumeration: every stage either bought or given a distinct fitting vessel. */
-function bruteForce(stages: StageNeed[], inventory: InventoryVessel[]): number {
-  let best = Infinity;
-  const used = new Set<number>();
-  const walk = (s: number, cost: number) => {
-    if (cost >= best) return;
-    if (s === stages.length) {
-      best = cost;
-      return;
-    }
-    walk(s + 1, cost + stages[s].purchaseCost);
-    inventory.forEach((v, k) => {
-      if (used.has(k) || !fits(stages[s], v)) return;
-      used.add(k);
-      walk(s + 1, cost + (v.reuseCost ?? 0));
-      used.delete(k);
-    });
-  };
-  walk(0, 0);
-  return best;
-}
+const bruteForce = (stages: StageNeed[], inventory: InventoryVessel[]) => cheapestByBruteForce(stages, inventory, (s) => s.purchaseCost, fits);
 
 const stageArb = fc.record({
   type: fc.constantFrom<"CSTR" | "PFR">("CSTR", "PFR"),
   volume: fc.double({ min: 0.5, max: 20, noNaN: true }),
   purchaseCost: fc.double({ min: 1e4, max: 5e5, noNaN: true }),
 });
-const vesselArb = fc.record({
-  id: fc.uuid(),
-  type: fc.constantFrom<"CSTR" | "PFR">("CSTR", "PFR"),
-  volume: fc.double({ min: 0.5, max: 25, noNaN: true }),
-  available: fc.boolean(),
-  reuseCost: fc.double({ min: 0, max: 2e5, noNaN: true }),
-});
 
 describe("equipping a train from inventory", () => {
   it("finds the least cost that exhaustive enumeration finds, on small inventories", () => {
     fc.assert(
-      fc.property(fc.array(stageArb, { minLength: 1, maxLength: 4 }), fc.array(vesselArb, { minLength: 0, maxLength: 6 }), (stages, inventory) => {
+      fc.property(fc.array(stageArb, { minLength: 1, maxLength: 4 }), fc.array(inventoryVesselArb, { minLength: 0, maxLength: 6 }), (stages, inventory) => {
         const plan = planFromInventory(stages, inventory);
         const exact = bruteForce(stages, inventory);
         expect(plan.totalCost).toBeCloseTo(exact, 4);

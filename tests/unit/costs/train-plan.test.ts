@@ -1,5 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import { cheapestByBruteForce, inventoryVesselArb } from "../helpers/cheapest-by-brute-force";
 import { planTrain, type DesignedStage, type SnapshotVessel } from "@/lib/costs/train-plan";
 
 /**
@@ -9,23 +10,7 @@ import { planTrain, type DesignedStage, type SnapshotVessel } from "@/lib/costs/
  */
 function bruteForce(stages: DesignedStage[], inventory: SnapshotVessel[], factor: number): number {
   const slots = stages.flatMap((s) => Array.from({ length: s.vessels.count }, () => ({ type: s.type, need: s.volume / s.vessels.count, buy: ((s.cost ?? 0) / s.vessels.count) * factor })));
-  let best = Infinity;
-  const used = new Set<number>();
-  const walk = (i: number, cost: number) => {
-    if (i === slots.length) {
-      best = Math.min(best, cost);
-      return;
-    }
-    walk(i + 1, cost + slots[i].buy);
-    inventory.forEach((v, k) => {
-      if (used.has(k) || !v.available || v.type !== slots[i].type || v.volume < slots[i].need * (1 - 1e-9)) return;
-      used.add(k);
-      walk(i + 1, cost + (v.reuseCost ?? 0));
-      used.delete(k);
-    });
-  };
-  walk(0, 0);
-  return best;
+  return cheapestByBruteForce(slots, inventory, (slot) => slot.buy, (slot, v) => v.available && v.type === slot.type && v.volume >= slot.need * (1 - 1e-9));
 }
 
 const stageArb = fc.record({
@@ -34,19 +19,11 @@ const stageArb = fc.record({
   vessels: fc.record({ count: fc.integer({ min: 1, max: 3 }), sizeEach: fc.constant(0) }),
   cost: fc.double({ min: 1e4, max: 3e5, noNaN: true }),
 });
-const vesselArb = fc.record({
-  id: fc.uuid(),
-  tag: fc.string({ minLength: 1, maxLength: 6 }),
-  type: fc.constantFrom<"CSTR" | "PFR">("CSTR", "PFR"),
-  volume: fc.double({ min: 0.5, max: 25, noNaN: true }),
-  available: fc.boolean(),
-  reuseCost: fc.double({ min: 0, max: 2e5, noNaN: true }),
-});
 
 describe("equipping a designed train with parallel vessels from the inventory", () => {
   it("matches brute-force enumeration over every slot", () => {
     fc.assert(
-      fc.property(fc.array(stageArb, { minLength: 1, maxLength: 3 }), fc.uniqueArray(vesselArb, { minLength: 0, maxLength: 5, selector: (v) => v.id }), fc.double({ min: 1, max: 5, noNaN: true }), (stages, inventory, factor) => {
+      fc.property(fc.array(stageArb, { minLength: 1, maxLength: 3 }), fc.uniqueArray(inventoryVesselArb, { minLength: 0, maxLength: 5, selector: (v) => v.id }), fc.double({ min: 1, max: 5, noNaN: true }), (stages, inventory, factor) => {
         const plan = planTrain(stages, inventory, factor);
         expect(plan.totalCost).toBeCloseTo(bruteForce(stages, inventory, factor), 4);
         // All-new is purchase × factor, stage by stage.

@@ -1,13 +1,9 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { compareCandidates } from "@/lib/services/candidates";
 
-type Ctx = { params: Promise<{ candidateId: string }> };
-
 /** One candidate of the actor's team with its stages, plot data, scenario and sweep (the candidate view). */
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  const [candidate] = await compareCandidates(getDb(), actor, [await uuidParam(ctx, "candidateId", "candidate")]);
+export const GET = recordRoute("candidateId", "candidate")(async ({ actor, db, id }) => {
+  const [candidate] = await compareCandidates(db, actor, [id]);
   return json({ candidate });
 });

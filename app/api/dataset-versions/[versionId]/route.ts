@@ -1,11 +1,5 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { getDatasetVersion } from "@/lib/services/datasets";
 
-type Ctx = { params: Promise<{ versionId: string }> };
-
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ version: await getDatasetVersion(getDb(), actor, await uuidParam(ctx, "versionId", "dataset version")) });
-});
+export const GET = recordRoute("versionId", "dataset version")(async ({ actor, db, id }) => json({ version: await getDatasetVersion(db, actor, id) }));

@@ -1,11 +1,5 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { getDataset } from "@/lib/services/datasets";
 
-type Ctx = { params: Promise<{ datasetId: string }> };
-
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ dataset: await getDataset(getDb(), actor, await uuidParam(ctx, "datasetId", "dataset")) });
-});
+export const GET = recordRoute("datasetId", "dataset")(async ({ actor, db, id }) => json({ dataset: await getDataset(db, actor, id) }));

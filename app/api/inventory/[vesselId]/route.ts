@@ -1,25 +1,18 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, noContent, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { inventoryVesselUpdateSchema } from "@/lib/schemas/inventory";
 import { deleteVessel, getVessel, updateVessel } from "@/lib/services/inventory";
 
-type Ctx = { params: Promise<{ vesselId: string }> };
+const onVessel = recordRoute("vesselId", "vessel");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ vessel: await getVessel(getDb(), actor, await uuidParam(ctx, "vesselId", "vessel")) });
-});
+export const GET = onVessel(async ({ actor, db, id }) => json({ vessel: await getVessel(db, actor, id) }));
 
-export const PATCH = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const id = await uuidParam(ctx, "vesselId", "vessel");
+export const PATCH = onVessel(async ({ req, actor, db, id }) => {
   const input = await readJson(req, inventoryVesselUpdateSchema);
-  return json({ vessel: await updateVessel(getDb(), actor, id, input) });
+  return json({ vessel: await updateVessel(db, actor, id, input) });
 });
 
-export const DELETE = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  await deleteVessel(getDb(), actor, await uuidParam(ctx, "vesselId", "vessel"));
-  return new Response(null, { status: 204 });
+export const DELETE = onVessel(async ({ actor, db, id }) => {
+  await deleteVessel(db, actor, id);
+  return noContent();
 });

@@ -1,11 +1,5 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { getKineticsModel } from "@/lib/services/kinetics";
 
-type Ctx = { params: Promise<{ modelId: string }> };
-
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ model: await getKineticsModel(getDb(), actor, await uuidParam(ctx, "modelId", "kinetics model")) });
-});
+export const GET = recordRoute("modelId", "kinetics model")(async ({ actor, db, id }) => json({ model: await getKineticsModel(db, actor, id) }));

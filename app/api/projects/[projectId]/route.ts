@@ -1,19 +1,13 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { projectUpdateSchema } from "@/lib/schemas/projects";
 import { getProjectById, updateProject } from "@/lib/services/projects";
 
-type Ctx = { params: Promise<{ projectId: string }> };
+const onProject = recordRoute("projectId", "project");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ project: await getProjectById(getDb(), actor, await uuidParam(ctx, "projectId", "project")) });
-});
+export const GET = onProject(async ({ actor, db, id }) => json({ project: await getProjectById(db, actor, id) }));
 
-export const PATCH = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const id = await uuidParam(ctx, "projectId", "project");
+export const PATCH = onProject(async ({ req, actor, db, id }) => {
   const input = await readJson(req, projectUpdateSchema);
-  return json({ project: await updateProject(getDb(), actor, id, input) });
+  return json({ project: await updateProject(db, actor, id, input) });
 });

@@ -1,12 +1,6 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { getSweep } from "@/lib/services/sweeps";
 
-type Ctx = { params: Promise<{ sweepId: string }> };
-
 /** The sweep with its progress (done/total, elapsed and estimated remaining seconds). */
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ sweep: await getSweep(getDb(), actor, await uuidParam(ctx, "sweepId", "sweep")) });
-});
+export const GET = recordRoute("sweepId", "sweep")(async ({ actor, db, id }) => json({ sweep: await getSweep(db, actor, id) }));

@@ -1,16 +1,11 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
 import { createInvitation, listOpenInvitations } from "@/lib/services/members";
 
-export const GET = route(async () => {
-  const actor = await requireActor();
-  return json({ invitations: await listOpenInvitations(getDb(), actor) });
-});
+export const GET = signedInRoute(async ({ actor, db }) => json({ invitations: await listOpenInvitations(db, actor) }));
 
-export const POST = route(async (req) => {
-  const actor = await requireActor();
+export const POST = signedInRoute(async ({ req, actor, db }) => {
   const input = await readJson(req, invitationCreateSchema);
-  return json({ invitation: await createInvitation(getDb(), actor, input) }, 201);
+  return json({ invitation: await createInvitation(db, actor, input) }, 201);
 });

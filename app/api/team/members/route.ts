@@ -1,9 +1,5 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route } from "@/lib/http";
+import { json } from "@/lib/http";
+import { signedInRoute } from "@/lib/http/signed-in-route";
 import { listMembers } from "@/lib/services/members";
 
-export const GET = route(async () => {
-  const actor = await requireActor();
-  return json({ members: await listMembers(getDb(), actor) });
-});
+export const GET = signedInRoute(async ({ actor, db }) => json({ members: await listMembers(db, actor) }));

@@ -1,12 +1,8 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { route, uuidParam } from "@/lib/http";
+import { noContent } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { revokeApiToken } from "@/lib/services/tokens";
 
-type Ctx = { params: Promise<{ tokenId: string }> };
-
-export const DELETE = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  await revokeApiToken(getDb(), actor, await uuidParam(ctx, "tokenId", "token"));
-  return new Response(null, { status: 204 });
+export const DELETE = recordRoute("tokenId", "token")(async ({ actor, db, id }) => {
+  await revokeApiToken(db, actor, id);
+  return noContent();
 });

@@ -1,14 +1,9 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { pinCreateSchema } from "@/lib/schemas/sweeps";
 import { pinCandidate } from "@/lib/services/pins";
 
-type Ctx = { params: Promise<{ candidateId: string }> };
-
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const candidateId = await uuidParam(ctx, "candidateId", "candidate");
+export const POST = recordRoute("candidateId", "candidate")(async ({ req, actor, db, id }) => {
   const input = await readJson(req, pinCreateSchema);
-  return json({ pin: await pinCandidate(getDb(), actor, candidateId, input) }, 201);
+  return json({ pin: await pinCandidate(db, actor, id, input) }, 201);
 });

@@ -1,20 +1,13 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { robustnessCreateSchema } from "@/lib/schemas/robustness";
 import { createCandidateRun, listCandidateRuns } from "@/lib/services/robustness";
 
-type Ctx = { params: Promise<{ candidateId: string }> };
+const onCandidate = recordRoute("candidateId", "candidate");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json(await listCandidateRuns(getDb(), actor, await uuidParam(ctx, "candidateId", "candidate")));
-});
+export const GET = onCandidate(async ({ actor, db, id }) => json(await listCandidateRuns(db, actor, id)));
 
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const candidateId = await uuidParam(ctx, "candidateId", "candidate");
-  const input = await readJson(req, robustnessCreateSchema);
-  const run = await createCandidateRun(getDb(), actor, candidateId, input);
+export const POST = onCandidate(async ({ req, actor, db, id }) => {
+  const run = await createCandidateRun(db, actor, id, await readJson(req, robustnessCreateSchema));
   return json({ run }, run.status === "succeeded" ? 201 : 202);
 });

@@ -1,14 +1,8 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { tableKineticsSchema } from "@/lib/schemas/datasets";
 import { createTableKinetics } from "@/lib/services/datasets";
 
-type Ctx = { params: Promise<{ versionId: string }> };
-
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const versionId = await uuidParam(ctx, "versionId", "dataset version");
-  const input = await readJson(req, tableKineticsSchema);
-  return json(await createTableKinetics(getDb(), actor, versionId, input), 201);
-});
+export const POST = recordRoute("versionId", "dataset version")(async ({ req, actor, db, id }) =>
+  json(await createTableKinetics(db, actor, id, await readJson(req, tableKineticsSchema)), 201),
+);

@@ -1,15 +1,10 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { route, uuidParam } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { getDesignReport } from "@/lib/services/design-reports";
 import { reportFileName } from "@/lib/reports/report-format";
 
-type Ctx = { params: Promise<{ pinId: string }> };
-
 /** The design report of a pinned design as JSON (SI numbers, with the cautions). */
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  const report = await getDesignReport(getDb(), actor, await uuidParam(ctx, "pinId", "pinned design"));
+export const GET = recordRoute("pinId", "pinned design")(async ({ actor, db, id }) => {
+  const report = await getDesignReport(db, actor, id);
   return new Response(JSON.stringify({ report }, null, 2), {
     headers: {
       "Content-Type": "application/json; charset=utf-8",

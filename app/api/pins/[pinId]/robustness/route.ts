@@ -1,20 +1,13 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { robustnessCreateSchema } from "@/lib/schemas/robustness";
 import { createPinRun, listPinRuns } from "@/lib/services/robustness";
 
-type Ctx = { params: Promise<{ pinId: string }> };
+const onPin = recordRoute("pinId", "pinned design");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json(await listPinRuns(getDb(), actor, await uuidParam(ctx, "pinId", "pinned design")));
-});
+export const GET = onPin(async ({ actor, db, id }) => json(await listPinRuns(db, actor, id)));
 
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const pinId = await uuidParam(ctx, "pinId", "pinned design");
-  const input = await readJson(req, robustnessCreateSchema);
-  const run = await createPinRun(getDb(), actor, pinId, input);
+export const POST = onPin(async ({ req, actor, db, id }) => {
+  const run = await createPinRun(db, actor, id, await readJson(req, robustnessCreateSchema));
   return json({ run }, run.status === "succeeded" ? 201 : 202);
 });

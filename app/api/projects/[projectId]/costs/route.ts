@@ -1,19 +1,13 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { costBasisSchema } from "@/lib/schemas/costs";
 import { getCostBasis, saveCostBasis } from "@/lib/services/costs";
 
-type Ctx = { params: Promise<{ projectId: string }> };
+const onProject = recordRoute("projectId", "project");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ costs: await getCostBasis(getDb(), actor, await uuidParam(ctx, "projectId", "project")) });
-});
+export const GET = onProject(async ({ actor, db, id }) => json({ costs: await getCostBasis(db, actor, id) }));
 
-export const PUT = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const projectId = await uuidParam(ctx, "projectId", "project");
+export const PUT = onProject(async ({ req, actor, db, id }) => {
   const input = await readJson(req, costBasisSchema);
-  return json({ costs: await saveCostBasis(getDb(), actor, projectId, input) });
+  return json({ costs: await saveCostBasis(db, actor, id, input) });
 });

@@ -1,21 +1,15 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
 import { readUpload } from "@/lib/http/read-upload";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { datasetCreateFieldsSchema } from "@/lib/schemas/datasets";
 import { createDataset, listDatasets } from "@/lib/services/datasets";
 
-type Ctx = { params: Promise<{ projectId: string }> };
+const onProject = recordRoute("projectId", "project");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ datasets: await listDatasets(getDb(), actor, await uuidParam(ctx, "projectId", "project")) });
-});
+export const GET = onProject(async ({ actor, db, id }) => json({ datasets: await listDatasets(db, actor, id) }));
 
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const projectId = await uuidParam(ctx, "projectId", "project");
+export const POST = onProject(async ({ req, actor, db, id }) => {
   const { upload, fields } = await readUpload(req, datasetCreateFieldsSchema);
   const { mapping, ...rest } = fields;
-  return json(await createDataset(getDb(), actor, projectId, { ...rest, upload: { ...upload, mapping } }), 201);
+  return json(await createDataset(db, actor, id, { ...rest, upload: { ...upload, mapping } }), 201);
 });

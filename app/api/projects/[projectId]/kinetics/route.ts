@@ -1,19 +1,13 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { kineticsModelCreateSchema } from "@/lib/schemas/sweeps";
 import { createKineticsModel, listKineticsModels } from "@/lib/services/kinetics";
 
-type Ctx = { params: Promise<{ projectId: string }> };
+const onProject = recordRoute("projectId", "project");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ models: await listKineticsModels(getDb(), actor, await uuidParam(ctx, "projectId", "project")) });
-});
+export const GET = onProject(async ({ actor, db, id }) => json({ models: await listKineticsModels(db, actor, id) }));
 
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const projectId = await uuidParam(ctx, "projectId", "project");
+export const POST = onProject(async ({ req, actor, db, id }) => {
   const input = await readJson(req, kineticsModelCreateSchema);
-  return json(await createKineticsModel(getDb(), actor, projectId, input), 201);
+  return json(await createKineticsModel(db, actor, id, input), 201);
 });

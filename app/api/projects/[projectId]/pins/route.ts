@@ -1,11 +1,5 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { listPins } from "@/lib/services/pins";
 
-type Ctx = { params: Promise<{ projectId: string }> };
-
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ pins: await listPins(getDb(), actor, await uuidParam(ctx, "projectId", "project")) });
-});
+export const GET = recordRoute("projectId", "project")(async ({ actor, db, id }) => json({ pins: await listPins(db, actor, id) }));

@@ -1,14 +1,9 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { rateRequestSchema } from "@/lib/schemas/costs";
 import { rateFixedTrain } from "@/lib/services/rating";
 
-type Ctx = { params: Promise<{ projectId: string }> };
-
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const projectId = await uuidParam(ctx, "projectId", "project");
+export const POST = recordRoute("projectId", "project")(async ({ req, actor, db, id }) => {
   const input = await readJson(req, rateRequestSchema);
-  return json({ rating: await rateFixedTrain(getDb(), actor, projectId, input) });
+  return json({ rating: await rateFixedTrain(db, actor, id, input) });
 });

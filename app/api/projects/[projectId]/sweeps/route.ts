@@ -1,19 +1,13 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, readJson } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { sweepCreateSchema } from "@/lib/schemas/sweeps";
 import { createSweep, listSweeps, sweepView } from "@/lib/services/sweeps";
 
-type Ctx = { params: Promise<{ projectId: string }> };
+const onProject = recordRoute("projectId", "project");
 
-export const GET = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ sweeps: await listSweeps(getDb(), actor, await uuidParam(ctx, "projectId", "project")) });
-});
+export const GET = onProject(async ({ actor, db, id }) => json({ sweeps: await listSweeps(db, actor, id) }));
 
-export const POST = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  const projectId = await uuidParam(ctx, "projectId", "project");
+export const POST = onProject(async ({ req, actor, db, id }) => {
   const input = await readJson(req, sweepCreateSchema);
-  return json({ sweep: sweepView(await createSweep(getDb(), actor, projectId, input)) }, 201);
+  return json({ sweep: sweepView(await createSweep(db, actor, id, input)) }, 201);
 });

@@ -1,11 +1,5 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, route, uuidParam } from "@/lib/http";
+import { json } from "@/lib/http";
+import { recordRoute } from "@/lib/http/signed-in-route";
 import { cancelSweep } from "@/lib/services/sweeps";
 
-type Ctx = { params: Promise<{ sweepId: string }> };
-
-export const POST = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  return json({ sweep: await cancelSweep(getDb(), actor, await uuidParam(ctx, "sweepId", "sweep")) });
-});
+export const POST = recordRoute("sweepId", "sweep")(async ({ actor, db, id }) => json({ sweep: await cancelSweep(db, actor, id) }));

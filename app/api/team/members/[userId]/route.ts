@@ -1,22 +1,18 @@
-import { getDb } from "@/db/client";
-import { requireActor } from "@/lib/auth/session";
-import { json, readJson, route, uuidParam } from "@/lib/http";
+import { json, noContent, readJson, uuidParam } from "@/lib/http";
+import { recordRoute, signedInRoute } from "@/lib/http/signed-in-route";
 import { memberUpdateSchema } from "@/lib/schemas/accounts";
 import { removeMember, updateMemberRole } from "@/lib/services/members";
 
 type Ctx = { params: Promise<{ userId: string }> };
 
-export const PATCH = route<Ctx>(async (req, ctx) => {
-  const actor = await requireActor();
-  // The body first: a bad role is named even when the member id is wrong too.
+// Not recordRoute: the body first, so a bad role is named even when the member id is wrong too.
+export const PATCH = signedInRoute<Ctx>(async ({ req, ctx, actor, db }) => {
   const { role } = await readJson(req, memberUpdateSchema);
   const userId = await uuidParam(ctx, "userId", "member");
-  return json({ member: await updateMemberRole(getDb(), actor, userId, role) });
+  return json({ member: await updateMemberRole(db, actor, userId, role) });
 });
 
-export const DELETE = route<Ctx>(async (_req, ctx) => {
-  const actor = await requireActor();
-  const userId = await uuidParam(ctx, "userId", "member");
-  await removeMember(getDb(), actor, userId);
-  return new Response(null, { status: 204 });
+export const DELETE = recordRoute("userId", "member")(async ({ actor, db, id }) => {
+  await removeMember(db, actor, id);
+  return noContent();
 });
