@@ -6,6 +6,7 @@ import { Field, FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber } from "@/lib/charts/volume-units";
 import type { CostBasis } from "@/lib/schemas/costs";
+import { STAGE_TYPES } from "@/lib/stage-types";
 import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-state";
 
 interface CostsAnswer {
@@ -70,7 +71,7 @@ function CostBasisForm({ url, projectId, data }: { url: string; projectId: strin
       }}
     >
       {data.isDefault ? <FormMessage kind="info">This project has no cost basis of its own yet: these are the defaults. Saving makes them the project&apos;s.</FormMessage> : null}
-      {(["CSTR", "PFR"] as const).map((t) => (
+      {STAGE_TYPES.map((t) => (
         <fieldset key={t} className="card space-y-2 p-4">
           <legend className="px-1 text-base font-semibold">{t} purchase cost = a + b·S^n (S: one vessel&apos;s volume, m³)</legend>
           <div className="flex flex-wrap gap-3">

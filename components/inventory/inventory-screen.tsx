@@ -8,11 +8,12 @@ import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber } from "@/lib/charts/volume-units";
 import { InventoryUpload } from "./inventory-upload";
 import { VesselForm } from "./vessel-form";
+import type { StageType } from "@/lib/engine";
 
 export interface Vessel {
   id: string;
   tag: string;
-  type: "CSTR" | "PFR";
+  type: StageType;
   volume: number;
   available: boolean;
   reuseCost: number;

@@ -9,6 +9,7 @@ import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import type { KineticsPreview } from "@/lib/sweeps/engine-bridge";
 import { formatNumber, formatQuantity, type VolumeUnit } from "@/lib/units/display";
+import type { StageType } from "@/lib/engine";
 
 /** The value, once it has stayed the same for `ms`. */
 export function useDebounced<T>(value: T, ms: number): T {
@@ -33,7 +34,7 @@ interface Props {
   onEngineErrors: (fields: Record<string, string[]>, message: string | null) => void;
 }
 
-type Shown = "both" | "CSTR" | "PFR";
+type Shown = "both" | StageType;
 
 export function PreviewPanel({ specJson, target, onTarget, targetError, onEngineErrors }: Props) {
   const [volumeUnit, setVolumeUnit] = useState<VolumeUnit>("L");

@@ -9,6 +9,7 @@ import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { PIN_STATE } from "@/lib/glossary";
 import { reviewSchema } from "@/lib/schemas/sweeps";
 import { formatQuantity } from "@/lib/units/display";
+import type { StageType } from "@/lib/engine";
 
 export interface PinRow {
   id: string;
@@ -21,7 +22,7 @@ export interface PinRow {
   reviewedAt: string | null;
   kinetics: { label: string; href: string | null };
   sweep: { id: string; name: string } | null;
-  sequence: ("CSTR" | "PFR")[];
+  sequence: StageType[];
   totalVolume: number | null;
   totalCost: number | null;
   stageTemperatures: number[];

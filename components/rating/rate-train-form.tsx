@@ -8,19 +8,20 @@ import { UnitOptions } from "@/components/ui/unit-options";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { toSI, type UnitKind } from "@/lib/units/display";
 import { RatingResultView, type RatingAnswer } from "./rating-result";
+import type { StageType } from "@/lib/engine";
 
 interface VesselOption {
   id: string;
   tag: string;
-  type: "CSTR" | "PFR";
+  type: StageType;
   volume: number;
   available: boolean;
 }
 
-type StageRow = { key: number; source: "new" | "inventory"; type: "CSTR" | "PFR"; volume: string; unit: string; vesselId: string };
+type StageRow = { key: number; source: "new" | "inventory"; type: StageType; volume: string; unit: string; vesselId: string };
 
 let next = 1;
-const newRow = (type: "CSTR" | "PFR" = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
+const newRow = (type: StageType = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
 
 /**
  * Largest vessel the engine rates, m3 (its MAX_RATED_VESSEL; components may not import engine values).

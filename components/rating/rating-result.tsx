@@ -4,11 +4,12 @@ import { Cautions } from "@/components/cautions/cautions";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatNumber } from "@/lib/charts/volume-units";
 import { formatQuantity, fromSI, toSI, unitLabel, type UnitKind } from "@/lib/units/display";
+import type { StageType } from "@/lib/engine";
 
 export interface RatingAnswer {
   kineticsVersion: { id: string; version: number; modelName: string };
   stages: {
-    type: "CSTR" | "PFR";
+    type: StageType;
     volume: number;
     tag: string | null;
     conversionIn: number;

@@ -5,10 +5,12 @@ import { useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { fetchJson } from "@/lib/client/fetch-json";
 import type { BuilderValues } from "./builder-form-state";
+import type { StageType } from "@/lib/engine";
+import { STAGE_TYPES } from "@/lib/stage-types";
 
 interface CostsAnswer {
   costs: {
-    basis: { vessels: Record<"CSTR" | "PFR", { a: number; b: number; n: number }>; currency: string; basisYear: number; installationFactor: { value: number } };
+    basis: { vessels: Record<StageType, { a: number; b: number; n: number }>; currency: string; basisYear: number; installationFactor: { value: number } };
     standardSizes: number[] | null;
     isDefault: boolean;
   };
@@ -26,7 +28,7 @@ export function CostBasisOptions({ projectId }: { projectId: string }) {
     try {
       const { costs } = await fetchJson<CostsAnswer>(`/api/projects/${projectId}/costs`);
       const opts = { shouldValidate: true, shouldDirty: true };
-      for (const t of ["CSTR", "PFR"] as const) {
+      for (const t of STAGE_TYPES) {
         const c = costs.basis.vessels[t];
         setValue(`vessel${t}`, { a: String(c.a), b: String(c.b), n: String(c.n) }, opts);
       }

@@ -9,7 +9,8 @@ import { formatNumber, formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeU
 import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
 import type { CandidateRow } from "./types";
-import type { OptionalColumn, SortKey, SweepViewState } from "./view-state";
+import type { SortKey } from "@/lib/sweeps/sort-keys";
+import type { OptionalColumn, SweepViewState } from "./view-state";
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 const helper = createColumnHelper<typeof features, CandidateRow>();

@@ -3,11 +3,12 @@
  * height FA0/(-rA) at its outlet over its conversion span, each PFR the area under the curve over
  * its span. Pure: numbers in m3 in, polygons in m3 out; the chart scales them to the display unit.
  */
+import type { StageType } from "@/lib/engine";
 
 export type Point = [number, number];
 
 export interface ChartStage {
-  type: "CSTR" | "PFR";
+  type: StageType;
   conversionIn: number;
   conversionOut: number;
   /** Reaction volume, m3. */
@@ -18,7 +19,7 @@ export interface ChartStage {
 
 export interface StagePolygon {
   index: number;
-  type: "CSTR" | "PFR";
+  type: StageType;
   conversionIn: number;
   conversionOut: number;
   volume: number;

@@ -18,6 +18,7 @@ import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display
 import { getDisplayPreference } from "@/lib/services/display-units";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
+import type { StageType } from "@/lib/engine";
 
 export const REPORT_FORMAT = "seriatim.design-report/1";
 
@@ -33,7 +34,7 @@ export const STATE_LABEL: Record<PinState, string> = {
 
 export interface ReportStage {
   index: number;
-  type: "CSTR" | "PFR";
+  type: StageType;
   conversionIn: number;
   conversionOut: number;
   /** K */
@@ -98,7 +99,7 @@ export interface DesignReport {
       };
   target: { conversion: number | null; conversionReached: number | null };
   objective: WordLine[];
-  train: { sequence: ("CSTR" | "PFR")[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
+  train: { sequence: StageType[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
   stages: ReportStage[];
   equilibriumConversion: number | null;
   references: { singleCSTR: number | null; singlePFR: number | null; feedVolumetricFlow: number | null };
@@ -240,7 +241,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       cost: num(s.cost),
     };
   });
-  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as ("CSTR" | "PFR")[];
+  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as StageType[];
   const plots = rawStages.map((s) => obj(s.levenspiel));
   const curve = plots.flatMap((p) => (Array.isArray(p.curve) ? (p.curve as Point[]) : []));
   const rate = describeRate(reaction.rate);

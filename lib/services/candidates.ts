@@ -5,6 +5,7 @@ import { candidates, scenarios, sweeps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
+import type { SortKey } from "@/lib/sweeps/sort-keys";
 
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
 const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedCount')::int, 0)`;
@@ -22,7 +23,7 @@ const SORT_COLUMNS = {
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
   probabilityMeet: [candidates.probabilityMeet],
-} as const;
+} as const satisfies Record<SortKey, readonly unknown[]>;
 
 const summaryColumns = {
   id: candidates.id,

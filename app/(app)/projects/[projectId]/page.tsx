@@ -13,6 +13,7 @@ import { listKineticsModels } from "@/lib/services/kinetics";
 import { listPins } from "@/lib/services/pins";
 import { listSweeps } from "@/lib/services/sweeps";
 import { kineticsVersionLabels, loadProjectPage, userNames } from "./project-data";
+import type { StageType } from "@/lib/engine";
 
 export const dynamic = "force-dynamic";
 
@@ -34,7 +35,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const names = await userNames(pins.flatMap((p) => [p.pinnedBy, p.reviewerId ?? ""]));
   const versions = await kineticsVersionLabels(actor.teamId, pins.map((p) => p.kineticsVersionId));
   const pinRows: PinRow[] = pins.map((p) => {
-    const c = p.candidate as { sequence?: ("CSTR" | "PFR")[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
+    const c = p.candidate as { sequence?: StageType[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
     const v = versions[p.kineticsVersionId];
     return {
       id: p.id,
