@@ -1,11 +1,7 @@
-export interface AuditRow {
-  id: string;
-  action: string;
-  at: string;
-  actorName: string | null;
-  actorEmail: string | null;
-  details: Record<string, unknown>;
-}
+import type { AuditEntryView } from "@/lib/services/views";
+
+/** One entry of the audit trail, as the audit endpoint and the project page give it. */
+export type AuditRow = AuditEntryView;
 
 const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 

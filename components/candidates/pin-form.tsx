@@ -6,11 +6,12 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { refusalText } from "@/components/sweeps/loading-and-error-panels";
+import type { PinnedDesign } from "@/db/schema";
 
 interface ProjectPin {
   id: string;
   candidateId: string | null;
-  state: "proposed" | "approved" | "rejected" | "superseded";
+  state: PinnedDesign["state"];
   candidate: { sequence?: string[] };
 }
 

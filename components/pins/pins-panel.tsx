@@ -9,11 +9,12 @@ import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { PIN_STATE } from "@/lib/glossary";
 import { reviewSchema } from "@/lib/schemas/sweeps";
 import { formatQuantity } from "@/lib/units/display";
+import type { PinnedDesign } from "@/db/schema";
 import type { StageType } from "@/lib/engine";
 
 export interface PinRow {
   id: string;
-  state: "proposed" | "approved" | "rejected" | "superseded";
+  state: PinnedDesign["state"];
   note: string;
   pinnedAt: string;
   pinnedByName: string;

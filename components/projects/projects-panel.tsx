@@ -6,11 +6,10 @@ import { useState } from "react";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { projectCreateSchema } from "@/lib/schemas/projects";
-import type { ProjectView } from "@/lib/services/projects";
+import type { ProjectListItem } from "@/lib/services/views";
 import { ProjectCreateForm } from "./project-create-form";
 
-type Wire<T> = { [K in keyof T]: T[K] extends Date ? string : T[K] extends Date | null ? string | null : T[K] };
-export type ProjectRow = Wire<ProjectView>;
+export type ProjectRow = ProjectListItem;
 
 const dateFmt = new Intl.DateTimeFormat("en-GB", { day: "2-digit", month: "short", year: "numeric" });
 

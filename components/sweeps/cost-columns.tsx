@@ -1,6 +1,6 @@
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures } from "@tanstack/react-table";
 import { formatNumber } from "@/lib/charts/volume-units";
-import type { CandidateRow } from "./types";
+import type { CandidateRow } from "@/lib/services/views";
 
 export const COST_COLUMN_TITLES = { installedCost: "Installed cost", allNewCost: "Installed, all new", reused: "Reused" } as const;
 

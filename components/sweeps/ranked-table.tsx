@@ -8,7 +8,7 @@ import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { formatNumber, formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
-import type { CandidateRow } from "./types";
+import type { CandidateRow } from "@/lib/services/views";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
 import type { OptionalColumn, SweepViewState } from "./view-state";
 

@@ -4,7 +4,7 @@ import { labelFor } from "@/lib/schemas/field-labels";
 import { useRef, useState, type KeyboardEvent } from "react";
 import { formatNumber, formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, unitLabel, type UnitKind } from "@/lib/units/display";
-import type { ScenarioRow } from "./types";
+import type { ScenarioRow } from "@/lib/services/views";
 
 const FIELD_NAMES: Record<string, string> = {
   "feed.flowA": "Feed flow FA0, mol/s",
