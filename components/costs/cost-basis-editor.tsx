@@ -5,12 +5,12 @@ import { useState } from "react";
 import { Field, FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatNumber } from "@/lib/charts/volume-units";
-import type { CostBasis } from "@/lib/schemas/costs";
+import type { CostBasisAnswer } from "@/lib/services/views";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-state";
 
 interface CostsAnswer {
-  costs: { basis: CostBasis; isDefault: boolean; standardSizes: number[] | null; updatedAt: string | null; permissions: { update: boolean } };
+  costs: CostBasisAnswer;
 }
 
 /** The project's cost basis: correlations with their sources, money basis, sizes, largest vessel, installation factor. */

@@ -5,15 +5,11 @@ import { useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { fetchJson } from "@/lib/client/fetch-json";
 import type { BuilderValues } from "./builder-form-state";
-import type { StageType } from "@/lib/engine";
+import type { CostBasisAnswer } from "@/lib/services/views";
 import { STAGE_TYPES } from "@/lib/stage-types";
 
 interface CostsAnswer {
-  costs: {
-    basis: { vessels: Record<StageType, { a: number; b: number; n: number }>; currency: string; basisYear: number; installationFactor: { value: number } };
-    standardSizes: number[] | null;
-    isDefault: boolean;
-  };
+  costs: CostBasisAnswer;
 }
 
 /** Cost-objective extras of the sweep builder: prefill from the project's cost basis, installation factor, reuse of idle vessels. */

@@ -12,20 +12,10 @@ import { applyServerFieldErrors } from "@/components/ui/server-errors";
 import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
+import type { MemberView, OpenInvitationView } from "@/lib/services/views";
 
-interface Member {
-  userId: string;
-  name: string | null;
-  email: string;
-  role: Role;
-  joinedAt: string;
-}
-interface Invitation {
-  id: string;
-  email: string;
-  role: Role;
-  expiresAt: string;
-}
+type Member = MemberView;
+type Invitation = OpenInvitationView;
 
 const day = new Intl.DateTimeFormat("en-GB", { day: "2-digit", month: "short", year: "numeric" });
 const message = (err: unknown) => (err instanceof ApiError ? err.message : "Could not reach the server.");

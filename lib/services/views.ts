@@ -6,8 +6,13 @@
  */
 import type { listAuditEntries } from "./audit";
 import type { compareCandidates, listCandidates } from "./candidates";
+import type { CostBasisView } from "./costs";
 import type { listDatasets } from "./datasets";
+import type { listInventory } from "./inventory";
+import type { listMembers, listOpenInvitations } from "./members";
 import type { ProjectView } from "./projects";
+import type { rateFixedTrain } from "./rating";
+import type { listReviewInbox } from "./reviews";
 import type { getRun, listCandidateRuns } from "./robustness";
 import type { getSweep, listScenarios, listSweeps } from "./sweeps";
 
@@ -39,6 +44,15 @@ export type CandidateDetail = Answer<typeof compareCandidates>[number];
 export type RobustnessList = Answer<typeof listCandidateRuns>;
 export type RobustnessRunView = Answer<typeof getRun>;
 export type OfferedField = RobustnessList["fields"][number];
+
+export type RatingAnswer = Answer<typeof rateFixedTrain>;
+export type CostBasisAnswer = Jsonify<CostBasisView>;
+export type InventoryList = Answer<typeof listInventory>;
+export type InventoryVesselView = InventoryList["vessels"][number];
+
+export type ReviewItemView = Answer<typeof listReviewInbox>[number];
+export type MemberView = Answer<typeof listMembers>[number];
+export type OpenInvitationView = Answer<typeof listOpenInvitations>[number];
 
 export type ProjectListItem = Jsonify<ProjectView>;
 export type DatasetListItem = Answer<typeof listDatasets>[number];
