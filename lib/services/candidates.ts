@@ -115,7 +115,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
   return list.map(({ candidate: c, scenario, sweep }) => ({
     id: c.id,
     sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
-    scenario: { ...scenario, reference: scenario.reference as ScenarioReference | null },
+    scenario: scenario as WithShapes<typeof scenario, { reference: ScenarioReference | null }>,
     rank: c.rank,
     sequence: c.sequenceKey.split("-") as StageType[],
     feasible: c.feasible,
