@@ -1,10 +1,8 @@
 import Link from "next/link";
+import type { DatasetListItem } from "@/lib/services/views";
 
-export interface DatasetRow {
-  id: string;
-  name: string;
-  latestVersion: { version: number; rowCount: number; fileName: string; createdAt: string } | null;
-}
+/** One dataset of the project, with its latest version, as the project page gives it. */
+export type DatasetRow = DatasetListItem;
 
 const fmt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 

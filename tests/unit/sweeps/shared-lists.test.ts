@@ -3,6 +3,7 @@ import { parseViewState, serialiseViewState } from "@/components/sweeps/view-sta
 import type { StageType } from "@/lib/engine";
 import { candidateQuerySchema } from "@/lib/schemas/sweeps";
 import { STAGE_TYPES } from "@/lib/stage-types";
+import { SORT_KEYS } from "@/lib/sweeps/sort-keys";
 
 // The sweep page keeps its sort in the URL and sends it to the candidates endpoint; a key one side
 // knows and the other does not is a column that silently sorts by rank, or a 400.
@@ -18,6 +19,10 @@ describe("lists shared by the sweep page and the server", () => {
       // The key survives the round trip through the page's link.
       expect(parseViewState(new URLSearchParams(serialiseViewState(state))).sort).toBe(k);
     }
+  });
+
+  it("the list the page offers is the list the endpoint accepts, in the same order", () => {
+    expect([...SORT_KEYS]).toEqual(serverKeys);
   });
 
   it("a key the endpoint refuses falls back to rank on the page", () => {
