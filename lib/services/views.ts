@@ -10,6 +10,7 @@ import type { CostBasisView } from "./costs";
 import type { listDatasets } from "./datasets";
 import type { listInventory } from "./inventory";
 import type { listMembers, listOpenInvitations } from "./members";
+import type { listPins } from "./pins";
 import type { ProjectView } from "./projects";
 import type { rateFixedTrain } from "./rating";
 import type { listReviewInbox } from "./reviews";
@@ -44,6 +45,9 @@ export type CandidateDetail = Answer<typeof compareCandidates>[number];
 export type RobustnessList = Answer<typeof listCandidateRuns>;
 export type RobustnessRunView = Answer<typeof getRun>;
 export type OfferedField = RobustnessList["fields"][number];
+
+/** A pinned design of the project list, with the frozen candidate it keeps. */
+export type PinView = Answer<typeof listPins>[number];
 
 export type RatingAnswer = Answer<typeof rateFixedTrain>;
 export type CostBasisAnswer = Jsonify<CostBasisView>;
