@@ -1,13 +1,8 @@
 import { formatDateTime } from "@/lib/format/dates";
+import type { AuditEntryView } from "@/lib/services/views";
 
-export interface AuditRow {
-  id: string;
-  action: string;
-  at: string;
-  actorName: string | null;
-  actorEmail: string | null;
-  details: Record<string, unknown>;
-}
+/** One entry of the audit trail, as the audit endpoint and the project page give it. */
+export type AuditRow = AuditEntryView;
 
 
 function summarise(details: Record<string, unknown>): string {

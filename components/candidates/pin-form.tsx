@@ -6,13 +6,9 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { refusalText } from "@/components/sweeps/loading-and-error-panels";
+import type { PinView } from "@/lib/services/views";
 
-interface ProjectPin {
-  id: string;
-  candidateId: string | null;
-  state: "proposed" | "approved" | "rejected" | "superseded";
-  candidate: { sequence?: string[] };
-}
+type ProjectPin = PinView;
 
 /** One name per state, the same words as the project's pinned designs. */
 const PIN_STATE: Record<"proposed" | "approved", string> = { proposed: "pending review", approved: "approved" };

@@ -1,6 +1,6 @@
 import { StageSwatch } from "@/components/charts/stage-patterns";
 import { StageGlyph } from "@/components/sweeps/stage-badges";
-import type { StoredStage } from "@/components/sweeps/types";
+import type { StoredStage } from "@/lib/sweeps/stored-json";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, unitLabel } from "@/lib/units/display";

@@ -1,7 +1,7 @@
 "use client";
 
 import { ResponsiveLine } from "@nivo/line";
-import type { StoredStage } from "@/components/sweeps/types";
+import type { StoredStage } from "@/lib/sweeps/stored-json";
 import { axisTicks } from "@/components/charts/axis-ticks";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { fromSI, unitLabel } from "@/lib/units/display";

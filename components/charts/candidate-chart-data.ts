@@ -1,8 +1,8 @@
-import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
-import type { StagePlot } from "@/lib/engine/types";
+import type { ChartStage, ChartStageBasis, Point } from "@/lib/charts/levenspiel-geometry";
+import type { StagePlot } from "@/lib/engine";
 
 /** The chart's inputs from a candidate's stored stages and their plot data. */
-export function chartInputs(stages: { type: "CSTR" | "PFR"; conversionIn: number; conversionOut: number; volume: number }[], plots: StagePlot[] | undefined) {
+export function chartInputs(stages: ChartStageBasis[], plots: StagePlot[] | undefined) {
   const curve: Point[] = (plots ?? []).flatMap((p) => p.curve);
   const chartStages: ChartStage[] = stages.map((s, i) => ({ type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: plots?.[i]?.area }));
   return { curve, stages: chartStages };

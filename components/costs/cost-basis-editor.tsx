@@ -4,12 +4,13 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { Field, FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import type { CostBasis } from "@/lib/schemas/costs";
-import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-state";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import type { CostBasisAnswer } from "@/lib/services/views";
+import { STAGE_TYPES } from "@/lib/stage-types";
+import { basisToForm, formFieldOf, formToBody, type CostForm } from "./cost-basis-form-state";
 
 interface CostsAnswer {
-  costs: { basis: CostBasis; isDefault: boolean; standardSizes: number[] | null; updatedAt: string | null; permissions: { update: boolean } };
+  costs: CostBasisAnswer;
 }
 
 /** The project's cost basis: correlations with their sources, money basis, sizes, largest vessel, installation factor. */
@@ -70,7 +71,7 @@ function CostBasisForm({ url, projectId, data }: { url: string; projectId: strin
       }}
     >
       {data.isDefault ? <FormMessage kind="info">This project has no cost basis of its own yet: these are the defaults. Saving makes them the project&apos;s.</FormMessage> : null}
-      {(["CSTR", "PFR"] as const).map((t) => (
+      {STAGE_TYPES.map((t) => (
         <fieldset key={t} className="card space-y-2 p-4">
           <legend className="px-1 text-base font-semibold">{t} purchase cost = a + b·S^n (S: one vessel&apos;s volume, m³)</legend>
           <div className="flex flex-wrap gap-3">

@@ -3,6 +3,7 @@
  * Numbers the user typed that are not numbers are sent as text, so the server names the field.
  */
 import type { CostBasis } from "@/lib/schemas/costs";
+import type { StageType } from "@/lib/engine";
 
 export type CostForm = Record<string, string>;
 
@@ -40,7 +41,7 @@ export function formToBody(f: CostForm): unknown {
       : mode === "custom"
         ? { mode, values: f["sizes.values"].split(/[,;\s]+/).filter(Boolean).map(num) }
         : { mode };
-  const vessel = (t: "CSTR" | "PFR") => ({ a: num(f[`vessels.${t}.a`]), b: num(f[`vessels.${t}.b`]), n: num(f[`vessels.${t}.n`]), source: f[`vessels.${t}.source`] });
+  const vessel = (t: StageType) => ({ a: num(f[`vessels.${t}.a`]), b: num(f[`vessels.${t}.b`]), n: num(f[`vessels.${t}.n`]), source: f[`vessels.${t}.source`] });
   return {
     vessels: { CSTR: vessel("CSTR"), PFR: vessel("PFR") },
     currency: f.currency.trim().toUpperCase(),

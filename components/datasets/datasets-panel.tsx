@@ -1,11 +1,9 @@
 import Link from "next/link";
 import { formatDateTime } from "@/lib/format/dates";
+import type { DatasetListItem } from "@/lib/services/views";
 
-export interface DatasetRow {
-  id: string;
-  name: string;
-  latestVersion: { version: number; rowCount: number; fileName: string; createdAt: string } | null;
-}
+/** One dataset of the project, with its latest version, as the project page gives it. */
+export type DatasetRow = DatasetListItem;
 
 
 /** The "Rate data" section of a project page: its measured-rate datasets and the way to upload one. */

@@ -8,22 +8,12 @@ import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { InventoryUpload } from "./inventory-upload";
 import { VesselForm } from "./vessel-form";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
-
-export interface Vessel {
-  id: string;
-  tag: string;
-  type: "CSTR" | "PFR";
-  volume: number;
-  available: boolean;
-  reuseCost: number;
-  location: string;
-  note: string;
-}
+import type { InventoryList, InventoryVesselView as Vessel } from "@/lib/services/views";
 
 /** The team's idle vessels: list, add, mark in use or available, remove, and import from a file. */
 export function InventoryScreen() {
   const client = useQueryClient();
-  const q = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: Vessel[]; permissions: { manage: boolean } }>("/api/inventory") });
+  const q = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<InventoryList>("/api/inventory") });
   const [error, setError] = useState<string>();
   // One notice for the whole screen, so "Added R-402." never outlives R-402 being removed.
   const [notice, setNotice] = useState<string>();

@@ -11,6 +11,7 @@ import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import type { KineticsPreview } from "@/lib/services/kinetics-checks";
 import { formatQuantity, type VolumeUnit } from "@/lib/units/display";
 import { formatNumber } from "@/lib/format/numbers";
+import type { StageType } from "@/lib/engine";
 
 /** The value, once it has stayed the same for `ms`. */
 export function useDebounced<T>(value: T, ms: number): T {
@@ -35,7 +36,7 @@ interface Props {
   onEngineErrors: (fields: Record<string, string[]>, message: string | null) => void;
 }
 
-type Shown = "both" | "CSTR" | "PFR";
+type Shown = "both" | StageType;
 
 export function PreviewPanel({ specJson, target, onTarget, targetError, onEngineErrors }: Props) {
   const [volumeUnit, setVolumeUnit] = useState<VolumeUnit>("L");

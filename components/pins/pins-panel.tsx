@@ -11,10 +11,12 @@ import { PIN_STATE } from "@/lib/glossary";
 import { reviewSchema } from "@/lib/schemas/sweeps";
 import { formatDateTime } from "@/lib/format/dates";
 import { PinSize } from "./pin-size";
+import type { PinnedDesign } from "@/db/schema";
+import type { StageType } from "@/lib/engine";
 
 export interface PinRow {
   id: string;
-  state: "proposed" | "approved" | "rejected" | "superseded";
+  state: PinnedDesign["state"];
   note: string;
   pinnedAt: string;
   pinnedByName: string;
@@ -23,7 +25,7 @@ export interface PinRow {
   reviewedAt: string | null;
   kinetics: { label: string; href: string | null };
   sweep: { id: string; name: string } | null;
-  sequence: ("CSTR" | "PFR")[];
+  sequence: StageType[];
   totalVolume: number | null;
   totalCost: number | null;
   stageTemperatures: number[];

@@ -6,12 +6,11 @@ import { useState } from "react";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { projectCreateSchema } from "@/lib/schemas/projects";
-import type { ProjectView } from "@/lib/services/projects";
+import type { ProjectListItem } from "@/lib/services/views";
 import { ProjectCreateForm } from "./project-create-form";
 import { formatDay } from "@/lib/format/dates";
 
-type Wire<T> = { [K in keyof T]: T[K] extends Date ? string : T[K] extends Date | null ? string | null : T[K] };
-export type ProjectRow = Wire<ProjectView>;
+export type ProjectRow = ProjectListItem;
 
 
 export function ProjectsPanel({ initial, canCreate }: { initial: ProjectRow[]; canCreate: boolean }) {

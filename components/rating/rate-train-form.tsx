@@ -7,20 +7,14 @@ import { FormMessage } from "@/components/ui/field";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { toSI, type UnitKind } from "@/lib/units/display";
-import { RatingResultView, type RatingAnswer } from "./rating-result";
+import { RatingResultView } from "./rating-result";
+import type { StageType } from "@/lib/engine";
+import type { InventoryList, RatingAnswer } from "@/lib/services/views";
 
-interface VesselOption {
-  id: string;
-  tag: string;
-  type: "CSTR" | "PFR";
-  volume: number;
-  available: boolean;
-}
-
-type StageRow = { key: number; source: "new" | "inventory"; type: "CSTR" | "PFR"; volume: string; unit: string; vesselId: string };
+type StageRow = { key: number; source: "new" | "inventory"; type: StageType; volume: string; unit: string; vesselId: string };
 
 let next = 1;
-const newRow = (type: "CSTR" | "PFR" = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
+const newRow = (type: StageType = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
 
 /**
  * Largest vessel the engine rates, m3 (its MAX_RATED_VESSEL; components may not import engine values).
@@ -30,7 +24,7 @@ const MAX_VESSEL_M3 = 1e9;
 
 /** Rate a fixed train: stages by type and volume or from the inventory, a target, and the results with cautions. */
 export function RateTrainForm({ projectId, versions }: { projectId: string; versions: { id: string; label: string; units?: Partial<Record<UnitKind, string>> }[] }) {
-  const inventory = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<{ vessels: VesselOption[] }>("/api/inventory") });
+  const inventory = useQuery({ queryKey: ["inventory"], queryFn: () => fetchJson<InventoryList>("/api/inventory") });
   const [versionId, setVersionId] = useState(versions[0]?.id ?? "");
   const [rows, setRows] = useState<StageRow[]>([newRow()]);
   const [target, setTarget] = useState("0.9");

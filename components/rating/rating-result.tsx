@@ -4,26 +4,7 @@ import { Cautions } from "@/components/cautions/cautions";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatQuantity, fromSI, toSI, unitLabel, type UnitKind } from "@/lib/units/display";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
-
-export interface RatingAnswer {
-  kineticsVersion: { id: string; version: number; modelName: string };
-  stages: {
-    type: "CSTR" | "PFR";
-    volume: number;
-    tag: string | null;
-    conversionIn: number;
-    conversionOut: number;
-    temperatureIn: number;
-    temperatureOut: number;
-    multiple: boolean;
-    steadyStates: { conversionOut: number; temperatureOut: number }[];
-  }[];
-  conversionOut: number;
-  target: number;
-  meetsTarget: boolean;
-  largestFeed: { flowA: number | null; feedVolumetricFlow: number | null; conversion: number | null; reason: string | null; why: string };
-  cautions: string[];
-}
+import type { RatingAnswer } from "@/lib/services/views";
 
 /** What a fixed train reaches, stage by stage, and the largest feed that still meets the target. */
 export function RatingResultView({ result: r, typedUnits }: { result: RatingAnswer; typedUnits?: Partial<Record<UnitKind, string>> }) {

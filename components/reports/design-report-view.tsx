@@ -1,7 +1,7 @@
 import { TemperatureProfile } from "@/components/candidates/temperature-profile";
 import { Cautions } from "@/components/cautions/cautions";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
-import type { StoredStage } from "@/components/sweeps/types";
+import type { StoredStage } from "@/lib/sweeps/stored-json";
 import type { DesignReport } from "@/lib/reports/design-report";
 import type { DisplayPreference } from "@/lib/units/display-preference";
 import type { WordLine } from "@/lib/reports/kinetics-words";

@@ -1,4 +1,4 @@
-import type { ReviewItem } from "@/lib/services/reviews";
+import type { ReviewItemView } from "@/lib/services/views";
 
 /** One cache entry for the inbox page and the header's count, so approving updates both. */
 export const REVIEWS_QUERY = ["reviews"] as const;
@@ -6,5 +6,5 @@ export const REVIEWS_QUERY = ["reviews"] as const;
 /** GET /api/reviews: the service's items as JSON carries them (dates as ISO text). */
 export interface ReviewsAnswer {
   count: number;
-  reviews: (Omit<ReviewItem, "pinnedAt"> & { pinnedAt: string })[];
+  reviews: ReviewItemView[];
 }

@@ -6,7 +6,7 @@ import { refusalText } from "@/components/sweeps/loading-and-error-panels";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { MAX_SAMPLES, robustnessCreateSchema, type UncertainInput } from "@/lib/schemas/robustness";
 import { RobustnessResult } from "./robustness-result";
-import type { OfferedField, RobustnessList, RobustnessRunView } from "./types";
+import type { OfferedField, RobustnessList, RobustnessRunView } from "@/lib/services/views";
 import { UncertainRow, type Draft } from "./uncertain-row";
 import { spreadFractionFromPercent } from "./spread-percent";
 import { formatDateTime } from "@/lib/format/dates";

@@ -1,6 +1,6 @@
 "use client";
 
-import type { OfferedField } from "./types";
+import type { OfferedField } from "@/lib/services/views";
 
 export interface Draft {
   field: string;

@@ -6,8 +6,8 @@ import { z } from "zod";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { sweepCreateSchema, type SweepCreate } from "@/lib/schemas/sweeps";
 import { toSI, type UnitKind } from "@/lib/units/display";
-
-export type StageType = "CSTR" | "PFR";
+import type { StageType } from "@/lib/engine";
+import { STAGE_TYPES } from "@/lib/stage-types";
 
 const vessel = z.object({ a: z.string(), b: z.string(), n: z.string() });
 const axis = z.object({
@@ -125,7 +125,7 @@ const factorial = (n: number): number => (n <= 1 ? 1 : n * factorial(n - 1));
 /** How many sequences the train space holds (what the engine will optimise per scenario). */
 export function sequenceCount(train: SweepCreate["train"]): number {
   if ("maxStages" in train) {
-    const t = new Set(train.types ?? ["CSTR", "PFR"]).size;
+    const t = new Set(train.types ?? STAGE_TYPES).size;
     let n = 0;
     for (let k = 1; k <= train.maxStages; k++) n += t ** k;
     return n;
@@ -215,7 +215,7 @@ export function builderToRequest(v: BuilderValues): { body: SweepCreate | null; 
   let objective: SweepCreate["objective"] = { minimise: "volume" };
   if (v.objective === "cost") {
     const vessels: Record<string, { a: number; b: number; n: number }> = {};
-    for (const type of ["CSTR", "PFR"] as const) {
+    for (const type of STAGE_TYPES) {
       const src = type === "CSTR" ? v.vesselCSTR : v.vesselPFR;
       const key = type === "CSTR" ? "vesselCSTR" : "vesselPFR";
       const a = numberIn(src.a, `${key}.a`, issues);

@@ -5,13 +5,11 @@ import { useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { fetchJson } from "@/lib/client/fetch-json";
 import type { BuilderValues } from "./builder-form-state";
+import type { CostBasisAnswer } from "@/lib/services/views";
+import { STAGE_TYPES } from "@/lib/stage-types";
 
 interface CostsAnswer {
-  costs: {
-    basis: { vessels: Record<"CSTR" | "PFR", { a: number; b: number; n: number }>; currency: string; basisYear: number; installationFactor: { value: number } };
-    standardSizes: number[] | null;
-    isDefault: boolean;
-  };
+  costs: CostBasisAnswer;
 }
 
 /** Cost-objective extras of the sweep builder: prefill from the project's cost basis, installation factor, reuse of idle vessels. */
@@ -26,7 +24,7 @@ export function CostBasisOptions({ projectId }: { projectId: string }) {
     try {
       const { costs } = await fetchJson<CostsAnswer>(`/api/projects/${projectId}/costs`);
       const opts = { shouldValidate: true, shouldDirty: true };
-      for (const t of ["CSTR", "PFR"] as const) {
+      for (const t of STAGE_TYPES) {
         const c = costs.basis.vessels[t];
         setValue(`vessel${t}`, { a: String(c.a), b: String(c.b), n: String(c.n) }, opts);
       }

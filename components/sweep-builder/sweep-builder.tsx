@@ -12,6 +12,7 @@ import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { UnitKind } from "@/lib/units/display";
+import { STAGE_TYPES } from "@/lib/stage-types";
 import { CostBasisOptions } from "./cost-basis-options";
 import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-form-state";
 
@@ -210,7 +211,7 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
               <div className="space-y-3">
                 <p className="text-xs text-ink-soft">Each vessel costs a + b·S^n with S its volume in m³, in the currency of your choice.</p>
                 <CostBasisOptions projectId={projectId} />
-                {(["CSTR", "PFR"] as const).map((t) => (
+                {STAGE_TYPES.map((t) => (
                   <fieldset key={t} className="flex flex-wrap items-start gap-3">
                     <legend className="field-label">{t} vessel</legend>
                     {num(`vessel${t}.a`, `${t} a`)}

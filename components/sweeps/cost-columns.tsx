@@ -1,5 +1,5 @@
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures } from "@tanstack/react-table";
-import type { CandidateRow } from "./types";
+import type { CandidateRow } from "@/lib/services/views";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 export const COST_COLUMN_TITLES = { installedCost: "Installed cost", allNewCost: "Installed, all new", reused: "Reused" } as const;

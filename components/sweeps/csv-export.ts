@@ -2,7 +2,7 @@ import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { describeOverrides } from "./scenario-picker";
-import type { CandidatePage } from "./types";
+import type { CandidatePage } from "@/lib/services/views";
 import { candidateQuery, type SweepViewState } from "./view-state";
 
 const EXPORT_PAGE = 500;

@@ -8,8 +8,9 @@ import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
-import type { CandidateRow } from "./types";
-import type { OptionalColumn, SortKey, SweepViewState } from "./view-state";
+import type { CandidateRow } from "@/lib/services/views";
+import type { SortKey } from "@/lib/sweeps/sort-keys";
+import type { OptionalColumn, SweepViewState } from "./view-state";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });

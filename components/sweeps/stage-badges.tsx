@@ -1,4 +1,4 @@
-import type { StageType } from "@/lib/engine/types";
+import type { StageType } from "@/lib/engine";
 
 /** A stirred tank (CSTR) or a tube (PFR), drawn small beside the stage's name. */
 export function StageGlyph({ type }: { type: StageType }) {

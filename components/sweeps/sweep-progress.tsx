@@ -1,5 +1,6 @@
 import { SWEEP_STATUS } from "@/lib/glossary";
-import type { SweepStatus, SweepView } from "./types";
+import type { SweepStatus } from "@/db/schema";
+import type { SweepView } from "@/lib/services/views";
 
 const STATUS_TONE: Record<SweepStatus, string> = {
   queued: "border-line bg-paper text-ink-soft",

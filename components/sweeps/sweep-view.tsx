@@ -17,7 +17,7 @@ import { ResultsToolbar } from "./results-toolbar";
 import { RankedTable } from "./ranked-table";
 import { ObjectiveHeatMap, ScenarioPicker, twoVariedFields } from "./scenario-picker";
 import { StatusBadge, SweepProgressBar } from "./sweep-progress";
-import type { CandidatePage, ScenarioRow, SweepView as Sweep } from "./types";
+import type { CandidatePage, ScenarioRow, SweepView as Sweep } from "@/lib/services/views";
 import { candidateQuery, serialiseViewState, useViewState } from "./view-state";
 
 const ACTIVE = new Set(["queued", "running"]);

@@ -3,20 +3,16 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { fetchJson } from "@/lib/client/fetch-json";
+import type { SweepStatus } from "@/db/schema";
 import { SWEEP_STATUS } from "@/lib/glossary";
 import { formatDateTime } from "@/lib/format/dates";
+import type { SweepListItem } from "@/lib/services/views";
 
-export interface SweepRow {
-  id: string;
-  name: string;
-  status: "queued" | "running" | "succeeded" | "failed" | "cancelled";
-  createdAt: string;
-  failedScenarios: number;
-  progress: { done: number; total: number; fraction: number };
-}
+/** One sweep of the project's list, as the sweeps endpoint and the project page give it. */
+export type SweepRow = SweepListItem;
 
 
-const STATUS: Record<SweepRow["status"], { text: string; glyph: string; tone: string }> = {
+const STATUS: Record<SweepStatus, { text: string; glyph: string; tone: string }> = {
   queued: { text: SWEEP_STATUS.queued.label, glyph: "◷", tone: "border-line text-ink-soft" },
   running: { text: SWEEP_STATUS.running.label, glyph: "▶", tone: "border-accent-500 text-accent-700" },
   succeeded: { text: SWEEP_STATUS.succeeded.label, glyph: "✓", tone: "border-accent-600 bg-accent-50 text-accent-800" },
@@ -24,7 +20,7 @@ const STATUS: Record<SweepRow["status"], { text: string; glyph: string; tone: st
   cancelled: { text: SWEEP_STATUS.cancelled.label, glyph: "■", tone: "border-line bg-paper text-ink-soft" },
 };
 
-export function StatusBadge({ status }: { status: SweepRow["status"] }) {
+export function StatusBadge({ status }: { status: SweepStatus }) {
   const s = STATUS[status];
   return (
     <span className={`badge ${s.tone}`}>

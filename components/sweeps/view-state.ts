@@ -3,10 +3,8 @@
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
 import { isVolumeUnit, type VolumeUnit } from "@/lib/charts/volume-units";
+import { SORT_KEYS, type SortKey } from "@/lib/sweeps/sort-keys";
 
-/** Columns the server sorts by (lib/schemas/sweeps.ts SORTABLE_COLUMNS; not imported, to keep zod out of the page). */
-export const SORT_KEYS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused", "probabilityMeet"] as const;
-export type SortKey = (typeof SORT_KEYS)[number];
 export const PAGE_SIZES = [25, 50, 100] as const;
 /** Columns the reader may hide. */
 export const OPTIONAL_COLUMNS = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused"] as const;

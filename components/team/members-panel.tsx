@@ -11,22 +11,12 @@ import { ROLES } from "@/lib/authz/policy";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { invitationCreateSchema } from "@/lib/schemas/accounts";
 import { formatDay } from "@/lib/format/dates";
+import type { MemberView, OpenInvitationView } from "@/lib/services/views";
 
 const ROLE_OPTIONS = ROLES.map((r) => ({ value: r, label: r }));
 
-interface Member {
-  userId: string;
-  name: string | null;
-  email: string;
-  role: Role;
-  joinedAt: string;
-}
-interface Invitation {
-  id: string;
-  email: string;
-  role: Role;
-  expiresAt: string;
-}
+type Member = MemberView;
+type Invitation = OpenInvitationView;
 
 const message = (err: unknown) => (err instanceof ApiError ? err.message : "Could not reach the server.");
 

@@ -3,25 +3,20 @@
  * height FA0/(-rA) at its outlet over its conversion span, each PFR the area under the curve over
  * its span. Pure: numbers in m3 in, polygons in m3 out; the chart scales them to the display unit.
  */
+import type { PlotPoint, StageResult } from "@/lib/engine";
 
-export type Point = [number, number];
+export type Point = PlotPoint;
 
-export interface ChartStage {
-  type: "CSTR" | "PFR";
-  conversionIn: number;
-  conversionOut: number;
-  /** Reaction volume, m3. */
-  volume: number;
+/** What the chart needs of a designed stage (volume in m3). */
+export type ChartStageBasis = Pick<StageResult, "type" | "conversionIn" | "conversionOut" | "volume">;
+
+export interface ChartStage extends ChartStageBasis {
   /** The engine's outline of the stage (optional); a PFR's top then follows its own temperature path. */
   area?: Point[];
 }
 
-export interface StagePolygon {
+export interface StagePolygon extends ChartStageBasis {
   index: number;
-  type: "CSTR" | "PFR";
-  conversionIn: number;
-  conversionOut: number;
-  volume: number;
   /** Closed outline, counter-clockwise from (X_in, 0): base, right side, top, left side. */
   polygon: Point[];
   /** Shoelace area of the outline, m3. */

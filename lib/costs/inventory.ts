@@ -1,10 +1,10 @@
 import solver from "javascript-lp-solver";
 
-export type VesselType = "CSTR" | "PFR";
+import type { StageType } from "@/lib/engine";
 
 /** One stage of a designed train: the volume it needs and what a new vessel would cost. */
 export interface StageNeed {
-  type: VesselType;
+  type: StageType;
   /** Reaction volume needed, m3. */
   volume: number;
   /** Installed cost of buying this stage's vessels new. */
@@ -14,7 +14,7 @@ export interface StageNeed {
 /** A vessel the plant already owns. */
 export interface InventoryVessel {
   id: string;
-  type: VesselType;
+  type: StageType;
   /** Working volume, m3. */
   volume: number;
   available: boolean;

@@ -1,8 +1,9 @@
-import { planFromInventory, type InventoryVessel, type StageNeed, type VesselType } from "./inventory";
+import type { StageType } from "@/lib/engine";
+import { planFromInventory, type InventoryVessel, type StageNeed } from "./inventory";
 
 /** One designed stage as the engine returns it: volume, vessels bought and their purchase cost. */
 export interface DesignedStage {
-  type: VesselType;
+  type: StageType;
   /** Reaction volume of the whole stage, m3. */
   volume: number;
   vessels: { count: number; sizeEach: number };
@@ -23,7 +24,7 @@ export interface SlotPlan {
 
 export interface StagePlan {
   stage: number;
-  type: VesselType;
+  type: StageType;
   /** Reaction volume the stage needs, m3, and each parallel vessel's share of it. */
   volumeNeeded: number;
   volumeEach: number;

@@ -12,6 +12,7 @@ import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
 import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display-preference";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
+import type { StageType } from "@/lib/engine";
 
 export const REPORT_FORMAT = "seriatim.design-report/1";
 
@@ -27,7 +28,7 @@ export const STATE_LABEL: Record<PinState, string> = {
 
 export interface ReportStage {
   index: number;
-  type: "CSTR" | "PFR";
+  type: StageType;
   conversionIn: number;
   conversionOut: number;
   /** K */
@@ -92,7 +93,7 @@ export interface DesignReport {
       };
   target: { conversion: number | null; conversionReached: number | null };
   objective: WordLine[];
-  train: { sequence: ("CSTR" | "PFR")[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
+  train: { sequence: StageType[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
   stages: ReportStage[];
   equilibriumConversion: number | null;
   references: { singleCSTR: number | null; singlePFR: number | null; feedVolumetricFlow: number | null };
@@ -234,7 +235,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       cost: num(s.cost),
     };
   });
-  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as ("CSTR" | "PFR")[];
+  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as StageType[];
   const plots = rawStages.map((s) => obj(s.levenspiel));
   const curve = plots.flatMap((p) => (Array.isArray(p.curve) ? (p.curve as Point[]) : []));
   const rate = describeRate(reaction.rate);

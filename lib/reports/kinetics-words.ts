@@ -7,6 +7,7 @@
 import { fromSI, SI_UNIT, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
 import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
+import { STAGE_TYPES } from "@/lib/stage-types";
 
 export interface WordLine {
   label: string;
@@ -140,7 +141,7 @@ export function describeObjective(spec: unknown): WordLine[] {
   const o = obj(s.objective);
   const train = obj(s.train);
   const lines: WordLine[] = [{ label: "Objective", value: o.minimise === "cost" ? "least vessel cost" : "least total volume" }];
-  if (typeof train.maxStages === "number") lines.push({ label: "Trains searched", value: `up to ${train.maxStages} stages of ${(Array.isArray(train.types) ? train.types : ["CSTR", "PFR"]).join(", ")}` });
+  if (typeof train.maxStages === "number") lines.push({ label: "Trains searched", value: `up to ${train.maxStages} stages of ${(Array.isArray(train.types) ? train.types : STAGE_TYPES).join(", ")}` });
   if (Array.isArray(train.candidates)) lines.push({ label: "Trains searched", value: `${train.candidates.length} listed sequences` });
   if (train.multiset) lines.push({ label: "Trains searched", value: `orderings of ${Object.entries(obj(train.multiset)).map(([k, n]) => `${n} × ${k}`).join(" + ")}` });
   if (train.equalVolume) lines.push({ label: "Stage volumes", value: "all equal" });

@@ -1,6 +1,6 @@
 import { EngineError, normaliseRatingSpec, rateTrain, type DesignSpec, type RatingSpec, type StageType } from "@/lib/engine";
 import { AppError } from "@/lib/errors";
-import { ROBUSTNESS_FIELD_LABELS, ROBUSTNESS_FIELDS, type RobustnessRunResult, type UncertainInput } from "@/lib/schemas/robustness";
+import { ROBUSTNESS_FIELD_LABELS, ROBUSTNESS_FIELDS, type RobustnessField, type RobustnessRunResult, type UncertainInput } from "@/lib/schemas/robustness";
 import { rateUnderUncertainty } from "./monte-carlo";
 
 /** A fixed train: a scenario's resolved design spec and the stage types and volumes (m3) of one candidate. */
@@ -18,7 +18,7 @@ function valueAt(spec: unknown, path: string): unknown {
 }
 
 /** The uncertain inputs a train offers: each field present in its spec as a number, with its SI value. */
-export function offeredFields(train: RatingSpec): { field: string; label: string; unit: string; value: number }[] {
+export function offeredFields(train: RatingSpec): { field: RobustnessField; label: string; unit: string; value: number }[] {
   const si = normaliseRatingSpec(train);
   return ROBUSTNESS_FIELDS.flatMap((field) => {
     const v = valueAt(si, field);

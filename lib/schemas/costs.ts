@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { uuidSchema } from "./ids";
 import { text } from "./text";
+import { STAGE_TYPES } from "@/lib/stage-types";
 
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 const source = text().trim().min(1, "Say where the number comes from, or write \"from memory\"").max(300, "Use at most 300 characters");
@@ -54,7 +55,7 @@ export const rateRequestSchema = z.strictObject({
     .array(
       z.union(
         [
-          z.strictObject({ type: z.enum(["CSTR", "PFR"], { error: "Choose CSTR or PFR" }), volume: volumeQuantity }),
+          z.strictObject({ type: z.enum(STAGE_TYPES, { error: "Choose CSTR or PFR" }), volume: volumeQuantity }),
           z.strictObject({ inventoryVesselId: uuidSchema }),
         ],
         { error: "Give a type and volume, or an inventory vessel" },

@@ -1,11 +1,12 @@
 import { z } from "zod";
 import { multilineText, text } from "./text";
+import { STAGE_TYPES } from "@/lib/stage-types";
 
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 const fields = {
   tag: text({ error: "Tag is required" }).trim().min(1, "Tag is required").max(60, "Use at most 60 characters"),
-  type: z.enum(["CSTR", "PFR"], { error: "Choose CSTR or PFR" }),
+  type: z.enum(STAGE_TYPES, { error: "Choose CSTR or PFR" }),
   volume: finite.gt(0, "Volume must be above 0").max(1e4, "Volume must be at most 10,000 m3"),
   available: z.boolean({ error: "Choose available or not" }),
   reuseCost: finite.min(0, "Reuse cost must be 0 or more"),

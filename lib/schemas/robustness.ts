@@ -1,4 +1,5 @@
 import { z } from "zod";
+import type { RatingSpec } from "@/lib/engine";
 
 /** Numeric inputs of a train's spec that may be made uncertain (SI values after normalisation). */
 export const ROBUSTNESS_FIELDS = [
@@ -79,6 +80,9 @@ export const sweepRobustnessSchema = z.strictObject({
   seed: seedSchema,
 });
 export type SweepRobustness = z.infer<typeof sweepRobustnessSchema>;
+
+/** What a run was asked (robustness_runs.request): the inputs, the target used and the fixed train rated. */
+export type RobustnessRunRequest = Required<Omit<RobustnessCreate, "target">> & { target: number; train: RatingSpec };
 
 /** The stored summary of a finished run (robustness_runs.result). */
 export interface RobustnessRunResult {

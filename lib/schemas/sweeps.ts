@@ -4,6 +4,7 @@ import { uuidSchema } from "./ids";
 import { sweepCostingSchema } from "./costs";
 import { sweepRobustnessSchema } from "./robustness";
 import { multilineText, text } from "./text";
+import { SORT_KEYS } from "@/lib/sweeps/sort-keys";
 
 const spec = designSpecSchema.shape;
 
@@ -67,10 +68,8 @@ export const sweepCreateSchema = z
   .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each input may be varied once", path: ["grid"] });
 export type SweepCreate = z.infer<typeof sweepCreateSchema>;
 
-export const SORTABLE_COLUMNS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused", "probabilityMeet"] as const;
-
 export const candidateQuerySchema = z.strictObject({
-  sort: z.enum(SORTABLE_COLUMNS, { error: "Choose a column to sort by" }).default("rank"),
+  sort: z.enum(SORT_KEYS, { error: "Choose a column to sort by" }).default("rank"),
   dir: z.enum(["asc", "desc"]).default("asc"),
   feasible: z.enum(["true", "false"]).optional(),
   contains: text()

@@ -4,7 +4,11 @@ import type { Database } from "@/db/client";
 import { candidates, scenarios, sweeps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
+import type { StagePlot, StageType } from "@/lib/engine";
+import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
+import type { ScenarioReference, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
+import type { SortKey } from "@/lib/sweeps/sort-keys";
 
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
 const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedCount')::int, 0)`;
@@ -22,7 +26,7 @@ const SORT_COLUMNS = {
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
   probabilityMeet: [candidates.probabilityMeet],
-} as const;
+} as const satisfies Record<SortKey, readonly unknown[]>;
 
 const summaryColumns = {
   id: candidates.id,
@@ -75,13 +79,13 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   ]);
   if (!scenario) throw notFound("scenario");
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
-  const items = rows.map(({ filteredTotal: _t, ...c }) => c);
+  const items = rows.map(({ filteredTotal: _t, ...c }) => c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>);
   return {
-    scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference },
+    scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference as ScenarioReference | null },
     page: q.page,
     pageSize: q.pageSize,
     total,
-    items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-"), emptyStages: emptyStageCount(c.stages) })),
+    items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-") as StageType[], emptyStages: emptyStageCount(c.stages) })),
   };
 }
 
@@ -111,18 +115,18 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
   return list.map(({ candidate: c, scenario, sweep }) => ({
     id: c.id,
     sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
-    scenario,
+    scenario: scenario as WithShapes<typeof scenario, { reference: ScenarioReference | null }>,
     rank: c.rank,
-    sequence: c.sequenceKey.split("-"),
+    sequence: c.sequenceKey.split("-") as StageType[],
     feasible: c.feasible,
     totalVolume: c.totalVolume,
     totalCost: c.totalCost,
     installedCost: c.installedCost,
-    inventoryPlan: c.inventoryPlan,
+    inventoryPlan: c.inventoryPlan as TrainPlan | null,
     stageCount: c.stageCount,
     ratioToPfr: c.ratioToPfr,
-    stages: c.stages,
-    levenspiel: c.levenspiel,
+    stages: c.stages as StoredStage[],
+    levenspiel: c.levenspiel as StagePlot[],
     differences: {
       volumeOverBest: c.totalVolume !== null && Number.isFinite(best) ? c.totalVolume - best : null,
       costOverBest: c.totalCost !== null && Number.isFinite(bestCost) ? c.totalCost - bestCost : null,

@@ -152,7 +152,8 @@ export async function listDatasets(db: Database, actor: Actor, projectId: string
   const datasets = await db.select().from(rateDatasets).where(eq(rateDatasets.projectId, projectId)).orderBy(rateDatasets.name);
   const out = [];
   for (const d of datasets) {
-    const [latest] = await db.select(versionMeta).from(rateDatasetVersions).where(eq(rateDatasetVersions.datasetId, d.id)).orderBy(desc(rateDatasetVersions.version)).limit(1);
+    // .at(0) rather than destructuring: its type says a dataset may have no version yet.
+    const latest = (await db.select(versionMeta).from(rateDatasetVersions).where(eq(rateDatasetVersions.datasetId, d.id)).orderBy(desc(rateDatasetVersions.version)).limit(1)).at(0);
     out.push({ ...d, latestVersion: latest ?? null });
   }
   return out;

@@ -6,6 +6,7 @@ import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
+import type { PinnedCandidate, WithShapes } from "@/lib/sweeps/stored-json";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
 import { requireTeamProject } from "./kinetics";
@@ -82,7 +83,8 @@ export async function listPins(db: Database, actor: Actor, projectId: string) {
   assertCan(actor, "pin.read", project, "project");
   const filters = [eq(pinnedDesigns.projectId, projectId)];
   if (actor.role === "viewer") filters.push(eq(pinnedDesigns.state, "approved"));
-  return db.select().from(pinnedDesigns).where(and(...filters)).orderBy(desc(pinnedDesigns.pinnedAt));
+  const rows = await db.select().from(pinnedDesigns).where(and(...filters)).orderBy(desc(pinnedDesigns.pinnedAt));
+  return rows as unknown as WithShapes<PinnedDesign, { candidate: PinnedCandidate }>[];
 }
 
 export async function getPin(db: Database, actor: Actor, pinId: string) {

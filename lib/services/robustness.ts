@@ -8,7 +8,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { bossDbFor, queueFor } from "@/lib/jobs/boss";
 import { QUEUES, WAKE_CHANNEL, type RobustnessPayload } from "@/lib/jobs/queues";
 import { checkUncertainFields, offeredFields, rateRobustness, trainSpec } from "@/lib/robustness/train";
-import { INLINE_SAMPLES, type RobustnessCreate } from "@/lib/schemas/robustness";
+import { INLINE_SAMPLES, type RobustnessCreate, type RobustnessRunRequest, type RobustnessRunResult } from "@/lib/schemas/robustness";
 import { toBadRequest } from "./engine-errors";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
@@ -46,8 +46,8 @@ async function pinSubject(db: Database, actor: Actor, pinId: string): Promise<Su
 /** What the API shows of a run: no job id; the request without the stored train. */
 export function runView(r: RobustnessRun) {
   const { jobId: _job, teamId: _team, request, ...rest } = r;
-  const { train: _train, ...asked } = request as Record<string, unknown>;
-  return { ...rest, request: asked };
+  const { train: _train, ...asked } = request as RobustnessRunRequest;
+  return { ...rest, result: r.result as RobustnessRunResult | null, request: asked };
 }
 
 /**

@@ -15,6 +15,7 @@ import { issueInWords } from "@/lib/schemas/issue-words";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
 import { checkUncertainFields, trainSpec } from "@/lib/robustness/train";
 import type { SweepRobustness } from "@/lib/schemas/robustness";
+import type { ScenarioReference, StoredSweepSpec, WithShapes } from "@/lib/sweeps/stored-json";
 import { recordAudit } from "./audit";
 import { sweepCostingFor } from "./sweep-costing";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
@@ -175,7 +176,7 @@ export function sweepView(s: Sweep) {
   const { jobIds: _jobIds, baseSpec, ...rest } = s;
   const elapsed = s.startedAt ? ((s.finishedAt ?? new Date()).getTime() - s.startedAt.getTime()) / 1000 : null;
   const remaining = elapsed && s.done > 0 && s.status === "running" ? (elapsed / s.done) * (s.total - s.done) : null;
-  return { ...rest, spec: baseSpec, progress: { done: s.done, total: s.total, fraction: s.total ? s.done / s.total : 0, elapsedSeconds: elapsed, remainingSeconds: remaining } };
+  return { ...rest, grid: s.grid as GridAxis[], robustness: s.robustness as SweepRobustness | null, spec: baseSpec as unknown as StoredSweepSpec, progress: { done: s.done, total: s.total, fraction: s.total ? s.done / s.total : 0, elapsedSeconds: elapsed, remainingSeconds: remaining } };
 }
 
 export async function getSweep(db: Database, actor: Actor, sweepId: string) {
@@ -227,7 +228,7 @@ export async function rerunSweep(db: Database, actor: Actor, sweepId: string) {
 
 export async function listScenarios(db: Database, actor: Actor, sweepId: string) {
   await requireTeamSweep(db, actor, sweepId);
-  return db
+  const rows = await db
     .select({
       index: scenarios.index,
       overrides: scenarios.overrides,
@@ -240,6 +241,7 @@ export async function listScenarios(db: Database, actor: Actor, sweepId: string)
     .from(scenarios)
     .where(eq(scenarios.sweepId, sweepId))
     .orderBy(asc(scenarios.index));
+  return rows as WithShapes<(typeof rows)[number], { reference: ScenarioReference | null }>[];
 }
 
 export { requireTeamSweep };

@@ -2,11 +2,14 @@
  * The scenario grid of a sweep: axes over numeric fields of the engine spec, expanded to
  * their Cartesian product. Pure functions; no I/O.
  */
+import type { z } from "zod";
+import type { gridAxisSchema } from "@/lib/schemas/sweeps";
 
-/** One varied field: listed values, or a range with a number of steps (both ends included). */
-export type GridAxis =
-  | { field: string; values: number[] }
-  | { field: string; from: number; to: number; steps: number; scale?: "linear" | "log" };
+/**
+ * One varied field: listed values, or a range with a number of steps (both ends included).
+ * The request's schema is its one definition, so what is accepted is what is expanded.
+ */
+export type GridAxis = z.infer<typeof gridAxisSchema>;
 
 /** Field path → value for one scenario, e.g. { "feed.flowA": 0.02, "target.conversion": 0.9 }. */
 export type Overrides = Record<string, number>;

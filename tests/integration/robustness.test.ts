@@ -67,7 +67,7 @@ describe("robustness runs", () => {
     expect(run.status).toBe("succeeded");
     const target = (pin.spec as unknown as DesignSpec).target.conversion;
     const expected = direct(800, 11, target);
-    const result = run.result as Record<string, number>;
+    const result = run.result!;
     expect(result.p50).toBe(expected.p50);
     expect(result.probabilityOfMissingTarget).toBe(expected.probabilityOfMissingTarget);
     expect(result.target).toBe(target);
@@ -98,8 +98,8 @@ describe("robustness runs", () => {
     }, 120_000, "the robustness run to finish");
     expect(done.status).toBe("succeeded");
     const expected = direct(6000, 3, 0.88);
-    expect((done.result as Record<string, number>).p95).toBe(expected.p95);
-    expect((done.result as Record<string, number>).probabilityOfMissingTarget).toBe(expected.probabilityOfMissingTarget);
+    expect(done.result!.p95).toBe(expected.p95);
+    expect(done.result!.probabilityOfMissingTarget).toBe(expected.probabilityOfMissingTarget);
     const listed = await listPinRuns(t.db, engineer, pin.id);
     expect(listed.runs.map((r) => r.id)).toContain(run.id);
   });
