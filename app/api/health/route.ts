@@ -1,5 +1,5 @@
-import { sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
+import { databaseReachable } from "@/lib/services/health";
 
 export const dynamic = "force-dynamic";
 
@@ -8,16 +8,12 @@ const CHECK_MS = 3_000;
 
 /** 200 once the app reaches its database; 503 (promptly) while it does not, e.g. during a restart. */
 export async function GET() {
-  let timer: NodeJS.Timeout | undefined;
-  const timeout = new Promise<never>((_, reject) => {
-    timer = setTimeout(() => reject(new Error("database check timed out")), CHECK_MS);
-  });
+  let reachable = false;
   try {
-    await Promise.race([getDb().execute(sql`select 1`), timeout]);
-    return Response.json({ status: "ok", database: "reachable" });
+    reachable = await databaseReachable(getDb(), CHECK_MS);
   } catch {
-    return Response.json({ status: "degraded", database: "unreachable" }, { status: 503 });
-  } finally {
-    clearTimeout(timer);
+    // No handle at all (configuration missing): as unreachable as a stopped server.
   }
+  if (reachable) return Response.json({ status: "ok", database: "reachable" });
+  return Response.json({ status: "degraded", database: "unreachable" }, { status: 503 });
 }
