@@ -60,15 +60,19 @@ export async function withTransaction<T>(db: Database, fn: (tx: Database, client
   const owner = db.$client;
   const lent = owner instanceof pg.Pool;
   const client = lent ? await owner.connect() : owner;
+  // A connection that cannot even roll back is broken: it goes, instead of back into the pool.
+  let broken = false;
   try {
     await client.query("BEGIN");
     const result = await fn(createDb(client), client);
     await client.query("COMMIT");
     return result;
   } catch (err) {
-    await client.query("ROLLBACK").catch(() => {});
+    await client.query("ROLLBACK").catch(() => {
+      broken = true;
+    });
     throw err;
   } finally {
-    if (lent) client.release();
+    if (lent) (client as pg.PoolClient).release(broken);
   }
 }

@@ -18,7 +18,7 @@ export type ImportEdge = {
   line: number;
 };
 
-export const SOURCE_FOLDERS = ["app", "components", "lib", "db", "worker", "scripts", "proxy.ts"] as const;
+export const SOURCE_FOLDERS = ["app", "components", "lib", "db", "worker", "scripts", "proxy.ts", "instrumentation-client.ts"] as const;
 
 const EXTENSIONS = [".ts", ".tsx", ".mts", ".js", ".mjs"];
 
