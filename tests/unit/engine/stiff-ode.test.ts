@@ -240,6 +240,26 @@ describe("stiff integrator against odex and closed forms on a non-stiff network"
 });
 
 describe("stiff integrator failures", () => {
+  it("refuses an interval that runs backwards or a negative tolerance, in words", () => {
+    const f: OdeFunction = (_t, y, d) => {
+      d[0] = -y[0];
+    };
+    expect(() => integrateStiff(f, [1], 2, 1, { rtol: 1e-6, atol: 1e-9, variable: "V" })).toThrow("the integration needs an end point after its start (V from 2 to 1)");
+    expect(() => integrateStiff(f, [1], 0, 1, { rtol: 1e-6, atol: [-1] })).toThrow("the integration needs absolute tolerances of zero or more");
+  });
+
+  it("accepts one absolute tolerance per component: a trace species held to 1e-20 keeps its digits (closed form, common practice)", () => {
+    // A -> B -> C with k1 = 1e-12: B stays near C_A0 k1 t, far below any shared absolute tolerance.
+    const f = network(1e-12, 1, 0) as OdeFunction;
+    const exactB = (t: number) => ((2 * 1e-12) / (1 - 1e-12)) * (Math.exp(-1e-12 * t) - Math.exp(-t));
+    const shared = integrateStiff(f, [2, 0, 0, 0], 0, 5, { rtol: 1e-8, atol: 1e-10, autonomous: true });
+    const perSpecies = integrateStiff(f, [2, 0, 0, 0], 0, 5, { rtol: 1e-8, atol: [1e-10, 1e-20, 1e-10, 1e-10], autonomous: true });
+    expect(rel(perSpecies.y[1], exactB(5))).toBeLessThan(1e-6);
+    // With the shared 1e-10 the trace species is below the noise floor and the solver rightly spends almost nothing on it.
+    expect(Math.abs(shared.y[1] - exactB(5))).toBeLessThan(1e-10);
+    expect(perSpecies.steps).toBeGreaterThan(5 * shared.steps);
+  });
+
   it("gives up with an engine error in words when the step limit is reached", () => {
     const run = () => integrateStiff(robertson, [1, 0, 0], 0, 1e5, { rtol: 1e-8, atol: 1e-12, autonomous: true, maxSteps: 10, subject: "the species balances along the PFR", variable: "V", path: "reactions" });
     expect(run).toThrow(EngineError);
