@@ -19,7 +19,7 @@ export type OdeFunction = (t: number, y: Float64Array, dydt: Float64Array) => vo
 export interface StiffOptions {
   /** Relative tolerance of the local error per step. */
   rtol: number;
-  /** Absolute tolerance: one number or one per component. */
+  /** Absolute tolerance (above zero): one number or one per component. */
   atol: number | ArrayLike<number>;
   /** Analytic Jacobian: fills J[i][j] = d f_i / d y_j (J starts as zeros). Finite differences otherwise. */
   jacobian?: (t: number, y: Float64Array, J: number[][]) => void;
@@ -80,15 +80,20 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
   const path = options.path ?? "";
   const subject = options.subject ?? "the integration";
   const variable = options.variable ?? "t";
+  // A request the solver cannot take is "invalid-spec"; a problem it could not integrate is "infeasible".
+  const refuse = (message: string): never => {
+    throw new EngineError("invalid-spec", `${subject} ${message}`, path);
+  };
   const fail = (message: string): never => {
     throw new EngineError("infeasible", `${subject} ${message}`, path);
   };
-  if (!(t1 >= t0) || !Number.isFinite(t0) || !Number.isFinite(t1)) fail(`needs an end point after its start (${variable} from ${fmt(t0)} to ${fmt(t1)})`);
-  if (!(options.rtol > 0)) fail("needs a relative tolerance above zero");
+  if (!(t1 >= t0) || !Number.isFinite(t0) || !Number.isFinite(t1)) refuse(`needs an end point after its start (${variable} from ${fmt(t0)} to ${fmt(t1)})`);
+  if (!(options.rtol > 0)) refuse("needs a relative tolerance above zero");
   const atol = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     atol[i] = typeof options.atol === "number" ? options.atol : options.atol[i];
-    if (!(atol[i] >= 0)) fail("needs absolute tolerances of zero or more");
+    // Zero would make the error scale vanish for a species that is absent at both ends of a step.
+    if (!(atol[i] > 0)) refuse("needs absolute tolerances above zero");
   }
   const rtol = options.rtol;
   const maxSteps = options.maxSteps ?? 100000;
@@ -96,7 +101,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
   const outputTimes = options.outputTimes ?? [];
   for (let i = 0; i < outputTimes.length; i++) {
     const ok = outputTimes[i] >= t0 && outputTimes[i] <= t1 && (i === 0 || outputTimes[i] >= outputTimes[i - 1]);
-    if (!ok) fail(`needs its output points in ascending order between ${fmt(t0)} and ${fmt(t1)}`);
+    if (!ok) refuse(`needs its output points in ascending order between ${fmt(t0)} and ${fmt(t1)}`);
   }
 
   let t = t0;

@@ -245,7 +245,9 @@ describe("stiff integrator failures", () => {
       d[0] = -y[0];
     };
     expect(() => integrateStiff(f, [1], 2, 1, { rtol: 1e-6, atol: 1e-9, variable: "V" })).toThrow("the integration needs an end point after its start (V from 2 to 1)");
-    expect(() => integrateStiff(f, [1], 0, 1, { rtol: 1e-6, atol: [-1] })).toThrow("the integration needs absolute tolerances of zero or more");
+    expect(() => integrateStiff(f, [1], 2, 1, { rtol: 1e-6, atol: 1e-9 })).toThrow(expect.objectContaining({ code: "invalid-spec" }));
+    expect(() => integrateStiff(f, [1], 0, 1, { rtol: 1e-6, atol: [-1] })).toThrow("the integration needs absolute tolerances above zero");
+    expect(() => integrateStiff(f, [1], 0, 1, { rtol: 1e-6, atol: 1e-9, outputTimes: [0.5, 0.2] })).toThrow("the integration needs its output points in ascending order between 0 and 1");
   });
 
   it("accepts one absolute tolerance per component: a trace species held to 1e-20 keeps its digits (closed form, common practice)", () => {
