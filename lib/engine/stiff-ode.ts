@@ -142,15 +142,20 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
       options.jacobian(t, y, jRows);
       for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) J[i * n + j] = jRows[i][j];
     } else {
-      // Forward differences with Hairer & Wanner's increment sqrt(eps * max(1e-5, |y_j|)): safe against
-      // round-off when large and small concentrations meet in one rate expression. Its limit: a species
-      // far below 1e-5 (in the caller's units) that enters a rate quadratically gets an increment larger
-      // than itself, so its column is off; the error control stays honest but takes many more steps
-      // (bench/stiff-ode.bench.ts, Robertson to 4e10). Mass-action networks should pass `jacobian`.
+      // Forward differences with increments sqrt(eps * S * max(|y_j|, 1e-5 S)), S the largest |y_k|: Hairer
+      // & Wanner's sqrt(eps * max(|y_j|, 1e-5)) made independent of the units (the same steps whether
+      // concentrations are in mol/m3 or kmol/m3), and never so small that round-off from the large
+      // concentrations in the same rate expression swamps the difference. Its limit: a species far
+      // below 1e-5 S that enters a rate quadratically gets an increment larger than itself, so its
+      // column is off; the error control stays honest but takes many more steps (Robertson to 4e10 in
+      // bench/stiff-ode.bench.ts). Networks with mass-action rate laws should pass `jacobian`.
+      let scale = 0;
+      for (let j = 0; j < n; j++) scale = Math.max(scale, Math.abs(y[j]));
+      if (!(scale > 0) || !Number.isFinite(scale)) scale = 1;
       for (let j = 0; j < n; j++) {
         const saved = y[j];
-        const delta = Math.sqrt(EPS * Math.max(1e-5, Math.abs(saved)));
-        y[j] = saved + delta;
+        y[j] = saved + Math.sqrt(EPS * scale * Math.max(1e-5 * scale, Math.abs(saved)));
+        const delta = y[j] - saved; // the increment actually representable, not the one asked for
         evalF(t, y, scratch);
         y[j] = saved;
         for (let i = 0; i < n; i++) J[i * n + j] = (scratch[i] - f0[i]) / delta;
@@ -158,7 +163,9 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
     }
     if (options.autonomous) ft.fill(0);
     else {
-      const delta = Math.sqrt(EPS * Math.max(1e-5, Math.abs(t)));
+      // The same rule for the time derivative, with the length of the interval as the scale.
+      const span = t1 - t0;
+      const delta = t + Math.sqrt(EPS * span * Math.max(1e-5 * span, Math.abs(t))) - t;
       evalF(t + delta, y, scratch);
       for (let i = 0; i < n; i++) ft[i] = (scratch[i] - f0[i]) / delta;
     }

@@ -166,6 +166,23 @@ describe("stiff integrator: published stiff test problems", () => {
     console.log(`Robertson to 40 (finite-difference Jacobian): ${r.steps} steps, ${r.rejected} rejected, ${r.functionEvaluations} evaluations`);
   });
 
+  it("Robertson's problem gives the same answer and work whatever the concentration unit (difference Jacobian)", () => {
+    // Scaling y by S and the second-order rate constants by 1/S scales the solution by S (common practice).
+    const base = integrateStiff(robertson, [1, 0, 0], 0, 40, { rtol: 1e-8, atol: 1e-12, autonomous: true });
+    for (const S of [1e-3, 1e3]) {
+      const scaled: OdeFunction = (_t, y, d) => {
+        d[0] = -0.04 * y[0] + (1e4 / S) * y[1] * y[2];
+        d[2] = (3e7 / S) * y[1] * y[1];
+        d[1] = -d[0] - d[2];
+      };
+      const r = integrateStiff(scaled, [S, 0, 0], 0, 40, { rtol: 1e-8, atol: 1e-12 * S, autonomous: true });
+      // Reference at t = 40 (Hairer & Wanner II, Sect. IV.10; from memory).
+      expect(Math.abs(r.y[0] / S - 0.7158270687193267)).toBeLessThan(1e-8);
+      expect(rel(r.y[1] / S, 0.9185534764557338e-5)).toBeLessThan(1e-6);
+      expect(Math.abs(r.steps - base.steps)).toBeLessThanOrEqual(2);
+    }
+  });
+
   it("Robertson's problem to t = 1e11 with the analytic Jacobian matches the published reference in a bounded number of steps", () => {
     const r = integrateStiff(robertson, [1, 0, 0], 0, 1e11, { rtol: 1e-8, atol: 1e-12, autonomous: true, jacobian: robertsonJacobian });
     // Reference at t = 1e11 from the test set for IVP solvers (Bari/CWI), problem ROBER (from memory).
