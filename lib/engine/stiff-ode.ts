@@ -1,5 +1,7 @@
 import { EngineError } from "./errors";
 import { RODAS4, type RosenbrockTableau } from "./rosenbrock-tableau";
+import { hermite, locateFirstTrue, pushOutputs } from "./ode-dense-output";
+import { initialStep } from "./ode-initial-step";
 import { luFactor, luSolve } from "./small-lu";
 
 /**
@@ -67,7 +69,6 @@ const EPS = Number.EPSILON;
 const SAFETY = 0.9;
 const MAX_SHRINK = 5;
 const MAX_GROW = 6;
-const BISECTIONS = 60;
 
 function fmt(x: number): string {
   return Number(x.toPrecision(4)).toString();
@@ -105,7 +106,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
   }
 
   let t = t0;
-  let y = Float64Array.from(y0);
+  let y: Float64Array = Float64Array.from(y0);
   const stats = { steps: 0, accepted: 0, rejected: 0, jacobianEvaluations: 0, functionEvaluations: 0, luDecompositions: 0 };
   const evalF = (tt: number, yy: Float64Array, out: Float64Array) => {
     stats.functionEvaluations++;
@@ -131,7 +132,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
   const k: Float64Array[] = Array.from({ length: tab.stages }, () => new Float64Array(n));
   const arg = new Float64Array(n);
   const fs = new Float64Array(n);
-  let yNew = new Float64Array(n);
+  let yNew: Float64Array = new Float64Array(n);
   let f1 = new Float64Array(n);
   const scratch = new Float64Array(n);
 
@@ -258,21 +259,10 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
       const dense = (tt: number, out: Float64Array) => hermite(tOld, tNew - tOld, yOld, yNew, fOld, f1, tt, out);
 
       if (options.stopWhen?.(tNew, yNew)) {
-        let lo = tOld;
-        let hi = tNew;
-        const probe = new Float64Array(n);
-        for (let i = 0; i < BISECTIONS && hi - lo > 4 * EPS * Math.max(1, Math.abs(hi)); i++) {
-          const mid = 0.5 * (lo + hi);
-          dense(mid, probe);
-          if (options.stopWhen(mid, probe)) hi = mid;
-          else lo = mid;
-        }
-        const yStop = new Float64Array(n);
-        if (hi === tNew) yStop.set(yNew);
-        else dense(hi, yStop);
-        nextOutput = pushOutputs(outputs, outputTimes, nextOutput, hi, dense, n);
-        t = hi;
-        y = yStop;
+        const stop = locateFirstTrue(options.stopWhen, tOld, tNew, yNew, dense);
+        nextOutput = pushOutputs(outputs, outputTimes, nextOutput, stop.t, dense, n);
+        t = stop.t;
+        y = stop.y;
         return finish("stopped");
       }
       nextOutput = pushOutputs(outputs, outputTimes, nextOutput, tNew, dense, n);
@@ -295,68 +285,6 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
       h /= factor;
     }
   }
-}
-
-/** Appends the dense-output values at the requested points up to and including upTo; returns the next index. */
-function pushOutputs(
-  outputs: { t: number; y: Float64Array }[],
-  times: readonly number[],
-  from: number,
-  upTo: number,
-  dense: (t: number, out: Float64Array) => void,
-  n: number,
-): number {
-  let i = from;
-  for (; i < times.length && times[i] <= upTo; i++) {
-    const y = new Float64Array(n);
-    dense(times[i], y);
-    outputs.push({ t: times[i], y });
-  }
-  return i;
-}
-
-/** Cubic Hermite interpolation on [t0, t0 + h] from the end values and slopes (order 3, continuous slope). */
-function hermite(t0: number, h: number, y0: Float64Array, y1: Float64Array, f0: Float64Array, f1: Float64Array, t: number, out: Float64Array) {
-  const th = (t - t0) / h;
-  const th1 = th - 1;
-  for (let i = 0; i < y0.length; i++) {
-    const dy = y1[i] - y0[i];
-    out[i] = (1 - th) * y0[i] + th * y1[i] + th * th1 * ((1 - 2 * th) * dy + th1 * h * f0[i] + th * h * f1[i]);
-  }
-}
-
-/** Hairer & Wanner's starting-step heuristic: one explicit Euler probe estimates the second derivative. */
-function initialStep(
-  evalF: (t: number, y: Float64Array, out: Float64Array) => void,
-  t: number,
-  y: Float64Array,
-  f0: Float64Array,
-  atol: Float64Array,
-  rtol: number,
-  order: number,
-): number {
-  const n = y.length;
-  let d0 = 0;
-  let d1 = 0;
-  const sk = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    sk[i] = atol[i] + rtol * Math.abs(y[i]);
-    d0 += (y[i] / sk[i]) ** 2;
-    d1 += (f0[i] / sk[i]) ** 2;
-  }
-  d0 = Math.sqrt(d0 / n);
-  d1 = Math.sqrt(d1 / n);
-  const h0 = d0 < 1e-5 || d1 < 1e-5 ? 1e-6 : 0.01 * (d0 / d1);
-  const y1 = new Float64Array(n);
-  for (let i = 0; i < n; i++) y1[i] = y[i] + h0 * f0[i];
-  const f1 = new Float64Array(n);
-  evalF(t + h0, y1, f1);
-  let d2 = 0;
-  for (let i = 0; i < n; i++) d2 += ((f1[i] - f0[i]) / sk[i]) ** 2;
-  d2 = Math.sqrt(d2 / n) / h0;
-  const big = Math.max(d1, d2);
-  const h1 = big <= 1e-15 || !Number.isFinite(big) ? Math.max(1e-6, h0 * 1e-3) : (0.01 / big) ** (1 / (order + 1));
-  return Math.min(100 * h0, h1);
 }
 
 function axpy(a: number, x: Float64Array, y: Float64Array) {
