@@ -8,8 +8,10 @@ import { luFactor, luSolve } from "./small-lu";
 /**
  * An integrator for stiff systems of ordinary differential equations y' = f(t, y): the Rosenbrock-Wanner
  * method RODAS4 (L-stable, order 4, embedded order 3) with error-per-step control, a finite-difference
- * Jacobian when none is given, cubic Hermite dense output for requested output points, and an optional
- * stopping predicate located by bisection on that dense output.
+ * Jacobian when none is given (second-order differences unless forward ones are asked for), cubic
+ * Hermite dense output for requested output points, and an optional stopping predicate located by
+ * bisection on that dense output. A Rosenbrock method needs a good Jacobian at every step (it does
+ * not iterate to correct a poor one): an analytic Jacobian is best, and cheapest.
  *
  * Non-negativity is NOT enforced: a concentration may dip slightly below zero within the tolerances.
  * Rate laws that would misbehave there (fractional orders, logarithms) must see max(C, 0) — the
@@ -95,6 +97,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
     throw new EngineError("infeasible", `${subject} ${message}`, path);
   };
   if (!(t1 >= t0) || !Number.isFinite(t0) || !Number.isFinite(t1)) refuse(`needs an end point after its start (${variable} from ${fmt(t0)} to ${fmt(t1)})`);
+  if (n === 0) refuse("needs at least one unknown");
   if (!(options.rtol > 0)) refuse("needs a relative tolerance above zero");
   const atol = new Float64Array(n);
   for (let i = 0; i < n; i++) {
