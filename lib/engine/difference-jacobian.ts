@@ -3,8 +3,8 @@
  * J is n x n, row-major: J[i * n + j] = d f_i / d y_j. f0 holds f(t, y); y is restored on return.
  *
  * Increments scale with S, the largest |y_k|, so the same problem in mol/m3 or kmol/m3 takes the same
- * steps; the floor 1e-5 S keeps round-off from the large concentrations in the same rate expression
- * from swamping the difference for a species that is nearly absent.
+ * steps; a floor proportional to S keeps round-off from the large concentrations in the same rate
+ * expression from swamping the difference for a species that is nearly absent.
  */
 type Evaluate = (t: number, y: Float64Array, out: Float64Array) => void;
 
@@ -37,10 +37,11 @@ export function forwardDifferenceJacobian(evalF: Evaluate, t: number, y: Float64
 }
 
 /**
- * Second-order differences, increments eps^(1/3) * max(|y_j|, 1e-5 S): two evaluations per column, an
- * error of order eps^(2/3), and exact for rate terms quadratic in one concentration (mass action).
- * A species within one increment of zero is probed on its positive side only (three-point one-sided
- * formula), so a rate law that clamps at C = 0 is never differenced across its kink.
+ * Second-order differences, increments eps^(1/3) * max(|y_j|, 1e-3 S): two evaluations per column, an
+ * error of order eps^(2/3) relative to the largest rate term, and exact for rate terms quadratic in one
+ * concentration (mass action) whatever the increment. A species within one increment of zero is probed
+ * on its positive side only (three-point one-sided formula), so a rate law that clamps at C = 0 is
+ * never differenced across its kink.
  */
 export function centralDifferenceJacobian(
   evalF: Evaluate,
@@ -55,8 +56,8 @@ export function centralDifferenceJacobian(
   const scale = largestMagnitude(y);
   for (let j = 0; j < n; j++) {
     const saved = y[j];
-    const delta = CBRT_EPS * Math.max(Math.abs(saved), 1e-5 * scale);
-    const oneSided = saved >= 0 && saved - delta < 0;
+    const delta = CBRT_EPS * Math.max(Math.abs(saved), 1e-3 * scale);
+    const oneSided = Math.abs(saved) < delta;
     y[j] = saved + delta;
     const up = y[j] - saved;
     evalF(t, y, scratch);
@@ -65,11 +66,11 @@ export function centralDifferenceJacobian(
     evalF(t, y, scratch2);
     y[j] = saved;
     if (oneSided) {
-      // Derivative at 0 of the parabola through (0, f0), (up, f+), (other, f++).
-      const w0 = -(up + other) / (up * other);
+      // Derivative at 0 of the parabola through (0, f0), (up, f+), (other, f++), written with differences
+      // from f0: the three weights sum to zero, and summing them separately would leave eps * f0 / delta.
       const w1 = other / (up * (other - up));
       const w2 = -up / (other * (other - up));
-      for (let i = 0; i < n; i++) J[i * n + j] = w0 * f0[i] + w1 * scratch[i] + w2 * scratch2[i];
+      for (let i = 0; i < n; i++) J[i * n + j] = w1 * (scratch[i] - f0[i]) + w2 * (scratch2[i] - f0[i]);
     } else {
       for (let i = 0; i < n; i++) J[i * n + j] = (scratch[i] - scratch2[i]) / (up - other);
     }

@@ -1,6 +1,7 @@
 import { EigenvalueDecomposition, inverse, Matrix } from "ml-matrix";
 import { Solver } from "odex";
 import { describe, expect, it } from "vitest";
+import { centralDifferenceJacobian, forwardDifferenceJacobian } from "../../../lib/engine/difference-jacobian";
 import { EngineError } from "../../../lib/engine/errors";
 import { RODAS4 } from "../../../lib/engine/rosenbrock-tableau";
 import { integrateStiff, type OdeFunction } from "../../../lib/engine/stiff-ode";
@@ -108,6 +109,50 @@ describe("RODAS4 coefficients", () => {
     const R = (z: number) => 1 + z * dot(b, inverse(Matrix.eye(s, s).sub(beta.clone().mul(z))).mmul(ones));
     expect(Math.abs(R(-1e12))).toBeLessThan(1e-9);
     for (const z of [-0.1, -1, -10, -100, -1e4, -1e6]) expect(Math.abs(R(z))).toBeLessThan(1);
+  });
+});
+
+describe("difference Jacobians", () => {
+  // A <=> B with rate laws clamped at zero, plus 2B -> C: J = [[-k1, k2, 0], [k1, -k2 - 4 k3 B, 0], [0, 2 k3 B, 0]] (common practice).
+  const k1 = 3;
+  const k2 = 0.7;
+  const k3 = 50;
+  const f: OdeFunction = (_t, y, d) => {
+    const a = Math.max(y[0], 0);
+    const b = Math.max(y[1], 0);
+    const r = k1 * a - k2 * b;
+    d[0] = -r;
+    d[1] = r - 2 * k3 * b * b;
+    d[2] = k3 * b * b;
+  };
+  const exact = (b: number) => [-k1, k2, 0, k1, -k2 - 4 * k3 * b, 0, 0, 2 * k3 * b, 0];
+  const differences = (y: number[], central: boolean) => {
+    const yy = Float64Array.from(y);
+    const f0 = new Float64Array(3);
+    f(0, yy, f0);
+    const J = new Float64Array(9);
+    if (central) centralDifferenceJacobian(f, 0, yy, f0, J, new Float64Array(3), new Float64Array(3));
+    else forwardDifferenceJacobian(f, 0, yy, f0, J, new Float64Array(3));
+    expect(Array.from(yy)).toEqual(y);
+    return Array.from(J);
+  };
+
+  it("are right at a species that is absent, where the rate law clamps at zero (probed on the positive side)", () => {
+    // Forward differences carry an error of order sqrt(eps) times the rate terms over the increment; central ones eps^(2/3).
+    for (const [central, tolerance] of [[true, 1e-7], [false, 1e-4]] as const) {
+      const J = differences([2, 0, 0], central);
+      exact(0).forEach((v, i) => expect(Math.abs(J[i] - v)).toBeLessThan(tolerance));
+    }
+  });
+
+  it("central differences are exact to round-off for a rate quadratic in one concentration; forward ones are not", () => {
+    const b = 1e-4;
+    const central = differences([2, b, 0], true);
+    const forward = differences([2, b, 0], false);
+    const want = exact(b);
+    // Forward: the truncation error k3 * increment (about 1e-6 relative here); central: round-off only.
+    expect(Math.abs(central[7] - want[7]) / want[7]).toBeLessThan(1e-10);
+    expect(Math.abs(forward[7] - want[7]) / want[7]).toBeGreaterThan(1e-7);
   });
 });
 
