@@ -5,7 +5,7 @@ import { keyText, multilineText, text } from "./text";
 import { STAGE_TYPES } from "@/lib/stage-types";
 
 /** A number in SI units or a string with a unit ("2 mol/L"). */
-const quantity = z.union([z.number(), text().min(1).max(100, "Use at most 100 characters")]);
+export const quantity = z.union([z.number(), text().min(1).max(100, "Use at most 100 characters")]);
 const stageType = z.enum(STAGE_TYPES);
 const numberMap = z.record(keyText().max(40, "Use at most 40 characters"), dimensionless("Each value"));
 const ratioMap = z.record(keyText().max(40, "Use at most 40 characters"), dimensionless("Feed ratio to A"));
