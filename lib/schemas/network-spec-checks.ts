@@ -155,11 +155,15 @@ function checkObjectiveAndLimits(spec: CheckedNetwork, say: (path: Path, message
   }
 }
 
-/** Adds one issue per problem found; the schema calls it from its superRefine. */
+/**
+ * Adds one issue per problem found; the schema calls it from its superRefine. Zod runs it even when a
+ * field has a problem that leaves the shape intact (a negative number, too many reactions), so a form
+ * shows every problem at once; with no reaction at all there is nothing to say about key or product.
+ */
 export function checkNetwork(spec: CheckedNetwork, ctx: z.RefinementCtx): void {
   const say = (path: Path, message: string) => ctx.addIssue({ code: "custom", path, message });
   checkSpeciesNames(spec, say);
   checkNamedSpecies(spec, say);
-  checkKeyAndProduct(spec, say);
+  if (spec.reactions.length > 0) checkKeyAndProduct(spec, say);
   checkObjectiveAndLimits(spec, say);
 }
