@@ -72,6 +72,7 @@ const LABELS: Record<string, string> = {
   "reactions.#.rate.reverse.orders": "Reaction {n}, reverse orders",
   "reactions.#.rate.reverse.orders.*": "Reaction {n}, reverse order in {key}",
   "reactions.#.rate.reverse.activationEnergy": "Reaction {n}, reverse activation energy",
+  "reactions.#.rate.reverse.referenceTemperature": "Reaction {n}, reverse reference temperature",
   "reactions.#.rate.expression": "Reaction {n}, rate expression",
   "reactions.#.rate.parameters": "Reaction {n}, expression parameters",
   "reactions.#.rate.parameters.*": "Reaction {n}, parameter {key}",

@@ -69,6 +69,8 @@ const powerRate = z.strictObject({
       k: quantityField("nonNegative", "0.02 1/s"),
       orders,
       activationEnergy: quantityField("nonNegative", "80 kJ/mol").optional(),
+      // Where the contract is silent: the reverse term shares the forward reference temperature unless it gives its own.
+      referenceTemperature: temperatureField("350 K").optional(),
     })
     .optional(),
 });
