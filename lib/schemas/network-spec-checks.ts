@@ -144,7 +144,7 @@ function checkObjectiveAndLimits(spec: CheckedNetwork, say: (path: Path, message
     say(["constraints", "minConversion"], "required when ranking by least volume: the smallest train is sized to reach it");
   }
   if (spec.constraints?.minYield !== undefined && spec.objective.product === undefined) {
-    say(["constraints", "minYield"], "name the wanted product with the objective, so the yield has a species to count");
+    say(["constraints", "minYield"], "name the wanted product, so the yield has a species to count");
   }
   if (spec.thermal.mode === "stageTemperature") {
     const low = leadingNumber(spec.thermal.min);

@@ -101,7 +101,7 @@ const thermal = z.discriminatedUnion(
     z.strictObject({ mode: z.literal("isothermal") }),
     z.strictObject({ mode: z.literal("stageTemperature"), min: temperatureField("300 K"), max: temperatureField("450 K") }),
   ],
-  { error: "choose one temperature for every stage, or a temperature range for each stage to be chosen in" },
+  { error: (issue) => (issue.input === undefined ? "required" : "choose isothermal stages, or a temperature range within which each stage's temperature is chosen") },
 );
 
 /** One of two forms, written flat so a mistake in either is reported at its own field rather than as "neither form". */

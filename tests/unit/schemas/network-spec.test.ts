@@ -2,7 +2,8 @@ import { readdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { DIM, rateConstantDimension, toSI } from "@/lib/engine/units";
-import { findLabel } from "@/lib/schemas/field-labels";
+import { findLabel, labelFor } from "@/lib/schemas/field-labels";
+import { issueInWords } from "@/lib/schemas/issue-words";
 import { expressionNames } from "@/lib/schemas/network-spec-checks";
 import { isNetworkSpec, networkSpecSchema, type NetworkSpecInput } from "@/lib/schemas/network-spec";
 import { designSpecSchema, ratingSpecSchema } from "@/lib/schemas/sweep-spec";
@@ -156,6 +157,21 @@ describe("every error of the contract's list, at its path", () => {
     expect(findLabel("reactions.1.stoichiometry.E")).toBe("Reaction 2, coefficient of E");
     expect(findLabel("spec.reactions.0.rate.reverse.orders.B")).toBe("Reaction 1, reverse order in B");
     expect(findLabel("constraints.minConversion")).toBe("Minimum conversion");
+  });
+
+  it("reads every problem of a badly broken spec as label and sentence, with no schema key in sight", () => {
+    const broken = [
+      {},
+      { feed: { volumetricFlow: "fast", concentrations: { A: -1 } }, phase: "solid", reactions: [{ stoichiometry: { A: "x" }, rate: { law: "magic" } }], keyReactant: "A", thermal: { mode: "hot" }, train: { maxStages: 2.5, candidates: [] }, objective: { maximise: "profit" }, constraints: { minConversion: "ninety" } },
+      variant(["objective", { minimise: "volume" }], ["constraints", { minYield: 0.5 }], ["keyReactant", "D"], ["reactions.0.rate", { law: "expression", expression: "kx * C_Q", parameters: { pi: 3 } }]),
+    ];
+    const sentences = broken.flatMap((spec) => networkSpecSchema.safeParse(spec).error!.issues.map((i) => `${labelFor(i.path.map(String))}: ${issueInWords(i)}`));
+    expect(sentences.length).toBeGreaterThan(20);
+    for (const sentence of sentences) {
+      expect(sentence, sentence).not.toMatch(/\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+|\bspec\b|undefined|expected/);
+    }
+    expect(sentences).toContain("Heat mode: required");
+    expect(sentences).toContain("Reaction 1, parameter pi: the name pi already stands for a mathematical constant; choose another");
   });
 });
 
