@@ -134,6 +134,12 @@ describe("every error of the contract's list, at its path", () => {
     ["an objective that neither maximises nor minimises", [["objective", { product: "B" }]], "objective.maximise"],
     ["a species name a rate expression could not spell", [["feed.concentrations.B-2", 0]], "feed.concentrations.B-2"],
     ["no phase", [["phase", undefined]], "phase"],
+    ["an objective that both maximises and minimises", [["objective", { maximise: "yield", minimise: "volume", product: "B" }]], "objective.minimise"],
+    ["a zero stage volume limit", [["constraints.maxStageVolume", "0 L"]], "constraints.maxStageVolume"],
+    ["a stage type named twice", [["train.types", ["PFR", "PFR"]]], "train.types"],
+    ["stage types beside listed trains", [["train", { candidates: [["PFR"]], types: ["CSTR"] }]], "train.types"],
+    ["an unknown stage type", [["train.types", ["CSTR", "batch"]]], "train.types.1"],
+    ["a reference temperature at or below 0 K", [["reactions.0.rate.referenceTemperature", "-5 K"]], "reactions.0.rate.referenceTemperature"],
   ])("%s", (_what, changes, path) => {
     const paths = issuePaths(variant(...changes));
     expect(paths).toContain(path);
