@@ -65,10 +65,15 @@ export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
   return fields;
 }
 
+/** "Label: message", unless the message already starts with its label (some schemas name it). */
+export function labelled(label: string, message: string): string {
+  return message.startsWith(`${label}:`) ? message : `${label}: ${message}`;
+}
+
 /** "Stage 1 volume: enter a number; Name: use at least 2 characters", labels from the one mapping. */
 export function fieldsInWords(fields: FieldErrors): string {
   return Object.entries(fields)
-    .map(([key, messages]) => `${labelFor(key)}: ${messages.join(" ")}`)
+    .map(([key, messages]) => labelled(labelFor(key), messages.join(" ")))
     .join("; ");
 }
 

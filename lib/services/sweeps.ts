@@ -4,7 +4,7 @@ import { type Database, withTransaction } from "@/db/client";
 import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema";
 import { designTrains, EngineError, type DesignSpec } from "@/lib/engine";
 import { assertCan, type Actor } from "@/lib/authz/policy";
-import { AppError, notFound } from "@/lib/errors";
+import { AppError, labelled, notFound } from "@/lib/errors";
 import { bossDbFor, queueFor } from "@/lib/jobs/boss";
 import { QUEUES, WAKE_CHANNEL, type SweepChunkPayload } from "@/lib/jobs/queues";
 import { designSpecSchema } from "@/lib/schemas/sweep-spec";
@@ -50,7 +50,7 @@ function checkScenarios(base: Record<string, unknown>, grid: GridAxis[], all: Ov
       const axis = grid.findIndex((a) => path === a.field || path.startsWith(`${a.field}.`) || a.field.startsWith(`${path}.`) || (issue.code === "unrecognized_keys" && a.field.startsWith(path)));
       const field = axis >= 0 ? `grid.${axis}.field` : fieldOfRequest(path, grid);
       const words = issueInWords(issue);
-      throw new AppError("bad_request", `${labelFor(field)}: ${words}`, { fields: { [field]: [words] } });
+      throw new AppError("bad_request", labelled(labelFor(field), words), { fields: { [field]: [words] } });
     }
   }
   try {

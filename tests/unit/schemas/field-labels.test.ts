@@ -102,3 +102,15 @@ describe("labels read as the form shows them", () => {
     expect(label).not.toMatch(/\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+/);
   });
 });
+
+describe("a message that names its field is not labelled twice", () => {
+  it("keeps one label before a schema's own sentence that starts with it", async () => {
+    const { designSpecSchema } = await import("@/lib/schemas/sweep-spec");
+    const { validationError } = await import("@/lib/errors");
+    const parsed = designSpecSchema.safeParse({ target: { conversion: "ninety" } });
+    expect(parsed.success).toBe(false);
+    const message = validationError(parsed.error!).message;
+    expect(message).toContain('Target conversion: cannot read "ninety"');
+    expect(message).not.toContain("Target conversion: Target conversion");
+  });
+});
