@@ -1,0 +1,113 @@
+import { ensure } from "../errors";
+import { newtonCstr } from "./cstr-newton";
+import type { Kinetics } from "./kinetics";
+import { kineticsOf, pfrOutlet } from "./pfr";
+import type { ResolvedNetwork } from "./resolve";
+import type { NetworkSteadyState } from "./types";
+
+/**
+ * Every steady state of a stirred tank: F_out - F_in - V R(C_out, T) = 0.
+ *
+ * Method: damped Newton (analytic Jacobian for power laws) from several starts — the feed itself (the
+ * state a tank starts from when filled with feed) and the compositions a tube fed with the same stream
+ * reaches at volumes from 1e-4 V to 1e4 V (factor 10^(1/3) apart), which run from "nothing has reacted"
+ * to "as far as the reactions go". States found are merged when their flows agree to 1e-7 of the flow in.
+ * Each state found satisfies the balances to 1e-10 of the total molar flow in.
+ *
+ * Guarantee: every state returned is a true steady state; that ALL states are found is not proven in
+ * general. It holds for the cases checked in tests/unit/engine/network/cstr-multiplicity.test.ts (three
+ * states of cubic autocatalysis and of substrate inhibition), because the tube's path crosses each basin
+ * of attraction of Newton's method there; a state whose basin the path misses would be missed.
+ *
+ * A species consumed by a reaction that would keep going at zero concentration (a zero order) and whose
+ * supply is less than that demand leaves at exactly zero: its balance then fixes the rate fraction at
+ * which those reactions run (cstr-newton.ts).
+ */
+export interface CstrOptions {
+  /** Field an error is reported against. @default "" */
+  path?: string;
+  /** Number of tube compositions used as starts besides the feed. @default 25 */
+  starts?: number;
+}
+
+const MERGE = 1e-7;
+
+/** Every steady state found, sorted by the key reactant's conversion, lowest first. */
+export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: ArrayLike<number>, T: number, V: number, options: CstrOptions = {}): NetworkSteadyState[] {
+  const kin = kineticsOf(network);
+  const net = kin.net;
+  const n = net.nSpecies;
+  const path = options.path ?? "";
+  ensure(V >= 0 && Number.isFinite(V), "a tank volume must be zero or more", path);
+  ensure(T > 0, "a stage temperature must be above absolute zero", path);
+  const Fin = Float64Array.from(FinLike);
+  let FTin = 0;
+  for (let i = 0; i < n; i++) FTin += Fin[i];
+  const conversion = (F: Float64Array) => 1 - F[net.key] / net.F0[net.key];
+  if (V === 0) return [{ flows: Fin, conversion: conversion(Fin), residual: 0 }];
+
+  const count = options.starts ?? 25;
+  const starts: Float64Array[] = [Fin];
+  if (count > 0) {
+    const half = (count - 1) / 2;
+    const volumes = Array.from({ length: count }, (_, k) => V * 10 ** (((k - half) / half) * 4));
+    try {
+      const tube = pfrOutlet(kin, Fin, T, volumes[volumes.length - 1], { outputVolumes: volumes, rtol: 1e-6, atolFraction: 1e-10, path });
+      for (const p of tube.profile) starts.push(p.flows);
+    } catch {
+      // A tube that cannot be integrated to 1e4 V only costs starts; the feed start remains.
+    }
+  }
+
+  const found: NetworkSteadyState[] = [];
+  for (const start of starts) {
+    const state = solveFrom(kin, Fin, T, V, start, FTin);
+    if (!state) continue;
+    const same = found.some((s) => {
+      for (let i = 0; i < n; i++) if (Math.abs(s.flows[i] - state.flows[i]) > MERGE * FTin) return false;
+      return true;
+    });
+    if (!same) found.push({ flows: state.flows, conversion: conversion(state.flows), residual: state.residual });
+  }
+  kin.weight.fill(1);
+  ensure(found.length > 0, "the stirred tank's balances could not be solved at this volume", path);
+  return found.sort((a, b) => a.conversion - b.conversion);
+}
+
+/**
+ * Newton from one start; when a species runs out under a reaction that does not slow down (Newton stalls
+ * with it at zero and its balance negative), it is declared limited and the solve repeated; a limited
+ * species whose rate fraction comes out at 1 or more was not limited after all and is released.
+ */
+function solveFrom(kin: Kinetics, Fin: Float64Array, T: number, V: number, start: Float64Array, FTin: number): { flows: Float64Array; residual: number } | null {
+  const net = kin.net;
+  const n = net.nSpecies;
+  const limited = new Set<number>();
+  let point: Float64Array = start;
+  let fractions: Float64Array = new Float64Array(n).fill(0.5);
+  for (let attempt = 0; attempt <= 2 * n; attempt++) {
+    const res = newtonCstr(kin, Fin, T, V, point, fractions, limited);
+    point = res.flows;
+    fractions = res.fractions;
+    if (res.converged) {
+      const release = [...limited].filter((i) => res.fractions[i] >= 1 || res.fractions[i] < 0);
+      if (release.length === 0) return { flows: res.flows, residual: res.residual };
+      for (const i of release) {
+        limited.delete(i);
+        fractions[i] = 0.5;
+      }
+      continue;
+    }
+    const add: number[] = [];
+    for (let i = 0; i < n; i++) {
+      if (limited.has(i) || net.depleting[i].length === 0) continue;
+      if (res.flows[i] <= 1e-12 * FTin && res.balances[i] < 0) add.push(i);
+    }
+    if (add.length === 0) return null;
+    for (const i of add) {
+      limited.add(i);
+      fractions[i] = 0.5;
+    }
+  }
+  return null;
+}
