@@ -12,7 +12,7 @@ import type { NetworkSteadyState } from "./types";
  * state a tank starts from when filled with feed) and the compositions a tube fed with the same stream
  * reaches at volumes from 1e-4 V to 1e4 V (factor 10^(1/3) apart), which run from "nothing has reacted"
  * to "as far as the reactions go". States found are merged when their flows agree to 1e-7 of the flow in.
- * Each state found satisfies the balances to 1e-10 of the total molar flow in.
+ * Each state found satisfies the balances to 1e-11 of the largest flow in them (cstr-newton.ts).
  *
  * Guarantee: every state returned is a true steady state; that ALL states are found is not proven in
  * general. It holds for the cases checked in tests/unit/engine/network/cstr-multiplicity.test.ts (three

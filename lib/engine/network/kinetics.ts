@@ -17,6 +17,8 @@ export interface Kinetics {
   concentrations(F: Float64Array, T: number, out: Float64Array): void;
   /** weight_j r_j (mol/(m3 s)). */
   rates(F: Float64Array, T: number, out: Float64Array): void;
+  /** weight_j times the gross rate of reaction j (forward plus reverse term, both positive), mol/(m3 s). */
+  grossRates(F: Float64Array, T: number, out: Float64Array): void;
   /** R_i = sum_j nu_ij r_j, mol/(m3 s). */
   production(F: Float64Array, T: number, out: Float64Array): void;
   /** J[i * n + k] = dR_i/dF_k, (1/m3): analytic for power laws, central differences for expressions. */
@@ -91,6 +93,10 @@ export function makeKinetics(net: ResolvedNetwork): Kinetics {
     rates(F, T, out) {
       concentrations(F, T, C);
       ratesAtC(T, out);
+    },
+    grossRates(F, T, out) {
+      concentrations(F, T, C);
+      for (let j = 0; j < m; j++) out[j] = weight[j] === 0 ? 0 : weight[j] * net.rates[j].gross(C, T);
     },
     production(F, T, out) {
       concentrations(F, T, C);

@@ -11,6 +11,8 @@ import type { NetworkExpressionRate, NetworkPowerRate } from "./types";
  */
 export interface CompiledRate {
   rate(C: Float64Array, T: number): number;
+  /** Forward plus reverse term, each taken positive (|r| for an expression): the size round-off scales with. */
+  gross(C: Float64Array, T: number): number;
   /** Writes dr/dC_m into out (length = species); null when the law has no analytic gradient. */
   gradient: ((C: Float64Array, T: number, out: Float64Array) => void) | null;
   /** Forward order by species (0 for an expression law: it is not known). */
@@ -125,6 +127,11 @@ export function compilePowerRate(spec: NetworkPowerRate, ctx: Context): Compiled
       const forward = kf === 0 ? 0 : kf * powerProduct(C, forwardOrders, fUsed);
       return kb === 0 ? forward : forward - kb * powerProduct(C, rOrders, rUsed);
     },
+    gross(C, T) {
+      constantsAt(T);
+      const forward = kf === 0 ? 0 : kf * powerProduct(C, forwardOrders, fUsed);
+      return kb === 0 ? forward : forward + kb * powerProduct(C, rOrders, rUsed);
+    },
     gradient(C, T, out) {
       constantsAt(T);
       out.fill(0);
@@ -180,13 +187,15 @@ export function compileExpressionRate(spec: NetworkExpressionRate, ctx: Context)
   });
   const code = node.compile();
   const scope = new Map<string, number>(Object.entries(parameters));
+  const rate = (C: Float64Array, T: number) => {
+    scope.set("T", T);
+    for (let i = 0; i < concNames.length; i++) scope.set(concNames[i], C[i] > 0 ? C[i] : 0);
+    const v = code.evaluate(scope);
+    return typeof v === "number" ? v : Number.NaN;
+  };
   return {
-    rate(C, T) {
-      scope.set("T", T);
-      for (let i = 0; i < concNames.length; i++) scope.set(concNames[i], C[i] > 0 ? C[i] : 0);
-      const v = code.evaluate(scope);
-      return typeof v === "number" ? v : Number.NaN;
-    },
+    rate,
+    gross: (C, T) => Math.abs(rate(C, T)),
     gradient: null,
     forwardOrders: new Float64Array(ctx.species.length),
     reverseOrders: null,

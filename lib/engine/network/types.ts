@@ -89,7 +89,10 @@ export interface NetworkSteadyState {
   flows: Float64Array;
   /** Conversion of the key reactant relative to the network's feed. */
   conversion: number;
-  /** Largest |F_out - F_in - V R(C_out)| over the species, relative to the total molar flow in. */
+  /**
+   * Largest |F_out - F_in - V R(C_out)| over the species, relative to the largest flow in the balances
+   * (the total flow in, or V |nu_ij| times a reaction's forward or reverse term when larger).
+   */
   residual: number;
 }
 
