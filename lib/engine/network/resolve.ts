@@ -68,7 +68,9 @@ export function resolveNetwork(spec: NetworkSpec): ResolvedNetwork {
   });
   const F0 = C0.map((c) => c * v0);
   const FT0 = F0.reduce((a, b) => a + b, 0);
-  ensure(FT0 > 0, "the feed must carry some material", "feed.concentrations");
+  const key = index.get(spec.keyReactant);
+  if (key === undefined) throw new EngineError("invalid-spec", `the key reactant "${spec.keyReactant}" is not in the feed`, "keyReactant");
+  ensure(C0[key] > 0, `the key reactant "${spec.keyReactant}" must be fed (its feed concentration is zero)`, `feed.concentrations.${spec.keyReactant}`);
   const scale = Math.max(...C0);
 
   const reactions = spec.reactions ?? [];
@@ -94,9 +96,6 @@ export function resolveNetwork(spec: NetworkSpec): ResolvedNetwork {
     throw new EngineError("invalid-spec", 'the rate law is "power" or "expression"', `reactions.${j}.rate.law`);
   });
 
-  const key = index.get(spec.keyReactant);
-  if (key === undefined) throw new EngineError("invalid-spec", `the key reactant "${spec.keyReactant}" is not in the feed`, "keyReactant");
-  ensure(C0[key] > 0, `the key reactant "${spec.keyReactant}" must be fed (its feed concentration is zero)`, `feed.concentrations.${spec.keyReactant}`);
   let consumed = false;
   for (let j = 0; j < m; j++) if (nu[key * m + j] < 0) consumed = true;
   ensure(consumed, `no reaction consumes the key reactant "${spec.keyReactant}"`, "keyReactant");
