@@ -2,6 +2,7 @@ import { ensure, EngineError } from "../errors";
 import { integrateStiff } from "../stiff-ode";
 import { makeKinetics, type Kinetics } from "./kinetics";
 import type { ResolvedNetwork } from "./resolve";
+import { makeHeldRates } from "./run-out";
 import type { PfrResult, ProfilePoint } from "./types";
 
 /**
@@ -10,9 +11,9 @@ import type { PfrResult, ProfilePoint } from "./types";
  *
  * A reaction whose rate does not vanish as something it consumes runs out (a zero order, or an
  * expression) is followed to the point where that species reaches zero, located on the integrator's
- * dense output; the species is then held at exactly zero and the reaction stops for the rest of the tube.
- * Limit: a species that runs out while another reaction still forms it stops its zero-order consumer
- * altogether (the consumer would in truth go on at the rate the species is formed).
+ * dense output. From there the species is held at exactly zero and those reactions run at the fraction
+ * of their rate that its formation by the other reactions can feed (run-out.ts), until formation
+ * outgrows them again, which releases it. Segments with a held species use difference Jacobians.
  */
 export interface PfrOptions {
   /** Volumes (ascending, within [0, V]) where the flows are wanted, m3. */
@@ -51,34 +52,37 @@ export function pfrOutlet(network: ResolvedNetwork | Kinetics, Fin: ArrayLike<nu
   let nextOut = 0;
   const product = options.stopAtMaxOf === undefined ? -1 : (net.index.get(options.stopAtMaxOf) ?? -2);
   if (product === -2) throw new EngineError("invalid-spec", `species "${options.stopAtMaxOf}" is not in the feed`, path);
+  const held = makeHeldRates(kin, T);
 
   const record = (v: number, y: Float64Array) => profile.push({ volume: v, residenceTime: v / net.v0, flows: Float64Array.from(y) });
   const growing = (y: Float64Array) => {
-    kin.production(y, T, R);
+    held.production(y, R);
     return R[product] >= 0;
   };
 
   let v = 0;
-  stopRunOut(kin, F, T, R);
+  held.holdRunOut(F);
   if (product >= 0 && !growing(F)) {
     while (nextOut < outputs.length && outputs[nextOut] === 0) record(0, F);
     return { volume: 0, flows: F, status: "stopped", profile };
   }
-  // Each pass runs to the end of the tube or to the point where a watched species runs out; there are
-  // at most as many passes as reactions that can stop.
-  for (let pass = 0; pass <= net.nReactions + 1; pass++) {
-    const watched = watchedSpecies(kin, F);
+  // Each pass runs to the end of the tube, to where a watched species runs out, or to where a held one
+  // is formed faster than it is consumed; each such point changes which species are held.
+  for (let pass = 0; pass <= 4 * n + 4; pass++) {
+    const watched = held.watched(F);
+    const holding = held.count() > 0;
     const stopWhen = (_t: number, y: Float64Array) => {
       for (const i of watched) if (y[i] < 0) return true;
+      if (holding && held.releaseDue(y)) return true;
       return product >= 0 && !growing(y);
     };
-    const res = integrateStiff((_t, y, dydt) => kin.production(y, T, dydt), F, v, V, {
+    const res = integrateStiff((_t, y, dydt) => held.production(y, dydt), F, v, V, {
       rtol,
       atol,
       autonomous: true,
-      jacobian: (_t, y, J) => jacobianRows(kin, y, T, J),
+      jacobian: holding ? undefined : (_t, y, J) => jacobianRows(kin, y, T, J),
       outputTimes: outputs.slice(nextOut),
-      stopWhen: watched.length > 0 || product >= 0 ? stopWhen : undefined,
+      stopWhen: watched.length > 0 || holding || product >= 0 ? stopWhen : undefined,
       subject: "the species balances along the tube",
       variable: "V",
       path,
@@ -89,14 +93,17 @@ export function pfrOutlet(network: ResolvedNetwork | Kinetics, Fin: ArrayLike<nu
     v = res.t;
     if (res.status === "ok") break;
     const ranOut = watched.filter((i) => F[i] < 0);
-    if (ranOut.length === 0) {
+    const released = holding && held.releaseDue(F);
+    if (ranOut.length === 0 && !released) {
       // The product's flow stopped growing first: its largest value along the tube is here.
       return { volume: v, flows: F, status: v < V ? "stopped" : "ok", profile };
     }
     for (const i of ranOut) F[i] = 0;
-    stopRunOut(kin, F, T, R);
+    if (released) held.release(F);
+    held.holdRunOut(F);
     if (v >= V) break;
   }
+  kin.weight.fill(1);
   while (nextOut < outputs.length) record(outputs[nextOut++], F);
   return { volume: V, flows: F, status: "ok", profile };
 }
@@ -105,36 +112,6 @@ export function pfrOutlet(network: ResolvedNetwork | Kinetics, Fin: ArrayLike<nu
 export function pfrOutletByResidenceTime(network: ResolvedNetwork | Kinetics, Fin: ArrayLike<number>, T: number, tau: number, options: PfrOptions = {}): PfrResult {
   const net = "weight" in network ? network.net : network;
   return pfrOutlet(network, Fin, T, tau * net.v0, options);
-}
-
-/** Species that can run out while a reaction consuming them keeps going. */
-function watchedSpecies(kin: Kinetics, F: Float64Array): number[] {
-  const out: number[] = [];
-  kin.net.depleting.forEach((list, i) => {
-    if (F[i] > 0 && list.some((j) => kin.weight[j] !== 0)) out.push(i);
-  });
-  return out;
-}
-
-/**
- * Stops the reactions that consume a species which is at zero (or below) and still being consumed on
- * balance; that species is set to exactly zero. Repeats, since stopping one reaction changes the balance
- * of others.
- */
-function stopRunOut(kin: Kinetics, F: Float64Array, T: number, R: Float64Array): void {
-  for (let round = 0; round < kin.net.nReactions; round++) {
-    kin.production(F, T, R);
-    let changed = false;
-    kin.net.depleting.forEach((list, i) => {
-      if (F[i] > 0 || R[i] >= 0) return;
-      const running = list.filter((j) => kin.weight[j] !== 0);
-      if (running.length === 0) return;
-      F[i] = 0;
-      for (const j of running) kin.weight[j] = 0;
-      changed = true;
-    });
-    if (!changed) return;
-  }
 }
 
 function jacobianRows(kin: Kinetics, y: Float64Array, T: number, J: number[][]): void {

@@ -55,4 +55,46 @@ describe("a zero-order reaction whose reactant runs out", () => {
     expect(rel(out[2] / two.v0, k0 * tauStar)).toBeLessThan(1e-8);
     expect(rel(out[1] / two.v0, 300 - k0 * tauStar)).toBeLessThan(1e-8);
   });
+
+  it("an intermediate consumed at zero order runs out, then is consumed as fast as it forms", () => {
+    // A -> B at k1 C_A, B -> C at a constant k0 while B lasts. With B > 0: C_A = C_A0 e^(-k1 tau),
+    // C_B = C_A0 (1 - e^(-k1 tau)) - k0 tau, C_C = k0 tau (linear ODEs, common practice). B runs out at
+    // tau1 where C_B = 0; from there on B stays at zero and all B formed goes on to C: C_C = C_A0 - C_A.
+    const CA0 = 100;
+    const k1 = 0.1;
+    const k0 = 5;
+    const net3 = resolveNetwork(
+      liquid({ A: CA0, B: 0, C: 0 }, [
+        { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: k1, orders: { A: 1 } } },
+        { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: k0, orders: {} } },
+      ]),
+    );
+    // tau1 by bisection on C_B(tau) = 0 between a point where B is positive and one where it is not
+    const cB = (tau: number) => CA0 * (1 - Math.exp(-k1 * tau)) - k0 * tau;
+    let lo = 1;
+    let hi = 100;
+    expect(cB(lo)).toBeGreaterThan(0);
+    expect(cB(hi)).toBeLessThan(0);
+    for (let q = 0; q < 200; q++) {
+      const mid = (lo + hi) / 2;
+      if (cB(mid) > 0) lo = mid;
+      else hi = mid;
+    }
+    const tau1 = lo;
+    const taus = [0.5 * tau1, 0.99 * tau1, 1.01 * tau1, 2 * tau1, 4 * tau1];
+    const res = pfrOutlet(net3, net3.F0, net3.T0, taus[4] * net3.v0, { outputVolumes: taus.map((t) => t * net3.v0) });
+    res.profile.forEach((p, q) => {
+      const t = taus[q];
+      const a = CA0 * Math.exp(-k1 * t);
+      const [fa, fb, fc] = Array.from(p.flows, (f) => f / net3.v0);
+      expect(Math.abs(fa - a)).toBeLessThan(1e-8 * CA0);
+      if (t < tau1) {
+        expect(Math.abs(fb - cB(t))).toBeLessThan(1e-8 * CA0);
+        expect(Math.abs(fc - k0 * t)).toBeLessThan(1e-8 * CA0);
+      } else {
+        expect(fb).toBe(0);
+        expect(Math.abs(fc - (CA0 - a))).toBeLessThan(1e-8 * CA0);
+      }
+    });
+  });
 });
