@@ -8,6 +8,11 @@ import type { Kinetics } from "./kinetics";
  * instead the fraction s (0..1) of their full rate at which the reactions that would keep consuming it
  * (cstr.ts, `depleting`) run, so that its balance closes with the supply: the stirred-tank form of "a
  * zero-order reaction stops when its reactant runs out".
+ *
+ * `known` deflates states already found (Farrell, Birkisson and Funke's deflation, SIAM J. Sci. Comput.
+ * 37, 2015): Newton is applied to M(F) G(F) with M = prod_k (1/|F - F_k|^2 + 1), which does not vanish at
+ * a known state, so Newton from the same start is driven to another state instead. The deflated step is
+ * the plain Newton step scaled by 1/(1 - grad(ln M) . step).
  */
 export interface NewtonResult {
   /** Outlet flows, mol/s. */
@@ -28,7 +33,16 @@ export interface NewtonResult {
 const TOL = 1e-13;
 const MAX_ITER = 80;
 
-export function newtonCstr(kin: Kinetics, Fin: Float64Array, T: number, V: number, start: Float64Array, fractions0: Float64Array, limited: ReadonlySet<number>): NewtonResult {
+export function newtonCstr(
+  kin: Kinetics,
+  Fin: Float64Array,
+  T: number,
+  V: number,
+  start: Float64Array,
+  fractions0: Float64Array,
+  limited: ReadonlySet<number>,
+  known: readonly Float64Array[] = [],
+): NewtonResult {
   const net = kin.net;
   const n = net.nSpecies;
   let FTin = 0;
@@ -73,6 +87,35 @@ export function newtonCstr(kin: Kinetics, Fin: Float64Array, T: number, V: numbe
     return norm / largest;
   };
 
+  // Deflation works in the unknowns, scaled: flows by the total flow in, rate fractions as they are.
+  const unit = (i: number) => (limited.has(i) ? 1 : FTin);
+  const knownZ = known.map((F) => Float64Array.from(F, (f, i) => (limited.has(i) ? 1 : f)));
+  const deflation = (zz: Float64Array): number => {
+    let M = 1;
+    for (const r of knownZ) {
+      let d2 = 0;
+      for (let i = 0; i < n; i++) d2 += ((zz[i] - r[i]) / unit(i)) ** 2;
+      M *= 1 / d2 + 1;
+    }
+    return M;
+  };
+  /** grad(ln M) . step */
+  const deflationSlope = (zz: Float64Array, step: Float64Array): number => {
+    let g = 0;
+    for (const r of knownZ) {
+      let d2 = 0;
+      let dot = 0;
+      for (let i = 0; i < n; i++) {
+        const e = (zz[i] - r[i]) / unit(i);
+        d2 += e * e;
+        dot += (e * step[i]) / unit(i);
+      }
+      // d ln(1/d2 + 1) = -(2/d2^2) / (1/d2 + 1) (e . step)
+      g += ((-2 / (d2 * d2)) / (1 / d2 + 1)) * dot;
+    }
+    return g;
+  };
+
   let norm = balances(z, G);
   let converged = norm <= TOL;
   for (let iter = 0; iter < MAX_ITER && !converged && Number.isFinite(norm); iter++) {
@@ -96,6 +139,17 @@ export function newtonCstr(kin: Kinetics, Fin: Float64Array, T: number, V: numbe
     if (!luFactor(A, n, pivots)) break;
     for (let i = 0; i < n; i++) delta[i] = -G[i];
     luSolve(A, n, pivots, delta);
+    if (knownZ.length > 0) {
+      const denominator = 1 - deflationSlope(z, delta);
+      if (!(Math.abs(denominator) > 1e-12)) break;
+      for (let i = 0; i < n; i++) delta[i] /= denominator;
+      // A deflated step can be huge where the deflation's slope nearly cancels; no balance needs a flow
+      // to move by more than the whole flow in within one step.
+      let size = 0;
+      for (let i = 0; i < n; i++) size = Math.max(size, Math.abs(delta[i]) / unit(i));
+      if (size > 1) for (let i = 0; i < n; i++) delta[i] /= size;
+    }
+    const merit = norm * deflation(z);
     // Backtracking on the largest scaled balance; flows are kept non-negative by projection.
     let alpha = 1;
     let accepted = false;
@@ -105,7 +159,7 @@ export function newtonCstr(kin: Kinetics, Fin: Float64Array, T: number, V: numbe
         trial[i] = limited.has(i) ? v : Math.max(v, 0);
       }
       const tn = balances(trial, Gtrial);
-      if (tn < (1 - 1e-4 * alpha) * norm || tn <= TOL) {
+      if (tn * deflation(trial) < (1 - 1e-4 * alpha) * merit || tn <= TOL) {
         z.set(trial);
         G.set(Gtrial);
         norm = tn;

@@ -11,7 +11,10 @@ import type { NetworkSteadyState } from "./types";
  * Method: damped Newton (analytic Jacobian for power laws) from several starts — the feed itself (the
  * state a tank starts from when filled with feed) and the compositions a tube fed with the same stream
  * reaches at volumes from 1e-4 V to 1e4 V (factor 10^(1/3) apart), which run from "nothing has reacted"
- * to "as far as the reactions go". States found are merged when their flows agree to 1e-7 of the flow in.
+ * to "as far as the reactions go" — then rounds until one finds nothing new: from points 1/12 ... 11/12 of
+ * the way between consecutive states found, by plain Newton and, when that lands on a known state, by
+ * deflated Newton (cstr-newton.ts); and from every other start again, deflated.
+ * States found are merged when their flows agree to 1e-7 of the flow in.
  * Each state found satisfies the balances to 1e-11 of the largest flow in them (cstr-newton.ts).
  *
  * Guarantee: every state returned is a true steady state; that ALL states are found is not proven in
@@ -31,6 +34,8 @@ export interface CstrOptions {
 }
 
 const MERGE = 1e-7;
+/** Fractions of the way between consecutive states tried as starts: an unstable state's basin can be narrow. */
+const BETWEEN = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11].map((q) => q / 12);
 
 /** Every steady state found, sorted by the key reactant's conversion, lowest first. */
 export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: ArrayLike<number>, T: number, V: number, options: CstrOptions = {}): NetworkSteadyState[] {
@@ -60,14 +65,31 @@ export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: A
   }
 
   const found: NetworkSteadyState[] = [];
-  for (const start of starts) {
-    const state = solveFrom(kin, Fin, T, V, start, FTin);
-    if (!state) continue;
+  const add = (state: { flows: Float64Array; residual: number } | null): boolean => {
+    if (!state) return false;
     const same = found.some((s) => {
       for (let i = 0; i < n; i++) if (Math.abs(s.flows[i] - state.flows[i]) > MERGE * FTin) return false;
       return true;
     });
     if (!same) found.push({ flows: state.flows, conversion: conversion(state.flows), residual: state.residual });
+    return !same;
+  };
+  for (const start of starts) add(solveFrom(kin, Fin, T, V, start, FTin, []));
+  // Further rounds: points between consecutive states found (an unstable state lies between two
+  // stable ones, often in a narrow basin), by plain Newton and, when that lands on a known state, by
+  // deflated Newton; and every other start again, deflated (plain Newton from them has been run).
+  for (let round = 0; round < 4 && count > 0; round++) {
+    const sorted = [...found].sort((a, b) => a.conversion - b.conversion);
+    const between = sorted.slice(1).flatMap((s, q) => BETWEEN.map((w) => s.flows.map((f, i) => w * f + (1 - w) * sorted[q].flows[i])));
+    let added = false;
+    for (const start of between) {
+      if (add(solveFrom(kin, Fin, T, V, start, FTin, []))) added = true;
+      else if (add(solveFrom(kin, Fin, T, V, start, FTin, found.map((s) => s.flows)))) added = true;
+    }
+    for (let q = 0; q < starts.length; q += 2) {
+      if (add(solveFrom(kin, Fin, T, V, starts[q], FTin, found.map((s) => s.flows)))) added = true;
+    }
+    if (!added) break;
   }
   kin.weight.fill(1);
   ensure(found.length > 0, "the stirred tank's balances could not be solved at this volume", path);
@@ -79,14 +101,22 @@ export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: A
  * with it at zero and its balance negative), it is declared limited and the solve repeated; a limited
  * species whose rate fraction comes out at 1 or more was not limited after all and is released.
  */
-function solveFrom(kin: Kinetics, Fin: Float64Array, T: number, V: number, start: Float64Array, FTin: number): { flows: Float64Array; residual: number } | null {
+function solveFrom(
+  kin: Kinetics,
+  Fin: Float64Array,
+  T: number,
+  V: number,
+  start: Float64Array,
+  FTin: number,
+  known: readonly Float64Array[],
+): { flows: Float64Array; residual: number } | null {
   const net = kin.net;
   const n = net.nSpecies;
   const limited = new Set<number>();
   let point: Float64Array = start;
   let fractions: Float64Array = new Float64Array(n).fill(0.5);
   for (let attempt = 0; attempt <= 2 * n; attempt++) {
-    const res = newtonCstr(kin, Fin, T, V, point, fractions, limited);
+    const res = newtonCstr(kin, Fin, T, V, point, fractions, limited, known);
     point = res.flows;
     fractions = res.fractions;
     if (res.converged) {

@@ -66,4 +66,47 @@ describe("stirred tanks with several steady states", () => {
     expect(states).toHaveLength(1);
     expect(Math.abs(f(states[0].conversion))).toBeLessThan(1e-12);
   });
+
+  it("finds as many states as the balance has roots, across the region of multiplicity (cubic autocatalysis)", () => {
+    // Roots of Da (1 - x)(beta + x)^2 = x counted independently by sign changes on a grid of 2e5 points.
+    let threeStates = 0;
+    for (const beta of [0.01, 0.05]) {
+      const net = resolveNetwork(
+        liquid({ A: 1000, B: 1000 * beta }, [{ stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 1e-8, orders: { A: 1, B: 2 } } }]),
+      );
+      for (let e = 0.3; e <= 1.3; e += 0.025) {
+        const da = 10 ** e;
+        const f = (x: number) => da * (1 - x) * (beta + x) ** 2 - x;
+        let roots = 0;
+        for (let q = 0; q < 200000; q++) if (Math.sign(f(q / 200000)) !== Math.sign(f((q + 1) / 200000))) roots++;
+        // Da = k tau C_A0^2 = 1e-8 * tau * 1e6
+        const states = cstrSteadyStates(net, net.F0, net.T0, (da / 0.01) * net.v0);
+        expect(states.length, `beta ${beta}, Da ${da}`).toBe(roots);
+        if (roots === 3) threeStates++;
+        for (const s of states) expect(Math.abs(f(s.conversion))).toBeLessThan(1e-9);
+      }
+    }
+    // the sweep does cross the region of three states, not only its edges
+    expect(threeStates).toBeGreaterThan(10);
+  });
+
+  it("finds as many states as the balance has roots, across the region of multiplicity (substrate inhibition)", () => {
+    // Roots of (C_A0 - C)(1 + C)^2 = k tau C counted independently by sign changes on a grid of 2e5 points.
+    let threeStates = 0;
+    for (const c0 of [20, 50]) {
+      const net = resolveNetwork(
+        liquid({ A: c0, P: 0 }, [{ stoichiometry: { A: -1, P: 1 }, rate: { law: "expression", expression: "k * C_A / (1 + K * C_A)^2", parameters: { k: 1, K: 1 } } }]),
+      );
+      for (let e = 1.6; e <= 2.8; e += 0.03) {
+        const tau = 10 ** e;
+        const f = (c: number) => (c0 - c) * (1 + c) ** 2 - tau * c;
+        let roots = 0;
+        for (let q = 0; q < 200000; q++) if (Math.sign(f((q / 200000) * c0)) !== Math.sign(f(((q + 1) / 200000) * c0))) roots++;
+        const states = cstrSteadyStates(net, net.F0, net.T0, tau * net.v0);
+        expect(states.length, `C_A0 ${c0}, tau ${tau}`).toBe(roots);
+        if (roots === 3) threeStates++;
+      }
+    }
+    expect(threeStates).toBeGreaterThan(10);
+  });
 });
