@@ -57,7 +57,7 @@ export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: A
     const half = (count - 1) / 2;
     const volumes = Array.from({ length: count }, (_, k) => V * 10 ** (((k - half) / half) * 4));
     try {
-      const tube = pfrOutlet(kin, Fin, T, volumes[volumes.length - 1], { outputVolumes: volumes, rtol: 1e-6, atolFraction: 1e-10, path });
+      const tube = pfrOutlet(kin, Fin, T, volumes[volumes.length - 1], { outputVolumes: volumes, rtol: 1e-4, atolFraction: 1e-8, path });
       for (const p of tube.profile) starts.push(p.flows);
     } catch {
       // A tube that cannot be integrated to 1e4 V only costs starts; the feed start remains.

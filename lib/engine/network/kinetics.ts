@@ -141,3 +141,9 @@ export function makeKinetics(net: ResolvedNetwork): Kinetics {
     },
   };
 }
+
+/** r_j (mol/(m3 s)) of every reaction at concentrations C (mol/m3, species order) and temperature T (K). */
+export function reactionRatesAt(net: ResolvedNetwork, C: ArrayLike<number>, T: number): Float64Array {
+  const c = Float64Array.from(C);
+  return Float64Array.from(net.rates, (law) => law.rate(c, T));
+}
