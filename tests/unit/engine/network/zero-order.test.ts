@@ -97,4 +97,19 @@ describe("a zero-order reaction whose reactant runs out", () => {
       }
     });
   });
+
+  it("the same constant rate written as an expression stops the same way, in tube and tank", () => {
+    const expr = resolveNetwork(
+      liquid({ A: 300, B: 10 }, [{ stoichiometry: { A: -1, B: 1 }, rate: { law: "expression", expression: "k0", parameters: { k0: "2 mol/(m^3*s)" } } }]),
+    );
+    const tube = pfrOutlet(expr, expr.F0, expr.T0, 3 * vStar, { outputVolumes: [0.5 * vStar, 2 * vStar] });
+    expect(rel(tube.profile[0].flows[0], expr.F0[0] - k * 0.5 * vStar)).toBeLessThan(1e-10);
+    expect(tube.profile[1].flows[0]).toBe(0);
+    expect(tube.flows[0]).toBe(0);
+    expect(rel(tube.flows[1], expr.F0[0] + expr.F0[1])).toBeLessThan(1e-10);
+    const tank = cstrSteadyStates(expr, expr.F0, expr.T0, 2 * vStar);
+    expect(tank).toHaveLength(1);
+    expect(tank[0].flows[0]).toBe(0);
+    expect(rel(tank[0].flows[1], expr.F0[0] + expr.F0[1])).toBeLessThan(1e-12);
+  });
 });
