@@ -23,8 +23,8 @@ import type { NetworkSteadyState } from "./types";
  * substrate inhibition written as an expression (C_A0 10..50, tau 3..3000, 450 tanks) the number of states
  * found equals the number of roots of the balance counted on a fine grid, without exception;
  * tests/unit/engine/network/cstr-multiplicity.test.ts keeps a part of that sweep. Without the deflation
- * rounds about 10% of the unstable middle states were missed. With `starts: 0` only the state reached
- * from the feed is sought (about 100 times cheaper).
+ * rounds about 10% of the unstable middle states were missed. With `starts: 0` only the state Newton
+ * reaches from the feed is sought (about 100 times cheaper).
  *
  * A species consumed by a reaction that would keep going at zero concentration (a zero order) and whose
  * supply is less than that demand leaves at exactly zero: its balance then fixes the rate fraction at
