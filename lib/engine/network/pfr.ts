@@ -104,6 +104,7 @@ export function pfrOutlet(network: ResolvedNetwork | Kinetics, Fin: ArrayLike<nu
     if (v >= V) break;
   }
   kin.weight.fill(1);
+  if (v < V) throw new EngineError("infeasible", `the species balances along the tube could not be followed past V = ${Number(v.toPrecision(4))} m3: species kept running out and forming again`, path);
   while (nextOut < outputs.length) record(outputs[nextOut++], F);
   return { volume: V, flows: F, status: "ok", profile };
 }

@@ -1,3 +1,4 @@
+import type { Quantity } from "../../../../lib/engine/types";
 import type { NetworkReaction, NetworkSpec } from "../../../../lib/engine/network/types";
 
 /** Relative difference. */
@@ -10,7 +11,7 @@ export function firstOrder(from: string, to: string, k: number): NetworkReaction
   return { stoichiometry: { [from]: -1, [to]: 1 }, rate: { law: "power", k, orders: { [from]: 1 } } };
 }
 
-/** A liquid network fed at v0 (m3/s) with the given concentrations (mol/m3). */
-export function liquid(concentrations: Record<string, number>, reactions: NetworkReaction[], keyReactant = "A", v0 = 1e-3): NetworkSpec {
+/** A liquid network fed at v0 (m3/s) with the given concentrations (mol/m3, or strings with units). */
+export function liquid(concentrations: Record<string, Quantity>, reactions: NetworkReaction[], keyReactant = "A", v0 = 1e-3): NetworkSpec {
   return { feed: { volumetricFlow: v0, concentrations }, phase: "liquid", reactions, keyReactant };
 }
