@@ -1,0 +1,177 @@
+/**
+ * The residence times of one stage sequence that give the best objective within the limits.
+ *
+ * Method
+ * 1. Variables: one residence time tau_s >= 0 per stage (tau = V / v0), searched as
+ *    x_s = ln(1 + tau_s / tauLo), so that zero is an ordinary point (a stage left out) and large and small
+ *    tanks get the same relative resolution. The total and per-stage volume limits are met by projection:
+ *    each tau is capped at the stage limit and, when the total exceeds its limit, all are scaled down
+ *    together. The minimum conversion and yield are met by an exact penalty (a large multiple of the
+ *    shortfall), then repaired exactly (step 4).
+ * 2. Coarse scan, from three families of starting designs, each evaluated exactly:
+ *    a. the best design of the sequence without its last stage (already optimised: sequences are treated
+ *       shortest first), followed by the last stage at every grid time, 0 included: the prefix's outlet is
+ *       computed once, and a tube's outlets at all grid times come from ONE integration;
+ *    b. a zero-volume first stage followed by the best design of the sequence without its first stage;
+ *    c. every stage at the same grid time.
+ *    For a single stage the scan is the whole grid. The grid is log-spaced, GRID_POINTS points from tauLo
+ *    to the largest time allowed (design.ts sets the range from the feed's rates and the limits).
+ * 3. Polish: Nelder–Mead (nelder-mead.ts) in x from the best POLISH_STARTS starting designs; the best
+ *    result is kept.
+ * 4. Repair and tidy: a design that misses the minimum conversion or yield by a little (the penalty's
+ *    kink) has all its times scaled up by bisection until it meets them; then each stage whose removal does
+ *    not worsen the objective is set to zero (of designs equally good, the least volume).
+ *
+ * Guarantee. By construction the result is at least as good as (a) and (b): by induction, at least as good
+ * as every design of every contiguous part of the sequence — in particular the best single stage of each
+ * type it contains — and as every equal split on the grid. That it is the global optimum is not proven;
+ * measured on the tests' cases (series reactions, Van de Vusse with five tanks, random series rate
+ * constants against random fixed splits) the polish from these starts lands on the best-known optimum to
+ * 1e-6 relative or better (tests/unit/engine/network/design*.test.ts).
+ */
+import type { StageType } from "../types";
+import { nelderMead } from "./nelder-mead";
+import { evaluateTrain, isFeasible, pfrOutletsAt, stageOutlet, trainOutlets, type DesignProblem, type Score, scoreOutlet } from "./train-eval";
+
+export const GRID_POINTS = 25;
+const POLISH_STARTS = 3;
+const PENALTY = 1e4;
+
+export interface SequenceDesign {
+  sequence: StageType[];
+  taus: number[];
+  score: Score;
+}
+
+const total = (taus: readonly number[]) => taus.reduce((a, b) => a + b, 0);
+
+/** True when design a is better than b: feasible first, then the larger objective, then the smaller volume. */
+export function better(a: SequenceDesign, b: SequenceDesign): boolean {
+  const fa = isFeasible(a.score);
+  const fb = isFeasible(b.score);
+  if (fa !== fb) return fa;
+  if (!fa && a.score.violation !== b.score.violation) return a.score.violation < b.score.violation;
+  if (a.score.value !== b.score.value) return a.score.value > b.score.value;
+  return total(a.taus) < total(b.taus);
+}
+
+export function scanGrid(p: DesignProblem): number[] {
+  const hi = Math.min(p.tauHi, p.maxStageTau, p.maxTotalTau);
+  const lo = Math.min(p.tauLo, hi);
+  const ratio = (hi / lo) ** (1 / (GRID_POINTS - 1));
+  return [0, ...Array.from({ length: GRID_POINTS }, (_, k) => (k === GRID_POINTS - 1 ? hi : lo * ratio ** k))];
+}
+
+/** Caps each time at the stage limit and scales all down when the total exceeds its limit. */
+export function project(p: DesignProblem, taus: number[]): number[] {
+  const capped = taus.map((t) => Math.min(Math.max(t, 0), p.maxStageTau));
+  const sum = total(capped);
+  return sum > p.maxTotalTau ? capped.map((t) => (t * p.maxTotalTau) / sum) : capped;
+}
+
+function design(p: DesignProblem, sequence: StageType[], taus: number[]): SequenceDesign {
+  const projected = project(p, taus);
+  return { sequence, taus: projected, score: evaluateTrain(p, sequence, projected) };
+}
+
+export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: Map<string, SequenceDesign>): SequenceDesign {
+  const key = sequence.join(" ");
+  const known = memo.get(key);
+  if (known) return known;
+  const grid = scanGrid(p);
+  const starts: SequenceDesign[] = [];
+  const n = sequence.length;
+
+  // (a) best prefix, then the last stage over the grid (one tube integration, or one tank per grid time).
+  const prefix = n > 1 ? optimiseSequence(p, sequence.slice(0, -1), memo).taus : [];
+  const Fprefix = n > 1 ? trainOutlets(p, sequence.slice(0, -1), prefix)[n - 2] : p.kin.net.F0;
+  const last = sequence[n - 1];
+  const lastOutlets = last === "PFR" ? pfrOutletsAt(p, Fprefix, grid) : grid.map((t) => stageOutlet(p, last, Fprefix, t));
+  grid.forEach((t, q) => {
+    const taus = [...prefix, t];
+    if (total(taus) > p.maxTotalTau * (1 + 1e-12)) return;
+    starts.push({ sequence, taus, score: scoreOutlet(p, lastOutlets[q], total(taus)) });
+  });
+  if (n > 1) {
+    // (b) the first stage left out, then the best design of the rest.
+    starts.push(design(p, sequence, [0, ...optimiseSequence(p, sequence.slice(1), memo).taus]));
+    // (c) equal splits.
+    for (const t of grid.slice(1)) starts.push(design(p, sequence, new Array<number>(n).fill(t)));
+  }
+
+  starts.sort((a, b) => (better(a, b) ? -1 : better(b, a) ? 1 : 0));
+  let best = starts[0];
+  const picked: SequenceDesign[] = [];
+  for (const s of starts) {
+    if (picked.length >= POLISH_STARTS) break;
+    if (picked.some((q) => q.taus.every((t, i) => Math.abs(t - s.taus[i]) <= 1e-9 * Math.max(t, 1e-300)))) continue;
+    picked.push(s);
+  }
+  for (const start of picked) {
+    const polished = polish(p, sequence, start);
+    if (better(polished, best)) best = polished;
+  }
+  best = tidy(p, repair(p, best));
+  memo.set(key, best);
+  return best;
+}
+
+function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign): SequenceDesign {
+  const lo = p.tauLo;
+  const cap = Math.min(p.tauHi, p.maxStageTau, p.maxTotalTau);
+  const toTaus = (x: readonly number[]) => project(p, x.map((v) => lo * Math.expm1(v)));
+  const merit = (s: Score, taus: readonly number[]) => {
+    const base = p.kind === "volume" ? Math.log(total(taus) / lo + 1e-300) : -s.value;
+    return base + PENALTY * s.violation;
+  };
+  const x0 = start.taus.map((t) => Math.log1p(t / lo));
+  const upper = x0.map(() => Math.log1p(cap / lo));
+  const res = nelderMead(
+    (x) => {
+      const taus = toTaus(x);
+      return merit(evaluateTrain(p, sequence, taus), taus);
+    },
+    x0,
+    { lower: x0.map(() => 0), upper, step: 0.1, maxEvaluations: 400 * sequence.length },
+  );
+  return design(p, sequence, toTaus(res.x));
+}
+
+/** A design short of the minimum conversion or yield by a little: scale its times up until it is not. */
+function repair(p: DesignProblem, d: SequenceDesign): SequenceDesign {
+  if (isFeasible(d.score) || total(d.taus) === 0) return d;
+  let lo = 1;
+  let hi = 1;
+  let found: SequenceDesign | null = null;
+  for (let k = 0; k < 20 && !found; k++) {
+    hi *= 1.5;
+    const trial = design(p, d.sequence, d.taus.map((t) => t * hi));
+    if (isFeasible(trial.score)) found = trial;
+    else lo = hi;
+    if (total(trial.taus) < total(d.taus) * hi * (1 - 1e-12)) break; // the volume limit stopped the scaling
+  }
+  if (!found) return d;
+  for (let k = 0; k < 60 && hi - lo > 1e-13 * hi; k++) {
+    const mid = 0.5 * (lo + hi);
+    const trial = design(p, d.sequence, d.taus.map((t) => t * mid));
+    if (isFeasible(trial.score)) {
+      hi = mid;
+      found = trial;
+    } else lo = mid;
+  }
+  return found;
+}
+
+/** Sets to zero each stage whose removal does not worsen the objective (ties go to the least volume). */
+function tidy(p: DesignProblem, d: SequenceDesign): SequenceDesign {
+  let best = d;
+  for (let s = 0; s < d.taus.length; s++) {
+    if (best.taus[s] === 0) continue;
+    const taus = [...best.taus];
+    taus[s] = 0;
+    const trial = design(p, d.sequence, taus);
+    const tolerance = 1e-12 * Math.max(Math.abs(best.score.value), 1e-300);
+    if (isFeasible(trial.score) === isFeasible(best.score) && trial.score.value >= best.score.value - tolerance && trial.score.violation <= best.score.violation) best = trial;
+  }
+  return best;
+}
