@@ -36,6 +36,8 @@ import { evaluateTrain, isFeasible, pfrOutletsAt, stageOutlet, trainOutlets, typ
 export const GRID_POINTS = 25;
 const POLISH_STARTS = 3;
 const PENALTY = 1e4;
+/** Tube tolerance of the reported design (pfr.ts's default). */
+export const REPORT_RTOL = 1e-9;
 
 export interface SequenceDesign {
   sequence: StageType[];
@@ -78,6 +80,15 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
   const key = sequence.join(" ");
   const known = memo.get(key);
   if (known) return known;
+  // Two tubes in a row at one temperature are one tube of their summed time: without a stage limit the
+  // sequence's best is its merged sequence's, the second tube left at zero (exact, and half the work).
+  const pair = Number.isFinite(p.maxStageTau) ? -1 : sequence.findIndex((t, i) => t === "PFR" && sequence[i + 1] === "PFR");
+  if (pair >= 0) {
+    const merged = optimiseSequence(p, [...sequence.slice(0, pair + 1), ...sequence.slice(pair + 2)], memo);
+    const result = design(p, sequence, [...merged.taus.slice(0, pair + 1), 0, ...merged.taus.slice(pair + 1)]);
+    memo.set(key, result);
+    return result;
+  }
   const grid = scanGrid(p);
   const starts: SequenceDesign[] = [];
   const n = sequence.length;
@@ -111,7 +122,8 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
     const polished = polish(p, sequence, start);
     if (better(polished, best)) best = polished;
   }
-  best = tidy(p, repair(p, best));
+  // The repair sets a limit exactly, so it integrates tubes at the tolerance the design is reported at.
+  best = tidy(p, repair({ ...p, searchRtol: REPORT_RTOL }, best));
   memo.set(key, best);
   return best;
 }
@@ -137,24 +149,39 @@ function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign):
   return design(p, sequence, toTaus(res.x));
 }
 
-/** A design short of the minimum conversion or yield by a little: scale its times up until it is not. */
+/**
+ * A design short of the minimum conversion or yield by a little (the penalty's kink) has all its times
+ * scaled up until it meets them; a least-volume design is scaled down to where it just meets them. The
+ * bisection brackets the scale between a design that misses the limits and one that meets them exactly.
+ */
 function repair(p: DesignProblem, d: SequenceDesign): SequenceDesign {
-  if (isFeasible(d.score) || total(d.taus) === 0) return d;
+  if (total(d.taus) === 0 || (p.minConversion === null && p.minYield === null)) return d;
+  const meets = (x: SequenceDesign) => x.score.violation === 0;
+  const scaled = (f: number) => design(p, d.sequence, d.taus.map((t) => t * f));
   let lo = 1;
   let hi = 1;
-  let found: SequenceDesign | null = null;
-  for (let k = 0; k < 20 && !found; k++) {
-    hi *= 1.5;
-    const trial = design(p, d.sequence, d.taus.map((t) => t * hi));
-    if (isFeasible(trial.score)) found = trial;
-    else lo = hi;
-    if (total(trial.taus) < total(d.taus) * hi * (1 - 1e-12)) break; // the volume limit stopped the scaling
-  }
-  if (!found) return d;
-  for (let k = 0; k < 60 && hi - lo > 1e-13 * hi; k++) {
+  let found: SequenceDesign | null = meets(d) ? d : null;
+  if (!found) {
+    for (let k = 0; k < 20 && !found; k++) {
+      hi *= 1.5;
+      const trial = scaled(hi);
+      if (meets(trial)) found = trial;
+      else lo = hi;
+      if (total(trial.taus) < total(d.taus) * hi * (1 - 1e-12)) break; // the volume limit stopped the scaling
+    }
+    if (!found) return d;
+  } else if (p.kind === "volume") {
+    for (let k = 0; k < 60; k++) {
+      lo *= 0.9;
+      if (!meets(scaled(lo))) break;
+      hi = lo;
+      found = scaled(hi);
+    }
+  } else return d;
+  for (let k = 0; k < 60 && hi - lo > 1e-14 * hi; k++) {
     const mid = 0.5 * (lo + hi);
-    const trial = design(p, d.sequence, d.taus.map((t) => t * mid));
-    if (isFeasible(trial.score)) {
+    const trial = scaled(mid);
+    if (meets(trial)) {
       hi = mid;
       found = trial;
     } else lo = mid;

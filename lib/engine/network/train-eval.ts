@@ -25,12 +25,14 @@ export interface DesignProblem {
   /** Residence-time scale of the scan: the smallest and largest grid value, s. */
   tauLo: number;
   tauHi: number;
+  /** Relative tolerance of tube integrations during the search (the reported design is re-run at 1e-9). */
+  searchRtol: number;
 }
 
 export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number): Float64Array {
   if (tau <= 0) return Fin;
   const V = tau * p.kin.net.v0;
-  if (type === "PFR") return pfrOutlet(p.kin, Fin, p.T, V).flows;
+  if (type === "PFR") return pfrOutlet(p.kin, Fin, p.T, V, { rtol: p.searchRtol }).flows;
   try {
     return cstrSteadyStates(p.kin, Fin, p.T, V, { starts: 0 })[0].flows;
   } catch {
@@ -43,7 +45,7 @@ export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array
 export function pfrOutletsAt(p: DesignProblem, Fin: Float64Array, taus: readonly number[]): Float64Array[] {
   const v0 = p.kin.net.v0;
   const positive = taus.filter((t) => t > 0);
-  const res = positive.length === 0 ? null : pfrOutlet(p.kin, Fin, p.T, positive[positive.length - 1] * v0, { outputVolumes: positive.map((t) => t * v0) });
+  const res = positive.length === 0 ? null : pfrOutlet(p.kin, Fin, p.T, positive[positive.length - 1] * v0, { outputVolumes: positive.map((t) => t * v0), rtol: p.searchRtol });
   let q = 0;
   return taus.map((t) => (t > 0 ? res!.profile[q++].flows : Fin));
 }
