@@ -12,7 +12,7 @@ export interface NelderMeadOptions {
   upper: readonly number[];
   /** Initial simplex edge, as a fraction of each box side. @default 0.05 */
   step?: number;
-  /** Stop when the simplex's values agree within this (absolute) and its points within xTolerance. @default 1e-13 */
+  /** Stop when the simplex's values agree within this (relative to 1 + |value|), or its points within xTolerance. @default 1e-13 */
   fTolerance?: number;
   /** @default 1e-9 */
   xTolerance?: number;
@@ -63,8 +63,10 @@ export function nelderMead(f: (x: readonly number[]) => number, x0: readonly num
       }
       let spread = 0;
       for (let i = 1; i <= n; i++) for (let d = 0; d < n; d++) spread = Math.max(spread, Math.abs(points[i][d] - points[0][d]));
-      if (Math.abs(values[n] - values[0]) <= fTol && spread <= xTol) break;
-      if (spread <= xTol * 1e-3) break;
+      // Values that agree end the search even when the points do not: a train has flat directions (a
+      // stage whose size does not matter, a projection onto the volume limit) along which points never meet.
+      if (Math.abs(values[n] - values[0]) <= fTol * (1 + Math.abs(values[0]))) break;
+      if (spread <= xTol) break;
       const centroid = new Array<number>(n).fill(0);
       for (let i = 0; i < n; i++) for (let d = 0; d < n; d++) centroid[d] += points[i][d] / n;
       const along = (t: number) => clamp(centroid.map((c, d) => c + t * (points[n][d] - c)));

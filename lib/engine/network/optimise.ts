@@ -144,7 +144,7 @@ function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign):
       return merit(evaluateTrain(p, sequence, taus), taus);
     },
     x0,
-    { lower: x0.map(() => 0), upper, step: 0.1, maxEvaluations: 400 * sequence.length },
+    { lower: x0.map(() => 0), upper, step: 0.1, maxEvaluations: 400 * sequence.length, fTolerance: 1e-11, xTolerance: 1e-8 },
   );
   return design(p, sequence, toTaus(res.x));
 }
