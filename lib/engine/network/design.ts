@@ -5,7 +5,7 @@ import { cstrSteadyStates } from "./cstr";
 import type { NetworkCandidate, NetworkDesignResult, NetworkDesignSpec, NetworkReferenceDesign, NetworkStageResult } from "./design-types";
 import { makeKinetics, type Kinetics } from "./kinetics";
 import { streamMeasures } from "./measures";
-import { better, optimiseSequence, type SequenceDesign } from "./optimise";
+import { better, GRID_POINTS, optimiseSequence, POLISH_STARTS, type SequenceDesign } from "./optimise";
 import { pfrOutlet } from "./pfr";
 import { resolveNetwork } from "./resolve";
 import { isFeasible, scoreOutlet, stageOutlet, type DesignProblem } from "./train-eval";
@@ -19,13 +19,22 @@ import { isFeasible, scoreOutlet, stageOutlet, type DesignProblem } from "./trai
  * @throws EngineError naming the field at fault; `constraints.maxTotalVolume` when the objective keeps
  * improving as the volume grows; `constraints.minConversion` / `constraints.minYield` when no train meets them.
  */
-export function designNetwork(spec: NetworkDesignSpec): NetworkDesignResult {
+export interface NetworkDesignOptions {
+  /** Tube tolerance during the search. @default 1e-7 */
+  searchRtol?: number;
+  /** Scan grid points per stage. @default 25 */
+  gridPoints?: number;
+  /** Designs polished per sequence. @default 3 */
+  polishStarts?: number;
+}
+
+export function designNetwork(spec: NetworkDesignSpec, options: NetworkDesignOptions = {}): NetworkDesignResult {
   const net = resolveNetwork(spec);
   if (net.temperatureBounds !== null) {
     throw new EngineError("invalid-spec", "stage temperatures chosen by the optimiser are not available yet; use isothermal stages", "thermal.mode");
   }
   const kin = makeKinetics(net);
-  const problem = makeProblem(spec, kin);
+  const problem = { ...makeProblem(spec, kin), ...definedOnly(options) };
   const sequences = sequencesOf(spec);
   const memo = new Map<string, SequenceDesign>();
   const designs = sequences.map((s) => optimiseSequence(problem, s, memo));
@@ -58,7 +67,7 @@ export function designNetwork(spec: NetworkDesignSpec): NetworkDesignResult {
   return { candidates: ranked, reference: { singleCSTR: reference("CSTR"), singlePFR: reference("PFR") } };
 }
 
-/** Tube tolerance during the search; measured: objectives within 1e-9 relative of a search at 1e-10. */
+/** Tube tolerance during the search (bench/network-design.bench.ts compares with a search at 1e-10). */
 const SEARCH_RTOL = 1e-7;
 const CONVERSION_SHORT = "does not reach the minimum conversion within the volume limits";
 const YIELD_SHORT = "reaches the minimum conversion but not the minimum yield within the volume limits";
@@ -113,6 +122,8 @@ function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProblem {
     tauLo: 1e-3 * tc,
     tauHi,
     searchRtol: SEARCH_RTOL,
+    gridPoints: GRID_POINTS,
+    polishStarts: POLISH_STARTS,
   };
 }
 
@@ -197,4 +208,8 @@ function trainFlows(p: DesignProblem, sequence: readonly StageType[], taus: read
     F = stageOutlet(p, type, F, taus[s]);
   });
   return F;
+}
+
+function definedOnly(options: NetworkDesignOptions): NetworkDesignOptions {
+  return Object.fromEntries(Object.entries(options).filter(([, v]) => v !== undefined));
 }

@@ -33,8 +33,9 @@ import type { StageType } from "../types";
 import { nelderMead } from "./nelder-mead";
 import { evaluateTrain, isFeasible, pfrOutletsAt, stageOutlet, trainOutlets, type DesignProblem, type Score, scoreOutlet } from "./train-eval";
 
+/** Defaults of the scan and the polish (DesignProblem carries the values used). */
 export const GRID_POINTS = 25;
-const POLISH_STARTS = 3;
+export const POLISH_STARTS = 3;
 const PENALTY = 1e4;
 /** Tube tolerance of the reported design (pfr.ts's default). */
 export const REPORT_RTOL = 1e-9;
@@ -60,8 +61,9 @@ export function better(a: SequenceDesign, b: SequenceDesign): boolean {
 export function scanGrid(p: DesignProblem): number[] {
   const hi = Math.min(p.tauHi, p.maxStageTau, p.maxTotalTau);
   const lo = Math.min(p.tauLo, hi);
-  const ratio = (hi / lo) ** (1 / (GRID_POINTS - 1));
-  return [0, ...Array.from({ length: GRID_POINTS }, (_, k) => (k === GRID_POINTS - 1 ? hi : lo * ratio ** k))];
+  const points = p.gridPoints;
+  const ratio = (hi / lo) ** (1 / (points - 1));
+  return [0, ...Array.from({ length: points }, (_, k) => (k === points - 1 ? hi : lo * ratio ** k))];
 }
 
 /** Caps each time at the stage limit and scales all down when the total exceeds its limit. */
@@ -114,7 +116,7 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
   let best = starts[0];
   const picked: SequenceDesign[] = [];
   for (const s of starts) {
-    if (picked.length >= POLISH_STARTS) break;
+    if (picked.length >= p.polishStarts) break;
     if (picked.some((q) => q.taus.every((t, i) => Math.abs(t - s.taus[i]) <= 1e-9 * Math.max(t, 1e-300)))) continue;
     picked.push(s);
   }

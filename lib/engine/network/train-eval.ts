@@ -27,6 +27,9 @@ export interface DesignProblem {
   tauHi: number;
   /** Relative tolerance of tube integrations during the search (the reported design is re-run at 1e-9). */
   searchRtol: number;
+  /** Points of the log-spaced scan grid (0 comes in addition) and designs polished per sequence. */
+  gridPoints: number;
+  polishStarts: number;
 }
 
 export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number): Float64Array {
