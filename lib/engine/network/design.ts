@@ -20,11 +20,11 @@ import { isFeasible, scoreOutlet, stageOutlet, type DesignProblem } from "./trai
  * improving as the volume grows; `constraints.minConversion` / `constraints.minYield` when no train meets them.
  */
 export interface NetworkDesignOptions {
-  /** Tube tolerance during the search. @default 1e-7 */
+  /** Tube tolerance during the search. @default 1e-6 */
   searchRtol?: number;
-  /** Scan grid points per stage. @default 25 */
+  /** Scan grid points per stage. @default 16 */
   gridPoints?: number;
-  /** Designs polished per sequence. @default 3 */
+  /** Designs polished per sequence. @default 1 */
   polishStarts?: number;
 }
 
@@ -68,7 +68,7 @@ export function designNetwork(spec: NetworkDesignSpec, options: NetworkDesignOpt
 }
 
 /** Tube tolerance during the search (bench/network-design.bench.ts compares with a search at 1e-10). */
-const SEARCH_RTOL = 1e-7;
+const SEARCH_RTOL = 1e-6;
 const CONVERSION_SHORT = "does not reach the minimum conversion within the volume limits";
 const YIELD_SHORT = "reaches the minimum conversion but not the minimum yield within the volume limits";
 

@@ -34,8 +34,8 @@ import { nelderMead } from "./nelder-mead";
 import { evaluateTrain, isFeasible, pfrOutletsAt, stageOutlet, trainOutlets, type DesignProblem, type Score, scoreOutlet } from "./train-eval";
 
 /** Defaults of the scan and the polish (DesignProblem carries the values used). */
-export const GRID_POINTS = 25;
-export const POLISH_STARTS = 3;
+export const GRID_POINTS = 16;
+export const POLISH_STARTS = 1;
 const PENALTY = 1e4;
 /** Tube tolerance of the reported design (pfr.ts's default). */
 export const REPORT_RTOL = 1e-9;

@@ -42,7 +42,7 @@ describe("network designer: Van de Vusse and properties", { timeout: 300000 }, (
           expect(best(s)).toBeGreaterThanOrEqual(fixed - 1e-9);
         }
       }),
-      { numRuns: 12 },
+      { numRuns: 30 },
     );
   });
 
