@@ -41,4 +41,17 @@ describe("network designer against closed forms", { timeout: 120000 }, () => {
     expect(rel(r.candidates[1].totalVolume!, (V0 * 9) / 0.02)).toBeLessThan(1e-8);
     expect(r.candidates[0].conversion!).toBeGreaterThanOrEqual(0.9 - 1e-12);
   });
+
+  it("selectivity at a minimum conversion: the tube stops exactly at it (Levenspiel, ch. 8, series closed form)", () => {
+    const [k1, k2] = [0.8, 0.3];
+    const r = designNetwork(seriesDesign(k1, k2, { maxStages: 2 }, { minConversion: 0.5 }, { maximise: "selectivity", product: "B" }));
+    // C_B/C_A0 = k1/(k2 - k1) (e^(-k1 tau) - e^(-k2 tau)) at e^(-k1 tau) = 0.5; S = Y/X
+    const tau = Math.log(2) / k1;
+    const tube = ((k1 / (k2 - k1)) * (Math.exp(-k1 * tau) - Math.exp(-k2 * tau))) / 0.5;
+    const best = r.candidates[0];
+    expect(best.stages.filter((s) => s.volume > 0).map((s) => s.type)).toEqual(["PFR"]);
+    expect(rel(best.objective!, tube)).toBeLessThan(1e-7);
+    expect(rel(best.conversion!, 0.5)).toBeLessThan(1e-7);
+    expect(rel(r.reference.singlePFR!.volume, tau * V0)).toBeLessThan(1e-6);
+  });
 });
