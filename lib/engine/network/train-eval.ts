@@ -32,8 +32,14 @@ export interface DesignProblem {
   polishStarts: number;
 }
 
+/**
+ * Below this fraction of the scan's smallest time a stage changes nothing measurable: it is taken as empty
+ * (a tube a few hundred orders of magnitude shorter than the chemistry cannot even be integrated).
+ */
+export const NEGLIGIBLE_TAU_FRACTION = 1e-12;
+
 export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number): Float64Array {
-  if (tau <= 0) return Fin;
+  if (tau <= NEGLIGIBLE_TAU_FRACTION * p.tauLo) return Fin;
   const V = tau * p.kin.net.v0;
   if (type === "PFR") return pfrOutlet(p.kin, Fin, p.T, V, { rtol: p.searchRtol }).flows;
   try {
