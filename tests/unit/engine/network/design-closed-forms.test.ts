@@ -54,4 +54,20 @@ describe("network designer against closed forms", { timeout: 120000 }, () => {
     expect(rel(best.conversion!, 0.5)).toBeLessThan(1e-7);
     expect(rel(r.reference.singlePFR!.volume, tau * V0)).toBeLessThan(1e-6);
   });
+
+  it("least volume of an expanding gas: A -> 2B with half inerts (Levenspiel, ch. 5, closed forms with eps_A = 0.5)", () => {
+    const r = designNetwork({
+      feed: { volumetricFlow: "100 L/s", concentrations: { A: 20, B: 0, N: 20 }, temperature: 600 },
+      phase: "gas",
+      reactions: [{ stoichiometry: { A: -1, B: 2 }, rate: { law: "power", k: 0.5, orders: { A: 1 } } }],
+      keyReactant: "A",
+      train: { maxStages: 1 },
+      objective: { minimise: "volume" },
+      constraints: { minConversion: 0.9 },
+    });
+    const [k, X, eps, v0] = [0.5, 0.9, 0.5, 0.1];
+    // tube: k tau = (1 + eps) ln(1/(1-X)) - eps X; tank: k tau = X (1 + eps X)/(1 - X)
+    expect(rel(r.reference.singlePFR!.volume, (v0 * ((1 + eps) * Math.log(1 / (1 - X)) - eps * X)) / k)).toBeLessThan(1e-8);
+    expect(rel(r.reference.singleCSTR!.volume, (v0 * X * (1 + eps * X)) / (1 - X) / k)).toBeLessThan(1e-8);
+  });
 });
