@@ -142,6 +142,16 @@ function sequencesOf(spec: NetworkDesignSpec): StageType[][] {
 
 /** The reported design: every tank re-solved with the full steady-state search (all states listed). */
 function report(p: DesignProblem, d: SequenceDesign, product: string | undefined): NetworkCandidate {
+  try {
+    return reportSolved(p, d, product);
+  } catch (err) {
+    if (!(err instanceof EngineError)) throw err;
+    const nulls = { objective: null, totalVolume: null, totalResidenceTime: null, conversion: null, yield: null, selectivity: null, outlet: null };
+    return { rank: 0, sequence: d.sequence, feasible: false, ...nulls, stages: [], reason: `no design of this train could be solved: ${err.message}` };
+  }
+}
+
+function reportSolved(p: DesignProblem, d: SequenceDesign, product: string | undefined): NetworkCandidate {
   const net = p.kin.net;
   const stages: NetworkStageResult[] = [];
   let F = net.F0;

@@ -38,9 +38,10 @@
  * Bounds: a stage at zero volume, at the stage volume limit, or a train at the total volume limit is
  * reported in the candidate's `onBound` (design.ts).
  */
+import { EngineError } from "../errors";
 import type { StageType } from "../types";
 import { nelderMead } from "./nelder-mead";
-import { evaluateTrain, isFeasible, NEGLIGIBLE_TAU_FRACTION, pfrOutletsAt, stageOutlet, trainOutlets, type DesignProblem, type Score, scoreOutlet } from "./train-eval";
+import { evaluateTrain, isFeasible, NEGLIGIBLE_TAU_FRACTION, pfrOutletsAt, stageOutlet, trainOutlets, type DesignProblem, type Score, scoreOutlet, UNSOLVED } from "./train-eval";
 
 /** Defaults of the scan and the polish (DesignProblem carries the values used). */
 export const GRID_POINTS = 16;
@@ -106,13 +107,22 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
 
   // (a) best prefix, then the last stage over the grid (one tube integration, or one tank per grid time).
   const prefix = n > 1 ? optimiseSequence(p, sequence.slice(0, -1), memo).taus : [];
-  const Fprefix = n > 1 ? trainOutlets(p, sequence.slice(0, -1), prefix)[n - 2] : p.kin.net.F0;
+  const solvable = (f: () => Float64Array) => {
+    try {
+      return f();
+    } catch (err) {
+      if (err instanceof EngineError) return null;
+      throw err;
+    }
+  };
+  const Fprefix = n > 1 ? solvable(() => trainOutlets(p, sequence.slice(0, -1), prefix)[n - 2]) : p.kin.net.F0;
   const last = sequence[n - 1];
-  const lastOutlets = last === "PFR" ? pfrOutletsAt(p, Fprefix, grid) : grid.map((t) => stageOutlet(p, last, Fprefix, t));
+  const tube = last === "PFR" && Fprefix !== null ? pfrOutletsOrNull(p, Fprefix, grid) : null;
   grid.forEach((t, q) => {
     const taus = [...prefix, t];
     if (total(taus) > p.maxTotalTau * (1 + 1e-12)) return;
-    starts.push({ sequence, taus, score: scoreOutlet(p, lastOutlets[q], total(taus)) });
+    const F = Fprefix === null ? null : last === "PFR" ? (tube?.[q] ?? null) : solvable(() => stageOutlet(p, last, Fprefix, t));
+    starts.push({ sequence, taus, score: F === null ? UNSOLVED : scoreOutlet(p, F, total(taus)) });
   });
   if (n > 1) {
     // (b) the first stage left out, then the best design of the rest.
@@ -137,6 +147,15 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
   best = tidy(p, repair({ ...p, searchRtol: REPORT_RTOL }, best));
   memo.set(key, best);
   return best;
+}
+
+function pfrOutletsOrNull(p: DesignProblem, Fin: Float64Array, grid: readonly number[]): Float64Array[] | null {
+  try {
+    return pfrOutletsAt(p, Fin, grid);
+  } catch (err) {
+    if (err instanceof EngineError) return null;
+    throw err;
+  }
 }
 
 function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign): SequenceDesign {

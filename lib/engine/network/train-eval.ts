@@ -1,3 +1,4 @@
+import { EngineError } from "../errors";
 import { cstrSteadyStates } from "./cstr";
 import type { Kinetics } from "./kinetics";
 import { pfrOutlet } from "./pfr";
@@ -99,7 +100,17 @@ export function trainOutlets(p: DesignProblem, sequence: readonly StageType[], t
   return out;
 }
 
+/** Score of a design whose stages could not be solved: worse than any design that could. */
+export const UNSOLVED: Score = { value: Number.NEGATIVE_INFINITY, violation: Number.POSITIVE_INFINITY, conversionShort: true, yieldShort: false };
+
 export function evaluateTrain(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[]): Score {
-  const outs = trainOutlets(p, sequence, taus);
-  return scoreOutlet(p, outs[outs.length - 1], taus.reduce((a, b) => a + b, 0));
+  try {
+    const outs = trainOutlets(p, sequence, taus);
+    return scoreOutlet(p, outs[outs.length - 1], taus.reduce((a, b) => a + b, 0));
+  } catch (err) {
+    // A tank whose balances cannot be solved at this size (or a tube that cannot be integrated) rules
+    // out this design, not the whole search.
+    if (err instanceof EngineError) return UNSOLVED;
+    throw err;
+  }
 }
