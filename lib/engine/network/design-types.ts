@@ -64,6 +64,8 @@ export interface NetworkCandidate {
 export interface NetworkReferenceDesign {
   objective: number;
   volume: number;
+  /** The stage's temperature, K, when the optimiser chooses it. */
+  temperature?: number;
 }
 
 export interface NetworkDesignResult {

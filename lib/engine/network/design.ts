@@ -15,7 +15,7 @@ import { isFeasible, scoreOutlet, stageOutlet, type DesignProblem } from "./trai
  * over the stage types (or the listed sequences), each at its best residence times (optimise.ts), ranked
  * best first; sequences that cannot meet the limits follow with `feasible: false` and their reason.
  *
- * Isothermal stages at the feed temperature only; a per-stage temperature is refused for now.
+ * Stages are isothermal at the feed temperature, or each at its own temperature within the bounds given.
  * @throws EngineError naming the field at fault; `constraints.maxTotalVolume` when the objective keeps
  * improving as the volume grows; `constraints.minConversion` / `constraints.minYield` when no train meets them.
  */
@@ -30,9 +30,6 @@ export interface NetworkDesignOptions {
 
 export function designNetwork(spec: NetworkDesignSpec, options: NetworkDesignOptions = {}): NetworkDesignResult {
   const net = resolveNetwork(spec);
-  if (net.temperatureBounds !== null) {
-    throw new EngineError("invalid-spec", "stage temperatures chosen by the optimiser are not available yet; use isothermal stages", "thermal.mode");
-  }
   const kin = makeKinetics(net);
   const problem = { ...makeProblem(spec, kin), ...definedOnly(options) };
   const sequences = sequencesOf(spec);
@@ -62,7 +59,8 @@ export function designNetwork(spec: NetworkDesignSpec, options: NetworkDesignOpt
   const ranked = [...feasible, ...candidates.filter((c) => !c.feasible)].map((c, i) => ({ ...c, rank: i + 1 }));
   const reference = (type: StageType): NetworkReferenceDesign | null => {
     const c = report(problem, optimiseSequence(problem, [type], memo), spec.objective.product);
-    return c.feasible ? { objective: c.objective!, volume: c.totalVolume! } : null;
+    if (!c.feasible) return null;
+    return { objective: c.objective!, volume: c.totalVolume!, ...(problem.temperatures ? { temperature: c.stages[0].temperature } : {}) };
   };
   return { candidates: ranked, reference: { singleCSTR: reference("CSTR"), singlePFR: reference("PFR") } };
 }
@@ -113,6 +111,7 @@ function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProblem {
   return {
     kin,
     T: net.T0,
+    temperatures: net.temperatureBounds,
     product,
     kind,
     minConversion: c.minConversion ?? null,
@@ -158,14 +157,15 @@ function reportSolved(p: DesignProblem, d: SequenceDesign, product: string | und
   d.sequence.forEach((type, s) => {
     const tau = d.taus[s];
     const V = tau * net.v0;
-    const stage: NetworkStageResult = { type, volume: V, residenceTime: tau, temperature: p.T, outlet: {} };
-    if (tau > 0 && type === "PFR") F = pfrOutlet(p.kin, F, p.T, V).flows;
+    const T = d.temps[s];
+    const stage: NetworkStageResult = { type, volume: V, residenceTime: tau, temperature: T, outlet: {} };
+    if (tau > 0 && type === "PFR") F = pfrOutlet(p.kin, F, T, V).flows;
     else if (tau > 0) {
-      const states = cstrSteadyStates(p.kin, F, p.T, V, { path: `stages.${s}` });
-      if (states.length > 1) stage.steadyStates = states.map((q) => ({ conversion: q.conversion, outlet: streamMeasures(p.kin, q.flows, p.T).outlet }));
+      const states = cstrSteadyStates(p.kin, F, T, V, { path: `stages.${s}` });
+      if (states.length > 1) stage.steadyStates = states.map((q) => ({ conversion: q.conversion, outlet: streamMeasures(p.kin, q.flows, T).outlet }));
       F = states[0].flows;
     }
-    stage.outlet = streamMeasures(p.kin, F, p.T).outlet;
+    stage.outlet = streamMeasures(p.kin, F, T).outlet;
     stages.push(stage);
   });
   const totalTau = d.taus.reduce((a, b) => a + b, 0);
@@ -174,11 +174,17 @@ function reportSolved(p: DesignProblem, d: SequenceDesign, product: string | und
   if (!isFeasible(score)) {
     return { ...base, feasible: false, objective: null, totalVolume: null, totalResidenceTime: null, conversion: null, yield: null, selectivity: null, outlet: null, stages: [], reason: score.conversionShort ? CONVERSION_SHORT : YIELD_SHORT };
   }
-  const m = streamMeasures(p.kin, F, p.T, product);
+  // Gas outlet concentrations are at the last stage's temperature.
+  const m = streamMeasures(p.kin, F, d.temps[d.temps.length - 1], product);
   const onBound: string[] = [];
   d.taus.forEach((t, s) => {
     if (t === 0) onBound.push(`stage ${s + 1}: zero volume`);
     else if (Math.abs(t - p.maxStageTau) <= 1e-9 * t) onBound.push(`stage ${s + 1}: largest stage volume`);
+    const b = p.temperatures;
+    if (t > 0 && b !== null && b.max > b.min) {
+      if (d.temps[s] - b.min <= 1e-6 * (b.max - b.min)) onBound.push(`stage ${s + 1}: lowest temperature`);
+      else if (b.max - d.temps[s] <= 1e-6 * (b.max - b.min)) onBound.push(`stage ${s + 1}: highest temperature`);
+    }
   });
   if (Math.abs(totalTau - p.maxTotalTau) <= 1e-9 * totalTau) onBound.push("largest total volume");
   return {
@@ -204,7 +210,7 @@ function checkBounded(p: DesignProblem, designs: SequenceDesign[]): void {
   const larger = designs.some((d) => {
     if (!isFeasible(d.score) || d.score.value < best.score.value - 1e-9 * Math.abs(best.score.value)) return false;
     const taus = d.taus.map((t) => t * 10);
-    const F = trainFlows(p, d.sequence, taus);
+    const F = trainFlows(p, d.sequence, taus, d.temps);
     return scoreOutlet(p, F, 0).value >= d.score.value - 1e-9 * Math.abs(d.score.value);
   });
   if (larger) {
@@ -212,10 +218,10 @@ function checkBounded(p: DesignProblem, designs: SequenceDesign[]): void {
   }
 }
 
-function trainFlows(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[]): Float64Array {
+function trainFlows(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[], temps: readonly number[]): Float64Array {
   let F = p.kin.net.F0;
   sequence.forEach((type, s) => {
-    F = stageOutlet(p, type, F, taus[s]);
+    F = stageOutlet(p, type, F, taus[s], temps[s]);
   });
   return F;
 }

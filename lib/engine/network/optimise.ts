@@ -54,8 +54,13 @@ export const REPORT_RTOL = 1e-9;
 export interface SequenceDesign {
   sequence: StageType[];
   taus: number[];
+  /** Each stage's temperature, K (all the feed's when isothermal). */
+  temps: number[];
   score: Score;
 }
+
+/** Temperatures tried per stage in the scan when the optimiser chooses them: the bounds and three between. */
+const TEMPERATURE_POINTS = 5;
 
 const total = (taus: readonly number[]) => taus.reduce((a, b) => a + b, 0);
 
@@ -84,9 +89,15 @@ export function project(p: DesignProblem, taus: number[]): number[] {
   return sum > p.maxTotalTau ? capped.map((t) => (t * p.maxTotalTau) / sum) : capped;
 }
 
-function design(p: DesignProblem, sequence: StageType[], taus: number[]): SequenceDesign {
+function design(p: DesignProblem, sequence: StageType[], taus: number[], temps: number[]): SequenceDesign {
   const projected = project(p, taus);
-  return { sequence, taus: projected, score: evaluateTrain(p, sequence, projected) };
+  return { sequence, taus: projected, temps, score: evaluateTrain(p, sequence, projected, temps) };
+}
+
+function temperatureGrid(p: DesignProblem): number[] {
+  const b = p.temperatures;
+  if (b === null) return [p.T];
+  return Array.from({ length: TEMPERATURE_POINTS }, (_, k) => b.min + ((b.max - b.min) * k) / (TEMPERATURE_POINTS - 1));
 }
 
 export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: Map<string, SequenceDesign>): SequenceDesign {
@@ -95,19 +106,23 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
   if (known) return known;
   // Two tubes in a row at one temperature are one tube of their summed time: without a stage limit the
   // sequence's best is its merged sequence's, the second tube left at zero (exact, and half the work).
-  const pair = Number.isFinite(p.maxStageTau) ? -1 : sequence.findIndex((t, i) => t === "PFR" && sequence[i + 1] === "PFR");
+  const pair = Number.isFinite(p.maxStageTau) || p.temperatures !== null ? -1 : sequence.findIndex((t, i) => t === "PFR" && sequence[i + 1] === "PFR");
   if (pair >= 0) {
     const merged = optimiseSequence(p, [...sequence.slice(0, pair + 1), ...sequence.slice(pair + 2)], memo);
-    const result = design(p, sequence, [...merged.taus.slice(0, pair + 1), 0, ...merged.taus.slice(pair + 1)]);
+    const at = (xs: number[], filler: number) => [...xs.slice(0, pair + 1), filler, ...xs.slice(pair + 1)];
+    const result = design(p, sequence, at(merged.taus, 0), at(merged.temps, merged.temps[pair]));
     memo.set(key, result);
     return result;
   }
   const grid = scanGrid(p);
+  const tGrid = temperatureGrid(p);
   const starts: SequenceDesign[] = [];
   const n = sequence.length;
 
   // (a) best prefix, then the last stage over the grid (one tube integration, or one tank per grid time).
-  const prefix = n > 1 ? optimiseSequence(p, sequence.slice(0, -1), memo).taus : [];
+  const prefixDesign = n > 1 ? optimiseSequence(p, sequence.slice(0, -1), memo) : null;
+  const prefix = prefixDesign?.taus ?? [];
+  const prefixTemps = prefixDesign?.temps ?? [];
   const solvable = (f: () => Float64Array) => {
     try {
       return f();
@@ -116,20 +131,23 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
       throw err;
     }
   };
-  const Fprefix = n > 1 ? solvable(() => trainOutlets(p, sequence.slice(0, -1), prefix)[n - 2]) : p.kin.net.F0;
+  const Fprefix = n > 1 ? solvable(() => trainOutlets(p, sequence.slice(0, -1), prefix, prefixTemps)[n - 2]) : p.kin.net.F0;
   const last = sequence[n - 1];
-  const tube = last === "PFR" && Fprefix !== null ? pfrOutletsOrNull(p, Fprefix, grid) : null;
-  grid.forEach((t, q) => {
-    const taus = [...prefix, t];
-    if (total(taus) > p.maxTotalTau * (1 + 1e-12)) return;
-    const F = Fprefix === null ? null : last === "PFR" ? (tube?.[q] ?? null) : solvable(() => stageOutlet(p, last, Fprefix, t));
-    starts.push({ sequence, taus, score: F === null ? UNSOLVED : scoreOutlet(p, F, total(taus)) });
-  });
+  for (const T of tGrid) {
+    const tube = last === "PFR" && Fprefix !== null ? pfrOutletsOrNull(p, Fprefix, grid, T) : null;
+    grid.forEach((t, q) => {
+      const taus = [...prefix, t];
+      if (total(taus) > p.maxTotalTau * (1 + 1e-12)) return;
+      const F = Fprefix === null ? null : last === "PFR" ? (tube?.[q] ?? null) : solvable(() => stageOutlet(p, last, Fprefix, t, T));
+      starts.push({ sequence, taus, temps: [...prefixTemps, T], score: F === null ? UNSOLVED : scoreOutlet(p, F, total(taus)) });
+    });
+  }
   if (n > 1) {
     // (b) the first stage left out, then the best design of the rest.
-    starts.push(design(p, sequence, [0, ...optimiseSequence(p, sequence.slice(1), memo).taus]));
-    // (c) equal splits.
-    for (const t of grid.slice(1)) starts.push(design(p, sequence, new Array<number>(n).fill(t)));
+    const suffix = optimiseSequence(p, sequence.slice(1), memo);
+    starts.push(design(p, sequence, [0, ...suffix.taus], [suffix.temps[0], ...suffix.temps]));
+    // (c) equal splits, all stages at one temperature.
+    for (const T of tGrid) for (const t of grid.slice(1)) starts.push(design(p, sequence, new Array<number>(n).fill(t), new Array<number>(n).fill(T)));
   }
 
   starts.sort((a, b) => (better(a, b) ? -1 : better(b, a) ? 1 : 0));
@@ -150,9 +168,9 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
   return best;
 }
 
-function pfrOutletsOrNull(p: DesignProblem, Fin: Float64Array, grid: readonly number[]): Float64Array[] | null {
+function pfrOutletsOrNull(p: DesignProblem, Fin: Float64Array, grid: readonly number[], T: number): Float64Array[] | null {
   try {
-    return pfrOutletsAt(p, Fin, grid);
+    return pfrOutletsAt(p, Fin, grid, T);
   } catch (err) {
     if (err instanceof EngineError) return null;
     throw err;
@@ -167,17 +185,29 @@ function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign):
     const base = p.kind === "volume" ? Math.log(total(taus) / lo + 1e-300) : -s.value;
     return base + PENALTY * s.violation;
   };
+  // With chosen temperatures, each stage's temperature is a further variable y in [0, 1] across the bounds.
+  const n = sequence.length;
+  const b = p.temperatures;
+  const toTemps = (x: readonly number[]) => (b === null ? start.temps : x.slice(n).map((y) => b.min + y * (b.max - b.min)));
   const x0 = start.taus.map((t) => Math.log1p(t / lo));
   const upper = x0.map(() => Math.log1p(cap / lo));
+  const lower = x0.map(() => 0);
+  if (b !== null) {
+    for (const T of start.temps) x0.push(b.max > b.min ? (T - b.min) / (b.max - b.min) : 0);
+    for (let s = 0; s < n; s++) {
+      lower.push(0);
+      upper.push(1);
+    }
+  }
   const res = nelderMead(
     (x) => {
-      const taus = toTaus(x);
-      return merit(evaluateTrain(p, sequence, taus), taus);
+      const taus = toTaus(x.slice(0, n));
+      return merit(evaluateTrain(p, sequence, taus, toTemps(x)), taus);
     },
     x0,
-    { lower: x0.map(() => 0), upper, step: 0.1, maxEvaluations: 400 * sequence.length, fTolerance: 1e-11, xTolerance: 1e-8 },
+    { lower, upper, step: 0.1, maxEvaluations: 400 * x0.length, fTolerance: 1e-11, xTolerance: 1e-8 },
   );
-  return design(p, sequence, toTaus(res.x));
+  return design(p, sequence, toTaus(res.x.slice(0, n)), toTemps(res.x));
 }
 
 /**
@@ -188,7 +218,7 @@ function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign):
 function repair(p: DesignProblem, d: SequenceDesign): SequenceDesign {
   if (total(d.taus) === 0 || (p.minConversion === null && p.minYield === null)) return d;
   const meets = (x: SequenceDesign) => x.score.violation === 0;
-  const scaled = (f: number) => design(p, d.sequence, d.taus.map((t) => t * f));
+  const scaled = (f: number) => design(p, d.sequence, d.taus.map((t) => t * f), d.temps);
   let lo = 1;
   let hi = 1;
   let found: SequenceDesign | null = meets(d) ? d : null;
@@ -227,7 +257,7 @@ function tidy(p: DesignProblem, d: SequenceDesign): SequenceDesign {
     if (best.taus[s] === 0) continue;
     const taus = [...best.taus];
     taus[s] = 0;
-    const trial = design(p, d.sequence, taus);
+    const trial = design(p, d.sequence, taus, d.temps);
     // Within the search's own accuracy (1e-9 relative, measured in the bench) a stage left empty is as good.
     const tolerance = 1e-9 * Math.max(Math.abs(best.score.value), 1e-300);
     if (isFeasible(trial.score) === isFeasible(best.score) && trial.score.value >= best.score.value - tolerance && trial.score.violation <= best.score.violation) best = trial;

@@ -14,7 +14,10 @@ import type { StageType } from "../types";
  */
 export interface DesignProblem {
   kin: Kinetics;
+  /** Temperature of isothermal stages (the feed's), K. */
   T: number;
+  /** Bounds of each stage's own temperature, K, when the optimiser chooses it; null when isothermal. */
+  temperatures: { min: number; max: number } | null;
   /** Index of the product, or -1. */
   product: number;
   kind: "yield" | "selectivity" | "volume";
@@ -39,23 +42,23 @@ export interface DesignProblem {
  */
 export const NEGLIGIBLE_TAU_FRACTION = 1e-12;
 
-export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number): Float64Array {
+export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number, T = p.T): Float64Array {
   if (tau <= NEGLIGIBLE_TAU_FRACTION * p.tauLo) return Fin;
   const V = tau * p.kin.net.v0;
-  if (type === "PFR") return pfrOutlet(p.kin, Fin, p.T, V, { rtol: p.searchRtol }).flows;
+  if (type === "PFR") return pfrOutlet(p.kin, Fin, T, V, { rtol: p.searchRtol }).flows;
   try {
-    return cstrSteadyStates(p.kin, Fin, p.T, V, { starts: 0 })[0].flows;
+    return cstrSteadyStates(p.kin, Fin, T, V, { starts: 0 })[0].flows;
   } catch {
     // Newton from the feed can fail for a large tank; the full search starts from a tube's compositions too.
-    return cstrSteadyStates(p.kin, Fin, p.T, V)[0].flows;
+    return cstrSteadyStates(p.kin, Fin, T, V)[0].flows;
   }
 }
 
 /** Outlets of a PFR fed with Fin at every residence time of `taus` (ascending), from one integration. */
-export function pfrOutletsAt(p: DesignProblem, Fin: Float64Array, taus: readonly number[]): Float64Array[] {
+export function pfrOutletsAt(p: DesignProblem, Fin: Float64Array, taus: readonly number[], T = p.T): Float64Array[] {
   const v0 = p.kin.net.v0;
   const positive = taus.filter((t) => t > 0);
-  const res = positive.length === 0 ? null : pfrOutlet(p.kin, Fin, p.T, positive[positive.length - 1] * v0, { outputVolumes: positive.map((t) => t * v0), rtol: p.searchRtol });
+  const res = positive.length === 0 ? null : pfrOutlet(p.kin, Fin, T, positive[positive.length - 1] * v0, { outputVolumes: positive.map((t) => t * v0), rtol: p.searchRtol });
   let q = 0;
   return taus.map((t) => (t > 0 ? res!.profile[q++].flows : Fin));
 }
@@ -90,11 +93,11 @@ export function isFeasible(s: Score): boolean {
 }
 
 /** Outlet flows after every stage of a train at residence times `taus`. */
-export function trainOutlets(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[]): Float64Array[] {
+export function trainOutlets(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[], temps?: readonly number[]): Float64Array[] {
   const out: Float64Array[] = [];
   let F = p.kin.net.F0;
   sequence.forEach((type, s) => {
-    F = stageOutlet(p, type, F, taus[s]);
+    F = stageOutlet(p, type, F, taus[s], temps?.[s] ?? p.T);
     out.push(F);
   });
   return out;
@@ -103,9 +106,9 @@ export function trainOutlets(p: DesignProblem, sequence: readonly StageType[], t
 /** Score of a design whose stages could not be solved: worse than any design that could. */
 export const UNSOLVED: Score = { value: Number.NEGATIVE_INFINITY, violation: Number.POSITIVE_INFINITY, conversionShort: true, yieldShort: false };
 
-export function evaluateTrain(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[]): Score {
+export function evaluateTrain(p: DesignProblem, sequence: readonly StageType[], taus: readonly number[], temps?: readonly number[]): Score {
   try {
-    const outs = trainOutlets(p, sequence, taus);
+    const outs = trainOutlets(p, sequence, taus, temps);
     return scoreOutlet(p, outs[outs.length - 1], taus.reduce((a, b) => a + b, 0));
   } catch (err) {
     // A tank whose balances cannot be solved at this size (or a tube that cannot be integrated) rules
