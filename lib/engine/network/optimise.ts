@@ -8,6 +8,9 @@
  *    each tau is capped at the stage limit and, when the total exceeds its limit, all are scaled down
  *    together. The minimum conversion and yield are met by an exact penalty (a large multiple of the
  *    shortfall), then repaired exactly (step 4).
+ *    When the optimiser chooses stage temperatures, each stage adds y_s in [0, 1] across the bounds; the
+ *    scan tries TEMPERATURE_POINTS temperatures per stage (both bounds among them) in (a) and (c), and two
+ *    tubes in a row are no longer merged (they may differ in temperature).
  * 2. Coarse scan, from three families of starting designs, each evaluated exactly:
  *    a. the best design of the sequence without its last stage (already optimised: sequences are treated
  *       shortest first), followed by the last stage at every grid time, 0 included: the prefix's outlet is
