@@ -5,7 +5,9 @@
  * penalty on a missed conversion, a tank's reactant running out), where a quasi-Newton method's
  * gradients mislead. Points outside the box are projected onto it. The search restarts from its own
  * result with a fresh simplex until a restart no longer improves, the usual remedy for the method's
- * occasional collapse onto a line.
+ * occasional collapse onto a line; while restarts keep improving the simplex keeps its size (up to 30
+ * restarts), which is what the 10 variables of five stages with their temperatures needed (measured: the
+ * best of the 62 sequences moved from 2.7e-4 to 3e-7 below the best found by a much longer search).
  */
 export interface NelderMeadOptions {
   lower: readonly number[];
@@ -43,7 +45,7 @@ export function nelderMead(f: (x: readonly number[]) => number, x0: readonly num
   let best = clamp([...x0]);
   let bestValue = evaluate(best);
   let step = options.step ?? 0.05;
-  for (let restart = 0; restart < 6 && evaluations < maxEvaluations; restart++) {
+  for (let restart = 0; restart < 30 && evaluations < maxEvaluations; restart++) {
     const points: number[][] = [best];
     for (let i = 0; i < n; i++) {
       const p = [...best];
@@ -107,7 +109,7 @@ export function nelderMead(f: (x: readonly number[]) => number, x0: readonly num
       bestValue = values[0];
     }
     if (!improved && restart > 0) break;
-    step = Math.max(step / 4, 1e-4);
+    step = improved ? step : Math.max(step / 4, 1e-4);
   }
   return { x: best, value: bestValue, evaluations };
 }
