@@ -60,8 +60,8 @@ const config = [
     },
   },
   { files: ["lib/engine/**"], rules: { "no-restricted-imports": restrict(ENGINE_PURE) } },
-  // The network models live one folder down and reach the engine's own files through "../", never further.
-  { files: ["lib/engine/network/**"], rules: { "no-restricted-imports": restrict({ ...ENGINE_PURE, group: [...ENGINE_PURE.group.filter((g) => g !== "../*"), "../../*"] }) } },
+  // The engine's subfolders may reach the engine's own files one level up, never out of the engine.
+  { files: ["lib/engine/*/**"], rules: { "no-restricted-imports": restrict({ ...ENGINE_PURE, group: [...ENGINE_PURE.group.filter((g) => g !== "../*"), "../../*"] }) } },
   { files: ["lib/**"], ignores: ["lib/engine/**", ...WEB_EDGE, ...SHARED_CLIENT], rules: { "no-restricted-imports": restrict(NO_SCREENS, NO_WEB, ENGINE_ENTRY) } },
   { files: [...WEB_EDGE, ...SHARED_CLIENT], rules: { "no-restricted-imports": restrict(NO_SCREENS, ENGINE_ENTRY) } },
   { files: ["db/**"], rules: { "no-restricted-imports": restrict(DB_BASE, NO_WEB) } },

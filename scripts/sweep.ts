@@ -4,7 +4,8 @@
  * `{ "error": "...", "path": "..." }` on the line of a spec that fails. Exit 1 if any failed.
  */
 import { readFileSync } from "node:fs";
-import { designTrains, EngineError, rateTrain } from "../lib/engine/index";
+import { designNetwork, designTrains, EngineError, rateTrain } from "../lib/engine/index";
+import { isNetworkSpec, networkSpecSchema } from "../lib/schemas/network-spec";
 import { designSpecSchema, ratingSpecSchema } from "../lib/schemas/sweep-spec";
 
 interface ErrorLine {
@@ -29,8 +30,15 @@ function runOne(file: string): { line: unknown; ok: boolean } {
   } catch (err) {
     return { line: fail(`cannot read ${file} as JSON: ${err instanceof Error ? err.message : String(err)}`, ""), ok: false };
   }
+  const isNetwork = isNetworkSpec(raw);
   const isRating = typeof raw === "object" && raw !== null && "stages" in raw && !("target" in raw);
   try {
+    if (isNetwork) {
+      // A spec with "reactions" (several reactions) follows the network contract; "reaction" keeps today's.
+      const parsed = networkSpecSchema.safeParse(raw);
+      if (!parsed.success) return { line: schemaError(parsed.error.issues), ok: false };
+      return { line: designNetwork(parsed.data), ok: true };
+    }
     if (isRating) {
       const parsed = ratingSpecSchema.safeParse(raw);
       if (!parsed.success) return { line: schemaError(parsed.error.issues), ok: false };

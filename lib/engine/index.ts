@@ -4,6 +4,8 @@
  */
 export { designTrains, type DesignOptions } from "./design";
 export { rateTrain } from "./rate-train";
+export { designNetwork } from "./network/design";
+export type * from "./network/design-types";
 export { EngineError, type EngineErrorCode } from "./errors";
 export { GAS_CONSTANT } from "./arrhenius";
 export { MAX_STAGES } from "./sequences";

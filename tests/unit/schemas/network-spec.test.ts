@@ -229,7 +229,10 @@ describe("expression names", () => {
 
 describe("telling a network spec from today's one-reaction spec", () => {
   const dir = join(process.cwd(), "tests/fixtures/specs");
-  const fixtures = readdirSync(dir).filter((f) => f.endsWith(".json"));
+  // Fixtures of several reactions are named network-*.json; every other one is today's contract.
+  const all = readdirSync(dir).filter((f) => f.endsWith(".json"));
+  const fixtures = all.filter((f) => !f.startsWith("network-"));
+  const networkFixtures = all.filter((f) => f.startsWith("network-"));
 
   it("finds today's fixtures", () => {
     expect(fixtures.length).toBeGreaterThanOrEqual(10);
@@ -240,6 +243,12 @@ describe("telling a network spec from today's one-reaction spec", () => {
     expect(isNetworkSpec(raw)).toBe(false);
     const isRating = typeof raw === "object" && raw !== null && "stages" in raw && !("target" in raw);
     expect((isRating ? ratingSpecSchema : designSpecSchema).safeParse(raw).success).toBe(true);
+  });
+
+  it.each(networkFixtures)("%s is a network spec and the network schema reads it", (file) => {
+    const raw: unknown = JSON.parse(readFileSync(join(dir, file), "utf8"));
+    expect(isNetworkSpec(raw)).toBe(true);
+    expect(networkSpecSchema.safeParse(raw).success).toBe(true);
   });
 
   it("says yes to a spec with reactions, and no to anything else", () => {
