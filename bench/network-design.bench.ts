@@ -8,21 +8,10 @@
  */
 import { designNetwork, type NetworkDesignOptions } from "../lib/engine/network/design";
 import type { NetworkDesignSpec } from "../lib/engine/network/design-types";
+import contractExample from "../tests/fixtures/specs/network-three-reactions.json";
 
-const example: NetworkDesignSpec = {
-  feed: { volumetricFlow: 0.1, concentrations: { A: 580, B: 0, C: 0, D: 0 }, temperature: 300 },
-  phase: "liquid",
-  reactions: [
-    { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 10, orders: { A: 1 } } },
-    { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: 1, orders: { B: 1 } } },
-    { stoichiometry: { A: -2, D: 1 }, rate: { law: "power", k: 5e-4, orders: { A: 2 } } },
-  ],
-  keyReactant: "A",
-  thermal: { mode: "isothermal" },
-  train: { maxStages: 5, types: ["CSTR", "PFR"] },
-  objective: { maximise: "yield", product: "B" },
-  constraints: { minConversion: 0.5, maxTotalVolume: 2.0 },
-};
+/** The command line's example (tests/fixtures/specs), widened to every sequence of 1..5 stages. */
+const example: NetworkDesignSpec = { ...(contractExample as unknown as NetworkDesignSpec), train: { maxStages: 5, types: ["CSTR", "PFR"] } };
 
 const vanDeVusse: NetworkDesignSpec = {
   feed: { volumetricFlow: 1e-3, concentrations: { A: 1000, B: 0, C: 0, D: 0 } },

@@ -7,22 +7,10 @@ import { issueInWords } from "@/lib/schemas/issue-words";
 import { expressionNames } from "@/lib/schemas/network-spec-checks";
 import { isNetworkSpec, networkSpecSchema, type NetworkSpecInput } from "@/lib/schemas/network-spec";
 import { designSpecSchema, ratingSpecSchema } from "@/lib/schemas/sweep-spec";
+import contractExample from "../../fixtures/specs/network-three-reactions.json";
 
-/** The contract's example in issue 13, word for word. */
-const CONTRACT: NetworkSpecInput = {
-  feed: { volumetricFlow: 0.1, concentrations: { A: 580, B: 0, C: 0, D: 0 }, temperature: 300 },
-  phase: "liquid",
-  reactions: [
-    { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 10, orders: { A: 1 } } },
-    { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: 1, orders: { B: 1 } } },
-    { stoichiometry: { A: -2, D: 1 }, rate: { law: "power", k: 5e-4, orders: { A: 2 } } },
-  ],
-  keyReactant: "A",
-  thermal: { mode: "isothermal" },
-  train: { maxStages: 3, types: ["CSTR", "PFR"] },
-  objective: { maximise: "yield", product: "B" },
-  constraints: { minConversion: 0.5, maxTotalVolume: 2.0 },
-};
+/** The contract's example in issue 13, word for word (the command line's fixture). */
+const CONTRACT = contractExample as unknown as NetworkSpecInput;
 
 type Change = [path: string, value: unknown];
 

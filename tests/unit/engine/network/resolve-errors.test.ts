@@ -2,18 +2,12 @@ import { describe, expect, it } from "vitest";
 import { EngineError } from "../../../../lib/engine/errors";
 import { resolveNetwork } from "../../../../lib/engine/network/resolve";
 import type { NetworkSpec } from "../../../../lib/engine/network/types";
+import contractExample from "../../../fixtures/specs/network-three-reactions.json";
 
+/** The contract's three-reaction example (the command line's fixture), a fresh copy each time. */
 function base(): NetworkSpec {
-  return {
-    feed: { volumetricFlow: 0.1, concentrations: { A: 580, B: 0, C: 0, D: 0 }, temperature: 300 },
-    phase: "liquid",
-    reactions: [
-      { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 10, orders: { A: 1 } } },
-      { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: 1, orders: { B: 1 } } },
-      { stoichiometry: { A: -2, D: 1 }, rate: { law: "power", k: 5e-4, orders: { A: 2 } } },
-    ],
-    keyReactant: "A",
-  };
+  const { feed, phase, reactions, keyReactant } = structuredClone(contractExample) as unknown as NetworkSpec;
+  return { feed, phase, reactions, keyReactant };
 }
 
 function failure(change: (s: NetworkSpec) => void): EngineError {
