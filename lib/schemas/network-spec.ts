@@ -1,4 +1,5 @@
 import { z } from "zod";
+import type { NetworkDesignSpec } from "@/lib/engine/network/design-types";
 import type { StageType } from "@/lib/engine";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { dimensionless } from "./dimensionless";
@@ -179,3 +180,8 @@ export function isNetworkSpec(value: unknown): boolean {
 
 // The pattern species names follow, for screens that check a name as it is typed.
 export { SPECIES_NAME };
+
+// Fails to compile when what the schema gives can no longer be handed to the engine's designer as it is.
+type Assignable<A, B> = [A] extends [B] ? true : false;
+const networkFitsEngine: Assignable<NetworkSpec, NetworkDesignSpec> = true;
+export const networkSchemaFitsEngine = networkFitsEngine;
