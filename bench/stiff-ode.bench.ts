@@ -11,6 +11,7 @@ import { LuDecomposition, Matrix } from "ml-matrix";
 import { Solver } from "odex";
 import { luFactor, luSolve } from "../lib/engine/small-lu";
 import { integrateStiff, type OdeFunction, type StiffOptions, type StiffResult } from "../lib/engine/stiff-ode";
+import { robertson, robertsonJacobian } from "../tests/helpers/stiff-problems";
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -30,20 +31,6 @@ function timeIt<T>(f: () => T, warm = 3, runs = 11): { ms: number; result: T } {
   return { ms: median(ts), result };
 }
 
-const robertson: OdeFunction = (_t, y, d) => {
-  d[0] = -0.04 * y[0] + 1e4 * y[1] * y[2];
-  d[2] = 3e7 * y[1] * y[1];
-  d[1] = -d[0] - d[2];
-};
-const robertsonJacobian = (_t: number, y: Float64Array, J: number[][]) => {
-  J[0][0] = -0.04;
-  J[0][1] = 1e4 * y[2];
-  J[0][2] = 1e4 * y[1];
-  J[1][0] = 0.04;
-  J[1][1] = -1e4 * y[2] - 6e7 * y[1];
-  J[1][2] = -1e4 * y[1];
-  J[2][1] = 6e7 * y[1];
-};
 // Reference values: Hairer & Wanner II at t = 40, the IVP test set (ROBER) at 1e11 (from memory);
 // at 1e5 and 4e10 a scipy Radau run at rtol 1e-12, atol 1e-20 made while writing this bench.
 const robertsonY1: Record<string, number> = { "40": 0.7158270687193267, "100000": 0.017865921142100359, "40000000000": 5.2083451767934872e-8, "100000000000": 0.2083340149701255e-7 };

@@ -6,22 +6,8 @@ import { EngineError } from "../../../lib/engine/errors";
 import { RODAS4 } from "../../../lib/engine/rosenbrock-tableau";
 import { integrateStiff, type OdeFunction } from "../../../lib/engine/stiff-ode";
 import { rel } from "./helpers";
+import { robertson, robertsonJacobian } from "../../helpers/stiff-problems";
 
-// Robertson's chemical kinetics problem, the classic stiff test (rate constants spanning 9 decades).
-const robertson: OdeFunction = (_t, y, d) => {
-  d[0] = -0.04 * y[0] + 1e4 * y[1] * y[2];
-  d[2] = 3e7 * y[1] * y[1];
-  d[1] = -d[0] - d[2];
-};
-const robertsonJacobian = (_t: number, y: Float64Array, J: number[][]) => {
-  J[0][0] = -0.04;
-  J[0][1] = 1e4 * y[2];
-  J[0][2] = 1e4 * y[1];
-  J[1][0] = 0.04;
-  J[1][1] = -1e4 * y[2] - 6e7 * y[1];
-  J[1][2] = -1e4 * y[1];
-  J[2][1] = 6e7 * y[1];
-};
 
 // A -> B -> C (first order, k1, k2) with the side reaction 2A -> D (rate k3 C_A^2, two A per event).
 function network(k1: number, k2: number, k3: number) {
