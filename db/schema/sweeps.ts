@@ -78,6 +78,16 @@ export const candidates = pgTable(
     installedCost: doublePrecision("installed_cost"),
     /** Probability that the fixed train meets the target under the sweep's uncertain inputs. */
     probabilityMeet: doublePrecision("probability_meet"),
+    /**
+     * Several reactions only: the key reactant's conversion, the wanted product's yield and selectivity at
+     * the train's outlet, the value ranked on (yield, selectivity or total volume), and where the optimum
+     * sits on a bound. Null for one-reaction sweeps and infeasible trains.
+     */
+    conversion: doublePrecision("conversion"),
+    yield: doublePrecision("yield"),
+    selectivity: doublePrecision("selectivity"),
+    objectiveValue: doublePrecision("objective_value"),
+    onBound: jsonb("on_bound").$type<string[] | null>(),
     /** Which inventory vessel equips which stage, and what is bought, when reuse was asked for. */
     inventoryPlan: jsonb("inventory_plan").$type<Record<string, unknown> | null>(),
     /** Stages without their plot data. */

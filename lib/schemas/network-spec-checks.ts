@@ -167,3 +167,18 @@ export function checkNetwork(spec: CheckedNetwork, ctx: z.RefinementCtx): void {
   if (spec.reactions.length > 0) checkKeyAndProduct(spec, say);
   checkObjectiveAndLimits(spec, say);
 }
+
+/** The chemistry a kinetics model of several reactions keeps: feed, reactions, key reactant and its wanted product. */
+export type CheckedNetworkKinetics = Pick<CheckedNetwork, "feed" | "reactions" | "keyReactant"> & { product?: string };
+
+/**
+ * The same checks for the chemistry alone (a kinetics model of several reactions): the wanted product,
+ * when named, is checked where the model keeps it (`product`) rather than in an objective.
+ */
+export function checkNetworkKinetics(spec: CheckedNetworkKinetics, ctx: z.RefinementCtx): void {
+  const say = (path: Path, message: string) => ctx.addIssue({ code: "custom", path: path[0] === "objective" ? ["product"] : path, message });
+  const asSpec: CheckedNetwork = { ...spec, thermal: { mode: "isothermal" }, objective: spec.product === undefined ? { minimise: "volume" } : { maximise: "yield", product: spec.product } };
+  checkSpeciesNames(asSpec, say);
+  checkNamedSpecies(asSpec, say);
+  if (spec.reactions.length > 0) checkKeyAndProduct(asSpec, say);
+}

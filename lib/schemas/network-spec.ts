@@ -3,7 +3,8 @@ import type { NetworkDesignSpec } from "@/lib/engine/network/design-types";
 import type { StageType } from "@/lib/engine";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { dimensionless } from "./dimensionless";
-import { checkNetwork, leadingNumber, SPECIES_NAME } from "./network-spec-checks";
+import { checkNetwork, checkNetworkKinetics, leadingNumber, SPECIES_NAME } from "./network-spec-checks";
+import { shownUnitsSchema } from "./shown-units";
 import { quantity } from "./sweep-spec";
 import { keyText, multilineText } from "./text";
 
@@ -154,12 +155,15 @@ const constraints = z.strictObject({
   maxStageVolume: quantityField("positive", "500 L").optional(),
 });
 
+const phase = z.enum(["liquid", "gas"], { error: "choose liquid or gas" });
+const reactions = z.array(reaction).min(1, "give at least one reaction").max(MAX_NETWORK_REACTIONS, `give at most ${MAX_NETWORK_REACTIONS} reactions`);
+
 /** The network spec: feed, phase, reactions, key reactant, heat mode, trains, objective and limits. */
 export const networkSpecSchema = z
   .strictObject({
     feed,
-    phase: z.enum(["liquid", "gas"], { error: "choose liquid or gas" }),
-    reactions: z.array(reaction).min(1, "give at least one reaction").max(MAX_NETWORK_REACTIONS, `give at most ${MAX_NETWORK_REACTIONS} reactions`),
+    phase,
+    reactions,
     keyReactant: speciesKey,
     thermal,
     train,
@@ -167,6 +171,28 @@ export const networkSpecSchema = z
     constraints: constraints.optional(),
   })
   .superRefine(checkNetwork);
+
+/** The parts a web form or request reuses (kinetics models of several reactions, sweeps of them). */
+export const networkParts = { feed, phase, reactions, keyReactant: speciesKey, thermal, train, objective, constraints };
+
+/**
+ * The chemistry of a kinetics model of several reactions, as a version stores it: the feed, the phase, the
+ * reactions, the key reactant, optionally the wanted product (for the path and selectivity charts and as
+ * the sweep's default product) and the units the engineer typed in. A sweep adds heat mode, trains,
+ * objective and limits to make the engine's spec.
+ */
+export const networkKineticsSpecSchema = z
+  .strictObject({
+    feed,
+    phase,
+    reactions,
+    keyReactant: speciesKey,
+    product: speciesKey.optional(),
+    shownUnits: shownUnitsSchema.optional(),
+  })
+  .superRefine(checkNetworkKinetics);
+export type NetworkKineticsSpec = z.output<typeof networkKineticsSpecSchema>;
+export type NetworkKineticsSpecInput = z.input<typeof networkKineticsSpecSchema>;
 
 /** The spec as written in a file or a request (quantities as numbers or strings, defaults not filled in). */
 export type NetworkSpecInput = z.input<typeof networkSpecSchema>;

@@ -5,18 +5,9 @@ import { sweepCostingSchema } from "./costs";
 import { sweepRobustnessSchema } from "./robustness";
 import { multilineText, text } from "./text";
 import { SORT_KEYS } from "@/lib/sweeps/sort-keys";
+import { shownUnitsSchema } from "./shown-units";
 
 const spec = designSpecSchema.shape;
-
-/**
- * The unit the engineer picked for each field, by the field's place in the spec ("feed.flowA" →
- * "kmol/h"; a rate constant's "mol/L|h" is its concentration and time basis). The numbers stay
- * SI; this only lets the model reopen in the units it was typed in. Older models have none.
- */
-const shownUnitsSchema = z.record(
-  text().max(80, "Use at most 80 characters").regex(/^[A-Za-z_]\w*(\.[A-Za-z_]\w*)+$/, "Each shown unit belongs to a field of the model, e.g. feed.flowA"),
-  text().min(1, "Name the unit").max(40, "Use at most 40 characters"),
-);
 
 /** The chemistry of a kinetics version: what the engine calls feed and reaction, and the units shown. */
 export const kineticsSpecSchema = z.strictObject({ feed: spec.feed, reaction: spec.reaction, shownUnits: shownUnitsSchema.optional() });

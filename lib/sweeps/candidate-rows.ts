@@ -14,6 +14,12 @@ export function candidateRows(sweepId: string, scenarioId: string, result: Desig
     totalCost: c.totalCost,
     ratioToPfr: c.totalVolume !== null && pfr ? c.totalVolume / pfr : null,
     reason: c.reason,
+    // Measures of the network kind only (lib/sweeps/network-candidate-rows.ts).
+    conversion: null,
+    yield: null,
+    selectivity: null,
+    objectiveValue: null,
+    onBound: null,
     stages: c.stages.map(({ levenspiel: _plot, ...stage }) => stage as unknown as Record<string, unknown>),
     levenspiel: c.stages.map((s) => s.levenspiel),
   }));

@@ -4,7 +4,7 @@
  * return, and the screens' views derived from it (lib/services/views.ts), say what is really there.
  * Types only.
  */
-import type { DesignSpec, ReferenceResult, StageResult, StageType } from "@/lib/engine";
+import type { DesignSpec, NetworkDesignSpec, NetworkObjective, NetworkReferenceDesign, NetworkStageResult, ReferenceResult, StageResult, StageType } from "@/lib/engine";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { SweepCosting } from "@/lib/schemas/costs";
 
@@ -38,6 +38,43 @@ export type PinnedCandidate = {
   probabilityMeet?: number | null;
   stages: StageResult[];
   scenario: { index: number; overrides: Record<string, number>; reference: ScenarioReference | null };
+  sweep: { id: string; name: string };
+};
+
+/* Several reactions (a kinetics model of the network kind). */
+
+/** A stage of a network candidate as stored: type, volume, residence time, temperature, outlet composition, steady states. */
+export type StoredNetworkStage = NetworkStageResult;
+
+/** A network scenario's single-stage references and what it ranked by, as the worker stores them. */
+export interface NetworkScenarioReference {
+  kind: "network";
+  singleCSTR: NetworkReferenceDesign | null;
+  singlePFR: NetworkReferenceDesign | null;
+  objective: NetworkObjective;
+  feedVolumetricFlow: number;
+}
+
+/** The spec every scenario of a network sweep starts from: the model's chemistry with heat mode, trains, objective and limits. */
+export type StoredNetworkSweepSpec = NetworkDesignSpec;
+
+/** The frozen copy of a network candidate a pinned design keeps (its profiles are recomputed from the stages). */
+export type PinnedNetworkCandidate = {
+  kind: "network";
+  rank: number;
+  sequence: StageType[];
+  feasible: boolean;
+  totalVolume: number | null;
+  totalResidenceTime: number | null;
+  conversion: number | null;
+  yield: number | null;
+  selectivity: number | null;
+  objective: number | null;
+  outlet: Record<string, number> | null;
+  onBound: string[];
+  probabilityMeet?: number | null;
+  stages: StoredNetworkStage[];
+  scenario: { index: number; overrides: Record<string, number>; reference: NetworkScenarioReference | null };
   sweep: { id: string; name: string };
 };
 
