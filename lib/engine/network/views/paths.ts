@@ -1,10 +1,10 @@
-import { EngineError, ensure } from "../../errors";
-import { cstrSteadyStates } from "../cstr";
+import { ensure } from "../../errors";
 import type { Kinetics } from "../kinetics";
 import { pfrOutlet } from "../pfr";
 import { chemistryTimeScale } from "../time-scale";
 import type { NetworkSpec } from "../types";
 import { concentrationRecord, kineticsFor, productIndex } from "./common";
+import { tankLocus } from "./tank-locus";
 import type { NetworkPaths, NetworkPathsOptions, PathPoint } from "./types";
 
 /**
@@ -15,9 +15,9 @@ import type { NetworkPaths, NetworkPathsOptions, PathPoint } from "./types";
  * The grid runs from 1e-3 of the chemistry's time scale (time-scale.ts) to where the single tube has used
  * ~99.9 % of the key reactant, or where its composition stops changing (an equilibrium), capped at 1e4
  * time scales or options.maxResidenceTime. That end is found by a coarse tube integration (rtol 1e-6,
- * 200 points); the reported tube is one integration at the engine's normal tolerance. Tanks are solved
- * with the full steady-state search (all states, lowest conversion first); a size whose balances cannot
- * be solved is left out rather than failing the whole view.
+ * 200 points); the reported tube is one integration at the engine's normal tolerance. Tanks list every
+ * steady state found (lowest conversion first; tank-locus.ts); a size whose balances cannot be solved is
+ * left out rather than failing the whole view.
  * @throws EngineError naming the chemistry's field at fault, or "product" for a wanted product not in the feed.
  */
 export function networkPaths(chemistry: NetworkSpec, product?: string, options: NetworkPathsOptions = {}): NetworkPaths {
@@ -40,14 +40,8 @@ export function networkPaths(chemistry: NetworkSpec, product?: string, options: 
   const tubePoints = [point(net.F0, 0), ...tube.profile.map((q, i) => point(q.flows, grid[i]))];
 
   const tanks: PathPoint[] = [];
-  for (const tau of grid) {
-    try {
-      cstrSteadyStates(kin, net.F0, T, tau * v0).forEach((s, i) => tanks.push(point(s.flows, tau, i)));
-    } catch (err) {
-      // One size the tank's balances cannot be solved at leaves a gap in the locus, not an empty chart.
-      if (!(err instanceof EngineError)) throw err;
-    }
-  }
+  const flows = tube.profile.map((q) => q.flows);
+  tankLocus(kin, T, grid, flows, flows[flows.length - 1]).forEach((states, i) => states?.forEach((s, k) => tanks.push(point(s.flows, grid[i], k))));
   return { key: net.species[net.key], product: p >= 0 ? net.species[p] : null, tube: tubePoints, tanks, residenceTimes: { from, to } };
 }
 

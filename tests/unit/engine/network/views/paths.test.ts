@@ -160,6 +160,38 @@ describe("cubic autocatalysis A + 2B -> 3B with a little B fed: every steady sta
   });
 });
 
+describe("substrate inhibition r = k C_A/(1 + K C_A)^2 written as an expression: every steady state of every tank", () => {
+  // k = 1 1/s, K = 1 m3/mol, C_A0 = 20 mol/m3
+  const spec = liquid({ A: 20, P: 0 }, [
+    { stoichiometry: { A: -1, P: 1 }, rate: { law: "expression", expression: "k * C_A / (1 + K * C_A)^2", parameters: { k: 1, K: "1 m^3/mol" } } },
+  ]);
+  // the tank balance (C_A0 - C)(1 + C)^2 = k t C, common practice for a stirred tank
+  const balance = (c: number, t: number) => (20 - c) * (1 + c) ** 2 - t * c;
+  const rootsAt = (t: number) => {
+    let count = 0;
+    const n = 200000;
+    for (let i = 0; i < n; i++) if (Math.sign(balance((20 * i) / n, t)) !== Math.sign(balance((20 * (i + 1)) / n, t))) count++;
+    return count;
+  };
+
+  it("lists as many states at each size as the balance has roots, each a root", () => {
+    const paths = networkPaths(spec, "P");
+    const sizes = [...new Set(paths.tanks.map((q) => q.residenceTime))];
+    expect(sizes.length).toBe(80);
+    let several = 0;
+    for (const t of sizes) {
+      const states = paths.tanks.filter((q) => q.residenceTime === t);
+      expect(states).toHaveLength(rootsAt(t));
+      if (states.length > 1) several++;
+      states.forEach((q, i) => {
+        expect(q.steadyState).toBe(i);
+        expect(Math.abs(balance(q.key, t)) / (20 * 21 ** 2)).toBeLessThan(1e-9);
+      });
+    }
+    expect(several).toBeGreaterThan(2);
+  });
+});
+
 describe("bad chemistry names the field", () => {
   it("a negative rate constant of the second reaction", () => {
     const bad = liquid({ A: CA0, B: 0, C: 0 }, [firstOrder("A", "B", k1), firstOrder("B", "C", -1)]);
