@@ -1,13 +1,15 @@
-import { json, readJson } from "@/lib/http";
+import { json, readJsonOfKind } from "@/lib/http";
 import { recordRoute } from "@/lib/http/signed-in-route";
-import { kineticsModelCreateSchema } from "@/lib/schemas/sweeps";
+import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import { kineticsModelCreateSchema, networkKineticsModelCreateSchema } from "@/lib/schemas/sweeps";
 import { createKineticsModel, listKineticsModels } from "@/lib/services/kinetics";
 
 const onProject = recordRoute("projectId", "project");
 
 export const GET = onProject(async ({ actor, db, id }) => json({ models: await listKineticsModels(db, actor, id) }));
 
+/** A model of one reaction, or of several (a spec with "reactions"). */
 export const POST = onProject(async ({ req, actor, db, id }) => {
-  const input = await readJson(req, kineticsModelCreateSchema);
+  const input = await readJsonOfKind(req, (body) => isNetworkSpec((body as { spec?: unknown } | null)?.spec), networkKineticsModelCreateSchema, kineticsModelCreateSchema);
   return json(await createKineticsModel(db, actor, id, input), 201);
 });
