@@ -41,7 +41,11 @@ export async function readJson<S extends z.ZodType>(req: Request, schema: S, opt
  * "neither kind".
  */
 export async function readJsonOfKind<A extends z.ZodType, B extends z.ZodType>(req: Request, pick: (body: unknown) => boolean, whenTrue: A, otherwise: B): Promise<z.output<A> | z.output<B>> {
-  const body = await readRawJson(req);
+  return parseWithKind(await readRawJson(req), pick, whenTrue, otherwise);
+}
+
+/** The same on a value already read. */
+export function parseWithKind<A extends z.ZodType, B extends z.ZodType>(body: unknown, pick: (body: unknown) => boolean, whenTrue: A, otherwise: B): z.output<A> | z.output<B> {
   return pick(body) ? parseWith(whenTrue, body) : parseWith(otherwise, body);
 }
 

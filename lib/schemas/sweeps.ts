@@ -6,7 +6,7 @@ import { sweepRobustnessSchema } from "./robustness";
 import { multilineText, text } from "./text";
 import { SORT_KEYS } from "@/lib/sweeps/sort-keys";
 import { shownUnitsSchema } from "./shown-units";
-import { networkKineticsSpecSchema, networkParts, type NetworkKineticsSpec } from "./network-spec";
+import { isNetworkSpec, networkKineticsSpecSchema, networkParts, type NetworkKineticsSpec } from "./network-spec";
 
 const spec = designSpecSchema.shape;
 
@@ -23,6 +23,8 @@ export const kineticsVersionCreateSchema = z.strictObject({ spec: kineticsSpecSc
 /* A model of several reactions: the same bodies with the network's chemistry (routes pick with isNetworkSpec(body.spec)). */
 export const networkKineticsModelCreateSchema = z.strictObject({ name: modelName, spec: networkKineticsSpecSchema, note: note.default("") });
 export const networkKineticsVersionCreateSchema = z.strictObject({ spec: networkKineticsSpecSchema, note: note.default("") });
+/** A model or version body whose chemistry has several reactions (the routes pick the schema with it). */
+export const isNetworkKineticsBody = (body: unknown): boolean => typeof body === "object" && body !== null && isNetworkSpec((body as { spec?: unknown }).spec);
 /** A kinetics version's chemistry of either kind: one reaction, or several. */
 export type AnyKineticsSpec = KineticsSpec | NetworkKineticsSpec;
 

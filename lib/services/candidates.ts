@@ -26,6 +26,10 @@ const SORT_COLUMNS = {
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
   probabilityMeet: [candidates.probabilityMeet],
+  conversion: [candidates.conversion],
+  yield: [candidates.yield],
+  selectivity: [candidates.selectivity],
+  objectiveValue: [candidates.objectiveValue],
 } as const satisfies Record<SortKey, readonly unknown[]>;
 
 const summaryColumns = {
@@ -39,6 +43,12 @@ const summaryColumns = {
   ratioToPfr: candidates.ratioToPfr,
   probabilityMeet: candidates.probabilityMeet,
   reason: candidates.reason,
+  // Several reactions only (null for one-reaction sweeps).
+  conversion: candidates.conversion,
+  yield: candidates.yield,
+  selectivity: candidates.selectivity,
+  objectiveValue: candidates.objectiveValue,
+  onBound: candidates.onBound,
   stages: candidates.stages,
   installedCost: candidates.installedCost,
   reused: reusedCount.mapWith(Number),

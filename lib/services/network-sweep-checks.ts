@@ -37,6 +37,9 @@ function fieldOfRequest(path: string, grid: GridAxis[]): string {
   return CHEMISTRY.test(path) ? `kineticsVersionId (${path})` : path;
 }
 
+/** Records whose keys name species or parameters: only the ones the model lists can be varied. */
+const NAMED_ONLY = /^(feed\.concentrations|reactions\.\d+\.stoichiometry|reactions\.\d+\.rate\.parameters)$/;
+
 /**
  * Every varied field must lead somewhere in the base spec: a reaction that exists, a species of the feed.
  * Only the last step may be new (an optional limit such as the largest total volume, or an activation
@@ -55,6 +58,8 @@ function checkAxesExist(base: Record<string, unknown>, grid: GridAxis[]): void {
     }
     if (Array.isArray(node)) throw badField(`grid.${i}.field`, "this model has no such input; choose one from the list");
     const leaf = (node as Record<string, unknown>)[keys.at(-1)!];
+    // A new key there would add a species or a parameter to the chemistry, not vary one.
+    if (leaf === undefined && NAMED_ONLY.test(keys.slice(0, -1).join("."))) throw badField(`grid.${i}.field`, "this model has no such input; choose one from the list");
     if (leaf !== undefined && typeof leaf !== "number" && typeof leaf !== "string") throw badField(`grid.${i}.field`, "this input is not a number; choose one from the list");
   });
 }

@@ -1,7 +1,6 @@
 import { json, readJsonOfKind } from "@/lib/http";
 import { recordRoute } from "@/lib/http/signed-in-route";
-import { isNetworkSpec } from "@/lib/schemas/network-spec";
-import { kineticsModelCreateSchema, networkKineticsModelCreateSchema } from "@/lib/schemas/sweeps";
+import { isNetworkKineticsBody, kineticsModelCreateSchema, networkKineticsModelCreateSchema } from "@/lib/schemas/sweeps";
 import { createKineticsModel, listKineticsModels } from "@/lib/services/kinetics";
 
 const onProject = recordRoute("projectId", "project");
@@ -10,6 +9,6 @@ export const GET = onProject(async ({ actor, db, id }) => json({ models: await l
 
 /** A model of one reaction, or of several (a spec with "reactions"). */
 export const POST = onProject(async ({ req, actor, db, id }) => {
-  const input = await readJsonOfKind(req, (body) => isNetworkSpec((body as { spec?: unknown } | null)?.spec), networkKineticsModelCreateSchema, kineticsModelCreateSchema);
+  const input = await readJsonOfKind(req, isNetworkKineticsBody, networkKineticsModelCreateSchema, kineticsModelCreateSchema);
   return json(await createKineticsModel(db, actor, id, input), 201);
 });
