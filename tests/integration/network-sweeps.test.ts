@@ -9,7 +9,14 @@ import { candidateQuerySchema, isNetworkKineticsBody, isNetworkSweepBody, kineti
 import { addKineticsVersion, createKineticsModel, getKineticsModel, listKineticsModels } from "@/lib/services/kinetics";
 import { createSweep, getSweep, listScenarios, rerunSweep } from "@/lib/services/sweeps";
 import { runSweepChunk } from "@/lib/services/sweep-chunks";
-import { listCandidates } from "@/lib/services/candidates";
+import { compareCandidates, listCandidates } from "@/lib/services/candidates";
+import { getCandidate } from "@/lib/services/candidate-detail";
+import { getPin, pinCandidate } from "@/lib/services/pins";
+import { exportCandidates } from "@/lib/services/candidate-export";
+import { isNetworkExport, networkCandidatesCsv } from "@/lib/reports/network-candidate-export";
+import { CAUTIONS } from "@/lib/engine";
+import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
+import Papa from "papaparse";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { refusal } from "../helpers/refusal";
 import type { TestDatabase } from "../helpers/test-db";
@@ -162,6 +169,71 @@ describe("sweeps of a model of several reactions", () => {
     expect(page.items[0]).toMatchObject({ conversion: expect.any(Number), selectivity: expect.any(Number), objectiveValue: expect.any(Number), onBound: expect.any(Array) });
     const stage = page.items[0]!.stages[0] as unknown as { outlet: Record<string, number> };
     expect(Object.keys(stage.outlet).sort()).toEqual(["A", "B", "C", "D"]);
+  });
+
+  it("answer a candidate with its chemistry, concentration profiles along the train and paths from the feed", async () => {
+    const page = await listCandidates(t.db, engineer, sweepId, 0, candidateQuerySchema.parse({ sort: "rank" }));
+    const best = page.items[0]!;
+    const c = await getCandidate(t.db, engineer, best.id);
+    expect(c.kind).toBe("network");
+    if (c.kind !== "network") return;
+    expect(c).toMatchObject({ keyReactant: "A", product: "B", species: ["A", "B", "C", "D"] });
+    expect((c.chemistry.reactions[1]!.rate as { k: number }).k).toBe(0.5); // scenario 1's value of the varied constant
+    expect(c.cautions).toEqual(CAUTIONS);
+    const profiles = c.profiles!;
+    expect(profiles.stages).toHaveLength(c.stages.length);
+    // The profile ends where the train does: cumulative residence time V/v0 summed over the stages, and the
+    // designer's stored outlet (two separate computations of the engine: the search and the view).
+    const totalTau = c.stages.reduce((sum, st) => sum + st.volume / 0.1, 0);
+    const last = profiles.stages.at(-1)!;
+    expect(last.endResidenceTime).toBeCloseTo(totalTau, 9);
+    const end = last.points.at(-1)!.concentrations;
+    for (const sp of ["A", "B", "C", "D"]) expect(end[sp]!).toBeCloseTo(c.stages.at(-1)!.outlet[sp]!, 3);
+    // Mass balance on the key reactant's atoms, A + B + C + 2D = C_A0 = 580 mol/m3 at every point of the
+    // profile (stoichiometry of the three reactions; a liquid keeps its volumetric flow): common practice.
+    for (const st of profiles.stages) for (const pt of st.points) {
+      const x = pt.concentrations;
+      expect(x.A! + x.B! + x.C! + 2 * x.D!).toBeCloseTo(580, 6);
+    }
+    const paths = c.paths!;
+    expect(paths).toMatchObject({ key: "A", product: "B" });
+    expect(paths.tube.length).toBeGreaterThan(10);
+    expect(paths.tanks.length).toBeGreaterThan(10);
+  });
+
+  it("compare two candidates: yield below the best and volume over the best", async () => {
+    const page = await listCandidates(t.db, engineer, sweepId, 0, candidateQuerySchema.parse({ sort: "yield", dir: "desc", feasible: "true" }));
+    const [a, b] = page.items;
+    const [ca, cb] = await compareCandidates(t.db, engineer, [b!.id, a!.id]);
+    expect(ca!.kind).toBe("network");
+    expect(cb!.differences.yieldBelowBest).toBe(0);
+    expect(ca!.differences.yieldBelowBest).toBeCloseTo(a!.yield! - b!.yield!, 14);
+    const minVolume = Math.min(a!.totalVolume!, b!.totalVolume!);
+    expect(ca!.differences.volumeOverBest).toBeCloseTo(b!.totalVolume! - minVolume, 14);
+  });
+
+  it("pin a candidate: the frozen copy is of the network kind with its outlet composition", async () => {
+    const page = await listCandidates(t.db, engineer, sweepId, 0, candidateQuerySchema.parse({ sort: "rank" }));
+    const best = page.items[0]!;
+    const pin = await pinCandidate(t.db, engineer, best.id, { note: "best yield" });
+    const frozen = (await getPin(t.db, engineer, pin.id)).candidate as unknown as PinnedNetworkCandidate;
+    expect(frozen.kind).toBe("network");
+    expect(frozen.sequence.join("-")).toBe(best.sequenceKey);
+    expect(frozen.yield).toBe(best.yield);
+    expect(frozen.outlet).toEqual((best.stages.at(-1) as unknown as { outlet: Record<string, number> }).outlet);
+    // Yield of B on A fed, from the frozen outlet (definition of the trade).
+    expect(frozen.yield!).toBeCloseTo(frozen.outlet!.B! / 580, 9);
+    expect(frozen.totalResidenceTime).toBeCloseTo(best.totalVolume! / 0.1, 9);
+    expect(frozen.scenario.reference?.kind).toBe("network");
+  });
+
+  it("export the ranked list with conversion, yield and selectivity columns", async () => {
+    const data = await exportCandidates(t.db, engineer, sweepId, 0, { sort: "yield", dir: "desc" });
+    expect(isNetworkExport(data)).toBe(true);
+    const parsed = Papa.parse<Record<string, unknown>>(networkCandidatesCsv(sweepId, data), { header: true, comments: "#", dynamicTyping: true, skipEmptyLines: true });
+    expect(parsed.meta.fields).toEqual(expect.arrayContaining(["conversion (-)", "yield (-)", "selectivity (-)"]));
+    expect(parsed.data).toHaveLength(data.total);
+    expect(parsed.data[0]!["yield (-)"]).toBe(data.items[0]!.yield);
   });
 
   it("re-run as a new sweep of the same kind", async () => {
