@@ -21,6 +21,11 @@
  *    to the largest time allowed (design.ts sets the range from the feed's rates and the limits).
  * 3. Polish: Nelder–Mead (nelder-mead.ts) in x from the best POLISH_STARTS starting designs; the best
  *    result is kept.
+ *    A stirred tank pressed against the fold of its steady-state curve (its lowest-conversion state exists
+ *    only up to a volume, then jumps: the objective has a cliff there, which Nelder–Mead approaches but
+ *    does not locate exactly) is set to the volume where its lowest state jumps, located by continuation
+ *    (cstr-fold.ts) and bisection to FOLD_TOLERANCE, on the side that scores better, the other stages kept
+ *    (snapToFolds).
  * 4. Repair and tidy: a design that misses the minimum conversion or yield by a little (the penalty's
  *    kink) has all its times scaled up by bisection until it meets them; then each stage whose removal does
  *    not worsen the objective is set to zero (of designs equally good, the least volume).
@@ -44,6 +49,7 @@
  */
 import { EngineError } from "../errors";
 import type { StageType } from "../types";
+import { lowBranchFold } from "./cstr-fold";
 import { nelderMead } from "./nelder-mead";
 import { evaluateTrain, isFeasible, NEGLIGIBLE_TAU_FRACTION, pfrOutletsAt, stageOutlet, trainOutlets, type DesignProblem, type Score, scoreOutlet, UNSOLVED } from "./train-eval";
 
@@ -165,6 +171,7 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
     const polished = polish(p, sequence, start);
     if (better(polished, best)) best = polished;
   }
+  best = snapToFolds(p, best);
   // The repair sets a limit exactly, so it integrates tubes at the tolerance the design is reported at.
   best = tidy(p, repair({ ...p, searchRtol: REPORT_RTOL }, best));
   memo.set(key, best);
@@ -264,6 +271,57 @@ function tidy(p: DesignProblem, d: SequenceDesign): SequenceDesign {
     // Within the search's own accuracy (1e-9 relative, measured in the bench) a stage left empty is as good.
     const tolerance = 1e-9 * Math.max(Math.abs(best.score.value), 1e-300);
     if (isFeasible(trial.score) === isFeasible(best.score) && trial.score.value >= best.score.value - tolerance && trial.score.violation <= best.score.violation) best = trial;
+  }
+  return best;
+}
+
+/** Relative accuracy of the volume at which a tank's lowest state jumps (the contract asks for 1e-6). */
+const FOLD_TOLERANCE = 1e-10;
+/** A tank within this fraction of a fold's volume counts as pressed against it. */
+const FOLD_WINDOW = 1e-3;
+
+/**
+ * Each stirred tank of the design within FOLD_WINDOW of the fold of its low branch (for its own inlet) is
+ * tried at both sides of the volume where its lowest state jumps: continuation (cstr-fold.ts) finds the
+ * fold to about 1e-8, then bisection on the lowest state itself (the state the train continues from)
+ * brackets the jump to FOLD_TOLERANCE; the better side is kept when it beats the polished design. Networks
+ * whose tanks have one state have no fold and skip the work.
+ */
+function snapToFolds(p: DesignProblem, d: SequenceDesign): SequenceDesign {
+  if (p.tanksUnique || !Number.isFinite(d.score.value)) return d;
+  let best = d;
+  const net = p.kin.net;
+  const conversion = (F: Float64Array) => 1 - F[net.key] / net.F0[net.key];
+  for (let s = 0; s < d.sequence.length; s++) {
+    const tau = best.taus[s];
+    const T = best.temps[s];
+    if (d.sequence[s] !== "CSTR" || tau === 0) continue;
+    let bracket: [number, number];
+    try {
+      const Fin = s === 0 ? net.F0 : trainOutlets(p, best.sequence.slice(0, s), best.taus.slice(0, s), best.temps.slice(0, s))[s - 1];
+      const fold = lowBranchFold(p.kin, Fin, T, tau * net.v0 * (1 + FOLD_WINDOW), 1e-9);
+      if (fold === null || fold.volume < tau * net.v0 * (1 - FOLD_WINDOW)) continue;
+      // Past the fold the lowest state is far from the fold's; halfway marks the jump.
+      let lo = fold.volume / net.v0;
+      let hi = Math.max(tau, lo) * (1 + FOLD_WINDOW);
+      const gap = Math.abs(conversion(stageOutlet(p, "CSTR", Fin, hi, T)) - fold.conversion);
+      if (!(gap > 0)) continue;
+      while (hi - lo > FOLD_TOLERANCE * hi) {
+        const mid = 0.5 * (lo + hi);
+        if (Math.abs(conversion(stageOutlet(p, "CSTR", Fin, mid, T)) - fold.conversion) > 0.5 * gap) hi = mid;
+        else lo = mid;
+      }
+      bracket = [lo, hi];
+    } catch (err) {
+      if (err instanceof EngineError) continue;
+      throw err;
+    }
+    for (const t of bracket) {
+      const taus = [...best.taus];
+      taus[s] = t;
+      const trial = design(p, best.sequence, taus, best.temps);
+      if (better(trial, best)) best = trial;
+    }
   }
   return best;
 }
