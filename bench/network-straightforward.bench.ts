@@ -227,6 +227,9 @@ if (process.argv[2] === "--straightforward") {
   try {
     timed("npm", ["run", "--silent", "sweep", "--", FIXTURE]); // builds the command line's bundle if stale
     for (const [label, file] of [["the example, 1..3 stages", FIXTURE], ["the example widened to 1..5 stages", wide]]) compare(label, file, self);
+    // What any command-line run pays before designing: npm, Node and the bundle's start-up.
+    const floor = [0, 1, 2].map(() => timed("npm", ["run", "--silent", "sweep", "--", "tests/fixtures/specs/first-order-liquid.json"]).ms).sort((a, b) => a - b)[1];
+    console.log(`start-up floor of the command line (a one-reaction spec, median of 3): ${floor.toFixed(0)} ms`);
   } finally {
     rmSync(wide, { force: true });
   }
