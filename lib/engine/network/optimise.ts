@@ -219,7 +219,7 @@ function polish(p: DesignProblem, sequence: StageType[], start: SequenceDesign):
     // Stage temperatures: Nelder–Mead in 2n variables stalls short of the optimum (measured up to 9e-5 on the
     // bench's example within 400 evaluations per variable); a quasi-Newton finish from where it stops
     // converges on the smooth part, so the simplex may stop early (values within 1e-7): all 62 sequences
-    // within 2.5e-8 of the best found by any setting, at half the work of the long simplex. Stopping the
+    // within 2.5e-8 of the best found by any setting, for about a third less work than the long simplex. Stopping the
     // simplex by a budget instead (150 or 200 evaluations per variable) was as fast but twice landed on
     // another local optimum, up to 5e-4 short.
     const nm = nelderMead(f, x0, { lower, upper, step: 0.1, maxEvaluations: 400 * x0.length, fTolerance: 1e-7, xTolerance: 1e-4 });
