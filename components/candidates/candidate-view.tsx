@@ -21,8 +21,12 @@ import { StageTable } from "./stage-table";
 import { VesselPlan } from "./vessel-plan";
 import { TemperatureProfile } from "./temperature-profile";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import type { UnitKind } from "@/lib/units/display";
+import { NetworkCandidateView } from "./network-candidate-view";
+import { isNetworkCandidate } from "./network-types";
+import { networkObjectiveOf } from "@/components/sweeps/network-sweep";
 
-export function CandidateView({ candidateId, canPin }: { candidateId: string; canPin: boolean }) {
+export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId: string; canPin: boolean; typedUnits?: Partial<Record<UnitKind, string>> }) {
   const params = useSearchParams();
   const back = params.get("back");
   const q = useQuery({
@@ -39,6 +43,11 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
 
   if (q.isPending) return <LoadingPanel label="Loading the candidate…" />;
   if (q.isError) return <ErrorPanel error={q.error} what="this candidate" />;
+  // A train of several reactions has its own view (measures, composition, profiles, path).
+  if (isNetworkCandidate(q.data)) {
+    const n = q.data;
+    return <NetworkCandidateView c={n} canPin={canPin} back={back} objective={n.scenario.reference?.objective ?? networkObjectiveOf(sweepQ.data)} typedUnits={typedUnits} />;
+  }
   const c = q.data;
   const sweepHref = back?.startsWith("/projects/") ? back : `/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}`;
   const ref = c.scenario.reference;

@@ -26,6 +26,10 @@ const SORT_COLUMNS = {
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
   probabilityMeet: [candidates.probabilityMeet],
+  conversion: [candidates.conversion],
+  yield: [candidates.yield],
+  selectivity: [candidates.selectivity],
+  objectiveValue: [candidates.objectiveValue],
 } as const satisfies Record<SortKey, readonly unknown[]>;
 
 const summaryColumns = {
