@@ -17,6 +17,8 @@ import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import { isNetworkCandidate, type NetworkCandidateDetail } from "@/components/candidates/network-types";
+import { NetworkCompare } from "./network-compare";
 
 const signed = (v: number | null, text: (n: number) => string) => (v === null ? "—" : v === 0 ? "best" : `+${text(v)}`);
 
@@ -29,7 +31,7 @@ export function CompareView() {
     queryFn: () => fetchJson<{ candidates: CandidateDetail[] }>(`/api/candidates/compare?ids=${ids.join(",")}`).then((r) => r.candidates),
     enabled: valid,
   });
-  const charts = useMemo(() => (q.data ?? []).map((c) => chartInputs(c.stages, c.levenspiel)), [q.data]);
+  const charts = useMemo(() => (q.data ?? []).map((c) => (isNetworkCandidate(c) ? chartInputs([], []) : chartInputs(c.stages, c.levenspiel))), [q.data]);
   const yMax = useMemo(() => (charts.length ? sharedYMax(charts) : undefined), [charts]);
   const [unit, setUnit] = useUrlUnit(Math.max(0, ...(q.data ?? []).map((c) => c.totalVolume ?? 0)) || null);
 
@@ -42,6 +44,16 @@ export function CompareView() {
     );
   if (q.isPending) return <LoadingPanel label="Loading the trains…" />;
   if (q.isError) return <ErrorPanel error={q.error} what="these candidates" />;
+  // Trains of several reactions compare by yield, selectivity and volume, without Levenspiel charts.
+  if (q.data.some(isNetworkCandidate)) {
+    if (q.data.every(isNetworkCandidate)) return <NetworkCompare list={q.data as unknown as NetworkCandidateDetail[]} />;
+    return (
+      <div className="card p-6 text-ink-soft" data-testid="compare-mixed">
+        <h1>Compare trains</h1>
+        <p className="mt-2">Trains for one reaction and for several reactions are ranked by different measures; compare trains of one kind at a time.</p>
+      </div>
+    );
+  }
   const list = q.data;
   const fewest = Math.min(...list.map((c) => c.stageCount));
   const anyCost = list.some((c) => c.totalCost !== null);
