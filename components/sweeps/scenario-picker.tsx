@@ -5,6 +5,7 @@ import { useRef, useState, type KeyboardEvent } from "react";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, SI_UNIT, unitLabel, type UnitKind } from "@/lib/units/display";
 import { gridFieldAt } from "@/components/sweep-builder/builder-form-state";
+import { networkFieldKind } from "@/components/sweep-builder/network-builder-form-state";
 import type { ScenarioRow } from "@/lib/services/views";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
@@ -13,7 +14,7 @@ export type TypedUnits = Partial<Record<UnitKind, string>>;
 
 /** The unit a grid field's values are shown in: the one the kinetics was typed in, else the stored SI one. */
 const axisUnit = (path: string, units: TypedUnits | undefined): { kind: UnitKind; unit: string } | null => {
-  const kind = gridFieldAt(path)?.kind;
+  const kind = gridFieldAt(path)?.kind ?? networkFieldKind(path);
   if (!kind) return null;
   const typed = units?.[kind];
   return { kind, unit: typed && isUnit(kind, typed) ? typed : SI_UNIT[kind] };
