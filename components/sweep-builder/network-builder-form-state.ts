@@ -5,15 +5,16 @@
  * `constraints`, `grid`), with every problem at the field that shows it. Pure.
  */
 import { z } from "zod";
-import { labelFor } from "@/lib/schemas/field-labels";
 import { networkParts, MAX_NETWORK_STAGES } from "@/lib/schemas/network-spec";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { isUnit, toSI, type UnitKind } from "@/lib/units/display";
 import type { StageType } from "@/lib/engine";
 import { parseSequence, type BuilderIssue } from "./builder-form-state";
+import { networkBuilderPathOf } from "./network-field-paths";
+import { networkGridFields, type NetworkGridField, type NetworkGridSource } from "./network-grid-fields";
 
 /** What the form needs to know of a network kinetics version. */
-export interface NetworkVersionInfo {
+export interface NetworkVersionInfo extends NetworkGridSource {
   id: string;
   label: string;
   kind: "network";
@@ -24,46 +25,6 @@ export interface NetworkVersionInfo {
   /** Per reaction: whether its rate law has a rate constant, a reverse term, an activation energy. */
   reactions: { power: boolean; reverse: boolean; arrhenius: boolean }[];
   units?: Partial<Record<UnitKind, string>>;
-}
-
-export interface NetworkGridField {
-  /** The input's path in the engine's spec (array indices and species names included). */
-  field: string;
-  label: string;
-  kind: UnitKind | null;
-  defaultUnit: string;
-}
-
-const gridField = (field: string, kind: UnitKind | null, defaultUnit: string, basis?: string): NetworkGridField => ({
-  field,
-  label: basis ? `${labelFor(field)} (${basis})` : labelFor(field),
-  kind,
-  defaultUnit,
-});
-
-/**
- * The numeric inputs of a network model one may vary: each reaction's rate constants and activation
- * energy, the feed's flow, concentrations and temperature, and the limits. Labels are the field
- * labels the rest of the app uses; units start in the ones the model was typed in.
- */
-export function networkGridFields(version: Pick<NetworkVersionInfo, "species" | "reactions" | "units">): NetworkGridField[] {
-  const typed = version.units ?? {};
-  const unit = (kind: UnitKind, fallback: string) => (typed[kind] && isUnit(kind, typed[kind]!) ? typed[kind]! : fallback);
-  const out: NetworkGridField[] = [];
-  version.reactions.forEach((r, j) => {
-    if (!r.power) return;
-    // A rate constant's unit depends on its reaction's order: the engine keeps it on a m³, mol, s basis.
-    out.push(gridField(`reactions.${j}.rate.k`, null, "", "m³, mol, s basis"));
-    if (r.reverse) out.push(gridField(`reactions.${j}.rate.reverse.k`, null, "", "m³, mol, s basis"));
-    out.push(gridField(`reactions.${j}.rate.activationEnergy`, "energyPerMol", unit("energyPerMol", "kJ/mol")));
-  });
-  out.push(gridField("feed.volumetricFlow", null, "", "m³/s"));
-  for (const s of version.species) out.push(gridField(`feed.concentrations.${s}`, "concentration", unit("concentration", "mol/L")));
-  out.push(gridField("feed.temperature", "temperature", unit("temperature", "K")));
-  out.push(gridField("constraints.maxTotalVolume", "volume", unit("volume", "m3")));
-  out.push(gridField("constraints.minConversion", null, "", "0 to 1"));
-  out.push(gridField("constraints.minYield", null, "", "0 to 1"));
-  return out;
 }
 
 const axis = z.object({
@@ -297,40 +258,6 @@ export function networkBuilderToRequest(v: NetworkBuilderValues, version: Networ
   return { body: parsed.data, issues: [] };
 }
 
-/** A request field path (from zod or the server) → the form field that shows it ("" for none). */
-export function networkBuilderPathOf(path: string): string {
-  const p = path.replace(/^spec\./, "");
-  if (p.startsWith("kineticsVersionId")) return "kineticsVersionId";
-  if (p === "name") return "name";
-  if (p.startsWith("thermal.min")) return "tMin";
-  if (p.startsWith("thermal.max")) return "tMax";
-  if (p.startsWith("thermal")) return "heat";
-  if (p.startsWith("train.maxStages")) return "maxStages";
-  if (p.startsWith("train.types")) return "useCSTR";
-  const c = /^train\.candidates\.(\d+)/.exec(p);
-  if (c) return `candidates.${c[1]}.seq`;
-  if (p.startsWith("train")) return "trainMode";
-  if (p.startsWith("objective.product")) return "product";
-  if (p.startsWith("objective")) return "objective";
-  for (const k of ["minConversion", "minYield", "maxTotalVolume", "maxStageVolume"]) if (p.startsWith(`constraints.${k}`)) return k;
-  const g = /^grid\.(\d+)\.(\w+)/.exec(p);
-  if (g) return g[2] === "field" ? `grid.${g[1]}.field` : ["from", "to", "steps"].includes(g[2]!) ? `grid.${g[1]}.${g[2]}` : `grid.${g[1]}.values`;
-  if (p.startsWith("grid")) return "grid";
-  return "";
-}
-
-/** The form's field for each API field error; the rest are general. */
-export function mapNetworkServerFields(fields: Record<string, string[]>): { byField: Record<string, string>; rest: string[] } {
-  const byField: Record<string, string> = {};
-  const rest: string[] = [];
-  for (const [key, messages] of Object.entries(fields)) {
-    const field = networkBuilderPathOf(key);
-    if (field) byField[field] = [byField[field], ...messages].filter(Boolean).join(" ");
-    else rest.push(...messages);
-  }
-  return { byField, rest };
-}
-
 /** Scenarios and trains the form as it stands would size (null while a part is unreadable). */
 export function networkImplied(v: NetworkBuilderValues, version: NetworkVersionInfo | undefined): { scenarios: number | null; sequences: number | null; optimisations: number | null } {
   const { body } = networkBuilderToRequest(v, version);
@@ -345,11 +272,3 @@ export function networkImplied(v: NetworkBuilderValues, version: NetworkVersionI
   return { scenarios, sequences, optimisations: scenarios * sequences };
 }
 
-/** The unit kind of a network grid input by its path (null for a plain number), for naming a scenario's values. */
-export function networkFieldKind(path: string): UnitKind | null {
-  if (path.startsWith("feed.concentrations.")) return "concentration";
-  if (path === "feed.temperature") return "temperature";
-  if (path === "constraints.maxTotalVolume" || path === "constraints.maxStageVolume") return "volume";
-  if (/^reactions\.\d+\.rate(\.reverse)?\.activationEnergy$/.test(path)) return "energyPerMol";
-  return null;
-}

@@ -3,27 +3,25 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useState } from "react";
-import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
+import { FormProvider, useForm, useWatch, type Path } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
 import { UnitOptions } from "@/components/ui/unit-options";
-import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
-import { MAX_NETWORK_STAGES } from "@/lib/schemas/network-spec";
-import { parseSequence } from "./builder-form-state";
 import {
   defaultProduct,
-  mapNetworkServerFields,
   networkBuilderToRequest,
   networkBuilderValuesSchema,
-  networkGridFields,
   networkImplied,
   type NetworkBuilderValues,
   type NetworkVersionInfo,
 } from "./network-builder-form-state";
 import { NetworkGridEditor } from "./network-grid-editor";
+import { NetworkTrainFields } from "./network-train-fields";
+import { mapNetworkServerFields } from "./network-field-paths";
+import { networkGridFields } from "./network-grid-fields";
 
 /** A version in the picker: either kind, so choosing a one-reaction model hands over to its own form. */
 export interface AnyVersionOption {
@@ -59,7 +57,6 @@ export function NetworkBuilder({
   const { register, control, formState, setValue, setError } = form;
   const v = useWatch({ control }) as NetworkBuilderValues;
   const version = versionOf(v.kineticsVersionId);
-  const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => networkImplied(v, version), [v, version]);
   const gridFields = useMemo(() => (version ? networkGridFields(version) : []), [version]);
   const [formError, setFormError] = useState<string>();
@@ -214,70 +211,7 @@ export function NetworkBuilder({
             <ErrorText id="n-heat" message={err("heat")} />
           </fieldset>
 
-          <fieldset className="card space-y-3 p-4">
-            <legend className="px-1 text-base font-semibold">Trains to try</legend>
-            <ChoiceCards
-              label="Train space"
-              current={v.trainMode}
-              field={register("trainMode")}
-              options={[
-                ["range", "Up to N stages", `every sequence of 1…N stages (N up to ${MAX_NETWORK_STAGES})`],
-                ["candidates", "Listed trains", "exactly the ones you compose"],
-              ]}
-            />
-            {v.trainMode === "range" ? (
-              <div className="flex flex-wrap items-start gap-4">
-                {num("maxStages", `Largest number of stages (1–${MAX_NETWORK_STAGES})`)}
-                <fieldset>
-                  <legend className="field-label">Stage types</legend>
-                  <div className="flex gap-3 text-sm">
-                    <label className="flex items-center gap-1.5">
-                      <input type="checkbox" {...register("useCSTR")} /> CSTR
-                    </label>
-                    <label className="flex items-center gap-1.5">
-                      <input type="checkbox" {...register("usePFR")} /> PFR
-                    </label>
-                  </div>
-                  <ErrorText id="n-useCSTR" message={err("useCSTR")} />
-                </fieldset>
-              </div>
-            ) : (
-              <div className="space-y-2" data-testid="sequence-editor">
-                {candidates.fields.map((f, i) => {
-                  const seq = parseSequence(v.candidates?.[i]?.seq ?? "");
-                  const set = (next: string[]) => setValue(`candidates.${i}.seq`, next.join("-"), { shouldValidate: true });
-                  return (
-                    <div key={f.id} className="rounded border border-line p-2">
-                      <div className="flex flex-wrap items-center gap-1.5" aria-label={`Train ${i + 1}`} role="group">
-                        <span className="mr-1 text-xs text-ink-soft">#{i + 1}</span>
-                        {seq.length ? <StageBadges sequence={seq} /> : <span className="text-xs text-ink-soft">empty</span>}
-                        <span className="ml-auto flex gap-1">
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "CSTR"])} disabled={seq.length >= MAX_NETWORK_STAGES} aria-label={`Add a CSTR to train ${i + 1}`}>
-                            + CSTR
-                          </button>
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "PFR"])} disabled={seq.length >= MAX_NETWORK_STAGES} aria-label={`Add a PFR to train ${i + 1}`}>
-                            + PFR
-                          </button>
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set(seq.slice(0, -1))} disabled={!seq.length} aria-label={`Remove the last stage of train ${i + 1}`}>
-                            ⌫
-                          </button>
-                          <button type="button" className="btn-danger py-0.5" onClick={() => candidates.remove(i)} aria-label={`Delete train ${i + 1}`}>
-                            Delete
-                          </button>
-                        </span>
-                      </div>
-                      <ErrorText id={`n-candidates-${i}`} message={err(`candidates.${i}.seq`)} />
-                    </div>
-                  );
-                })}
-                <button type="button" className="btn-quiet py-1" onClick={() => candidates.append({ seq: "" })}>
-                  + Add a train
-                </button>
-                <ErrorText id="n-candidates" message={err("candidates")} />
-              </div>
-            )}
-            <ErrorText id="n-trainMode" message={err("trainMode")} />
-          </fieldset>
+          <NetworkTrainFields num={num} />
 
           <NetworkGridEditor fields={gridFields} />
         </div>

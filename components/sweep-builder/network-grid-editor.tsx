@@ -3,7 +3,8 @@
 import { useFieldArray, useFormContext, useWatch, type Path } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { UnitOptions } from "@/components/ui/unit-options";
-import { newNetworkAxis, type NetworkBuilderValues, type NetworkGridField } from "./network-builder-form-state";
+import { newNetworkAxis, type NetworkBuilderValues } from "./network-builder-form-state";
+import type { NetworkGridField } from "./network-grid-fields";
 
 /** The scenario grid of a network sweep: up to four inputs of the model, each with its values or a range. */
 export function NetworkGridEditor({ fields }: { fields: NetworkGridField[] }) {

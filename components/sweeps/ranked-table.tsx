@@ -81,85 +81,85 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
   const isNetwork = !!network;
   const columns = useMemo(() => {
     const lead = [
-        helper.display({
-          id: "select",
-          enableSorting: false,
-          header: () => <span className="sr-only">Select to compare</span>,
-          cell: ({ row }) => {
-            const c = row.original;
-            const checked = selected.includes(c.id);
-            return (
-              <input
-                type="checkbox"
-                className="size-4 accent-accent-600"
-                aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
-                checked={checked}
-                disabled={!checked && (selected.length >= 4 || !c.feasible)}
-                onChange={() => onToggle(c.id)}
-              />
-            );
-          },
-        }),
-        helper.accessor("rank", { header: "Rank", cell: (i) => <span className="num">{i.getValue()}</span> }),
-        helper.accessor("sequence", {
-          header: isNetwork ? "Train" : "Sequence",
-          cell: (i) => (
-            <>
-              <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
-                <StageBadges sequence={i.getValue()} />
-              </Link>
-              {i.row.original.emptyStages ? (
-                <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
-                  {i.row.original.emptyStages === 1 ? "1 empty stage" : `${i.row.original.emptyStages} empty stages`}
-                </span>
-              ) : null}
-            </>
-          ),
-        }),
+      helper.display({
+        id: "select",
+        enableSorting: false,
+        header: () => <span className="sr-only">Select to compare</span>,
+        cell: ({ row }) => {
+          const c = row.original;
+          const checked = selected.includes(c.id);
+          return (
+            <input
+              type="checkbox"
+              className="size-4 accent-accent-600"
+              aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
+              checked={checked}
+              disabled={!checked && (selected.length >= 4 || !c.feasible)}
+              onChange={() => onToggle(c.id)}
+            />
+          );
+        },
+      }),
+      helper.accessor("rank", { header: "Rank", cell: (i) => <span className="num">{i.getValue()}</span> }),
+      helper.accessor("sequence", {
+        header: isNetwork ? "Train" : "Sequence",
+        cell: (i) => (
+          <>
+            <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
+              <StageBadges sequence={i.getValue()} />
+            </Link>
+            {i.row.original.emptyStages ? (
+              <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
+                {i.row.original.emptyStages === 1 ? "1 empty stage" : `${i.row.original.emptyStages} empty stages`}
+              </span>
+            ) : null}
+          </>
+        ),
+      }),
     ];
     if (isNetwork) return helper.columns([...lead, ...networkColumns({ product: networkProduct ?? null, unit, timeUnit: networkTime ?? "s" }), feasibility]);
     return helper.columns([
-        ...lead,
-        helper.display({
-          id: "chart",
-          header: "Chart",
-          enableSorting: false,
-          cell: ({ row }) => {
-            const c = row.original;
-            if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
-            const input = chartInputs(c.stages, c.levenspiel);
-            return (
-              <div className="w-28" data-testid="thumbnail">
-                <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
-              </div>
-            );
-          },
-        }),
-        helper.accessor("totalVolume", {
-          header: `Total volume, ${VOLUME_LABEL[unit]}`,
-          cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4, TABLE_NUMBERS)}</span>,
-        }),
-        helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4, TABLE_NUMBERS)}</span> }),
-        ...costColumns(),
-        helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3, TABLE_NUMBERS)}×`}</span> }),
-        helper.accessor((r) => r.probabilityMeet ?? null, {
-          id: "probabilityMeet",
-          header: "P(meet target)",
-          cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${(100 * (i.getValue() as number)).toFixed(1)} %`}</span>,
-        }),
-        helper.accessor("stages", {
-          header: "Stages (volume, outlet X)",
-          cell: (i) => (
-            <ol className="flex flex-wrap gap-x-3 gap-y-0.5 text-xs">
-              {i.getValue().map((s, k) => (
-                <li key={k} className="num whitespace-nowrap">
-                  <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
-                </li>
-              ))}
-            </ol>
-          ),
-        }),
-        feasibility,
+      ...lead,
+      helper.display({
+        id: "chart",
+        header: "Chart",
+        enableSorting: false,
+        cell: ({ row }) => {
+          const c = row.original;
+          if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
+          const input = chartInputs(c.stages, c.levenspiel);
+          return (
+            <div className="w-28" data-testid="thumbnail">
+              <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
+            </div>
+          );
+        },
+      }),
+      helper.accessor("totalVolume", {
+        header: `Total volume, ${VOLUME_LABEL[unit]}`,
+        cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4, TABLE_NUMBERS)}</span>,
+      }),
+      helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4, TABLE_NUMBERS)}</span> }),
+      ...costColumns(),
+      helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3, TABLE_NUMBERS)}×`}</span> }),
+      helper.accessor((r) => r.probabilityMeet ?? null, {
+        id: "probabilityMeet",
+        header: "P(meet target)",
+        cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${(100 * (i.getValue() as number)).toFixed(1)} %`}</span>,
+      }),
+      helper.accessor("stages", {
+        header: "Stages (volume, outlet X)",
+        cell: (i) => (
+          <ol className="flex flex-wrap gap-x-3 gap-y-0.5 text-xs">
+            {i.getValue().map((s, k) => (
+              <li key={k} className="num whitespace-nowrap">
+                <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
+              </li>
+            ))}
+          </ol>
+        ),
+      }),
+      feasibility,
       ]);
   }, [unit, selected, onToggle, candidateHref, yMax, target, isNetwork, networkProduct, networkTime]);
 

@@ -5,7 +5,7 @@ import { useRef, useState, type KeyboardEvent } from "react";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, SI_UNIT, unitLabel, type UnitKind } from "@/lib/units/display";
 import { gridFieldAt } from "@/components/sweep-builder/builder-form-state";
-import { networkFieldKind } from "@/components/sweep-builder/network-builder-form-state";
+import { networkFieldKind } from "@/components/sweep-builder/network-grid-fields";
 import type { ScenarioRow } from "@/lib/services/views";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 

@@ -1,15 +1,7 @@
 import { describe, expect, it } from "vitest";
-import {
-  defaultNetworkValues,
-  mapNetworkServerFields,
-  networkBuilderPathOf,
-  networkBuilderToRequest,
-  networkFieldKind,
-  networkGridFields,
-  networkImplied,
-  newNetworkAxis,
-  type NetworkVersionInfo,
-} from "@/components/sweep-builder/network-builder-form-state";
+import { defaultNetworkValues, networkBuilderToRequest, networkImplied, newNetworkAxis, type NetworkVersionInfo } from "@/components/sweep-builder/network-builder-form-state";
+import { mapNetworkServerFields, networkBuilderPathOf } from "@/components/sweep-builder/network-field-paths";
+import { networkFieldKind, networkGridFields } from "@/components/sweep-builder/network-grid-fields";
 
 const VERSION: NetworkVersionInfo = {
   id: "3f1c2a44-9b7e-4d1a-8c55-0a1b2c3d4e5f",
