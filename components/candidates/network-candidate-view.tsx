@@ -13,6 +13,7 @@ import { fromSI, unitLabel, type UnitKind } from "@/lib/units/display";
 import type { NetworkObjective } from "@/lib/engine";
 import { PinForm } from "./pin-form";
 import { NetworkCompositionTable } from "./network-composition-table";
+import { NetworkStageTable } from "./network-stage-table";
 import { NetworkPathChart, NetworkProfilesChart } from "./network-charts";
 import { boundNote, feedOf, objectiveLabel, percent, trainResidenceTime } from "./network-results-data";
 import type { NetworkCandidateDetail } from "./network-types";
@@ -127,6 +128,13 @@ export function NetworkCandidateView({
           </section>
         </div>
       )}
+
+      <section className="card overflow-hidden" aria-labelledby="stages-title">
+        <h2 id="stages-title" className="border-b border-line px-3 py-2">
+          Stages
+        </h2>
+        <NetworkStageTable stages={c.stages} unit={unit} timeUnit={units.time} caption={`Stages of rank ${c.rank}`} />
+      </section>
 
       <section className="card overflow-hidden" aria-labelledby="composition-title">
         <h2 id="composition-title" className="border-b border-line px-3 py-2">
