@@ -16,13 +16,18 @@ import { NetworkCompositionTable } from "./network-composition-table";
 import { NetworkStageTable } from "./network-stage-table";
 import { NetworkPathChart, NetworkProfilesChart } from "./network-charts";
 import { boundNote, feedOf, objectiveLabel, percent, trainResidenceTime } from "./network-results-data";
-import type { NetworkCandidateDetail } from "./network-types";
+import { productOf, speciesOf, type NetworkCandidateDetail } from "./network-types";
 import { useNetworkUnits } from "./network-units";
 
 /** The objective's value in its own terms: a yield or selectivity as a percentage, a volume in the shown unit. */
 export function objectiveValueText(objective: NetworkObjective | null | undefined, value: number | null | undefined, unit: Parameters<typeof formatVolume>[1]): string {
   if (value === null || value === undefined) return "—";
   return objective && "maximise" in objective ? percent(value, 2) : formatVolume(value, unit, 4);
+}
+
+/** In place of a chart the engine could not follow for this train: the stored numbers still hold. */
+function NotDrawn() {
+  return <p className="text-sm text-ink-soft">This chart could not be drawn for this train; the stored sizes and compositions below still hold.</p>;
 }
 
 /** A candidate train of a sweep of several reactions: its measures, outlet composition, profiles and path. */
@@ -42,7 +47,8 @@ export function NetworkCandidateView({
   const [unit, setUnit] = useUrlUnit(c.totalVolume ?? null);
   const units = useNetworkUnits(typedUnits);
   const sweepHref = back?.startsWith("/projects/") ? back : `/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}`;
-  const product = c.product;
+  const product = productOf(c);
+  const key = c.keyReactant ?? c.paths?.key ?? "the key reactant";
   const tau = trainResidenceTime(c.stages);
   const ref = c.scenario.reference;
   const refText = (r: { objective: number; volume: number } | null | undefined) => (r ? `${objectiveValueText(objective, r.objective, unit)} at ${formatVolume(r.volume, unit)}` : "—");
@@ -117,14 +123,14 @@ export function NetworkCandidateView({
           <section className="card p-4" aria-labelledby="path-title">
             <h2 id="path-title">Concentration path</h2>
             <p className="mb-2 text-xs text-ink-soft">
-              {product ?? "The product"} against {c.keyReactant}: the single tube and single stirred tanks of every size from the feed, and each stage of this train in its own colour.
+              {product ?? "The product"} against {key}: the single tube and single stirred tanks of every size from the feed, and each stage of this train in its own colour.
             </p>
-            <NetworkPathChart paths={c.paths} profiles={c.profiles} unit={units.concentration} />
+            {c.paths && c.profiles ? <NetworkPathChart paths={c.paths} profiles={c.profiles} unit={units.concentration} /> : <NotDrawn />}
           </section>
           <section className="card p-4" aria-labelledby="profiles-title">
             <h2 id="profiles-title">Concentration profiles</h2>
             <p className="mb-2 text-xs text-ink-soft">Every species through the train against cumulative residence time; a stirred tank&apos;s contents are uniform at its outlet composition.</p>
-            <NetworkProfilesChart profiles={c.profiles} unit={units.concentration} timeUnit={units.time} />
+            {c.profiles ? <NetworkProfilesChart profiles={c.profiles} unit={units.concentration} timeUnit={units.time} /> : <NotDrawn />}
           </section>
         </div>
       )}
@@ -140,7 +146,7 @@ export function NetworkCandidateView({
         <h2 id="composition-title" className="border-b border-line px-3 py-2">
           Outlet composition
         </h2>
-        <NetworkCompositionTable species={c.species} stages={c.stages} feed={feedOf(c.profiles)} unit={units.concentration} caption={`Outlet composition of rank ${c.rank}`} />
+        <NetworkCompositionTable species={speciesOf(c)} stages={c.stages} feed={feedOf(c.profiles)} unit={units.concentration} caption={`Outlet composition of rank ${c.rank}`} />
       </section>
 
       <div className="grid gap-4 lg:grid-cols-2">

@@ -83,15 +83,28 @@ export interface NetworkCandidateDetail extends NetworkRowFields {
   stageCount: number;
   reason?: string | null;
   stages: NetworkStageResult[];
-  keyReactant: string;
-  product: string | null;
-  species: string[];
-  chemistry?: { feed?: { volumetricFlow?: number | string; concentrations?: Record<string, number | string>; temperature?: number | string } };
-  profiles: NetworkProfiles;
-  paths: NetworkPaths;
+  /** The next five come with the candidate's own answer, not with compare's. */
+  keyReactant?: string;
+  product?: string | null;
+  species?: string[];
+  /** Null when the engine could not draw them for this train (the stored design stands on its own). */
+  profiles?: NetworkProfiles | null;
+  paths?: NetworkPaths | null;
   scenario: { index: number; overrides: Record<string, number>; reference: NetworkReference | null };
   sweep: { id: string; name: string; projectId: string };
   differences?: { volumeOverBest?: number | null; yieldBelowBest?: number | null };
+}
+
+/** The wanted product of a candidate: its own answer's, else the objective its scenario ranked by. */
+export function productOf(c: Pick<NetworkCandidateDetail, "product" | "scenario">): string | null {
+  if (c.product !== undefined) return c.product;
+  const o = c.scenario.reference?.objective;
+  return o && "product" in o && o.product ? o.product : null;
+}
+
+/** The species of a candidate: its answer's list, else those of its first stage's outlet. */
+export function speciesOf(c: Pick<NetworkCandidateDetail, "species" | "stages">): string[] {
+  return c.species ?? Object.keys(c.stages[0]?.outlet ?? {});
 }
 
 /** True for a candidate answer of the network kind. */

@@ -5,7 +5,7 @@ import { Cautions } from "@/components/cautions/cautions";
 import { NetworkCompositionTable } from "@/components/candidates/network-composition-table";
 import { NetworkPathChart } from "@/components/candidates/network-charts";
 import { feedOf, objectiveLabel, percent, trainResidenceTime } from "@/components/candidates/network-results-data";
-import type { NetworkCandidateDetail } from "@/components/candidates/network-types";
+import { productOf, speciesOf, type NetworkCandidateDetail } from "@/components/candidates/network-types";
 import { useNetworkUnits } from "@/components/candidates/network-units";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
@@ -23,8 +23,8 @@ const gap = (v: number | null, text: (n: number) => string, sign: "+" | "−") =
 export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
   const [unit, setUnit] = useUrlUnit(Math.max(0, ...list.map((c) => c.totalVolume ?? 0)) || null);
   const units = useNetworkUnits();
-  const diffs = compareNetworkTrains(list);
-  const products = [...new Set(list.map((c) => c.product).filter((p): p is string => !!p))];
+  const diffs = compareNetworkTrains(list.map((c) => ({ ...c, product: productOf(c) })));
+  const products = [...new Set(list.map(productOf).filter((p): p is string => !!p))];
   const product = products.length === 1 ? products[0] : null;
   const sweepsCompared = [...new Map(list.map((c) => [c.sweep.id, c.sweep])).values()];
   const conc = (v: number | null) => (v === null ? "—" : `${formatNumber(fromSI("concentration", v, units.concentration), 4, TABLE_NUMBERS)} ${unitLabel("concentration", units.concentration)}`);
@@ -121,7 +121,7 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
               <p className="p-3 text-red-800">This train cannot meet the limits{c.reason ? `: ${c.reason}` : "."}</p>
             ) : null}
             <NetworkCompositionTable
-              species={c.species ?? Object.keys(c.stages[0]?.outlet ?? {})}
+              species={speciesOf(c)}
               stages={c.stages}
               feed={c.profiles ? feedOf(c.profiles) : null}
               unit={units.concentration}

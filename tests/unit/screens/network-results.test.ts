@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { designNetwork, type NetworkDesignSpec, type NetworkStageResult } from "@/lib/engine";
 import { compositionRows, feedOf, objectiveLabel, pathSeries, profileSeries, stageSpans, trainResidenceTime, boundNote } from "@/components/candidates/network-results-data";
-import type { NetworkPaths, NetworkProfiles, PathPoint } from "@/components/candidates/network-types";
+import { productOf, speciesOf, type NetworkPaths, type NetworkProfiles, type PathPoint } from "@/components/candidates/network-types";
 import { compareNetworkTrains } from "@/components/compare/network-compare-data";
 import { typedUnits } from "@/lib/units/typed-units";
 
@@ -170,6 +170,17 @@ describe("compare trains of several reactions", () => {
     expect(d[0]).toEqual({ id: "a", yieldBelowBest: 0, selectivityBelowBest: expect.closeTo(0.1, 12), volumeOverBest: 0.5, productOutlet: 600 });
     expect(d[1]).toEqual({ id: "b", yieldBelowBest: expect.closeTo(0.1, 12), selectivityBelowBest: 0, volumeOverBest: 0, productOutlet: 500 });
     expect(d[2]).toEqual({ id: "c", yieldBelowBest: null, selectivityBelowBest: null, volumeOverBest: null, productOutlet: null });
+  });
+});
+
+describe("a compared candidate without its own product and species", () => {
+  it("takes the product from the objective its scenario ranked by, and the species from its outlet", () => {
+    const scenario = (objective: { maximise: "yield"; product: string } | { minimise: "volume" }) => ({ index: 0, overrides: {}, reference: { kind: "network" as const, singleCSTR: null, singlePFR: null, objective, feedVolumetricFlow: 0.01 } });
+    expect(productOf({ scenario: scenario({ maximise: "yield", product: "B" }) })).toBe("B");
+    expect(productOf({ scenario: scenario({ minimise: "volume" }) })).toBeNull();
+    expect(productOf({ product: null, scenario: scenario({ maximise: "yield", product: "B" }) })).toBeNull();
+    expect(speciesOf({ stages: [{ type: "CSTR", volume: 1, residenceTime: 1, temperature: 300, outlet: { A: 1, B: 2 } }] })).toEqual(["A", "B"]);
+    expect(speciesOf({ species: ["A", "B", "C"], stages: [] })).toEqual(["A", "B", "C"]);
   });
 });
 
