@@ -11,7 +11,8 @@ import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
-import type { CandidateDetail, SweepView } from "@/lib/services/views";
+// One-reaction screen until it learns the network kind (kind "network" carries other stages).
+import type { CandidateAnswer, SweepView } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
@@ -23,7 +24,7 @@ import { TemperatureProfile } from "./temperature-profile";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import type { UnitKind } from "@/lib/units/display";
 import { NetworkCandidateView } from "./network-candidate-view";
-import { isNetworkCandidate } from "./network-types";
+import type { NetworkCandidateDetail } from "./network-types";
 import { networkObjectiveOf } from "@/components/sweeps/network-sweep";
 
 export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId: string; canPin: boolean; typedUnits?: Partial<Record<UnitKind, string>> }) {
@@ -31,7 +32,7 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
   const back = params.get("back");
   const q = useQuery({
     queryKey: ["candidate", candidateId],
-    queryFn: () => fetchJson<{ candidate: CandidateDetail }>(`/api/candidates/${candidateId}`).then((r) => r.candidate),
+    queryFn: () => fetchJson<{ candidate: CandidateAnswer }>(`/api/candidates/${candidateId}`).then((r) => r.candidate),
   });
   const sweepId = q.data?.sweep.id;
   const sweepQ = useQuery({
@@ -44,17 +45,19 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
   if (q.isPending) return <LoadingPanel label="Loading the candidate…" />;
   if (q.isError) return <ErrorPanel error={q.error} what="this candidate" />;
   // A train of several reactions has its own view (measures, composition, profiles, path).
-  if (isNetworkCandidate(q.data)) {
-    const n = q.data;
+  if (q.data.kind === "network") {
+    // The server's answer, read through the screens' own shape of it (a mismatch fails to compile here).
+    const n: NetworkCandidateDetail = q.data;
     return <NetworkCandidateView c={n} canPin={canPin} back={back} objective={n.scenario.reference?.objective ?? networkObjectiveOf(sweepQ.data)} typedUnits={typedUnits} />;
   }
   const c = q.data;
   const sweepHref = back?.startsWith("/projects/") ? back : `/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}`;
   const ref = c.scenario.reference;
-  const thermal = sweepQ.data?.spec.reaction?.thermal;
+  const singleSpec = sweepQ.data?.kind === "single" ? sweepQ.data.spec : undefined;
+  const thermal = singleSpec?.reaction?.thermal;
   const adiabatic = thermal?.mode === "adiabatic" || c.stages.some((s) => Math.abs(s.temperatureOut - s.temperatureIn) > 1e-6);
   const warnings = thermalWarnings({ thermal, stageTemperatures: c.stages.map((s) => s.temperatureOut) });
-  const target = sweepQ.data?.spec.target?.conversion;
+  const target = singleSpec?.target?.conversion;
   const empty = c.stages.filter((s) => s.volume === 0).map((s) => c.stages.indexOf(s) + 1);
 
   return (

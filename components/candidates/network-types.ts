@@ -1,47 +1,14 @@
 /**
- * The shapes the API answers with for a sweep of several reactions (issue 13's contract), as the
- * screens read them. Written here rather than derived in lib/services/views.ts because the server
- * side lands in its own branch; the fields and their units are the contract's, so the derived types
- * fit these once merged. Types only.
+ * The shapes of the API's answers for a sweep of several reactions, as the screens read them: the
+ * server's derived types (lib/services/views.ts) are assigned to these where the screens take them, so
+ * a change on either side fails to compile there. The compare items lack the candidate's own extras
+ * (product, species, profiles, paths), which is why those are optional here. Types only.
  */
-import type { NetworkObjective, NetworkReferenceDesign, NetworkStageResult, StageType } from "@/lib/engine";
+import type { NetworkObjective, NetworkPaths, NetworkReferenceDesign, NetworkStageResult, NetworkTrainProfiles, StageType } from "@/lib/engine";
 
-/** A point of a single tube's or a single stirred tank's path from the feed. */
-export interface PathPoint {
-  /** s (tube: along it; tank: the tank's own). */
-  residenceTime: number;
-  conversion: number;
-  /** C_key, mol/m3. */
-  key: number;
-  /** C_product, mol/m3 (null without a product). */
-  product: number | null;
-  selectivity: number | null;
-  concentrations: Record<string, number>;
-  /** Tanks only: 0 = lowest-conversion state, 1, 2 … when several exist at this size. */
-  steadyState?: number;
-}
-
-export interface NetworkPaths {
-  key: string;
-  product: string | null;
-  tube: PathPoint[];
-  tanks: PathPoint[];
-  residenceTimes: { from: number; to: number };
-}
-
-export interface TrainProfileStage {
-  type: StageType;
-  /** Cumulative, s, with the feed's volumetric flow. */
-  startResidenceTime: number;
-  endResidenceTime: number;
-  /** Tube: inlet .. outlet; tank: [inlet at start, outlet at start, outlet at end]. */
-  points: { residenceTime: number; concentrations: Record<string, number> }[];
-}
-
-export interface NetworkProfiles {
-  species: string[];
-  stages: TrainProfileStage[];
-}
+/** The engine's views as the candidate answer carries them (computed on request, never stored). */
+export type { NetworkPaths, PathPoint, TrainProfileStage } from "@/lib/engine";
+export type NetworkProfiles = NetworkTrainProfiles;
 
 /** A network scenario's single-stage references and what it ranked by. */
 export interface NetworkReference {
@@ -105,9 +72,4 @@ export function productOf(c: Pick<NetworkCandidateDetail, "product" | "scenario"
 /** The species of a candidate: its answer's list, else those of its first stage's outlet. */
 export function speciesOf(c: Pick<NetworkCandidateDetail, "species" | "stages">): string[] {
   return c.species ?? Object.keys(c.stages[0]?.outlet ?? {});
-}
-
-/** True for a candidate answer of the network kind. */
-export function isNetworkCandidate(c: unknown): c is NetworkCandidateDetail {
-  return typeof c === "object" && c !== null && (c as { kind?: unknown }).kind === "network";
 }

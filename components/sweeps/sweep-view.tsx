@@ -110,7 +110,8 @@ export function SweepView({
   const candidateHref = useCallback((id: string) => `/projects/${projectId}/sweeps/${sweepId}/candidates/${id}?${urlView.unit ? `unit=${urlView.unit}&` : ""}back=${back}`, [projectId, sweepId, urlView.unit, back]);
 
   const rows = candidatesQ.data?.items;
-  const target = sweep?.spec.target?.conversion;
+  const singleSpec = sweep?.kind === "single" ? sweep.spec : undefined;
+  const target = singleSpec?.target?.conversion;
   const yMax = useMemo(() => {
     const charts = (rows ?? []).filter((r) => !network && r.feasible && r.levenspiel?.length).map((r) => ({ ...chartInputs(r.stages, r.levenspiel), target }));
     return charts.length ? sharedYMax(charts) : undefined;
@@ -120,7 +121,7 @@ export function SweepView({
   if (sweepQ.isError || !sweep) return <ErrorPanel error={sweepQ.error} what="this sweep" />;
 
   const networkObjective = networkObjectiveOf(sweep);
-  const objective: RankedBy = networkObjective ? ("maximise" in networkObjective ? networkObjective.maximise : "volume") : (sweep.spec.objective?.minimise ?? "volume");
+  const objective: RankedBy = networkObjective ? ("maximise" in networkObjective ? networkObjective.maximise : "volume") : (singleSpec?.objective?.minimise ?? "volume");
   const product = networkObjective?.product ?? null;
   const limits = networkConstraintsOf(sweep);
   const scenarios = scenariosQ.data ?? [];
@@ -130,7 +131,7 @@ export function SweepView({
   const targetText = swept.length ? `${Math.min(...swept)}–${Math.max(...swept)} (varied)` : (target ?? "—");
   const page = candidatesQ.data;
   const pages = page ? Math.max(1, Math.ceil(page.total / view.pageSize)) : 1;
-  const warnings = network ? [] : thermalWarnings({ thermal: sweep.spec.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
+  const warnings = network ? [] : thermalWarnings({ thermal: singleSpec?.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
 
   return (
     <div className="space-y-5">
