@@ -6,7 +6,6 @@ import { candidateExportHref } from "@/components/reports/export-links";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
-import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import { fromSI, unitLabel, type UnitKind } from "@/lib/units/display";
@@ -52,11 +51,18 @@ export function NetworkCandidateView({
   const tau = trainResidenceTime(c.stages);
   const ref = c.scenario.reference;
   const refText = (r: { objective: number; volume: number } | null | undefined) => (r ? `${objectiveValueText(objective, r.objective, unit)} at ${formatVolume(r.volume, unit)}` : "—");
+  // The measure ranked by is marked rather than shown twice.
+  const ranked = objective ? ("maximise" in objective ? objective.maximise : "volume") : null;
+  const mark = (label: string, by: string) => (ranked === by ? `${label} · ranked by` : label);
   const measures: [string, string][] = [
-    [objectiveLabel(objective), objectiveValueText(objective, c.objectiveValue, unit)],
-    ["Conversion", percent(c.conversion)],
-    ...(product ? ([[`Yield of ${product}`, percent(c.yield)], [`Selectivity to ${product}`, percent(c.selectivity)]] as [string, string][]) : []),
-    ["Total volume", formatVolume(c.totalVolume, unit, 4)],
+    ...(product
+      ? ([
+          [mark(`Yield of ${product}`, "yield"), percent(c.yield, 2)],
+          [mark(`Selectivity to ${product}`, "selectivity"), percent(c.selectivity, 2)],
+        ] as [string, string][])
+      : []),
+    ["Conversion", percent(c.conversion, 2)],
+    [mark("Total volume", "volume"), formatVolume(c.totalVolume, unit, 4)],
     ["Residence time", tau === null ? "—" : `${formatNumber(fromSI("time", tau, units.time), 4, TABLE_NUMBERS)} ${unitLabel("time", units.time)}`],
     ["Single tube", refText(ref?.singlePFR)],
     ["Single stirred tank", refText(ref?.singleCSTR)],
@@ -156,12 +162,7 @@ export function NetworkCandidateView({
             <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
           </div>
         </section>
-        {c.feasible ? (
-          <section className="card p-4" aria-labelledby="robustness-title">
-            <h2 id="robustness-title">Robustness</h2>
-            <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
-          </section>
-        ) : null}
+        {/* Robustness rating of a network train (yield's distribution) comes with its own service; its panel goes here once the service rates networks. */}
       </div>
       <Cautions />
     </div>

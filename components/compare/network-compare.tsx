@@ -4,7 +4,7 @@ import Link from "next/link";
 import { Cautions } from "@/components/cautions/cautions";
 import { NetworkCompositionTable } from "@/components/candidates/network-composition-table";
 import { NetworkPathChart } from "@/components/candidates/network-charts";
-import { feedOf, objectiveLabel, percent, trainResidenceTime } from "@/components/candidates/network-results-data";
+import { boundNote, feedOf, objectiveLabel, percent, trainResidenceTime } from "@/components/candidates/network-results-data";
 import { productOf, speciesOf, type NetworkCandidateDetail } from "@/components/candidates/network-types";
 import { useNetworkUnits } from "@/components/candidates/network-units";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
@@ -50,6 +50,7 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
       },
     ],
     ...(product ? ([[`${product} leaving the train`, (_c, i) => conc(diffs[i]!.productOutlet)]] as [string, (c: NetworkCandidateDetail, i: number) => React.ReactNode][]) : []),
+    ["On a limit", (c) => (c.onBound?.length ? c.onBound.map(boundNote).join("; ") : "—")],
   ];
 
   return (
