@@ -156,6 +156,8 @@ test("network sweep builder: a yield sweep with a volume limit in litres reaches
   await page.getByLabel("Minimum conversion, %", { exact: true }).fill("150");
   await expect(page.getByText("Minimum conversion is a percentage from 0 to 100")).toBeVisible();
   await page.getByLabel("Minimum conversion, %", { exact: true }).fill("40");
+  await expectNoSeriousA11yViolations(page);
+  await page.screenshot({ path: `${SCREENS}/network-builder.png`, fullPage: true });
   await page.getByRole("button", { name: "Submit sweep" }).click();
   await expect(page).toHaveURL(/\/sweeps\/[0-9a-f-]{36}$/, { timeout: 60_000 });
   await appReady(page);

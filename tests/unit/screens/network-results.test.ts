@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { designNetwork, type NetworkDesignSpec, type NetworkStageResult } from "@/lib/engine";
+import { designNetwork, networkTrainProfiles, rateNetworkTrain, type NetworkDesignSpec, type NetworkStageResult } from "@/lib/engine";
 import { compositionRows, feedOf, objectiveLabel, pathSeries, profileSeries, stageSpans, trainResidenceTime, boundNote } from "@/components/candidates/network-results-data";
 import { productOf, speciesOf, type NetworkPaths, type NetworkProfiles, type PathPoint } from "@/components/candidates/network-types";
 import { compareNetworkTrains } from "@/components/compare/network-compare-data";
@@ -109,6 +109,36 @@ describe("concentration profiles", () => {
       { from: TANK, to: TANK + 3, label: "2 PFR" },
     ]);
     expect(feedOf(profiles)).toEqual({ A: CA0, B: 0, C: 0 });
+  });
+});
+
+describe("profiles and composition of a train agree", { timeout: 60000 }, () => {
+  it("each stage's profile ends at the outlet the composition table shows; tank then tube by the closed forms (Levenspiel, ch. 8)", () => {
+    // A 2 s tank then a 1 s tube at v0 = 0.01 m3/s.
+    const spec = series({ candidates: [["CSTR", "PFR"]] });
+    const train = [
+      { type: "CSTR" as const, volume: 0.02 },
+      { type: "PFR" as const, volume: 0.01 },
+    ];
+    const rating = rateNetworkTrain(spec, train, "B");
+    const stages: NetworkStageResult[] = rating.stages.map((st, i) => ({ ...train[i]!, residenceTime: train[i]!.volume / 0.01, temperature: 300, outlet: st.outlet }));
+    const prof = networkTrainProfiles(spec, train);
+    const rows = compositionRows({ species: prof.species, stages, feed: feedOf(prof) }, "mol/L");
+    expect(rows[0]!.values).toEqual([1, 0, 0]);
+    // The tank: C_A = C_A0/(1 + k1 tau), C_B = k1 tau C_A0/((1 + k1 tau)(1 + k2 tau)).
+    expect(rows[1]!.values[0]!).toBeCloseTo(tankA(2) / 1000, 8);
+    expect(rows[1]!.values[1]!).toBeCloseTo(tankB(2) / 1000, 8);
+    // The tube after it: A decays from the tank's outlet; B by the linear pair's closed form.
+    const [a0, b0] = [tankA(2), tankB(2)];
+    expect(rows[2]!.values[0]!).toBeCloseTo((a0 * Math.exp(-k1)) / 1000, 6);
+    expect(rows[2]!.values[1]!).toBeCloseTo((((a0 * k1) / (k2 - k1)) * (Math.exp(-k1) - Math.exp(-k2)) + b0 * Math.exp(-k2)) / 1000, 6);
+    const lines = profileSeries(prof, "mol/L", "s");
+    prof.stages.forEach((st, i) => {
+      prof.species.forEach((_sp, j) => {
+        const last = lines[j]!.points.filter((p) => Math.abs(p.x - st.endResidenceTime) < 1e-9).pop()!;
+        expect(Math.abs(last.y - rows[i + 1]!.values[j]!)).toBeLessThan(1e-6);
+      });
+    });
   });
 });
 
