@@ -144,14 +144,24 @@ test("network sweep: yield columns sorted on the server, a candidate's compositi
   await page.close();
 });
 
-test("network sweep builder: a yield sweep with a volume limit in litres reaches the queue as the contract says", async () => {
+test("network sweep builder: errors at their fields, then a yield sweep with a volume limit in litres reaches the queue as the contract says", async () => {
   const page = await openPage(browserCtx, `/projects/${projectId}/sweeps/new?version=${versionId}`);
   await expect(page.getByText("Highest yield of B")).toBeVisible();
   await expect(page.getByLabel("Wanted product", { exact: true })).toHaveValue("B");
-  await page.getByLabel("Largest total volume", { exact: true }).fill("5000");
   await page.getByLabel("Volume unit", { exact: true }).selectOption("L");
   await page.getByLabel("Largest number of stages (1–5)", { exact: true }).fill("1");
   await expect(page.getByTestId("optimisation-count")).toHaveText("2");
+
+  // What the engine refuses comes back at the field a person corrects, and nothing is queued.
+  await page.getByRole("radio", { name: /Least total volume/ }).check();
+  await page.getByLabel("Minimum conversion, %", { exact: true }).fill("50");
+  await page.getByLabel("Largest total volume", { exact: true }).fill("100");
+  await page.getByRole("button", { name: "Submit sweep" }).click();
+  await expect(page.locator("#n-minConversion-error")).toContainText("no train reaches the minimum conversion");
+  await expect(page).toHaveURL(/\/sweeps\/new/);
+
+  await page.getByRole("radio", { name: /Highest yield of B/ }).check();
+  await page.getByLabel("Largest total volume", { exact: true }).fill("5000");
   // A bad limit is refused at its field, in words, before anything is sent.
   await page.getByLabel("Minimum conversion, %", { exact: true }).fill("150");
   await expect(page.getByText("Minimum conversion is a percentage from 0 to 100")).toBeVisible();
