@@ -141,6 +141,20 @@ test("network sweep: yield columns sorted on the server, a candidate's compositi
   await expect(page.getByTestId("cautions")).toBeVisible();
   await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: `${SCREENS}/network-candidate.png`, fullPage: true });
+
+  // Pinned as today, with the frozen outlet composition.
+  await page.getByLabel("Note for the reviewer").fill("Best yield of B within 20 m³; check the heat removal of the tank");
+  await page.getByTestId("pin-button").click();
+  // The project may already hold a current design (the seeded one, or another spec's): then pinning asks first.
+  const supersede = page.getByRole("dialog", { name: "Supersede the current design?" });
+  await expect(page.getByTestId("pin-done").or(supersede)).toBeVisible();
+  if (await supersede.isVisible()) await supersede.getByRole("button", { name: "Pin and supersede" }).click();
+  await expect(page.getByTestId("pin-done")).toBeVisible();
+  const pins = (await (await engineer.get(`/api/projects/${projectId}/pins`)).json()) as { pins: { candidate: { kind?: string; outlet?: Record<string, number> | null } }[] };
+  // Newest first: the one just pinned.
+  const frozen = pins.pins[0]!;
+  expect(frozen.candidate.kind).toBe("network");
+  expect(frozen.candidate.outlet?.B).toBeCloseTo(best.stages[best.stages.length - 1]!.outlet.B!, 6);
   await page.close();
 });
 
