@@ -38,7 +38,7 @@ export function NetworkCompositionTable({
           <tbody>
             {rows.map((r, i) => (
               <tr key={r.label} data-testid="composition-row">
-                <th scope="row" className="whitespace-nowrap font-normal normal-case tracking-normal text-ink">
+                <th scope="row" className="whitespace-nowrap">
                   <span className="inline-flex items-center gap-1.5">
                     {r.label === "Feed" ? null : <StageSwatch index={feed ? i - 1 : i} />}
                     {r.label === "Feed" ? "Feed" : `${r.label} outlet`}
