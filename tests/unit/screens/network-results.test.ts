@@ -4,6 +4,8 @@ import { compositionRows, feedOf, objectiveLabel, pathSeries, profileSeries, sta
 import { productOf, speciesOf, type NetworkPaths, type NetworkProfiles, type PathPoint } from "@/components/candidates/network-types";
 import { compareNetworkTrains } from "@/components/compare/network-compare-data";
 import { typedUnits } from "@/lib/units/typed-units";
+import { formatObjective } from "@/components/sweeps/scenario-picker";
+import { isNetworkSweep, networkConstraintsOf, networkObjectiveOf } from "@/components/sweeps/network-sweep";
 
 // A -> B -> C, first order in the liquid phase; C_A0 = 1000 mol/m3 = 1 mol/L (common practice: 1 L = 1e-3 m3).
 const CA0 = 1000;
@@ -33,6 +35,20 @@ describe("network results: words", () => {
     expect(objectiveLabel({ maximise: "selectivity", product: "B" })).toBe("Highest selectivity to B");
     expect(objectiveLabel({ minimise: "volume" })).toBe("Least total volume");
     expect(objectiveLabel(null)).toBe("—");
+  });
+  it("names a scenario's best train by what it ranks by", () => {
+    expect(formatObjective(0.4568, "yield", "L")).toBe("yield 45.7 %");
+    expect(formatObjective(0.5293, "selectivity", "L")).toBe("selectivity 52.9 %");
+    expect(formatObjective(null, "yield", "L")).toBe("no feasible train");
+  });
+  it("tells a sweep of several reactions by its kind, or by its spec when the kind is not given", () => {
+    const spec = { reactions: [], objective: { maximise: "yield", product: "B" }, constraints: { minConversion: 0.5 } };
+    expect(isNetworkSweep({ kind: "network", spec })).toBe(true);
+    expect(isNetworkSweep({ kind: "single", spec: { reaction: {} } })).toBe(false);
+    expect(isNetworkSweep({ spec })).toBe(true);
+    expect(networkObjectiveOf({ kind: "network", spec })).toEqual({ maximise: "yield", product: "B" });
+    expect(networkObjectiveOf({ kind: "single", spec })).toBeNull();
+    expect(networkConstraintsOf({ kind: "network", spec })).toEqual({ minConversion: 0.5 });
   });
   it("raises the first letter of an on-a-limit note", () => {
     expect(boundNote("stage 2: zero volume")).toBe("Stage 2: zero volume");
