@@ -16,7 +16,8 @@ import { runMigrations } from "../db/migrate";
 import { seedDemoData } from "../lib/demo/seed";
 import { sweeps, users } from "../db/schema";
 import { startThrowawayCluster, createDatabase } from "../scripts/lib/postgres";
-import type { GridAxis } from "../lib/sweeps/grid";
+import { applyOverrides, expandGrid, type GridAxis } from "../lib/sweeps/grid";
+import { designNetwork, type NetworkDesignSpec } from "../lib/engine";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const fixture = JSON.parse(readFileSync(path.join(root, "tests/fixtures/specs/network-three-reactions.json"), "utf8"));
@@ -89,11 +90,21 @@ async function main() {
     const status = await waitDone(big.id);
     const seconds = (performance.now() - t0) / 1000;
     const count = (await pool.query("select count(*)::int n from candidates where sweep_id = $1", [big.id])).rows[0].n;
+    // The engine alone on a sample of the same scenarios, in this process, at the same load: what the
+    // queue adds is the difference to 200 × this / workers.
+    const [row] = await db.select({ baseSpec: sweeps.baseSpec }).from(sweeps).where(eq(sweeps.id, big.id));
+    const sample = expandGrid(grid).filter((_, i) => i % 20 === 0);
+    designNetwork(applyOverrides(row.baseSpec, sample[0]!) as unknown as NetworkDesignSpec);
+    const e0 = performance.now();
+    for (const o of sample) designNetwork(applyOverrides(row.baseSpec, o) as unknown as NetworkDesignSpec);
+    const perScenario = (performance.now() - e0) / 1000 / sample.length;
+    const load = (await import("node:os")).loadavg()[0]!;
     const failed = (await pool.query("select count(*)::int n from scenarios where sweep_id = $1 and status = 'failed'", [big.id])).rows[0].n;
     console.log(
       "\nSeriatim network queue benchmark (throwaway PostgreSQL, this machine)\n" +
         `  ${WORKERS} workers  200 scenarios × 62 sequences of the three-reaction example, maximising yield: ${seconds.toFixed(2)} s ` +
-        `(${status}, ${count} candidates, ${failed} scenarios refused; goal 60 s)`,
+        `(${status}, ${count} candidates, ${failed} scenarios refused; goal 60 s)\n` +
+        `  engine alone, one process: ${perScenario.toFixed(3)} s per scenario (${sample.length} scenarios), so 200 × that / ${WORKERS} = ${((200 * perScenario) / WORKERS).toFixed(1)} s without the queue; load average ${load.toFixed(1)}`,
     );
     await stopAll(ws);
     children.length = 0;

@@ -61,7 +61,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   // The scenario (with the team check) and the page are read concurrently; the page is only
   // returned when the scenario query found the sweep in the actor's team.
   const scenarioQuery = db
-    .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference })
+    .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference, network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'` })
     .from(scenarios)
     .innerJoin(sweeps, eq(sweeps.id, scenarios.sweepId))
     .where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex), eq(sweeps.teamId, actor.teamId)));
@@ -91,6 +91,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
   const items = rows.map(({ filteredTotal: _t, ...c }) => c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>);
   return {
+    kind: scenario.network ? ("network" as const) : ("single" as const),
     scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference as ScenarioReference | NetworkScenarioReference | null },
     page: q.page,
     pageSize: q.pageSize,

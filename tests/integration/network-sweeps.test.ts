@@ -163,9 +163,15 @@ describe("sweeps of a model of several reactions", () => {
 
   it("list candidates sorted by yield, highest first, in the database", async () => {
     const page = await listCandidates(t.db, engineer, sweepId, 1, candidateQuerySchema.parse({ sort: "yield", dir: "desc" }));
+    expect(page.kind).toBe("network");
     const yields = page.items.filter((c) => c.feasible).map((c) => c.yield!);
     expect(yields.length).toBeGreaterThan(1);
     expect(yields).toEqual([...yields].sort((a, b) => b - a));
+    // The same order from the engine's own answer for scenario 2, sorted here by yield (ties by rank).
+    const [row] = await t.db.select().from(sweeps).where(eq(sweeps.id, sweepId));
+    const direct = designNetwork(applyOverrides(row!.baseSpec, page.scenario.overrides) as unknown as NetworkDesignSpec);
+    const byYield = direct.candidates.filter((c) => c.feasible).sort((a, b) => b.yield! - a.yield! || a.rank - b.rank);
+    expect(page.items.filter((c) => c.feasible).map((c) => c.sequenceKey)).toEqual(byYield.map((c) => c.sequence.join("-")));
     expect(page.items[0]).toMatchObject({ conversion: expect.any(Number), selectivity: expect.any(Number), objectiveValue: expect.any(Number), onBound: expect.any(Array) });
     const stage = page.items[0]!.stages[0] as unknown as { outlet: Record<string, number> };
     expect(Object.keys(stage.outlet).sort()).toEqual(["A", "B", "C", "D"]);
