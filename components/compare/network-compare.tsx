@@ -1,6 +1,8 @@
 "use client";
 
 import Link from "next/link";
+import { useQueries } from "@tanstack/react-query";
+import { fetchJson } from "@/lib/client/fetch-json";
 import { Cautions } from "@/components/cautions/cautions";
 import { NetworkCompositionTable } from "@/components/candidates/network-composition-table";
 import { NetworkPathChart } from "@/components/candidates/network-charts";
@@ -23,6 +25,14 @@ const gap = (v: number | null, text: (n: number) => string, sign: "+" | "−") =
 export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
   const [unit, setUnit] = useUrlUnit(Math.max(0, ...list.map((c) => c.totalVolume ?? 0)) || null);
   const units = useNetworkUnits();
+  // Compare lists the stored rows; each train's profiles and paths come with its own answer, computed on request.
+  const views = useQueries({
+    queries: list.map((c) => ({
+      queryKey: ["candidate", c.id],
+      queryFn: () => fetchJson<{ candidate: NetworkCandidateDetail }>(`/api/candidates/${c.id}`).then((r) => r.candidate),
+      enabled: c.feasible,
+    })),
+  });
   const diffs = compareNetworkTrains(list.map((c) => ({ ...c, product: productOf(c) })));
   const products = [...new Set(list.map(productOf).filter((p): p is string => !!p))];
   const product = products.length === 1 ? products[0] : null;
@@ -114,17 +124,19 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
                 · scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
               </p>
             </div>
-            {c.feasible && c.paths && c.profiles ? (
-              <div className="p-3">
-                <NetworkPathChart paths={c.paths} profiles={c.profiles} unit={units.concentration} height={260} />
-              </div>
-            ) : !c.feasible ? (
+            {!c.feasible ? (
               <p className="p-3 text-red-800">This train cannot meet the limits{c.reason ? `: ${c.reason}` : "."}</p>
+            ) : views[i]?.data?.paths && views[i]?.data?.profiles ? (
+              <div className="p-3">
+                <NetworkPathChart paths={views[i]!.data!.paths!} profiles={views[i]!.data!.profiles!} unit={units.concentration} height={260} />
+              </div>
+            ) : views[i]?.isPending ? (
+              <p className="p-3 text-sm text-ink-soft">Drawing the concentration path…</p>
             ) : null}
             <NetworkCompositionTable
-              species={speciesOf(c)}
+              species={speciesOf(views[i]?.data ?? c)}
               stages={c.stages}
-              feed={c.profiles ? feedOf(c.profiles) : null}
+              feed={feedOf(views[i]?.data?.profiles)}
               unit={units.concentration}
               caption={`Outlet composition of train ${letter(i)}`}
             />

@@ -115,6 +115,9 @@ test("network sweep: yield columns sorted on the server, a candidate's compositi
   await expect(differences).toContainText("Yield below the best");
   await expect(differences).toContainText("best");
   await expect(page.getByTestId("composition-table")).toHaveCount(2);
+  // Each train's concentration path over the single tube's, and the feed row once each train's own answer is in.
+  await expect(page.getByTestId("path-chart")).toHaveCount(2);
+  await expect(page.getByTestId("composition-table").first().getByTestId("composition-row")).toHaveCount(1 + byYield[0]!.stages.length);
   await expectNoSeriousA11yViolations(page);
   await page.screenshot({ path: `${SCREENS}/network-compare.png`, fullPage: true });
 
