@@ -37,7 +37,7 @@ export const networkFormValuesSchema = z.object({
   name: z.string(),
   note: z.string(),
   feed: z.object({ volumetricFlow: quantityInput, temperature: quantityInput }),
-  species: z.array(z.object({ id: z.string(), name: z.string(), conc: quantityInput })),
+  species: z.array(z.object({ key: z.string(), name: z.string(), conc: quantityInput })),
   phase: z.enum(["liquid", "gas"]),
   /** Species ids; "" when none is chosen. */
   keyReactant: z.string(),
@@ -88,9 +88,9 @@ export function defaultNetworkValues(): NetworkFormValues {
     note: "",
     feed: { volumetricFlow: q("2", "L/s"), temperature: q("320", "K") },
     species: [
-      { id: "s1", name: "A", conc: q("1", "mol/L") },
-      { id: "s2", name: "B", conc: q("0", "mol/L") },
-      { id: "s3", name: "C", conc: q("0", "mol/L") },
+      { key: "s1", name: "A", conc: q("1", "mol/L") },
+      { key: "s2", name: "B", conc: q("0", "mol/L") },
+      { key: "s3", name: "C", conc: q("0", "mol/L") },
     ],
     phase: "liquid",
     keyReactant: "s1",
@@ -100,8 +100,8 @@ export function defaultNetworkValues(): NetworkFormValues {
 }
 
 /** An id no species of the form has yet. */
-export function nextSpeciesId(species: { id: string }[]): string {
-  const used = species.map((s) => Number(/^s(\d+)$/.exec(s.id)?.[1] ?? 0));
+export function nextSpeciesId(species: { key: string }[]): string {
+  const used = species.map((s) => Number(/^s(\d+)$/.exec(s.key)?.[1] ?? 0));
   return `s${Math.max(0, ...used) + 1}`;
 }
 
@@ -218,10 +218,10 @@ export function formToNetworkSpec(v: NetworkFormValues): { spec: NetworkKinetics
     else if (seen.has(name)) b.issue(`species.${i}.name`, `${name} is listed twice`);
     else {
       seen.add(name);
-      names.set(s.id, name);
+      names.set(s.key, name);
     }
     const c = b.quantity("concentration", s.conc, `species.${i}.conc`, `feed.concentrations.${name}`);
-    if (c !== undefined && names.get(s.id) === name) concentrations[name] = c;
+    if (c !== undefined && names.get(s.key) === name) concentrations[name] = c;
   });
 
   if (v.reactions.length === 0) b.issue("reactions", "Give at least one reaction");
@@ -260,7 +260,7 @@ export function formToNetworkSpec(v: NetworkFormValues): { spec: NetworkKinetics
  */
 export function networkFormPathOf(specPath: string, v: NetworkFormValues): string {
   const p = specPath.replace(/^spec\./, "").split(".");
-  const idOf = (name: string | undefined) => v.species.find((s) => s.name.trim() === name)?.id;
+  const idOf = (name: string | undefined) => v.species.find((s) => s.name.trim() === name)?.key;
   const [head, a, b, c, d] = p;
   if (head === "name" || head === "note" || head === "phase" || head === "keyReactant" || head === "product") return p.length === 1 ? head : "";
   if (head === "feed") {
@@ -338,7 +338,7 @@ export function reactionText(v: NetworkFormValues, j: number): string {
   const r = v.reactions[j];
   const stoichiometry: Record<string, number> = {};
   for (const s of v.species) {
-    const text = r?.coefficients?.[s.id]?.trim();
+    const text = r?.coefficients?.[s.key]?.trim();
     const n = text ? Number(text) : NaN;
     if (s.name.trim() && Number.isFinite(n) && n !== 0) stoichiometry[s.name.trim()] = n;
   }
@@ -402,7 +402,7 @@ export function networkSpecToForm(spec: NetworkKineticsSpec, extra: { name?: str
       volumetricFlow: qAt("volumetricFlow", "feed.volumetricFlow", spec.feed.volumetricFlow, "L/s"),
       temperature: qAt("temperature", "feed.temperature", spec.feed.temperature, "K"),
     },
-    species: names.map((name) => ({ id: idOf.get(name)!, name, conc: qAt("concentration", `feed.concentrations.${name}`, spec.feed.concentrations[name], "mol/L") })),
+    species: names.map((name) => ({ key: idOf.get(name)!, name, conc: qAt("concentration", `feed.concentrations.${name}`, spec.feed.concentrations[name], "mol/L") })),
     phase: spec.phase,
     keyReactant: idOf.get(spec.keyReactant) ?? "",
     product: spec.product ? (idOf.get(spec.product) ?? "") : "",
