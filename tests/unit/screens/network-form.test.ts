@@ -45,7 +45,7 @@ describe("form of several reactions → stored chemistry", () => {
     v.species[0]!.conc = { value: "0.5", unit: "kmol/m3" };
     // 2 A → D, second order: 6 L/(mol·min) = 6e-3 m³/mol / 60 s = 1e-4 m³/(mol·s)
     const r3 = blankReaction();
-    v.species.push({ id: "s4", name: "D", conc: { value: "0", unit: "mol/L" } });
+    v.species.push({ key: "s4", name: "D", conc: { value: "0", unit: "mol/L" } });
     r3.coefficients = { s1: "-2", s4: "1" };
     r3.orders = { s1: "2" };
     r3.k = { value: "6", conc: "mol/L", time: "min" };
@@ -70,7 +70,7 @@ describe("form of several reactions → stored chemistry", () => {
     v.feed.volumetricFlow = { value: "7.5", unit: "L/min" };
     v.feed.temperature = { value: "60", unit: "degC" };
     v.species[0]!.conc = { value: "0.58", unit: "mol/L" };
-    v.species.push({ id: "s4", name: "N2", conc: { value: "40", unit: "mol/m3" } });
+    v.species.push({ key: "s4", name: "N2", conc: { value: "40", unit: "mol/m3" } });
     v.phase = "gas";
     const r1 = v.reactions[0]!;
     r1.k = { value: "1.5", conc: "mol/L", time: "h" };
