@@ -1,12 +1,13 @@
-import { z } from "zod";
 import { assertCan } from "@/lib/authz/policy";
-import { json, parseWith, readJson } from "@/lib/http";
+import { json, readJsonOfKind } from "@/lib/http";
 import { signedInRoute } from "@/lib/http/signed-in-route";
 import { isNetworkSpec } from "@/lib/schemas/network-spec";
-import { networkPreviewSchema } from "@/lib/schemas/network-preview";
-import { kineticsPreviewSchema } from "@/lib/schemas/sweeps";
+import { networkPreviewSchema, type NetworkPreviewRequest } from "@/lib/schemas/network-preview";
+import { isNetworkKineticsBody, kineticsPreviewSchema } from "@/lib/schemas/sweeps";
 import { previewKinetics } from "@/lib/services/kinetics-checks";
 import { previewNetwork } from "@/lib/services/network-preview";
+
+const severalReactions = (body: { spec: unknown }): body is NetworkPreviewRequest => isNetworkSpec(body.spec);
 
 /**
  * The live charts' data for a draft kinetics spec, computed at once (no queue, nothing stored): the
@@ -14,9 +15,7 @@ import { previewNetwork } from "@/lib/services/network-preview";
  */
 export const POST = signedInRoute(async ({ req, actor }) => {
   assertCan(actor, "kinetics.read");
-  const body = await readJson(req, z.unknown());
-  const spec = typeof body === "object" && body !== null ? (body as { spec?: unknown }).spec : undefined;
-  if (isNetworkSpec(spec)) return json(previewNetwork(parseWith(networkPreviewSchema, body)));
-  const { spec: single, targetConversion } = parseWith(kineticsPreviewSchema, body);
-  return json({ preview: previewKinetics(single, targetConversion) });
+  const body = await readJsonOfKind(req, isNetworkKineticsBody, networkPreviewSchema, kineticsPreviewSchema);
+  if (severalReactions(body)) return json(previewNetwork(body));
+  return json({ preview: previewKinetics(body.spec, body.targetConversion) });
 });
