@@ -31,14 +31,47 @@ export interface Best {
   conversion: number;
 }
 
-/** Where the product's concentration is highest along a path (the first such point); null without a product. */
+/**
+ * Where the product's concentration is highest along a path; null without a product. The drawn points
+ * are a grid, so the peak is refined by the parabola through the best point and its two neighbours
+ * (when it is not at an end): the readout then hardly depends on where the grid happens to fall.
+ */
 export function bestProduct(points: PathPointView[]): Best | null {
-  let best: Best | null = null;
-  for (const p of points) {
-    if (p.product === null || !Number.isFinite(p.product)) continue;
-    if (!best || p.product > best.product) best = { product: p.product, residenceTime: p.residenceTime, conversion: p.conversion };
-  }
-  return best;
+  const pts = points.filter((p) => p.product !== null && Number.isFinite(p.product)).sort((a, b) => a.residenceTime - b.residenceTime);
+  if (pts.length === 0) return null;
+  let i = 0;
+  pts.forEach((p, j) => {
+    if (p.product! > pts[i]!.product!) i = j;
+  });
+  const b = pts[i]!;
+  const best: Best = { product: b.product!, residenceTime: b.residenceTime, conversion: b.conversion };
+  if (i === 0 || i === pts.length - 1) return best;
+  const a = pts[i - 1]!;
+  const c = pts[i + 1]!;
+  // In ln τ where the grid allows (the engine's grid is log-spaced, and a peak is rounder there).
+  const logScale = a.residenceTime > 0;
+  const x = (t: number) => (logScale ? Math.log(t) : t);
+  const peak = parabolaPeak([x(a.residenceTime), a.product!], [x(b.residenceTime), b.product!], [x(c.residenceTime), c.product!]);
+  const vertex = peak && { x: logScale ? Math.exp(peak.x) : peak.x, y: peak.y };
+  if (!vertex || !(vertex.x > a.residenceTime && vertex.x < c.residenceTime) || vertex.y < best.product) return best;
+  // Conversion at the refined time, read linearly from the neighbouring points.
+  const [lo, hi] = vertex.x < b.residenceTime ? [a, b] : [b, c];
+  const f = (vertex.x - lo.residenceTime) / (hi.residenceTime - lo.residenceTime);
+  return { product: vertex.y, residenceTime: vertex.x, conversion: lo.conversion + f * (hi.conversion - lo.conversion) };
+}
+
+/** The vertex of the parabola through three points, or null when they are on a line. */
+function parabolaPeak(p: [number, number], q: [number, number], r: [number, number]): { x: number; y: number } | null {
+  const [x1, y1] = p;
+  const [x2, y2] = q;
+  const [x3, y3] = r;
+  const d = (x1 - x2) * (x1 - x3) * (x2 - x3);
+  const A = (x3 * (y2 - y1) + x2 * (y1 - y3) + x1 * (y3 - y2)) / d;
+  const B = (x3 * x3 * (y1 - y2) + x2 * x2 * (y3 - y1) + x1 * x1 * (y2 - y3)) / d;
+  const C = (x2 * x3 * (x2 - x3) * y1 + x3 * x1 * (x3 - x1) * y2 + x1 * x2 * (x1 - x2) * y3) / d;
+  if (!(A < 0) || !Number.isFinite(A)) return null;
+  const x = -B / (2 * A);
+  return { x, y: C - (B * B) / (4 * A) };
 }
 
 /**

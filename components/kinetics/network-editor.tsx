@@ -57,6 +57,8 @@ export function NetworkEditor({ mode, initial }: { mode: Mode; initial: NetworkF
         const res = await fetchJson<{ version: { version: number } }>(`/api/kinetics/${mode.modelId}/versions`, { method: "POST", json: { spec: body.spec, note: body.note } });
         setSaved(`Saved as version ${res.version.version}.`);
         form.reset(form.getValues());
+        // The page reopens on the new version (the editor remounts on it): its banner carries the news.
+        router.replace(`/projects/${mode.projectId}/kinetics/${mode.modelId}?saved=1`);
         router.refresh();
       }
     } catch (e) {

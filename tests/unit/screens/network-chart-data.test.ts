@@ -20,9 +20,19 @@ describe("live chart readouts of several reactions", () => {
     const best = bestProduct(tube)!;
     const cbMax = CA0 * (k1 / k2) ** (k2 / (k2 - k1));
     const tauMax = Math.log(k2 / k1) / (k2 - k1);
-    expect(best.product).toBeCloseTo(cbMax, 3);
-    expect(Math.abs(best.residenceTime - tauMax)).toBeLessThanOrEqual(0.5); // within one grid step
-    expect(best.conversion).toBeCloseTo(1 - Math.exp(-k1 * best.residenceTime), 12);
+    expect(Math.abs(best.product / cbMax - 1)).toBeLessThan(1e-7);
+    expect(Math.abs(best.residenceTime - tauMax)).toBeLessThan(0.01);
+    expect(best.conversion).toBeCloseTo(1 - Math.exp(-k1 * best.residenceTime), 5); // read linearly between points
+  });
+
+  it("refines the peak between grid points: on a coarse log-spaced grid the readout is ten times closer to the closed form than the best point", () => {
+    const coarse = Array.from({ length: 81 }, (_, i) => 0.05 * (20000 / 0.05) ** (i / 80)).map(tubeAt);
+    const best = bestProduct(coarse)!;
+    const cbMax = CA0 * (k1 / k2) ** (k2 / (k2 - k1));
+    const gridBest = Math.max(...coarse.map((p) => p.product!));
+    expect(Math.abs(gridBest / cbMax - 1)).toBeGreaterThan(1e-3);
+    expect(Math.abs(best.product / cbMax - 1)).toBeLessThan(2e-4);
+    expect(best.residenceTime / (Math.log(k2 / k1) / (k2 - k1))).toBeCloseTo(1, 2);
   });
 
   it("no product, no best", () => {
