@@ -126,3 +126,14 @@ export function selectivitySeries(paths: PathsView, concUnit: string): LineSerie
   const points = paths.tube.filter((p) => p.selectivity !== null && Number.isFinite(p.selectivity)).map((p) => ({ x: conc(p.key, concUnit), y: p.selectivity! }));
   return [{ id: "tube-selectivity", label: "Single tube", points, tone: { stage: 1 } }];
 }
+
+/** Lowest selectivity drawn: below it the wanted product is used up faster than the key reactant, and the curve would flatten the rest. */
+export const SELECTIVITY_FLOOR = -1;
+
+/** The selectivity axis: from the floor (or 0) to 1 or the highest value, and whether points below the floor were cut. */
+export function selectivityRange(series: LineSeries[]): { range: [number, number]; cut: boolean } {
+  const ys = series.flatMap((s) => s.points.map((p) => p.y)).filter(Number.isFinite);
+  const lo = Math.min(0, ...ys);
+  const hi = Math.max(1, ...ys);
+  return { range: [Math.max(lo, SELECTIVITY_FLOOR), hi * 1.04], cut: lo < SELECTIVITY_FLOOR };
+}

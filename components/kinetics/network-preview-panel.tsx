@@ -9,7 +9,7 @@ import { formatNumber } from "@/lib/format/numbers";
 import type { NetworkKineticsSpec } from "@/lib/schemas/network-spec";
 import type { NetworkPreviewAnswer } from "@/lib/services/views";
 import { formatQuantity, unitLabel } from "@/lib/units/display";
-import { bestProduct, pathSeries, residenceTimeAt, selectivitySeries, timeUnitFor, type PathsView } from "./network-chart-data";
+import { bestProduct, pathSeries, residenceTimeAt, selectivityRange, selectivitySeries, timeUnitFor, type PathsView } from "./network-chart-data";
 import { useDebounced } from "./preview-panel";
 
 /** Typing pauses this long before the charts are recomputed (a stale request is cancelled). */
@@ -166,17 +166,21 @@ function SelectivityChart({ paths, concUnit, c }: { paths: PathsView; concUnit: 
   const along = paths.tube.filter((p) => p.selectivity !== null);
   const atFeed = along[0];
   const atEnd = along.at(-1);
+  const series = selectivitySeries(paths, concUnit);
+  const { range, cut } = selectivityRange(series);
   return (
     <div>
       <h3 className="text-sm font-semibold">Instantaneous selectivity to {paths.product}</h3>
       <LineChart
         testId="network-selectivity-chart"
-        series={selectivitySeries(paths, concUnit)}
+        series={series}
+        yRange={range}
         xLabel={`C ${paths.key}, ${c}`}
         yLabel={`${paths.product} formed per ${paths.key} used`}
         summary={`Instantaneous selectivity to ${paths.product} against the concentration of ${paths.key} along a single tube.`}
         height={220}
       />
+      {cut ? <p className="mt-1 text-xs text-ink-soft">Below −1, where {paths.product} is used up faster than {paths.key}, the curve is cut off.</p> : null}
       <dl className="mt-2 grid grid-cols-2 gap-3 text-sm" data-testid="selectivity-readout">
         <div className="rounded border border-line p-2">
           <dt className="text-xs uppercase tracking-wide text-ink-soft">At the feed</dt>

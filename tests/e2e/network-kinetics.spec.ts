@@ -54,6 +54,8 @@ test("an engineer models several reactions, sees the path charts follow a rate c
   await reaction2.getByLabel("Rate of reaction 2, mol/(m³·s)").fill("0.005 * C_B +* 2");
   await expect(page.locator("#f-reactions-1-expression-error")).toBeVisible();
   await expect(page.getByTestId("preview-error")).toContainText("Reaction 2, rate expression");
+  // Read in labels, never a key or a dotted path.
+  expect(await page.getByTestId("preview-error").textContent()).not.toMatch(/\b[a-z]+[A-Z]\w*\b|\w+\.\d+\.\w+/);
   await reaction2.getByRole("radio", { name: /Power law/ }).check();
   await expect.poll(reading(tube)).toBeCloseTo(tubeBest(0.02, 0.0025), 3);
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { bestProduct, pathSeries, residenceTimeAt, selectivitySeries, timeUnitFor, type PathPointView, type PathsView } from "@/components/kinetics/network-chart-data";
+import { bestProduct, pathSeries, residenceTimeAt, selectivityRange, selectivitySeries, timeUnitFor, type PathPointView, type PathsView } from "@/components/kinetics/network-chart-data";
 
 // A → B → C, first order, in a single tube from C_A0 with no B fed (Levenspiel, Chemical Reaction
 // Engineering, 3rd ed., ch. 8): C_A = C_A0 e^(-k1 τ), C_B = C_A0 k1/(k2 - k1) (e^(-k1 τ) - e^(-k2 τ)),
@@ -73,5 +73,12 @@ describe("live chart readouts of several reactions", () => {
   it("selectivity along the tube leaves out points where the key reactant is not consumed", () => {
     const s = selectivitySeries({ key: "A", product: "B", tube: [tubeAt(0), { ...tubeAt(10), selectivity: null }], tanks: [] }, "mol/m3");
     expect(s[0]!.points).toEqual([{ x: 1000, y: 1 }]);
+  });
+
+  it("the selectivity axis stops at −1 so the useful part is not flattened", () => {
+    const along = selectivitySeries({ key: "A", product: "B", tube, tanks: [] }, "mol/L");
+    expect(Math.min(...along[0]!.points.map((p) => p.y))).toBeLessThan(-10); // A → B → C far along: B is used faster than A
+    expect(selectivityRange(along)).toEqual({ range: [-1, 1.04], cut: true });
+    expect(selectivityRange([{ id: "s", label: "s", tone: "muted", points: [{ x: 1, y: 0.4 }] }])).toEqual({ range: [0, 1.04], cut: false });
   });
 });
