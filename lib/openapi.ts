@@ -21,6 +21,7 @@ import {
 import { fitRequestSchema, fitSaveSchema } from "./schemas/fits";
 import { costBasisSchema, rateRequestSchema } from "./schemas/costs";
 import { inventoryVesselSchema, inventoryVesselUpdateSchema } from "./schemas/inventory";
+import { networkPreviewSchema } from "./schemas/network-preview";
 import { createFormDoc, previewFormDoc, tableKineticsSchema, versionFormDoc } from "./schemas/datasets";
 import { robustnessCreateSchema } from "./schemas/robustness";
 
@@ -62,7 +63,7 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "post", path: "/api/projects/{projectId}/kinetics", summary: "Create a kinetics model (version 1): one reaction, or several (a spec with reactions)", body: z.union([kineticsModelCreateSchema, networkKineticsModelCreateSchema]), status: 201 },
   { method: "get", path: "/api/kinetics/{modelId}", summary: "A kinetics model with every version" },
   { method: "post", path: "/api/kinetics/{modelId}/versions", summary: "Save a new version of a kinetics model (of the model's kind; 409 otherwise)", body: z.union([kineticsVersionCreateSchema, networkKineticsVersionCreateSchema]), status: 201 },
-  { method: "post", path: "/api/kinetics/preview", summary: "Levenspiel curve, equilibrium limit and single-stage references of a draft, without queueing", body: kineticsPreviewSchema },
+  { method: "post", path: "/api/kinetics/preview", summary: "Live charts of a draft, without queueing: one reaction's Levenspiel curve, equilibrium limit and single-stage references; or, for several reactions (a spec with reactions), the concentration paths of a single tube and single stirred tanks from the feed with the instantaneous selectivity", body: z.union([kineticsPreviewSchema, networkPreviewSchema]) },
   { method: "post", path: "/api/dataset-versions/{versionId}/fits", summary: "Fit rate laws to a dataset version: parameters with standard errors and 95 % intervals, RSS, R², AIC, parity and residuals (nothing stored)", body: fitRequestSchema },
   { method: "post", path: "/api/dataset-versions/{versionId}/kinetics", summary: "Refit one law and save it as a kinetics model or a new version, with the dataset version as its source", body: fitSaveSchema, status: 201 },
   { method: "get", path: "/api/projects/{projectId}/sweeps", summary: "Sweeps of a project, newest first" },

@@ -15,6 +15,7 @@ import type { listPins } from "./pins";
 import type { ProjectView } from "./projects";
 import type { rateFixedTrain } from "./rating";
 import type { listReviewInbox } from "./reviews";
+import type { previewNetwork } from "./network-preview";
 import type { getRun, listCandidateRuns } from "./robustness";
 import type { getSweep, listScenarios, listSweeps } from "./sweeps";
 
@@ -69,3 +70,6 @@ export type OpenInvitationView = Answer<typeof listOpenInvitations>[number];
 export type ProjectListItem = Jsonify<ProjectView>;
 export type DatasetListItem = Answer<typeof listDatasets>[number];
 export type AuditEntryView = Answer<typeof listAuditEntries>[number];
+
+/** The live charts of a draft model of several reactions (POST /api/kinetics/preview). */
+export type NetworkPreviewAnswer = Jsonify<ReturnType<typeof previewNetwork>>;

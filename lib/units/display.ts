@@ -54,6 +54,15 @@ export const UNITS = {
     degC: { label: "°C (difference)", factor: 1 },
     degF: { label: "°F (difference)", factor: 5 / 9 },
   },
+  /** Volumetric flow of a feed (models of several reactions), m3/s. */
+  volumetricFlow: {
+    "m3/s": { label: "m³/s", factor: 1 },
+    "m3/h": { label: "m³/h", factor: 1 / HOUR },
+    "L/s": { label: "L/s", factor: LITRE },
+    "L/min": { label: "L/min", factor: LITRE / MIN },
+    "L/h": { label: "L/h", factor: LITRE / HOUR },
+    "gal/min": { label: "US gal/min", factor: GAL / MIN },
+  },
   molarFlow: {
     "mol/s": { label: "mol/s", factor: 1 },
     "mol/min": { label: "mol/min", factor: 1 / MIN },
@@ -94,6 +103,7 @@ export const SI_UNIT: { [K in UnitKind]: UnitOf<K> } = {
   amount: "mol",
   temperature: "K",
   temperatureDifference: "K",
+  volumetricFlow: "m3/s",
   molarFlow: "mol/s",
   concentration: "mol/m3",
   rate: "mol/(m3 s)",

@@ -15,6 +15,7 @@ import { candidateExportQuerySchema } from "@/lib/schemas/report-exports";
 import { designSpecSchema, ratingSpecSchema } from "@/lib/schemas/sweep-spec";
 import { displayUnitsSchema } from "@/lib/schemas/display-units";
 import { networkSpecSchema } from "@/lib/schemas/network-spec";
+import { networkPreviewSchema } from "@/lib/schemas/network-preview";
 
 /** Every schema a route handler, upload reader or the command line reads a body or query with. */
 const BOUNDARY: Record<string, z.ZodType> = {
@@ -24,6 +25,7 @@ const BOUNDARY: Record<string, z.ZodType> = {
   costBasisSchema, rateRequestSchema, robustnessCreateSchema, fitRequestSchema, fitSaveSchema, datasetPreviewFieldsSchema,
   datasetCreateFieldsSchema, datasetVersionFieldsSchema, tableKineticsSchema, inventoryVesselSchema, inventoryVesselUpdateSchema,
   inventoryImportFieldsSchema, auditQuerySchema, candidateExportQuerySchema, designSpecSchema, ratingSpecSchema, displayUnitsSchema, networkSpecSchema,
+  networkPreviewSchema,
 };
 
 interface Def { type: string; shape?: Record<string, z.ZodType>; element?: z.ZodType; valueType?: z.ZodType; options?: z.ZodType[]; innerType?: z.ZodType; in?: z.ZodType; out?: z.ZodType; left?: z.ZodType; right?: z.ZodType }

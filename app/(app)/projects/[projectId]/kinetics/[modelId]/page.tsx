@@ -3,6 +3,8 @@ import { ProjectCrumbs } from "@/components/layout/breadcrumbs";
 import { notFound } from "next/navigation";
 import { specToForm } from "@/components/kinetics/kinetics-form-state";
 import { KineticsEditor } from "@/components/kinetics/kinetics-editor";
+import { networkSpecToForm } from "@/components/kinetics/network-form-state";
+import { NetworkEditor } from "@/components/kinetics/network-editor";
 import { loadProjectPage, orNotFound } from "../../project-data";
 import { FormMessage } from "@/components/ui/field";
 import { getDb } from "@/db/client";
@@ -10,6 +12,8 @@ import { normaliseKinetics } from "@/lib/engine";
 import { can } from "@/lib/authz/policy";
 import { uuidSchema } from "@/lib/schemas/ids";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
+import { isNetworkSpec, networkKineticsSpecSchema } from "@/lib/schemas/network-spec";
+import { networkKineticsInSI } from "@/lib/units/network-kinetics-si";
 import { getKineticsModel } from "@/lib/services/kinetics";
 import { FitSourceLine } from "@/components/fitting/fit-source-line";
 import { listKineticsSources } from "@/lib/services/fits";
@@ -34,12 +38,18 @@ export default async function KineticsModelPage({
   if (model.projectId !== project.id) notFound();
   const latest = model.versions[0];
   const sources = new Map((await listKineticsSources(getDb(), actor, model.versions.map((v) => v.id))).map((s) => [s.kineticsVersionId, s]));
+  // A model's kind never changes between versions: the latest tells which editor opens.
+  const several = isNetworkSpec(latest.spec);
   let initial;
+  let networkInitial;
   try {
-    initial = specToForm(normaliseKinetics(latest.spec as KineticsSpec), { note: "" });
+    if (several) networkInitial = networkSpecToForm(networkKineticsInSI(networkKineticsSpecSchema.parse(latest.spec)), { note: "" });
+    else initial = specToForm(normaliseKinetics(latest.spec as KineticsSpec), { note: "" });
   } catch {
     initial = null;
+    networkInitial = null;
   }
+  const mode = { kind: "version" as const, projectId: project.id, modelId: model.id, modelName: model.name, latestVersion: latest.version };
 
   return (
     <div className="space-y-4">
@@ -59,12 +69,10 @@ export default async function KineticsModelPage({
         ) : null}
       </div>
       {saved ? <FormMessage kind="info">Saved as version {latest.version}. Edit below to make the next version, or build a sweep on it.</FormMessage> : null}
-      {initial && can(actor, "kinetics.create") ? (
-        <KineticsEditor
-          key={latest.id}
-          mode={{ kind: "version", projectId: project.id, modelId: model.id, modelName: model.name, latestVersion: latest.version }}
-          initial={initial}
-        />
+      {networkInitial && can(actor, "kinetics.create") ? (
+        <NetworkEditor key={latest.id} mode={mode} initial={networkInitial} />
+      ) : initial && can(actor, "kinetics.create") ? (
+        <KineticsEditor key={latest.id} mode={mode} initial={initial} />
       ) : (
         <pre className="card overflow-auto p-4 text-xs">{JSON.stringify(latest.spec, null, 2)}</pre>
       )}
@@ -77,7 +85,7 @@ export default async function KineticsModelPage({
             <tr>
               <th scope="col">Version</th>
               <th scope="col">Saved (UTC)</th>
-              <th scope="col">Rate law</th>
+              <th scope="col">{several ? "Reactions" : "Rate law"}</th>
               <th scope="col">Note</th>
             </tr>
           </thead>
@@ -86,7 +94,7 @@ export default async function KineticsModelPage({
               <tr key={v.id}>
                 <td className="num">v{v.version}</td>
                 <td className="num whitespace-nowrap">{formatDateTime(v.createdAt)}</td>
-                <td>{((v.spec as KineticsSpec).reaction?.rate?.law ?? "—").toString()}</td>
+                <td>{several ? reactionsSummary(v.spec) : ((v.spec as KineticsSpec).reaction?.rate?.law ?? "—").toString()}</td>
                 <td className="text-ink-soft">
                   {v.note || (sources.has(v.id) ? null : "—")}
                   {sources.has(v.id) ? <FitSourceLine projectId={project.id} source={sources.get(v.id)!} /> : null}
@@ -98,4 +106,11 @@ export default async function KineticsModelPage({
       </section>
     </div>
   );
+}
+
+/** "3 reactions, key reactant A, wanted product B" for a version's row. */
+function reactionsSummary(spec: unknown): string {
+  const s = spec as { reactions?: unknown[]; keyReactant?: string; product?: string };
+  const n = s.reactions?.length ?? 0;
+  return [`${n} reaction${n === 1 ? "" : "s"}`, s.keyReactant ? `key reactant ${s.keyReactant}` : "", s.product ? `wanted product ${s.product}` : ""].filter(Boolean).join(", ");
 }
