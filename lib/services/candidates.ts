@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, like, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, like, sql, type AnyColumn, type SQL } from "drizzle-orm";
 import { EMPTY_STAGE_STEP } from "@/lib/engine";
 import type { Database } from "@/db/client";
 import { candidates, scenarios, sweeps } from "@/db/schema";
@@ -16,6 +16,8 @@ const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedC
 /** Installed cost had every vessel been bought new (null without a reuse plan). */
 const allNewCost = sql<number | null>`(${candidates.inventoryPlan}->>'allNewCost')::float8`;
 
+const asFraction = (column: AnyColumn) => sql`round(${column}::numeric, 9)`;
+
 const SORT_COLUMNS = {
   rank: [candidates.rank],
   totalVolume: [candidates.totalVolume],
@@ -26,9 +28,11 @@ const SORT_COLUMNS = {
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
   probabilityMeet: [candidates.probabilityMeet],
-  conversion: [candidates.conversion],
-  yield: [candidates.yield],
-  selectivity: [candidates.selectivity],
+  // Fractions compared to 9 decimals, the designer's own tie tolerance: trains whose yields differ by
+  // round-off (a tube, and a tank of zero volume before the same tube) then keep their rank order.
+  conversion: [asFraction(candidates.conversion)],
+  yield: [asFraction(candidates.yield)],
+  selectivity: [asFraction(candidates.selectivity)],
   objectiveValue: [candidates.objectiveValue],
 } as const satisfies Record<SortKey, readonly unknown[]>;
 
