@@ -2,7 +2,6 @@
  * The sections every design report shares, one-reaction or several: the pin and its review, where
  * the design came from, the source of the kinetics, the costs and the robustness run. Pure.
  */
-import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 import { labelFor } from "@/lib/schemas/field-labels";
 import type { DesignReport, ReportInputs } from "./design-report";
 import { STATE_LABEL } from "./design-report-states";
