@@ -28,7 +28,7 @@ export function offeredFields(train: RatingSpec): { field: RobustnessField; labe
 
 /** 400 naming uncertain.N.field for every field the train's spec does not hold as a number. */
 export function checkUncertainFields(train: RatingSpec, uncertain: UncertainInput[], prefix = "uncertain"): void {
-  const offered = new Set(offeredFields(train).map((f) => f.field));
+  const offered = new Set<string>(offeredFields(train).map((f) => f.field));
   const fields: Record<string, string[]> = {};
   uncertain.forEach((u, i) => {
     if (!offered.has(u.field)) fields[`${prefix}.${i}.field`] = [`${u.field} is not a numeric input of this train's spec`];
