@@ -60,8 +60,9 @@ const config = [
     },
   },
   { files: ["lib/engine/**"], rules: { "no-restricted-imports": restrict(ENGINE_PURE) } },
-  // The engine's subfolders may reach the engine's own files one level up, never out of the engine.
+  // The engine's subfolders may reach the engine's own files (one level up, two from a sub-subfolder), never out of the engine.
   { files: ["lib/engine/*/**"], rules: { "no-restricted-imports": restrict({ ...ENGINE_PURE, group: [...ENGINE_PURE.group.filter((g) => g !== "../*"), "../../*"] }) } },
+  { files: ["lib/engine/*/*/**"], rules: { "no-restricted-imports": restrict({ ...ENGINE_PURE, group: [...ENGINE_PURE.group.filter((g) => g !== "../*"), "../../../*"] }) } },
   { files: ["lib/**"], ignores: ["lib/engine/**", ...WEB_EDGE, ...SHARED_CLIENT], rules: { "no-restricted-imports": restrict(NO_SCREENS, NO_WEB, ENGINE_ENTRY) } },
   { files: [...WEB_EDGE, ...SHARED_CLIENT], rules: { "no-restricted-imports": restrict(NO_SCREENS, ENGINE_ENTRY) } },
   { files: ["db/**"], rules: { "no-restricted-imports": restrict(DB_BASE, NO_WEB) } },

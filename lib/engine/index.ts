@@ -6,6 +6,11 @@ export { designTrains, type DesignOptions } from "./design";
 export { rateTrain } from "./rate-train";
 export { designNetwork } from "./network/design";
 export type * from "./network/design-types";
+// Views of a network (paths, train profiles, fixed trains) for the screens and the report.
+export { networkPaths } from "./network/views/paths";
+export { networkTrainProfiles } from "./network/views/profiles";
+export { rateNetworkTrain } from "./network/views/fixed-train";
+export type * from "./network/views/types";
 export { EngineError, type EngineErrorCode } from "./errors";
 export { GAS_CONSTANT } from "./arrhenius";
 export { MAX_STAGES } from "./sequences";
