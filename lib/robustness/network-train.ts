@@ -9,6 +9,7 @@ import { labelFor } from "@/lib/schemas/field-labels";
 import type { NetworkRobustnessRunResult, UncertainInput } from "@/lib/schemas/robustness";
 import type { StoredNetworkStage } from "@/lib/sweeps/stored-json";
 import { rateNetworkUnderUncertainty, type NetworkTrain } from "./network-monte-carlo";
+import { siChemistry } from "./network-si";
 import { valueAtPath } from "./numeric-path";
 
 type Obj = Record<string, unknown>;
@@ -22,7 +23,7 @@ export function networkTrainOf(spec: Obj, stages: readonly StoredNetworkStage[],
   const ownTemperatures = obj(spec.thermal).mode === "stageTemperature";
   return {
     kind: "network",
-    chemistry: { feed: spec.feed, phase: spec.phase, reactions: spec.reactions, keyReactant: spec.keyReactant },
+    chemistry: siChemistry({ feed: spec.feed, phase: spec.phase, reactions: spec.reactions, keyReactant: spec.keyReactant }),
     // Isothermal trains follow the (possibly uncertain) feed temperature; others hold each stage at its own.
     stages: stages.map((s) => ({ type: s.type, volume: s.volume, ...(ownTemperatures ? { temperature: s.temperature } : {}) })),
     product: typeof objective.product === "string" ? objective.product : modelProduct,
