@@ -126,7 +126,7 @@ export function RobustnessPanel({ base, canRun }: { base: string; canRun: boolea
               </label>
               <input id="rb-samples" className="input w-32" inputMode="numeric" value={samples} onChange={(e) => setSamples(e.target.value)} aria-describedby="rb-samples-hint" />
               <p id="rb-samples-hint" className="mt-1 text-xs text-ink-soft">
-                1 to {MAX_SAMPLES.toLocaleString("en")}; above 2,000 the run is queued
+                1 to {MAX_SAMPLES.toLocaleString("en")}; above {list.data.inlineSamples.toLocaleString("en")} the run is queued
               </p>
               {errorFor("samples") ? <p className="field-error">{errorFor("samples")}</p> : null}
             </div>

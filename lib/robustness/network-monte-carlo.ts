@@ -9,6 +9,7 @@ import { EngineError, rateNetworkTrain, type NetworkSpec, type StageType } from 
 import type { NetworkRobustnessRunResult } from "@/lib/schemas/robustness";
 import { sampler } from "./draws";
 import type { Uncertainty } from "./monte-carlo";
+import { siChemistry } from "./network-si";
 import { valueAtPath, withNumbers } from "./numeric-path";
 import { distributionOf } from "./sample-stats";
 
@@ -42,7 +43,8 @@ const FEED_TEMPERATURE_DEFAULT = 298.15;
  * reference with it.
  */
 function baseChemistry(train: NetworkTrain, uncertain: readonly Uncertainty[]): Record<string, unknown> {
-  const chemistry = train.chemistry;
+  // Units are read once here; each sample then replaces SI numbers (and ± spreads apply to SI values).
+  const chemistry = siChemistry(train.chemistry);
   if (!uncertain.some((u) => u.field === "feed.temperature")) return chemistry;
   const t0 = valueAtPath(chemistry, "feed.temperature") ?? FEED_TEMPERATURE_DEFAULT;
   const pins: Record<string, number> = {};

@@ -78,6 +78,11 @@ export const seedSchema = z.int("The random seed must be a whole number").min(0,
 /** Most samples a run may ask for; up to INLINE_SAMPLES are rated in the request, more by the worker. */
 export const MAX_SAMPLES = 100_000;
 export const INLINE_SAMPLES = 2_000;
+/**
+ * Up to this many samples of a train of several reactions are rated in the request: each sample solves
+ * every stirred tank's balances in full (all steady states), some milliseconds a sample, so larger runs go to the worker.
+ */
+export const NETWORK_INLINE_SAMPLES = 200;
 
 export const robustnessCreateSchema = z.strictObject({
   uncertain: uncertainListSchema,

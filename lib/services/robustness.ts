@@ -14,7 +14,7 @@ import { withNumbers } from "@/lib/robustness/numeric-path";
 import { isNetworkSpec } from "@/lib/schemas/network-spec";
 import type { StoredNetworkStage } from "@/lib/sweeps/stored-json";
 import { pinNetworkSpec } from "./design-reports";
-import { INLINE_SAMPLES, type AnyRobustnessRunResult, type RobustnessCreate, type RobustnessRunRequest } from "@/lib/schemas/robustness";
+import { INLINE_SAMPLES, NETWORK_INLINE_SAMPLES, type AnyRobustnessRunResult, type RobustnessCreate, type RobustnessRunRequest } from "@/lib/schemas/robustness";
 import { toBadRequest } from "./engine-errors";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
@@ -92,7 +92,7 @@ async function createRun(db: Database, actor: Actor, subject: Subject, input: Ro
   } else checkUncertainFields(subject.train, input.uncertain);
   const target = input.target ?? subject.target;
   const request = { uncertain: input.uncertain, target, samples: input.samples, seed: input.seed, train: subject.train };
-  const inline = input.samples <= INLINE_SAMPLES;
+  const inline = input.samples <= (subject.kind === "network" ? NETWORK_INLINE_SAMPLES : INLINE_SAMPLES);
   let result = null;
   if (inline) {
     try {
@@ -161,7 +161,8 @@ async function listFor(db: Database, subject: Subject) {
     if (!(err instanceof EngineError)) throw err;
   }
   const limits = subject.kind === "network" ? { minConversion: subject.train.minConversion, minYield: subject.train.minYield, product: subject.train.product } : null;
-  return { runs: rows.map(runView), fields, target: subject.target, kind: subject.kind, limits };
+  const inlineSamples = subject.kind === "network" ? NETWORK_INLINE_SAMPLES : INLINE_SAMPLES;
+  return { runs: rows.map(runView), fields, target: subject.target, kind: subject.kind, limits, inlineSamples };
 }
 
 /** A candidate's runs, newest first, with the numeric inputs its train offers. */

@@ -7,7 +7,7 @@ import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
 export function demoNetworkSpec(): NetworkDesignSpec {
   const { product: _product, ...chemistry } = DEMO_NETWORK.model.spec;
   const s = DEMO_NETWORK.sweep;
-  return { ...chemistry, thermal: s.thermal, train: s.train, objective: s.objective, constraints: s.constraints } as NetworkDesignSpec;
+  return { ...chemistry, thermal: s.thermal, train: s.train, objective: s.objective, constraints: s.constraints } as unknown as NetworkDesignSpec;
 }
 
 /**

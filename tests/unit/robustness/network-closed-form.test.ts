@@ -1,0 +1,99 @@
+import { describe, expect, it } from "vitest";
+import { GAS_CONSTANT } from "@/lib/engine";
+import { rateNetworkUnderUncertainty, type NetworkTrain } from "@/lib/robustness/network-monte-carlo";
+
+// A -> B -> C, both first order, in one stirred tank of residence time t (liquid). The tank balances give the
+// closed form (Levenspiel, Chemical Reaction Engineering, 3rd ed., ch. 8):
+//   C_B/C_A0 = k1 t / ((1 + k1 t)(1 + k2 t)),   X_A = k1 t / (1 + k1 t).
+// Both rise with k1, so with k1 uniform on [a, b] and k2 fixed, P(Y < y*) = P(k1 < k1*) = (k1* - a)/(b - a),
+// k1* solving k1* t / (1 + k1* t) = y* (1 + k2 t): k1* = u / (t (1 - u)), u = y* (1 + k2 t). Exact, from the
+// uniform CDF; the sampled share must fall within 4 standard errors of it.
+const v0 = 1e-3; // m3/s
+const V = 1; // m3
+const t = V / v0; // 1000 s
+const k2 = 2e-4; // 1/s, k2 t = 0.2
+const [a, b] = [5e-4, 3e-3]; // 1/s, k1 t from 0.5 to 3
+const n = 2000;
+// Each sample solves the tank's balances in full (every steady state): a safety bound for a loaded machine, not a timing.
+const SLOW = { timeout: 120_000 };
+
+const yieldOf = (k1: number) => (k1 * t) / ((1 + k1 * t) * (1 + k2 * t));
+const k1ForYield = (y: number) => {
+  const u = y * (1 + k2 * t);
+  return u / (t * (1 - u));
+};
+
+function train(minYield: number | null, minConversion: number | null, k1: number | string = 1e-3): NetworkTrain {
+  return {
+    kind: "network",
+    chemistry: {
+      feed: { volumetricFlow: v0, concentrations: { A: 1000, B: 0, C: 0 }, temperature: 330 },
+      phase: "liquid",
+      reactions: [
+        { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: k1, orders: { A: 1 }, activationEnergy: 50_000 } },
+        { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: k2, orders: { B: 1 } } },
+      ],
+      keyReactant: "A",
+    },
+    stages: [{ type: "CSTR", volume: V }],
+    product: "B",
+    minConversion,
+    minYield,
+  };
+}
+
+const within4se = (sampled: number, exact: number) => {
+  const se = Math.sqrt((exact * (1 - exact)) / n);
+  expect(exact).toBeGreaterThan(0.1);
+  expect(exact).toBeLessThan(0.9);
+  expect(Math.abs(sampled - exact)).toBeLessThan(4 * se);
+};
+
+describe("Monte Carlo of a train of several reactions against the closed form of A -> B -> C in one tank", () => {
+  it("k1 uniform: the chance of missing the minimum yield is (k1* - a)/(b - a)", SLOW, () => {
+    const yStar = 0.5;
+    const r = rateNetworkUnderUncertainty({ train: train(yStar, null), uncertain: [{ field: "reactions.0.rate.k", kind: "uniform", low: a, high: b }], samples: n, seed: 2026 });
+    within4se(r.probabilityMissMinYield!, (k1ForYield(yStar) - a) / (b - a));
+    expect(r.refusedSamples).toBe(0);
+    // The median yield is the closed form at the median k1 (the yield rises with k1).
+    expect(Math.abs(r.yield!.p50 - yieldOf((a + b) / 2))).toBeLessThan(0.01);
+    expect(r.yield!.histogram).toHaveLength(20);
+    expect(r.yield!.histogram.reduce((s, h) => s + h.count, 0)).toBe(n);
+    // The yield never leaves the closed form's range over [a, b].
+    expect(r.yield!.histogram[0].from).toBeGreaterThanOrEqual(yieldOf(a) - 1e-6);
+    expect(r.yield!.histogram[19].to).toBeLessThanOrEqual(yieldOf(b) + 1e-6);
+  });
+
+  it("k1 ± 70 % of a constant typed with its unit: meeting both limits needs k1 above the larger of the two thresholds", SLOW, () => {
+    // 0.105 1/min = 1.75e-3 1/s; ±70 % spans [5.25e-4, 2.975e-3] 1/s.
+    const [lo, hi] = [1.75e-3 * 0.3, 1.75e-3 * 1.7];
+    const minConversion = 0.65; // X >= 0.65 needs k1 t >= 0.65/0.35
+    const minYield = 0.5;
+    const r = rateNetworkUnderUncertainty({ train: train(minYield, minConversion, "0.105 1/min"), uncertain: [{ field: "reactions.0.rate.k", kind: "plusMinus", fraction: 0.7 }], samples: n, seed: 11 });
+    const kNeeded = Math.max(minConversion / (1 - minConversion) / t, k1ForYield(minYield));
+    within4se(r.probabilityMeet, (hi - kNeeded) / (hi - lo));
+    within4se(r.probabilityMissMinYield!, (k1ForYield(minYield) - lo) / (hi - lo));
+  });
+
+  it("feed temperature uniform with Arrhenius k1: the constants stay given at the nominal feed temperature", SLOW, () => {
+    // k1(T) = k1(330 K) exp(-Ea/R (1/T - 1/330)) (Arrhenius, common practice); the yield rises with T, so
+    // P(Y < y*) = P(T < T*) = (T* - 315)/(345 - 315) with k1(T*) = k1*.
+    const yStar = 0.5;
+    const Ea = 50_000;
+    const tStar = 1 / (1 / 330 - (GAS_CONSTANT * Math.log(k1ForYield(yStar) / 1e-3)) / Ea);
+    const r = rateNetworkUnderUncertainty({ train: train(yStar, null), uncertain: [{ field: "feed.temperature", kind: "uniform", low: 315, high: 345 }], samples: n, seed: 5 });
+    within4se(r.probabilityMissMinYield!, (tStar - 315) / 30);
+  });
+
+  it("the same seed gives the same run; a rate constant drawn below zero cannot be rated and counts as a miss", SLOW, () => {
+    const ask = { train: train(0.3, null), uncertain: [{ field: "reactions.0.rate.k", kind: "normal" as const, mean: 1e-3, sd: 1e-3 }], samples: 500, seed: 9 };
+    const first = rateNetworkUnderUncertainty(ask);
+    expect(rateNetworkUnderUncertainty(ask)).toEqual(first);
+    expect(rateNetworkUnderUncertainty({ ...ask, seed: 10 }).yield!.mean).not.toBe(first.yield!.mean);
+    // P(k1 < 0) = Φ(-1) ≈ 0.159 for a normal (common practice); those samples are refused and missed.
+    expect(first.refusedSamples).toBeGreaterThan(0.159 * 500 - 4 * Math.sqrt(0.159 * 0.841 * 500));
+    expect(first.refusedSamples).toBeLessThan(0.159 * 500 + 4 * Math.sqrt(0.159 * 0.841 * 500));
+    expect(first.probabilityMissMinYield! * 500).toBeGreaterThanOrEqual(first.refusedSamples);
+    expect(first.probabilityMeet).toBeCloseTo(1 - first.probabilityMissMinYield!, 12);
+  });
+});
