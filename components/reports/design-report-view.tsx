@@ -247,7 +247,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
           ))}
         </ul>
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-accent-700">Inputs as computed (as stored, in SI units)</summary>
+          <summary className="cursor-pointer text-accent-700">{r.network ? "Inputs as computed (as stored; a number without a unit is in SI units)" : "Inputs as computed (as stored, in SI units)"}</summary>
           <div className="mt-1">
             <Pairs lines={inputLines(r.assumptions.spec)} />
           </div>

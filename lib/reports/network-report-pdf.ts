@@ -39,6 +39,8 @@ export function networkBody(doc: Doc, r: DesignReport, n: NetworkReport, units?:
     headings.map((_, i) => i > 0),
   );
 
+  // Keep the heading with its chart.
+  ensureSpace(doc, n.chart ? 340 : 60);
   heading(doc, "Concentration path");
   if (n.chart) pathChart(doc, n.chart);
   else paragraph(doc, n.chartNote ?? "Not drawn.", { colour: SOFT });

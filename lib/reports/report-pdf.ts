@@ -300,7 +300,8 @@ function costsAndAfter(doc: Doc, r: DesignReport) {
   pairs(doc, [{ label: "Note of the pin", value: r.pin.note || "—" }]);
   for (const a of r.assumptions.model) paragraph(doc, `• ${a}`);
   doc.moveDown(0.4);
-  paragraph(doc, "The inputs as computed (as stored, in SI units):", { colour: SOFT, size: 8.5 });
+  // A model of several reactions may keep a quantity with the unit it was typed in; a bare number is SI.
+  paragraph(doc, r.network ? "The inputs as computed (as stored; a number without a unit is in SI units):" : "The inputs as computed (as stored, in SI units):", { colour: SOFT, size: 8.5 });
   pairs(doc, inputLines(r.assumptions.spec));
 }
 
