@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
-import { GAS_CONSTANT } from "@/lib/engine";
+import { designNetwork, GAS_CONSTANT, type NetworkDesignSpec } from "@/lib/engine";
 import { rateNetworkUnderUncertainty, type NetworkTrain } from "@/lib/robustness/network-monte-carlo";
+import { networkProbabilitiesMeet } from "@/lib/robustness/network-sweep-ranking";
+import { networkTrainOf } from "@/lib/robustness/network-train";
 
 // A -> B -> C, both first order, in one stirred tank of residence time t (liquid). The tank balances give the
 // closed form (Levenspiel, Chemical Reaction Engineering, 3rd ed., ch. 8):
@@ -95,5 +97,41 @@ describe("Monte Carlo of a train of several reactions against the closed form of
     expect(first.refusedSamples).toBeLessThan(0.159 * 500 + 4 * Math.sqrt(0.159 * 0.841 * 500));
     expect(first.probabilityMissMinYield! * 500).toBeGreaterThanOrEqual(first.refusedSamples);
     expect(first.probabilityMeet).toBeCloseTo(1 - first.probabilityMissMinYield!, 12);
+  });
+});
+
+describe("chance of meeting every limit for each train of a sweep of several reactions", () => {
+  it("each feasible train's share equals its own run's, infeasible trains have none", SLOW, () => {
+    const spec: NetworkDesignSpec = {
+      feed: { volumetricFlow: v0, concentrations: { A: 1000, B: 0, C: 0 } },
+      phase: "liquid",
+      reactions: [
+        { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 1.5e-3, orders: { A: 1 } } },
+        { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: k2, orders: { B: 1 } } },
+      ],
+      keyReactant: "A",
+      thermal: { mode: "isothermal" },
+      train: { candidates: [["CSTR"], ["PFR"]] },
+      objective: { maximise: "yield", product: "B" },
+      // One tank cannot reach 65 % (its best is 1/(sqrt(k2/k1) + 1)^2 = 53.7 %, Levenspiel ch. 8); the tube can (73.4 %).
+      constraints: { minYield: 0.65, maxTotalVolume: 2 },
+    };
+    const result = designNetwork(spec);
+    const robustness = { uncertain: [{ field: "reactions.0.rate.k" as const, kind: "plusMinus" as const, fraction: 0.4 }], samples: 300, seed: 21 };
+    const shares = networkProbabilitiesMeet(spec, result, robustness);
+    const asRecord = spec as unknown as Record<string, unknown>;
+    expect(shares).toHaveLength(result.candidates.length);
+    expect(result.candidates.map((c) => [c.sequence.join("-"), c.feasible])).toEqual([
+      ["PFR", true],
+      ["CSTR", false],
+    ]);
+    result.candidates.forEach((c, i) => {
+      if (!c.feasible) return expect(shares[i]).toBeNull();
+      const own = rateNetworkUnderUncertainty({ train: networkTrainOf(asRecord, c.stages), ...robustness });
+      expect(shares[i]).toBe(own.probabilityMeet);
+      expect(shares[i]).toBeGreaterThan(0);
+      expect(shares[i]).toBeLessThan(1);
+    });
+    expect(networkProbabilitiesMeet(spec, result, null)).toEqual(result.candidates.map(() => null));
   });
 });
