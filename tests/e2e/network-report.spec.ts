@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import Papa from "papaparse";
 import { CAUTIONS } from "@/lib/engine";
@@ -9,7 +10,8 @@ import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { pdfText } from "./helpers/pdf-text";
 import { insertNetworkPin } from "./network-pin-fixtures";
 
-const NOTE = "Tank first, then a tube stopped before B over-reacts (network report check)";
+// Unique per worker: a worker restarted after a failure inserts its own pin.
+const NOTE = `Tank first, then a tube stopped before B over-reacts (network report check ${randomUUID().slice(0, 8)})`;
 
 let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
@@ -33,11 +35,12 @@ test("the report of a pinned train of several reactions shows its composition ta
   await expect(composition.locator("tbody tr")).toHaveCount(pin.frozen.stages.length + 1);
   await expect(composition.locator("thead")).toContainText("C_D, mol/m³");
   await expect(composition.locator("tbody tr").first()).toContainText("1200");
-  await expect(page.getByTestId("report-path-chart").locator("svg")).toBeVisible();
+  await expect(page.getByTestId("report-path-chart").getByRole("img", { name: /^Concentration path of B against A/ })).toBeVisible();
   await expect(page.getByTestId("report-reactions")).toContainText("Reaction 3: 2 A → D");
   await expect(page.getByTestId("report-reactions")).toContainText("0.002 L/(mol*s)");
   await expect(page.getByTestId("levenspiel-chart")).toHaveCount(0);
   for (const c of CAUTIONS) await expect(page.getByTestId("cautions").first()).toContainText(c);
+  await page.screenshot({ path: "test-results/screens/network-report.png", fullPage: true });
   await expectNoSeriousA11yViolations(page);
   await page.close();
 
@@ -65,7 +68,7 @@ test("robustness of the pinned train: a rate constant ± 30 % gives the chance o
   await panel.getByLabel("Random seed (repeatable draws)", { exact: true }).fill("12");
   await panel.getByTestId("robustness-run").click();
   await expect(panel.getByTestId("robustness-miss-yield")).toContainText(/Chance of missing the minimum yield: \d+ %/);
-  await expect(panel.getByTestId("robustness-histogram").locator("svg")).toBeVisible();
+  await expect(panel.getByTestId("robustness-histogram").getByRole("img", { name: /^Histogram of the yield/ })).toBeVisible();
   await expect(panel.getByTestId("robustness-histogram-limit")).toContainText("minimum yield 30.0 %");
   await expect(panel.getByTestId("robustness-summary")).toContainText("150 samples (random seed 12)");
 
@@ -73,6 +76,7 @@ test("robustness of the pinned train: a rate constant ± 30 % gives the chance o
   const list = (await (await engineer.get(`/api/pins/${pin.pinId}/robustness`)).json()) as { runs: { request: { seed: number }; result: { probabilityMissMinYield: number } }[] };
   const run = list.runs.find((r) => r.request.seed === 12)!;
   await expect(panel.getByTestId("robustness-miss-yield")).toHaveText(`Chance of missing the minimum yield: ${(100 * run.result.probabilityMissMinYield).toFixed(0)} %`);
+  await panel.screenshot({ path: "test-results/screens/network-robustness.png" });
   await expectNoSeriousA11yViolations(page);
   await page.close();
 });
