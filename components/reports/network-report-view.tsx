@@ -1,7 +1,7 @@
 import { LineChart, type LineSeries } from "@/components/charts/line-chart";
 import type { WordLine } from "@/lib/reports/kinetics-words";
 import type { NetworkReport } from "@/lib/reports/network-report";
-import { chemistryLines, compositionHeadings, fmtConcentration, measureLines, networkStageColumns } from "@/lib/reports/network-format";
+import { chemistryLines, compositionHeadings, fmtConcentration, measureLines, networkStageColumns, referenceLines } from "@/lib/reports/network-format";
 import type { DisplayUnits } from "@/lib/units/display-preference";
 
 function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
@@ -97,9 +97,7 @@ export function NetworkReportView({ network: n, trainLabel, units }: { network: 
             <tbody>
               {n.composition.rows.map((row) => (
                 <tr key={row.label}>
-                  <th scope="row" className="font-normal">
-                    {row.label}
-                  </th>
+                  <td className="whitespace-nowrap">{row.label}</td>
                   {row.values.map((v, i) => (
                     <td key={n.composition.species[i]} className="num text-right whitespace-nowrap">
                       {fmtConcentration(v)}
@@ -151,7 +149,7 @@ export function NetworkReportView({ network: n, trainLabel, units }: { network: 
           </Section>
           {n.references.length ? (
             <Section id="report-references-title" title="Single-stage references">
-              <Pairs lines={n.references} />
+              <Pairs lines={referenceLines(n, units)} />
             </Section>
           ) : null}
         </div>

@@ -50,6 +50,17 @@ export function measureLines(n: NetworkReport, units?: DisplayUnits): WordLine[]
   return lines;
 }
 
+/** The single-stage references in words: "yield 45.3 % in 429 L". */
+export function referenceLines(n: NetworkReport, units?: DisplayUnits): WordLine[] {
+  const o = n.chemistry.objective as { maximise?: string } | undefined;
+  const measure = o?.maximise === "selectivity" ? "selectivity" : o?.maximise === "yield" ? "yield" : null;
+  return n.references.map((r) => {
+    if (r.volume === null) return { label: r.label, value: "cannot meet the limits" };
+    const at = r.temperature === null ? "" : ` at ${fmtKelvin(r.temperature, units)}`;
+    return { label: r.label, value: `${measure ? `${measure} ${pct(r.objective)} in ` : ""}${fmtVolume(r.volume, units)}${at}` };
+  });
+}
+
 /** Key reactant, wanted product and heat mode. */
 export function chemistryLines(n: NetworkReport): WordLine[] {
   return [

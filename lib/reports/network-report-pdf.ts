@@ -9,7 +9,7 @@ import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 import type { DisplayUnits } from "@/lib/units/display-preference";
 import type { DesignReport } from "./design-report";
 import type { NetworkReport, PathChart } from "./network-report";
-import { chemistryLines, compositionHeadings, fmtConcentration, measureLines, networkStageColumns } from "./network-format";
+import { chemistryLines, compositionHeadings, fmtConcentration, measureLines, networkStageColumns, referenceLines } from "./network-format";
 import { axes, ensureSpace, heading, INK, MARGIN, pairs, paragraph, SOFT, table, width, type Doc } from "./pdf-parts";
 
 export function networkBody(doc: Doc, r: DesignReport, n: NetworkReport, units?: DisplayUnits) {
@@ -60,7 +60,7 @@ export function networkBody(doc: Doc, r: DesignReport, n: NetworkReport, units?:
   pairs(doc, n.objective);
   if (n.references.length) {
     heading(doc, "Single-stage references");
-    pairs(doc, n.references);
+    pairs(doc, referenceLines(n, units));
   }
 }
 

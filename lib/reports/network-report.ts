@@ -68,6 +68,16 @@ export interface PathChart {
   tanks: { x: number; y: number }[];
 }
 
+export interface NetworkReference {
+  label: string;
+  /** Yield or selectivity when maximised, else the volume (m3). */
+  objective: number | null;
+  /** m3 */
+  volume: number | null;
+  /** K, when each stage's temperature is chosen. */
+  temperature: number | null;
+}
+
 export interface NetworkReport {
   species: string[];
   keyReactant: string;
@@ -81,7 +91,8 @@ export interface NetworkReport {
   composition: { species: string[]; rows: CompositionRow[] };
   limitNotes: string[];
   steadyStateNotes: string[];
-  references: WordLine[];
+  /** The best single stirred tank and single tube from the same feed (null numbers: it cannot meet the limits). */
+  references: NetworkReference[];
   chart: PathChart | null;
   /** Why there is no path chart (no wanted product, or the engine could not draw it). */
   chartNote: string | null;
@@ -102,18 +113,9 @@ export interface NetworkReportInput {
   curves: NetworkCurves | null;
 }
 
-const fmt = (v: number, digits = 4) => formatNumber(v, digits, RECORD_NUMBERS);
-const pct = (v: number | null) => (v === null ? "—" : `${fmt(v * 100)} %`);
-
-function referenceLine(label: string, ref: unknown, objective: unknown): WordLine {
+function reference_(label: string, ref: unknown): NetworkReference {
   const r = obj(ref);
-  const value = num(r.objective);
-  const volume = num(r.volume);
-  if (value === null || volume === null) return { label, value: "cannot meet the limits" };
-  const o = obj(objective);
-  const measure = o.minimise === "volume" ? "" : `${o.maximise === "selectivity" ? "selectivity" : "yield"} ${pct(value)} in `;
-  const temperature = num(r.temperature);
-  return { label, value: `${measure}${fmt(volume)} m³${temperature !== null ? ` at ${fmt(temperature, 5)} K` : ""}` };
+  return { label, objective: num(r.objective), volume: num(r.volume), temperature: num(r.temperature) };
 }
 
 /** The network section of a report from the frozen candidate and its scenario's spec. */
@@ -141,7 +143,7 @@ export function buildNetworkReport(input: NetworkReportInput): NetworkReport {
   const steadyStateNotes = c.stages.flatMap((s, i) =>
     s.steadyStates && s.steadyStates.length > 1
       ? [
-          `Stage ${i + 1} (${s.type}) has ${s.steadyStates.length} steady states at this size (conversion ${s.steadyStates.map((x) => fmt(x.conversion, 3)).join(", ")}); ` +
+          `Stage ${i + 1} (${s.type}) has ${s.steadyStates.length} steady states at this size (conversion ${s.steadyStates.map((x) => `${formatNumber(x.conversion * 100, 3, RECORD_NUMBERS)} %`).join(", ")}); ` +
             `the train continues from the lowest, and start-up decides which one the plant reaches.`,
         ]
       : [],
@@ -184,9 +186,7 @@ export function buildNetworkReport(input: NetworkReportInput): NetworkReport {
     composition: { species, rows },
     limitNotes,
     steadyStateNotes,
-    references: reference
-      ? [referenceLine("Single stirred tank", reference.singleCSTR, spec.objective), referenceLine("Single tube", reference.singlePFR, spec.objective)]
-      : [],
+    references: reference ? [reference_("Single stirred tank", reference.singleCSTR), reference_("Single tube", reference.singlePFR)] : [],
     chart,
     chartNote,
     candidate: c,

@@ -6,6 +6,7 @@ import { DEMO_NETWORK } from "@/lib/demo/network-demo";
 import { buildDesignReport, type DesignReport } from "@/lib/reports/design-report";
 import { stageTableCsv } from "@/lib/reports/exports";
 import { networkCurves } from "@/lib/reports/network-curves";
+import { buildNetworkReport } from "@/lib/reports/network-report";
 import { renderReportPdf } from "@/lib/reports/report-pdf";
 import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
 import { frozenNetworkPin } from "../helpers/network-pin";
@@ -25,6 +26,7 @@ let candidate: PinnedNetworkCandidate;
 let chemistry: NetworkSpec;
 
 beforeAll(() => {
+  // (designNetwork and the curves run once here, for every check below.)
   const frozen = frozenNetworkPin();
   candidate = frozen.candidate;
   chemistry = frozen.spec;
@@ -41,7 +43,7 @@ beforeAll(() => {
     now: new Date("2026-12-03T12:00:00Z"),
     network: { spec: frozen.spec as unknown as Record<string, unknown>, curves: networkCurves(frozen.spec as unknown as Record<string, unknown>, frozen.candidate, "B") },
   });
-});
+}, 120_000);
 
 describe("design report of a pinned train of several reactions", () => {
   it("is a network report of the pinned train, with the cautions", () => {
@@ -115,7 +117,8 @@ describe("design report of a pinned train of several reactions", () => {
     for (let i = 1; i < c.tube.length; i++) expect(c.tube[i].x).toBeLessThanOrEqual(c.tube[i - 1].x + 1e-9);
   });
 
-  it("the PDF carries the composition table's headers and rows, the reactions, the path chart and the cautions", async () => {
+  // Fonts subset and text read back: a safety bound for a loaded machine, not a timing.
+  it("the PDF carries the composition table's headers and rows, the reactions, the path chart and the cautions", { timeout: 60_000 }, async () => {
     const pdf = await renderReportPdf(report);
     expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
     const text = await pdfText(pdf);
@@ -150,4 +153,19 @@ describe("design report of a pinned train of several reactions", () => {
     const sum = rows.slice(1, -1).reduce((s, r) => s + Number(r["volume (m3)"]), 0);
     expect(sum).toBeCloseTo(candidate.totalVolume!, 9);
   });
+
+  it("notes a stage on a limit and a stirred tank with several steady states, in words", () => {
+    const stages = candidate.stages.map((st, i) =>
+      i === 0 ? { ...st, steadyStates: [{ conversion: 0.12, outlet: st.outlet }, { conversion: 0.5, outlet: st.outlet }, { conversion: 0.93, outlet: st.outlet }] } : st,
+    );
+    const n = buildNetworkReport({ candidate: { ...candidate, stages, onBound: ["stage 2: largest stage volume", "largest total volume"] }, spec: chemistry as never, shownUnits: {}, modelProduct: null, curves: null });
+    expect(n.limitNotes).toEqual(["At a limit: Stage 2: largest stage volume.", "At a limit: Largest total volume."]);
+    expect(n.steadyStateNotes).toHaveLength(1);
+    expect(n.steadyStateNotes[0]).toContain("Stage 1 (CSTR) has 3 steady states at this size (conversion 12 %, 50 %, 93 %)");
+    expect(n.stages[0].steadyStates).toBe(3);
+    // Without the curves the chart is left out with a reason, and the feed row still reads the stored numbers where it can.
+    expect(n.chart).toBeNull();
+    expect(n.chartNote).toBe("The concentration path could not be computed for this design.");
+  });
 });
+
