@@ -32,14 +32,30 @@ export function toResponse(err: unknown): Response {
  * oversized body is never held whole.
  */
 export async function readJson<S extends z.ZodType>(req: Request, schema: S, opts: { maxBytes?: number } = {}): Promise<z.output<S>> {
+  return parseWith(schema, await readRawJson(req, opts));
+}
+
+/**
+ * Reads a JSON body that comes in two kinds (a model of one reaction or of several): `pick` looks at
+ * the raw body and names the schema, so a mistake is reported against the kind the body is, not as
+ * "neither kind".
+ */
+export async function readJsonOfKind<A extends z.ZodType, B extends z.ZodType>(req: Request, pick: (body: unknown) => boolean, whenTrue: A, otherwise: B): Promise<z.output<A> | z.output<B>> {
+  return parseWithKind(await readRawJson(req), pick, whenTrue, otherwise);
+}
+
+/** The same on a value already read. */
+export function parseWithKind<A extends z.ZodType, B extends z.ZodType>(body: unknown, pick: (body: unknown) => boolean, whenTrue: A, otherwise: B): z.output<A> | z.output<B> {
+  return pick(body) ? parseWith(whenTrue, body) : parseWith(otherwise, body);
+}
+
+async function readRawJson(req: Request, opts: { maxBytes?: number } = {}): Promise<unknown> {
   const text = await readBodyText(req, opts.maxBytes ?? jsonBodyLimit(new URL(req.url).pathname));
-  let body: unknown;
   try {
-    body = JSON.parse(text);
+    return JSON.parse(text);
   } catch {
     throw new AppError("bad_request", "The body must be JSON", { fields: { "(body)": ["Malformed JSON"] } });
   }
-  return parseWith(schema, body);
 }
 
 export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {

@@ -11,7 +11,8 @@ import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
-import type { CandidateDetail, SweepView } from "@/lib/services/views";
+// One-reaction screen until it learns the network kind (kind "network" carries other stages).
+import type { SingleCandidateDetail as CandidateDetail, SweepView } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
@@ -42,10 +43,11 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
   const c = q.data;
   const sweepHref = back?.startsWith("/projects/") ? back : `/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}`;
   const ref = c.scenario.reference;
-  const thermal = sweepQ.data?.spec.reaction?.thermal;
+  const singleSpec = sweepQ.data?.kind === "single" ? sweepQ.data.spec : undefined;
+  const thermal = singleSpec?.reaction?.thermal;
   const adiabatic = thermal?.mode === "adiabatic" || c.stages.some((s) => Math.abs(s.temperatureOut - s.temperatureIn) > 1e-6);
   const warnings = thermalWarnings({ thermal, stageTemperatures: c.stages.map((s) => s.temperatureOut) });
-  const target = sweepQ.data?.spec.target?.conversion;
+  const target = singleSpec?.target?.conversion;
   const empty = c.stages.filter((s) => s.volume === 0).map((s) => c.stages.indexOf(s) + 1);
 
   return (

@@ -11,7 +11,8 @@ import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
-import type { CandidateDetail } from "@/lib/services/views";
+// One-reaction screen until it learns the network kind (kind "network" carries other stages).
+import type { SingleCandidateDetail as CandidateDetail } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
 import { formatVolume } from "@/lib/charts/volume-units";

@@ -104,7 +104,8 @@ export function SweepView({
   const candidateHref = useCallback((id: string) => `/projects/${projectId}/sweeps/${sweepId}/candidates/${id}?${urlView.unit ? `unit=${urlView.unit}&` : ""}back=${back}`, [projectId, sweepId, urlView.unit, back]);
 
   const rows = candidatesQ.data?.items;
-  const target = sweep?.spec.target?.conversion;
+  const singleSpec = sweep?.kind === "single" ? sweep.spec : undefined;
+  const target = singleSpec?.target?.conversion;
   const yMax = useMemo(() => {
     const charts = (rows ?? []).filter((r) => r.feasible && r.levenspiel).map((r) => ({ ...chartInputs(r.stages, r.levenspiel), target }));
     return charts.length ? sharedYMax(charts) : undefined;
@@ -113,7 +114,7 @@ export function SweepView({
   if (sweepQ.isPending) return <LoadingPanel label="Loading the sweep…" />;
   if (sweepQ.isError || !sweep) return <ErrorPanel error={sweepQ.error} what="this sweep" />;
 
-  const objective = sweep.spec.objective?.minimise ?? "volume";
+  const objective = singleSpec?.objective?.minimise ?? "volume";
   const scenarios = scenariosQ.data ?? [];
   const grid2 = twoVariedFields(scenarios);
   // When the target is a grid variable the base value is not what was run: show the grid's range.
@@ -121,7 +122,7 @@ export function SweepView({
   const targetText = swept.length ? `${Math.min(...swept)}–${Math.max(...swept)} (varied)` : (target ?? "—");
   const page = candidatesQ.data;
   const pages = page ? Math.max(1, Math.ceil(page.total / view.pageSize)) : 1;
-  const warnings = thermalWarnings({ thermal: sweep.spec.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
+  const warnings = thermalWarnings({ thermal: singleSpec?.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
 
   return (
     <div className="space-y-5">

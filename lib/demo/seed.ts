@@ -11,6 +11,7 @@ import { bestObjective, candidateRows } from "@/lib/sweeps/candidate-rows";
 import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
 import { seedDemoInventory } from "./inventory";
+import { seedDemoNetwork } from "./network-seed";
 
 /** The demo scenario: an invented fine-chemicals company and a second, unrelated team. */
 export const DEMO_PASSWORD = "seriatim-demo-2026";
@@ -129,6 +130,8 @@ export async function seedDemoData(db: Database): Promise<void> {
       await tx.insert(kineticsVersions).values({ modelId: model.id, version: 1, spec: k.spec, note: k.note, createdBy: project.createdBy });
     }
     await seedDemoSweep(tx, projectRows.find((p) => p.name === DEMO_KINETICS[0].project)!);
+    const brightwater = teamRows.find((t) => t.slug === "brightwater")!;
+    await seedDemoNetwork(tx, brightwater, userId("eli.engineer@brightwater.example"));
     await seedDemoInventory(tx);
     await seedDemoDatasets(tx, projectRows);
   });

@@ -77,6 +77,7 @@ const LABELS: Record<string, string> = {
   "reactions.#.rate.parameters": "Reaction {n}, expression parameters",
   "reactions.#.rate.parameters.*": "Reaction {n}, parameter {key}",
   keyReactant: "Key reactant",
+  product: "Wanted product",
   thermal: "Heat mode",
   "thermal.mode": "Heat mode",
   "thermal.min": "Lowest stage temperature",

@@ -6,6 +6,7 @@ import { sweepRobustnessSchema } from "./robustness";
 import { multilineText, text } from "./text";
 import { SORT_KEYS } from "@/lib/sweeps/sort-keys";
 import { shownUnitsSchema } from "./shown-units";
+import { isNetworkSpec, networkKineticsSpecSchema, networkParts, type NetworkKineticsSpec } from "./network-spec";
 
 const spec = designSpecSchema.shape;
 
@@ -19,15 +20,24 @@ const note = multilineText().trim().max(2000, "Use at most 2000 characters");
 export const kineticsModelCreateSchema = z.strictObject({ name: modelName, spec: kineticsSpecSchema, note: note.default("") });
 export const kineticsVersionCreateSchema = z.strictObject({ spec: kineticsSpecSchema, note: note.default("") });
 
+/* A model of several reactions: the same bodies with the network's chemistry (routes pick with isNetworkSpec(body.spec)). */
+export const networkKineticsModelCreateSchema = z.strictObject({ name: modelName, spec: networkKineticsSpecSchema, note: note.default("") });
+export const networkKineticsVersionCreateSchema = z.strictObject({ spec: networkKineticsSpecSchema, note: note.default("") });
+/** A model or version body whose chemistry has several reactions (the routes pick the schema with it). */
+export const isNetworkKineticsBody = (body: unknown): boolean => typeof body === "object" && body !== null && isNetworkSpec((body as { spec?: unknown }).spec);
+/** A kinetics version's chemistry of either kind: one reaction, or several. */
+export type AnyKineticsSpec = KineticsSpec | NetworkKineticsSpec;
+
 export const kineticsPreviewSchema = z.strictObject({
   spec: kineticsSpecSchema,
   /** Conversion to draw the curve to and size the single-stage references for. */
   targetConversion: z.number().gt(0, "Conversion must be above 0").lt(1, "Conversion must be below 1").optional(),
 });
 
+// Segments after the first may be array positions (reactions.0.rate.k) or species names (feed.concentrations.A).
 const fieldPath = text({ error: "Choose an input to vary" })
   .max(200, "Use at most 200 characters")
-  .regex(/^[A-Za-z_]\w*(\.[A-Za-z_]\w*)+$/, "Choose an input to vary from the list");
+  .regex(/^[A-Za-z_]\w*(\.\w+)+$/, "Choose an input to vary from the list");
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 export const gridAxisSchema = z.union([
@@ -58,6 +68,38 @@ export const sweepCreateSchema = z
   })
   .refine((s) => new Set(s.grid.map((a) => a.field)).size === s.grid.length, { message: "Each input may be varied once", path: ["grid"] });
 export type SweepCreate = z.infer<typeof sweepCreateSchema>;
+
+const uniqueAxes = (s: { grid: { field: string }[] }) => new Set(s.grid.map((a) => a.field)).size === s.grid.length;
+
+/**
+ * A sweep of a model of several reactions: heat mode (isothermal unless given), trains, what to rank by
+ * (the product named, as the command line requires) and limits, over a grid of the engine spec's numeric
+ * fields. Rating under uncertainty during such a sweep is refused by the service until it is offered.
+ */
+export const networkSweepCreateSchema = z
+  .strictObject({
+    name: text().trim().min(1, "Name the sweep").max(120, "Use at most 120 characters").optional(),
+    kineticsVersionId: uuidSchema,
+    thermal: networkParts.thermal.default({ mode: "isothermal" }),
+    train: networkParts.train,
+    objective: networkParts.objective,
+    constraints: networkParts.constraints.optional(),
+    grid: z.array(gridAxisSchema).max(4, "Vary at most 4 inputs").default([]),
+    robustness: sweepRobustnessSchema.optional(),
+  })
+  .refine(uniqueAxes, { message: "Each input may be varied once", path: ["grid"] });
+export type NetworkSweepCreate = z.infer<typeof networkSweepCreateSchema>;
+
+/**
+ * A network sweep body, told apart from today's without parsing it: today's always has a target; a
+ * network's has limits, a heat mode, or an objective that maximises or minimises.
+ */
+export function isNetworkSweepBody(body: unknown): boolean {
+  if (typeof body !== "object" || body === null || Array.isArray(body) || "target" in body) return false;
+  const b = body as Record<string, unknown>;
+  const objective = b.objective;
+  return "constraints" in b || "thermal" in b || (typeof objective === "object" && objective !== null && ("maximise" in objective || "minimise" in objective));
+}
 
 export const candidateQuerySchema = z.strictObject({
   sort: z.enum(SORT_KEYS, { error: "Choose a column to sort by" }).default("rank"),

@@ -7,7 +7,7 @@ import { notFound } from "@/lib/errors";
 import type { StagePlot, StageType } from "@/lib/engine";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
-import type { ScenarioReference, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
+import type { NetworkScenarioReference, ScenarioReference, StoredNetworkStage, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
 
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
@@ -26,6 +26,10 @@ const SORT_COLUMNS = {
   installedCost: [candidates.installedCost],
   reused: [reusedCount],
   probabilityMeet: [candidates.probabilityMeet],
+  conversion: [candidates.conversion],
+  yield: [candidates.yield],
+  selectivity: [candidates.selectivity],
+  objectiveValue: [candidates.objectiveValue],
 } as const satisfies Record<SortKey, readonly unknown[]>;
 
 const summaryColumns = {
@@ -39,6 +43,12 @@ const summaryColumns = {
   ratioToPfr: candidates.ratioToPfr,
   probabilityMeet: candidates.probabilityMeet,
   reason: candidates.reason,
+  // Several reactions only (null for one-reaction sweeps).
+  conversion: candidates.conversion,
+  yield: candidates.yield,
+  selectivity: candidates.selectivity,
+  objectiveValue: candidates.objectiveValue,
+  onBound: candidates.onBound,
   stages: candidates.stages,
   installedCost: candidates.installedCost,
   reused: reusedCount.mapWith(Number),
@@ -51,7 +61,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   // The scenario (with the team check) and the page are read concurrently; the page is only
   // returned when the scenario query found the sweep in the actor's team.
   const scenarioQuery = db
-    .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference })
+    .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference, network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'` })
     .from(scenarios)
     .innerJoin(sweeps, eq(sweeps.id, scenarios.sweepId))
     .where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex), eq(sweeps.teamId, actor.teamId)));
@@ -81,7 +91,8 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
   const items = rows.map(({ filteredTotal: _t, ...c }) => c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>);
   return {
-    scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference as ScenarioReference | null },
+    kind: scenario.network ? ("network" as const) : ("single" as const),
+    scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference as ScenarioReference | NetworkScenarioReference | null },
     page: q.page,
     pageSize: q.pageSize,
     total,
@@ -102,6 +113,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
       candidate: candidates,
       scenario: { index: scenarios.index, overrides: scenarios.overrides, reference: scenarios.reference },
       sweep: { id: sweeps.id, name: sweeps.name, projectId: sweeps.projectId, teamId: sweeps.teamId },
+      network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'`,
     })
     .from(candidates)
     .innerJoin(scenarios, eq(scenarios.id, candidates.scenarioId))
@@ -112,26 +124,38 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
   const list = ids.map((id) => byId.get(id)!);
   const best = Math.min(...list.map((r) => r.candidate.totalVolume ?? Infinity));
   const bestCost = Math.min(...list.map((r) => r.candidate.totalCost ?? Infinity));
-  return list.map(({ candidate: c, scenario, sweep }) => ({
-    id: c.id,
-    sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
-    scenario: scenario as WithShapes<typeof scenario, { reference: ScenarioReference | null }>,
-    rank: c.rank,
-    sequence: c.sequenceKey.split("-") as StageType[],
-    feasible: c.feasible,
-    totalVolume: c.totalVolume,
-    totalCost: c.totalCost,
-    installedCost: c.installedCost,
-    inventoryPlan: c.inventoryPlan as TrainPlan | null,
-    stageCount: c.stageCount,
-    ratioToPfr: c.ratioToPfr,
-    stages: c.stages as StoredStage[],
-    levenspiel: c.levenspiel as StagePlot[],
-    differences: {
-      volumeOverBest: c.totalVolume !== null && Number.isFinite(best) ? c.totalVolume - best : null,
-      costOverBest: c.totalCost !== null && Number.isFinite(bestCost) ? c.totalCost - bestCost : null,
-    },
-  }));
+  const bestYield = Math.max(...list.map((r) => r.candidate.yield ?? -Infinity));
+  return list.map(({ candidate: c, scenario, sweep, network }) => {
+    const common = {
+      id: c.id,
+      sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
+      rank: c.rank,
+      sequence: c.sequenceKey.split("-") as StageType[],
+      feasible: c.feasible,
+      totalVolume: c.totalVolume,
+      totalCost: c.totalCost,
+      installedCost: c.installedCost,
+      inventoryPlan: c.inventoryPlan as TrainPlan | null,
+      stageCount: c.stageCount,
+      ratioToPfr: c.ratioToPfr,
+      // Several reactions only (null for one-reaction candidates).
+      conversion: c.conversion,
+      yield: c.yield,
+      selectivity: c.selectivity,
+      objectiveValue: c.objectiveValue,
+      onBound: c.onBound,
+      differences: {
+        volumeOverBest: c.totalVolume !== null && Number.isFinite(best) ? c.totalVolume - best : null,
+        costOverBest: c.totalCost !== null && Number.isFinite(bestCost) ? c.totalCost - bestCost : null,
+        /** How far this train's yield falls short of the best yield compared (0 for the best); null without yields. */
+        yieldBelowBest: c.yield !== null && Number.isFinite(bestYield) ? bestYield - c.yield : null,
+      },
+    };
+    // The kind decides the stages' shape: screens narrow on it.
+    return network
+      ? { ...common, kind: "network" as const, scenario: scenario as WithShapes<typeof scenario, { reference: NetworkScenarioReference | null }>, stages: c.stages as unknown as StoredNetworkStage[], levenspiel: [] as StagePlot[] }
+      : { ...common, kind: "single" as const, scenario: scenario as WithShapes<typeof scenario, { reference: ScenarioReference | null }>, stages: c.stages as StoredStage[], levenspiel: c.levenspiel as StagePlot[] };
+  });
 }
 
 /** Stages that do no work (conversion step below the engine's threshold): the train reduces to a shorter one. */

@@ -1,5 +1,6 @@
-import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
-import type { KineticsSpec } from "@/lib/schemas/sweeps";
+import { designNetwork, designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
+import { isNetworkSpec, type NetworkKineticsSpec } from "@/lib/schemas/network-spec";
+import type { AnyKineticsSpec, KineticsSpec } from "@/lib/schemas/sweeps";
 import { toBadRequest } from "./engine-errors";
 
 /** Errors in what the user typed (as opposed to a request that cannot be met). */
@@ -9,13 +10,36 @@ const INPUT_CODES = new Set(["invalid-spec", "invalid-unit", "invalid-expression
  * Checks a kinetics version the way the engine will read it (units, expressions, orders,
  * rate sign), without the target or train of any sweep: sizes one CSTR to a small conversion.
  */
-export function checkKinetics(spec: KineticsSpec, prefix = "spec"): void {
+export function checkKinetics(spec: AnyKineticsSpec, prefix = "spec"): void {
+  if (isNetworkSpec(spec)) return checkNetworkKinetics(spec as NetworkKineticsSpec, prefix);
   try {
     designTrains({ ...(spec as DesignSpec), target: { conversion: 0.01 }, train: { candidates: [["CSTR"]] } });
   } catch (err) {
     if (err instanceof EngineError && INPUT_CODES.has(err.code)) throw toBadRequest(err, prefix);
     if (!(err instanceof EngineError)) throw err;
     // infeasible/equilibrium at 1 % conversion says nothing about the kinetics being malformed
+  }
+}
+
+/**
+ * The same for a model of several reactions: the engine reads the chemistry (units, expressions, species,
+ * key reactant, wanted product) and sizes one stirred tank to 1 % conversion, which is cheap; a network
+ * that cannot reach it (an equilibrium below 1 %) is not malformed, so only input errors are refused.
+ */
+function checkNetworkKinetics(spec: NetworkKineticsSpec, prefix: string): void {
+  const { shownUnits: _units, product, ...chemistry } = spec;
+  try {
+    designNetwork({
+      ...chemistry,
+      thermal: { mode: "isothermal" },
+      train: { candidates: [["CSTR"]] },
+      objective: { minimise: "volume", ...(product !== undefined ? { product } : {}) },
+      constraints: { minConversion: 0.01 },
+    });
+  } catch (err) {
+    if (!(err instanceof EngineError)) throw err;
+    // The objective's product is the model's wanted product.
+    if (INPUT_CODES.has(err.code)) throw toBadRequest(err.path === "objective.product" ? new EngineError(err.code, err.message, "product") : err, prefix);
   }
 }
 

@@ -2,8 +2,9 @@ import { and, desc, eq, max } from "drizzle-orm";
 import type { Database, Executor } from "@/db/client";
 import { kineticsModels, kineticsSources, kineticsVersions, projects } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
-import { notFound } from "@/lib/errors";
-import type { KineticsSpec } from "@/lib/schemas/sweeps";
+import { AppError, notFound } from "@/lib/errors";
+import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import type { AnyKineticsSpec } from "@/lib/schemas/sweeps";
 import { checkKinetics } from "./kinetics-checks";
 import { recordAudit } from "./audit";
 
@@ -25,7 +26,7 @@ export async function requireTeamProject(db: Executor, actor: Actor, projectId: 
   return p;
 }
 
-export async function createKineticsModel(db: Database, actor: Actor, projectId: string, input: { name: string; spec: KineticsSpec; note: string; source?: KineticsVersionSource }) {
+export async function createKineticsModel(db: Database, actor: Actor, projectId: string, input: { name: string; spec: AnyKineticsSpec; note: string; source?: KineticsVersionSource }) {
   const project = await requireTeamProject(db, actor, projectId);
   assertCan(actor, "kinetics.create", project, "project");
   checkKinetics(input.spec);
@@ -37,8 +38,22 @@ export async function createKineticsModel(db: Database, actor: Actor, projectId:
       .returning();
     await insertSource(tx, version.id, input.source);
     await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.created", entityType: "project", entityId: projectId, details: { model: model.name, modelId: model.id, version: 1, ...sourceDetails(input.source) } });
-    return { model, version };
+    return { model, version: { ...version, kind: kindOfSpec(version.spec) } };
   });
+}
+
+/** "single" for a model of one reaction, "network" for one of several. */
+export type KineticsKind = "single" | "network";
+export const kindOfSpec = (spec: unknown): KineticsKind => (isNetworkSpec(spec) ? "network" : "single");
+
+/** A model keeps its kind: sweeps, pins and reports of its earlier versions read the same chemistry. */
+function assertSameKind(model: KineticsKind, version: KineticsKind) {
+  if (model === version) return;
+  const message =
+    model === "network"
+      ? "This model has several reactions; a version with one reaction belongs in a new model"
+      : "This model has one reaction; a version with several reactions belongs in a new model";
+  throw new AppError("conflict", message, { fields: { spec: [message] } });
 }
 
 const sourceDetails = (source: KineticsVersionSource | undefined) => (source ? { source: { kind: source.kind, datasetVersionId: source.datasetVersionId } } : {});
@@ -50,7 +65,7 @@ export async function requireTeamModel(db: Executor, actor: Actor, modelId: stri
 }
 
 /** Editing a model makes a new version; earlier versions (and sweeps that ran on them) stay as they were. */
-export async function addKineticsVersion(db: Database, actor: Actor, modelId: string, input: { spec: KineticsSpec; note: string; source?: KineticsVersionSource }) {
+export async function addKineticsVersion(db: Database, actor: Actor, modelId: string, input: { spec: AnyKineticsSpec; note: string; source?: KineticsVersionSource }) {
   const model = await requireTeamModel(db, actor, modelId);
   assertCan(actor, "kinetics.create", { teamId: model.teamId }, "kinetics model");
   checkKinetics(input.spec);
@@ -58,13 +73,15 @@ export async function addKineticsVersion(db: Database, actor: Actor, modelId: st
     // Lock the model row so two concurrent edits get consecutive numbers.
     await tx.select({ id: kineticsModels.id }).from(kineticsModels).where(eq(kineticsModels.id, modelId)).for("update");
     const [{ latest }] = await tx.select({ latest: max(kineticsVersions.version) }).from(kineticsVersions).where(eq(kineticsVersions.modelId, modelId));
+    const [previous] = await tx.select({ spec: kineticsVersions.spec }).from(kineticsVersions).where(eq(kineticsVersions.modelId, modelId)).orderBy(desc(kineticsVersions.version)).limit(1);
+    if (previous) assertSameKind(kindOfSpec(previous.spec), kindOfSpec(input.spec));
     const [version] = await tx
       .insert(kineticsVersions)
       .values({ modelId, version: (latest ?? 0) + 1, spec: input.spec as Record<string, unknown>, note: input.note, createdBy: actor.userId })
       .returning();
     await insertSource(tx, version.id, input.source);
     await recordAudit(tx, { teamId: actor.teamId, actorId: actor.userId, action: "kinetics.version_added", entityType: "project", entityId: model.projectId, details: { model: model.name, modelId, version: version.version, ...sourceDetails(input.source) } });
-    return version;
+    return { ...version, kind: kindOfSpec(version.spec) };
   });
 }
 
@@ -75,7 +92,7 @@ export async function listKineticsModels(db: Database, actor: Actor, projectId: 
   const out = [];
   for (const m of models) {
     const [latest] = await db.select().from(kineticsVersions).where(eq(kineticsVersions.modelId, m.id)).orderBy(desc(kineticsVersions.version)).limit(1);
-    out.push({ ...m, latestVersion: latest });
+    out.push({ ...m, latestVersion: latest ? { ...latest, kind: kindOfSpec(latest.spec) } : latest });
   }
   return out;
 }
@@ -84,7 +101,7 @@ export async function getKineticsModel(db: Database, actor: Actor, modelId: stri
   const model = await requireTeamModel(db, actor, modelId);
   assertCan(actor, "kinetics.read", { teamId: model.teamId }, "kinetics model");
   const versions = await db.select().from(kineticsVersions).where(eq(kineticsVersions.modelId, modelId)).orderBy(desc(kineticsVersions.version));
-  return { ...model, versions };
+  return { ...model, kind: versions[0] ? kindOfSpec(versions[0].spec) : ("single" as KineticsKind), versions: versions.map((v) => ({ ...v, kind: kindOfSpec(v.spec) })) };
 }
 
 /** A version of a model of the actor's team, with its model (for the project it belongs to). */

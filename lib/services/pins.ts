@@ -6,7 +6,7 @@ import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, notFound } from "@/lib/errors";
 import { appLink, sendMail } from "@/lib/mail";
 import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
-import type { PinnedCandidate, WithShapes } from "@/lib/sweeps/stored-json";
+import type { PinnedCandidate, PinnedNetworkCandidate, WithShapes } from "@/lib/sweeps/stored-json";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
 import { requireTeamProject } from "./kinetics";
@@ -84,7 +84,7 @@ export async function listPins(db: Database, actor: Actor, projectId: string) {
   const filters = [eq(pinnedDesigns.projectId, projectId)];
   if (actor.role === "viewer") filters.push(eq(pinnedDesigns.state, "approved"));
   const rows = await db.select().from(pinnedDesigns).where(and(...filters)).orderBy(desc(pinnedDesigns.pinnedAt));
-  return rows as unknown as WithShapes<PinnedDesign, { candidate: PinnedCandidate }>[];
+  return rows as unknown as WithShapes<PinnedDesign, { candidate: PinnedCandidate | PinnedNetworkCandidate }>[];
 }
 
 export async function getPin(db: Database, actor: Actor, pinId: string) {

@@ -1,8 +1,11 @@
 import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { candidates, scenarios, sweeps, users, type Sweep } from "@/db/schema";
-import { designTrains, EngineError, type DesignResult, type DesignSpec } from "@/lib/engine";
+import { designNetwork, designTrains, EngineError, type DesignResult, type DesignSpec, type NetworkDesignResult, type NetworkDesignSpec } from "@/lib/engine";
 import { bestObjectiveOf, candidateRows } from "@/lib/sweeps/candidate-rows";
+import { bestNetworkObjective, networkCandidateRows, networkScenarioReference } from "@/lib/sweeps/network-candidate-rows";
+import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import type { Executor } from "@/db/client";
 import type { SweepChunkPayload } from "@/lib/jobs/queues";
 import { appLink, sendMail } from "@/lib/mail";
 import { engineSpecOf, withCosting } from "@/lib/costs/candidate-costing";
@@ -12,7 +15,11 @@ import { applyOverrides } from "@/lib/sweeps/grid";
 
 type Outcome =
   | { scenarioId: string; result: DesignResult; meet: (number | null)[] }
+  | { scenarioId: string; network: NetworkDesignResult; spec: NetworkDesignSpec }
   | { scenarioId: string; error: { message: string; path: string | null; code: string } };
+
+/** What a scenario's row records once it has been computed. */
+type ScenarioDone = { status: "succeeded"; bestObjective: number | null; reference: Record<string, unknown>; candidateCount: number; computedAt: Date } | { status: "failed"; error: { message: string; path: string | null; code: string }; computedAt: Date };
 
 const ACTIVE = ["queued", "running"] as const;
 
@@ -50,11 +57,18 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
     .where(and(eq(scenarios.sweepId, sweep.id), gte(scenarios.index, payload.from), lt(scenarios.index, payload.to), eq(scenarios.status, "pending")))
     .orderBy(scenarios.index);
 
+  const network = isNetworkSpec(sweep.baseSpec);
   const outcomes: Outcome[] = [];
   for (const s of pending) {
     if (shouldStop()) break;
-    const spec = applyOverrides(engineSpecOf(sweep.baseSpec), s.overrides) as unknown as DesignSpec;
     try {
+      if (network) {
+        // Robustness per train is not offered for network sweeps (createSweep refuses it), so none is rated here.
+        const spec = applyOverrides(sweep.baseSpec, s.overrides) as unknown as NetworkDesignSpec;
+        outcomes.push({ scenarioId: s.id, network: designNetwork(spec), spec });
+        continue;
+      }
+      const spec = applyOverrides(engineSpecOf(sweep.baseSpec), s.overrides) as unknown as DesignSpec;
       const result = designTrains(spec);
       outcomes.push({ scenarioId: s.id, result, meet: probabilitiesMeet(spec, result, sweep.robustness as SweepRobustness | null) });
     } catch (err) {
@@ -70,25 +84,9 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
       let transitioned = 0;
       let failed = 0;
       for (const o of outcomes) {
-        let best: number | null = null;
-        if ("result" in o) {
-          const rows = withCosting(candidateRows(sweep.id, o.scenarioId, o.result), sweep).map((r, i) => ({ ...r, probabilityMeet: o.meet[i] }));
-          for (let i = 0; i < rows.length; i += 500) await tx.insert(candidates).values(rows.slice(i, i + 500)).onConflictDoNothing();
-          best = bestObjectiveOf(o.result, rows);
-        }
         const updated = await tx
           .update(scenarios)
-          .set(
-            "result" in o
-              ? {
-                  status: "succeeded",
-                  bestObjective: best,
-                  reference: { ...o.result.reference, equilibriumConversion: o.result.equilibriumConversion ?? null, feedVolumetricFlow: o.result.feedVolumetricFlow, objective: o.result.objective },
-                  candidateCount: o.result.candidates.length,
-                  computedAt: new Date(),
-                }
-              : { status: "failed", error: o.error, computedAt: new Date() },
-          )
+          .set(await writeOutcome(tx, sweep, o))
           .where(and(eq(scenarios.id, o.scenarioId), eq(scenarios.status, "pending")))
           .returning({ id: scenarios.id });
         if (updated.length) {
@@ -121,6 +119,29 @@ export async function runSweepChunk(db: Database, payload: SweepChunkPayload, sh
 
   if (finished.changed) await notifySubmitter(db, sweep, "succeeded");
   return { computed: outcomes.length, written: finished.written, ...(finished.changed ? { finished: "succeeded" as const } : {}) };
+}
+
+/** Writes one scenario's candidates (none when it failed) and says what its row records. */
+async function writeOutcome(tx: Executor, sweep: Sweep, o: Outcome): Promise<ScenarioDone> {
+  const insert = async (rows: (typeof candidates.$inferInsert)[]) => {
+    for (let i = 0; i < rows.length; i += 500) await tx.insert(candidates).values(rows.slice(i, i + 500)).onConflictDoNothing();
+  };
+  if ("network" in o) {
+    await insert(networkCandidateRows(sweep.id, o.scenarioId, o.network));
+    return { status: "succeeded", bestObjective: bestNetworkObjective(o.network), reference: { ...networkScenarioReference(o.spec, o.network) }, candidateCount: o.network.candidates.length, computedAt: new Date() };
+  }
+  if ("result" in o) {
+    const rows = withCosting(candidateRows(sweep.id, o.scenarioId, o.result), sweep).map((r, i) => ({ ...r, probabilityMeet: o.meet[i] }));
+    await insert(rows);
+    return {
+      status: "succeeded",
+      bestObjective: bestObjectiveOf(o.result, rows),
+      reference: { ...o.result.reference, equilibriumConversion: o.result.equilibriumConversion ?? null, feedVolumetricFlow: o.result.feedVolumetricFlow, objective: o.result.objective },
+      candidateCount: o.result.candidates.length,
+      computedAt: new Date(),
+    };
+  }
+  return { status: "failed", error: o.error, computedAt: new Date() };
 }
 
 /** Marks a sweep failed (a chunk failed every retry); only an active sweep changes. */

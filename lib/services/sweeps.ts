@@ -8,14 +8,16 @@ import { AppError, labelled, notFound } from "@/lib/errors";
 import { bossDbFor, queueFor } from "@/lib/jobs/boss";
 import { QUEUES, WAKE_CHANNEL, type SweepChunkPayload } from "@/lib/jobs/queues";
 import { designSpecSchema } from "@/lib/schemas/sweep-spec";
-import type { SweepCreate } from "@/lib/schemas/sweeps";
+import type { NetworkSweepCreate, SweepCreate } from "@/lib/schemas/sweeps";
+import { isNetworkSpec, type NetworkKineticsSpec } from "@/lib/schemas/network-spec";
 import { toBadRequest } from "./engine-errors";
 import { labelFor } from "@/lib/schemas/field-labels";
 import { issueInWords } from "@/lib/schemas/issue-words";
 import { applyOverrides, chunkRanges, expandGrid, scenarioCount, type GridAxis, type Overrides } from "@/lib/sweeps/grid";
 import { checkUncertainFields, trainSpec } from "@/lib/robustness/train";
 import type { SweepRobustness } from "@/lib/schemas/robustness";
-import type { ScenarioReference, StoredSweepSpec, WithShapes } from "@/lib/sweeps/stored-json";
+import type { NetworkScenarioReference, ScenarioReference, StoredNetworkSweepSpec, StoredSweepSpec, WithShapes } from "@/lib/sweeps/stored-json";
+import { checkNetworkScenarios, networkBaseSpec } from "./network-sweep-checks";
 import { recordAudit } from "./audit";
 import { sweepCostingFor } from "./sweep-costing";
 import { requireTeamKineticsVersion, requireTeamProject } from "./kinetics";
@@ -132,7 +134,8 @@ async function insertSweepWithJobs(db: Database, s: NewSweep): Promise<Sweep> {
   });
 }
 
-export async function createSweep(db: Database, actor: Actor, projectId: string, input: SweepCreate): Promise<Sweep> {
+/** A sweep of a model of one reaction (a target conversion) or of several (objective and limits). */
+export async function createSweep(db: Database, actor: Actor, projectId: string, input: SweepCreate | NetworkSweepCreate): Promise<Sweep> {
   const project = await requireTeamProject(db, actor, projectId);
   assertCan(actor, "sweep.create", project, "project");
   const kv = await requireTeamKineticsVersion(db, actor, input.kineticsVersionId);
@@ -145,6 +148,14 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
       fields: { grid: [`${total} scenarios; at most ${maxScenarios()}`] },
     });
   }
+  const network = !("target" in input);
+  if (network !== isNetworkSpec(kv.version.spec)) {
+    const words = network
+      ? "this kinetics version has one reaction; its sweep names a target conversion instead of what to rank by and the limits"
+      : "this kinetics version has several reactions; its sweep names what to rank by and the limits instead of a target conversion";
+    throw new AppError("bad_request", `${labelFor("kineticsVersionId")}: ${words}`, { fields: { kineticsVersionId: [words] } });
+  }
+  if (!("target" in input)) return createNetworkSweep(db, actor, projectId, kv, input, total);
   const { costing, inventory } = await sweepCostingFor(db, actor, input);
   // The units the engineer typed the model in are for showing it again; the engine reads SI only.
   const { shownUnits: _shownUnits, ...chemistry } = kv.version.spec as Record<string, unknown>;
@@ -164,6 +175,31 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
   });
 }
 
+async function createNetworkSweep(
+  db: Database,
+  actor: Actor,
+  projectId: string,
+  kv: NonNullable<Awaited<ReturnType<typeof requireTeamKineticsVersion>>>,
+  input: NetworkSweepCreate,
+  total: number,
+): Promise<Sweep> {
+  if (input.robustness) {
+    const words = "rating every train under uncertainty during the sweep is not offered for models of several reactions; rate a chosen train from its page";
+    throw new AppError("bad_request", `${labelFor("robustness")}: ${words}`, { fields: { robustness: [words] } });
+  }
+  const baseSpec = networkBaseSpec(kv.version.spec as unknown as NetworkKineticsSpec, input);
+  checkNetworkScenarios(baseSpec, input.grid, expandGrid(input.grid));
+  return insertSweepWithJobs(db, {
+    actor,
+    projectId,
+    kineticsVersionId: kv.version.id,
+    name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
+    baseSpec,
+    grid: input.grid,
+    robustness: null,
+  });
+}
+
 async function requireTeamSweep(db: Database, actor: Actor, sweepId: string): Promise<Sweep> {
   const [s] = await db.select().from(sweeps).where(and(eq(sweeps.id, sweepId), eq(sweeps.teamId, actor.teamId)));
   if (!s) throw notFound("sweep");
@@ -176,7 +212,11 @@ export function sweepView(s: Sweep) {
   const { jobIds: _jobIds, baseSpec, ...rest } = s;
   const elapsed = s.startedAt ? ((s.finishedAt ?? new Date()).getTime() - s.startedAt.getTime()) / 1000 : null;
   const remaining = elapsed && s.done > 0 && s.status === "running" ? (elapsed / s.done) * (s.total - s.done) : null;
-  return { ...rest, grid: s.grid as GridAxis[], robustness: s.robustness as SweepRobustness | null, spec: baseSpec as unknown as StoredSweepSpec, progress: { done: s.done, total: s.total, fraction: s.total ? s.done / s.total : 0, elapsedSeconds: elapsed, remainingSeconds: remaining } };
+  // The kind travels with the spec so a screen narrows both at once.
+  const kinded = isNetworkSpec(baseSpec)
+    ? { kind: "network" as const, spec: baseSpec as unknown as StoredNetworkSweepSpec }
+    : { kind: "single" as const, spec: baseSpec as unknown as StoredSweepSpec };
+  return { ...rest, grid: s.grid as GridAxis[], robustness: s.robustness as SweepRobustness | null, ...kinded, progress: { done: s.done, total: s.total, fraction: s.total ? s.done / s.total : 0, elapsedSeconds: elapsed, remainingSeconds: remaining } };
 }
 
 export async function getSweep(db: Database, actor: Actor, sweepId: string) {
@@ -241,7 +281,7 @@ export async function listScenarios(db: Database, actor: Actor, sweepId: string)
     .from(scenarios)
     .where(eq(scenarios.sweepId, sweepId))
     .orderBy(asc(scenarios.index));
-  return rows as WithShapes<(typeof rows)[number], { reference: ScenarioReference | null }>[];
+  return rows as WithShapes<(typeof rows)[number], { reference: ScenarioReference | NetworkScenarioReference | null }>[];
 }
 
 export { requireTeamSweep };

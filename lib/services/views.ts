@@ -6,6 +6,7 @@
  */
 import type { listAuditEntries } from "./audit";
 import type { compareCandidates, listCandidates } from "./candidates";
+import type { getCandidate } from "./candidate-detail";
 import type { CostBasisView } from "./costs";
 import type { listDatasets } from "./datasets";
 import type { listInventory } from "./inventory";
@@ -39,8 +40,15 @@ export type SweepListItem = Answer<typeof listSweeps>[number];
 export type ScenarioRow = Answer<typeof listScenarios>[number];
 export type CandidatePage = Answer<typeof listCandidates>;
 export type CandidateRow = CandidatePage["items"][number];
-/** One candidate of the candidate view and of the comparison, with its scenario, sweep and plot data. */
+/** One candidate of the candidate view and of the comparison, with its scenario, sweep and plot data; `kind` tells the two apart. */
 export type CandidateDetail = Answer<typeof compareCandidates>[number];
+/** A candidate of a model of one reaction (stages with conversions and Levenspiel plot data). */
+export type SingleCandidateDetail = Extract<CandidateDetail, { kind: "single" }>;
+/** A candidate of a model of several reactions (stages with outlet compositions). */
+export type NetworkCandidateDetail = Extract<CandidateDetail, { kind: "network" }>;
+/** GET /api/candidates/{id}: a network candidate also carries its chemistry, profiles and paths. */
+export type CandidateAnswer = Answer<typeof getCandidate>;
+export type NetworkCandidateAnswer = Extract<CandidateAnswer, { kind: "network" }>;
 
 export type RobustnessList = Answer<typeof listCandidateRuns>;
 export type RobustnessRunView = Answer<typeof getRun>;

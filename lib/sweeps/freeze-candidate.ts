@@ -1,10 +1,13 @@
 import type { Candidate, Scenario, Sweep } from "@/db/schema";
 import type { StagePlot, StageType } from "@/lib/engine";
 import type { TrainPlan } from "@/lib/costs/train-plan";
-import type { PinnedCandidate, ScenarioReference, StoredStage } from "./stored-json";
+import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import type { NetworkScenarioReference, PinnedCandidate, PinnedNetworkCandidate, ScenarioReference, StoredNetworkStage, StoredStage } from "./stored-json";
 
 /** The frozen copy of a candidate that a pinned design keeps: totals, stages with plot data, its scenario and sweep. */
-export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" | "overrides" | "reference">, sweep: Pick<Sweep, "id" | "name">): PinnedCandidate {
+export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" | "overrides" | "reference">, sweep: Pick<Sweep, "id" | "name"> & { baseSpec?: Sweep["baseSpec"] }): PinnedCandidate | PinnedNetworkCandidate {
+  // The sweep's spec tells the kind; without it (older callers) the candidate is of one reaction.
+  if (sweep.baseSpec && isNetworkSpec(sweep.baseSpec)) return freezeNetworkCandidate(c, scenario, sweep);
   return {
     rank: c.rank,
     sequence: c.sequenceKey.split("-") as StageType[],
@@ -18,6 +21,33 @@ export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
     probabilityMeet: c.probabilityMeet,
     stages: c.stages.map((s, i) => ({ ...(s as unknown as StoredStage), levenspiel: c.levenspiel[i] as StagePlot })),
     scenario: { index: scenario.index, overrides: scenario.overrides, reference: scenario.reference as ScenarioReference | null },
+    sweep: { id: sweep.id, name: sweep.name },
+  };
+}
+
+/**
+ * The frozen copy of a network candidate: its measures, outlet composition and stages (profiles are
+ * recomputed from the stages when shown). The outlet is the last stage's; totals of residence time are
+ * the stages' sum.
+ */
+function freezeNetworkCandidate(c: Candidate, scenario: Pick<Scenario, "index" | "overrides" | "reference">, sweep: Pick<Sweep, "id" | "name">): PinnedNetworkCandidate {
+  const stages = c.stages as unknown as StoredNetworkStage[];
+  return {
+    kind: "network",
+    rank: c.rank,
+    sequence: c.sequenceKey.split("-") as StageType[],
+    feasible: c.feasible,
+    totalVolume: c.totalVolume,
+    totalResidenceTime: c.feasible ? stages.reduce((sum, s) => sum + s.residenceTime, 0) : null,
+    conversion: c.conversion,
+    yield: c.yield,
+    selectivity: c.selectivity,
+    objective: c.objectiveValue,
+    outlet: stages.at(-1)?.outlet ?? null,
+    onBound: c.onBound ?? [],
+    probabilityMeet: c.probabilityMeet,
+    stages,
+    scenario: { index: scenario.index, overrides: scenario.overrides, reference: scenario.reference as NetworkScenarioReference | null },
     sweep: { id: sweep.id, name: sweep.name },
   };
 }

@@ -11,7 +11,7 @@ import type { gridAxisSchema } from "@/lib/schemas/sweeps";
  */
 export type GridAxis = z.infer<typeof gridAxisSchema>;
 
-/** Field path → value for one scenario, e.g. { "feed.flowA": 0.02, "target.conversion": 0.9 }. */
+/** Field path → value for one scenario, e.g. { "feed.flowA": 0.02, "target.conversion": 0.9 } or { "reactions.1.rate.k": 2 }. */
 export type Overrides = Record<string, number>;
 
 /** The values an axis takes, in order. */
@@ -48,8 +48,17 @@ export function applyOverrides<T>(spec: T, overrides: Overrides): T {
   return result as T;
 }
 
+/**
+ * Writes one value; an array on the way (a network's reactions) is copied as an array and a numeric key
+ * indexes it, so `reactions.1.rate.k` changes the second reaction's constant and keeps the list a list.
+ */
 function setPath(node: unknown, keys: string[], value: number): unknown {
   const [head, ...rest] = keys;
+  if (Array.isArray(node) && /^\d+$/.test(head)) {
+    const copy = [...node];
+    copy[Number(head)] = rest.length === 0 ? value : setPath(node[Number(head)], rest, value);
+    return copy;
+  }
   const obj = node !== null && typeof node === "object" && !Array.isArray(node) ? (node as Record<string, unknown>) : {};
   return { ...obj, [head]: rest.length === 0 ? value : setPath(obj[head], rest, value) };
 }

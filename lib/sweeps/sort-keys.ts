@@ -3,5 +3,5 @@
  * (lib/schemas/sweeps.ts) and the sweep page's URL state (components/sweeps/view-state.ts); it has
  * no dependencies so the page takes it without pulling zod or the server in.
  */
-export const SORT_KEYS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused", "probabilityMeet"] as const;
+export const SORT_KEYS = ["rank", "totalVolume", "totalCost", "stageCount", "ratioToPfr", "sequence", "installedCost", "reused", "probabilityMeet", "conversion", "yield", "selectivity", "objectiveValue"] as const;
 export type SortKey = (typeof SORT_KEYS)[number];

@@ -2,6 +2,8 @@ import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runMigrations } from "@/db/migrate";
 import { DEMO_KINETICS, DEMO_USERS, seedDemoData } from "@/lib/demo/seed";
+import { DEMO_NETWORK } from "@/lib/demo/network-demo";
+import { networkKineticsSpecSchema } from "@/lib/schemas/network-spec";
 import { checkKinetics } from "@/lib/services/kinetics-checks";
 import { auditEntries } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "../helpers/test-db";
@@ -61,8 +63,32 @@ describe("demo seed", () => {
 
   it("holds demo kinetics the engine accepts", async () => {
     for (const k of DEMO_KINETICS) expect(() => checkKinetics(k.spec)).not.toThrow();
+    expect(networkKineticsSpecSchema.safeParse(DEMO_NETWORK.model.spec).success).toBe(true);
+    expect(() => checkKinetics(DEMO_NETWORK.model.spec)).not.toThrow();
     const r = await t.pool.query("select count(*)::int n from kinetics_versions");
-    expect(r.rows[0].n).toBe(DEMO_KINETICS.length);
+    expect(r.rows[0].n).toBe(DEMO_KINETICS.length + 1);
+  });
+
+  it("holds a finished yield-ranked sweep of several reactions and its best train pinned", async () => {
+    const sweep = await t.pool.query("select id, status, total, done from sweeps where name = $1", [DEMO_NETWORK.sweep.name]);
+    expect(sweep.rows).toEqual([expect.objectContaining({ status: "succeeded", total: 3, done: 3 })]);
+    const ranked = await t.pool.query(
+      "select c.rank, c.yield, c.objective_value, c.feasible from candidates c join scenarios s on s.id = c.scenario_id where c.sweep_id = $1 and s.index = 1 order by c.rank",
+      [sweep.rows[0].id],
+    );
+    expect(ranked.rows).toHaveLength(14); // every sequence of 1..3 stages of two types: 2 + 4 + 8
+    const feasible = ranked.rows.filter((c) => c.feasible);
+    // Ranked best first by the yield of B (the ranked value is the yield itself); yields within 1e-9
+    // relative are a tie, ranked by fewer stages in use (docs/engine.md).
+    for (let i = 1; i < feasible.length; i++) expect(feasible[i].yield).toBeLessThanOrEqual(feasible[i - 1].yield * (1 + 1e-9));
+    for (const c of feasible) expect(c.objective_value).toBe(c.yield);
+    const pin = await t.pool.query("select candidate from pinned_designs p join sweeps s on s.id = p.sweep_id where s.name = $1", [DEMO_NETWORK.sweep.name]);
+    expect(pin.rows).toHaveLength(1);
+    const pinned = pin.rows[0].candidate;
+    expect(pinned.kind).toBe("network");
+    expect(pinned.rank).toBe(1);
+    expect(pinned.yield).toBe(feasible[0].yield);
+    expect(Object.keys(pinned.outlet).sort()).toEqual(["A", "B", "C", "D"]);
   });
 
   it("changes nothing when run a second time", async () => {

@@ -4,6 +4,7 @@ import { toSI } from "../units";
 import { cstrSteadyStates } from "./cstr";
 import type { NetworkCandidate, NetworkDesignResult, NetworkDesignSpec, NetworkReferenceDesign, NetworkStageResult } from "./design-types";
 import { makeKinetics, type Kinetics } from "./kinetics";
+import { chemistryTimeScale } from "./time-scale";
 import { streamMeasures } from "./measures";
 import { better, GRID_POINTS, optimiseSequence, POLISH_STARTS, type SequenceDesign } from "./optimise";
 import { pfrOutlet } from "./pfr";
@@ -96,16 +97,7 @@ function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProblem {
   const maxStageTau = limit(c.maxStageVolume, "constraints.maxStageVolume");
 
   // Time scale of the chemistry: the time the feed's key reactant lasts at its initial rate of use.
-  const R = new Float64Array(net.nSpecies);
-  kin.production(net.F0, net.T0, R);
-  const use = -R[net.key] / net.v0;
-  let tc = use > 0 ? net.C0[net.key] / use : Number.NaN;
-  if (!(tc > 0 && Number.isFinite(tc))) {
-    const g = new Float64Array(net.nReactions);
-    kin.grossRates(net.F0, net.T0, g);
-    const fastest = Math.max(...g);
-    tc = fastest > 0 ? net.C0[net.key] / fastest : 1;
-  }
+  const tc = chemistryTimeScale(kin);
   // The scan reaches the volume limit, or far beyond where the key reactant is used up when there is none.
   const tauHi = Number.isFinite(maxTotalTau) ? maxTotalTau : Number.isFinite(maxStageTau) ? maxStageTau : 1e4 * tc;
   return {

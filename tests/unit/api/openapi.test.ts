@@ -30,10 +30,16 @@ describe("the OpenAPI document", () => {
 
   it("describes request bodies from the zod schemas", () => {
     const doc = buildOpenApiDocument("http://127.0.0.1:3000");
-    const create = doc.paths["/api/projects/{projectId}/sweeps"].post as { requestBody: { content: { "application/json": { schema: { properties: Record<string, unknown>; required: string[] } } } } };
-    const schema = create.requestBody.content["application/json"].schema;
-    expect(Object.keys(schema.properties)).toEqual(expect.arrayContaining(["kineticsVersionId", "target", "train", "objective", "grid"]));
-    expect(schema.required).toEqual(expect.arrayContaining(["kineticsVersionId", "target", "train"]));
+    type Body = { properties: Record<string, unknown>; required: string[] };
+    const create = doc.paths["/api/projects/{projectId}/sweeps"].post as { requestBody: { content: { "application/json": { schema: { anyOf: Body[] } } } } };
+    // A sweep of a model of one reaction, or of several: both bodies are listed.
+    const [schema, network] = create.requestBody.content["application/json"].schema.anyOf;
+    expect(Object.keys(schema!.properties)).toEqual(expect.arrayContaining(["kineticsVersionId", "target", "train", "objective", "grid"]));
+    expect(schema!.required).toEqual(expect.arrayContaining(["kineticsVersionId", "target", "train"]));
+    expect(Object.keys(network!.properties)).toEqual(expect.arrayContaining(["kineticsVersionId", "thermal", "train", "objective", "constraints", "grid"]));
+    expect(network!.required).toEqual(expect.arrayContaining(["kineticsVersionId", "train", "objective"]));
+    const model = doc.paths["/api/projects/{projectId}/kinetics"].post as { requestBody: { content: { "application/json": { schema: { anyOf: { properties: { spec: { properties: Record<string, unknown> } } }[] } } } } };
+    expect(Object.keys(model.requestBody.content["application/json"].schema.anyOf[1]!.properties.spec.properties)).toEqual(expect.arrayContaining(["reactions", "keyReactant", "product"]));
     const candidates = doc.paths["/api/sweeps/{sweepId}/scenarios/{index}/candidates"].get as { parameters: { name: string; in: string }[] };
     expect(candidates.parameters.map((p) => p.name)).toEqual(["sweepId", "index", "sort", "dir", "feasible", "contains", "stages", "page", "pageSize", "include"]);
   });

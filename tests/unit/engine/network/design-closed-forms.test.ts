@@ -23,6 +23,17 @@ describe("network designer against closed forms", { timeout: 120000 }, () => {
     expect(r.candidates[0].outlet!.B / CA0).toBeCloseTo(tube, 8);
   });
 
+  // The same closed form when the best time lies far out on the chemistry's time scale (k2 << k1: about
+  // 11.5 lifetimes of A), at a small and a large feed flow: the scan's reach must not depend on the flow.
+  it.each([1e-4, 10])("a best tube far out in residence time is found whatever the feed flow (v0 %s m3/s)", (v0) => {
+    const k1 = 1;
+    const k2 = 1e-5;
+    const spec = seriesDesign(k1, k2, { candidates: [["PFR"]] });
+    const r = designNetwork({ ...spec, feed: { ...spec.feed, volumetricFlow: v0 } });
+    expect(rel(r.candidates[0].objective!, (k1 / k2) ** (k2 / (k2 - k1)))).toBeLessThan(1e-8);
+    expect(rel(r.candidates[0].totalResidenceTime!, Math.log(k2 / k1) / (k2 - k1))).toBeLessThan(1e-3);
+  });
+
   it("more stirred tanks in series approach the tube (common practice)", () => {
     const r = designNetwork(seriesDesign(0.8, 0.3, only(["PFR"], ...[1, 2, 3, 4, 5].map(tanks))));
     const best = (n: number) => r.candidates.find((c) => c.sequence.length === n && c.sequence[0] === "CSTR")!.objective!;
