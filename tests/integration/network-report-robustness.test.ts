@@ -4,7 +4,7 @@ import { PDFParse } from "pdf-parse";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, projects, scenarios, sweeps } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
-import { designNetwork, type NetworkDesignSpec } from "@/lib/engine";
+import { designNetwork, rateNetworkTrain, type NetworkDesignSpec, type NetworkSpec } from "@/lib/engine";
 import { DEMO_NETWORK } from "@/lib/demo/network-demo";
 import { seedDemoData } from "@/lib/demo/seed";
 import { AppError } from "@/lib/errors";
@@ -224,5 +224,27 @@ describe("robustness of a train of several reactions", () => {
     expect(text).toContain("Chance of missing the minimum yield");
     expect(text).toContain("Yield of B P5 / P50 / P95");
     expect(text).toContain("Uncertain: Reaction 2, rate constant k");
+  });
+});
+
+describe("the seeded demo pin of several reactions (frozen by the pin service's own freeze)", () => {
+  it("reports its composition against the engine's rating of the same train, and rates it under uncertainty", async () => {
+    const [project] = await t.db.select().from(projects).where(eq(projects.name, DEMO_NETWORK.project.name));
+    const [demoPin] = await t.db.select().from(pinnedDesigns).where(eq(pinnedDesigns.projectId, project.id));
+    const r = await getDesignReport(t.db, engineer, demoPin.id);
+    expect(r.kind).toBe("network");
+    const n = r.network!;
+    const frozenDemo = demoPin.candidate as unknown as PinnedNetworkCandidate;
+    // The fixed train rated again from the feed, independently of the designer's search.
+    const rated = rateNetworkTrain(n.chemistry as unknown as NetworkSpec, frozenDemo.stages.map((s) => ({ type: s.type, volume: s.volume })), "B");
+    n.composition.rows.slice(1).forEach((row, i) => row.values.forEach((v, j) => expect(Math.abs(v! - rated.stages[i].outlet[n.composition.species[j]])).toBeLessThan(1e-6 * 1200)));
+    expect(n.composition.rows[0].values).toEqual([1200, 0, 0, 0]);
+    expect(n.chart).not.toBeNull();
+
+    const run = await createPinRun(t.db, engineer, demoPin.id, { uncertain: [{ field: "reactions.0.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 60, seed: 1 });
+    expect(run.status).toBe("succeeded");
+    expect(isNetworkRobustnessResult(run.result)).toBe(true);
+    // The demo sweep sets no minimum yield: the chance of missing one is not reported.
+    if (isNetworkRobustnessResult(run.result)) expect(run.result.probabilityMissMinYield).toBeNull();
   });
 });
