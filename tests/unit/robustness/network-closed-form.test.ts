@@ -2,7 +2,9 @@ import { describe, expect, it } from "vitest";
 import { designNetwork, GAS_CONSTANT, type NetworkDesignSpec } from "@/lib/engine";
 import { rateNetworkUnderUncertainty, type NetworkTrain } from "@/lib/robustness/network-monte-carlo";
 import { networkProbabilitiesMeet } from "@/lib/robustness/network-sweep-ranking";
-import { networkTrainOf } from "@/lib/robustness/network-train";
+import { checkNetworkUncertainFields, networkTrainOf } from "@/lib/robustness/network-train";
+import { checkUncertainFields } from "@/lib/robustness/train";
+import type { AppError } from "@/lib/errors";
 
 // A -> B -> C, both first order, in one stirred tank of residence time t (liquid). The tank balances give the
 // closed form (Levenspiel, Chemical Reaction Engineering, 3rd ed., ch. 8):
@@ -133,5 +135,29 @@ describe("chance of meeting every limit for each train of a sweep of several rea
       expect(shares[i]).toBeLessThan(1);
     });
     expect(networkProbabilitiesMeet(spec, result, null)).toEqual(result.candidates.map(() => null));
+  });
+});
+
+describe("inputs a train does not offer are refused in the form's words", () => {
+  it("a one-reaction input on a train of several reactions, and a network input on a one-reaction train, name the field by its label", () => {
+    const net = networkTrainOf({ feed: { volumetricFlow: v0, concentrations: { A: 1000, B: 0 } }, phase: "liquid", reactions: [{ stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: "0.06 1/min", orders: { A: 1 } } }], keyReactant: "A" }, []);
+    expect(net.chemistry.reactions).toEqual([{ stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 1e-3, orders: { A: 1 } } }]);
+    const refusedNet = (() => {
+      try {
+        checkNetworkUncertainFields(net, [{ field: "reactions.3.rate.k", kind: "plusMinus", fraction: 0.2 }]);
+      } catch (err) {
+        return err as AppError;
+      }
+    })();
+    expect(refusedNet?.fields).toEqual({ "uncertain.0.field": ["Reaction 4, rate constant k is not an input of this train that can be varied; choose one from the list"] });
+    const single = { feed: { flowA: 0.02, concA: 1000 }, reaction: { rate: { law: "power" as const, k: 1e-3, orders: { A: 1 } } }, stages: [{ type: "CSTR" as const, volume: 1 }] };
+    const refusedSingle = (() => {
+      try {
+        checkUncertainFields(single, [{ field: "reactions.0.rate.k", kind: "plusMinus", fraction: 0.2 }]);
+      } catch (err) {
+        return err as AppError;
+      }
+    })();
+    expect(refusedSingle?.fields?.["uncertain.0.field"]?.[0]).toBe("Reaction 1, rate constant k is not an input of this train that can be varied; choose one from the list");
   });
 });
