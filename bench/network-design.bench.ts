@@ -2,11 +2,15 @@
  * Wall time of the network designer: the command line's three-reaction liquid example with every sequence
  * of 1..5 stages (62) maximising the yield of B, and five stirred tanks of the Van de Vusse case; then how
  * far each objective is from a run with tighter search settings (tube tolerance 1e-10). Prints figures,
- * asserts nothing (goals: 1 s and 50 ms on the 2-core machine, quiet). Run with:
+ * asserts nothing (goals: 1 s and 50 ms on the 2-core machine, quiet). Last, the cost of solving every tank
+ * for all its steady states during the search, on an autocatalytic network. Run with:
  *   esbuild bench/network-design.bench.ts --bundle --platform=node --format=esm \
  *     --outfile=node_modules/.cache/seriatim/bench-network.mjs --log-level=error && node node_modules/.cache/seriatim/bench-network.mjs
  */
-import { designNetwork, type NetworkDesignOptions } from "../lib/engine/network/design";
+import { designNetwork, makeProblem, type NetworkDesignOptions } from "../lib/engine/network/design";
+import { makeKinetics } from "../lib/engine/network/kinetics";
+import { resolveNetwork } from "../lib/engine/network/resolve";
+import { stageOutlet } from "../lib/engine/network/train-eval";
 import type { NetworkDesignSpec } from "../lib/engine/network/design-types";
 import contractExample from "../tests/fixtures/specs/network-three-reactions.json";
 
@@ -70,3 +74,42 @@ const heated: NetworkDesignSpec = {
 };
 const h = time("three-reaction example with stage temperatures, 62 sequences", heated, 1);
 console.log(`  best ${h.candidates[0].sequence.join("-")} yield ${h.candidates[0].objective} at ${h.candidates[0].stages.map((s) => s.temperature.toFixed(1)).join(", ")} K`);
+
+// What the search pays when a network may give a tank several steady states (cstr-uniqueness.ts): every
+// tank is then solved with the full steady-state search instead of Newton from the feed (which, past the
+// fold, fails and falls back on the full search itself: that inflates its figure here). Cubic
+// autocatalysis A + 2B -> 3B beside A -> C (the case of tests/unit/engine/network/design-multiplicity.test.ts).
+const autocatalytic: NetworkDesignSpec = {
+  feed: { volumetricFlow: 1, concentrations: { A: 1000, B: 10, C: 0 } },
+  phase: "liquid",
+  keyReactant: "A",
+  reactions: [
+    { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 1e-8, orders: { A: 1, B: 2 } } },
+    { stoichiometry: { A: -1, C: 1 }, rate: { law: "power", k: 2e-4, orders: { A: 1 } } },
+  ],
+  train: { candidates: [["CSTR"], ["CSTR", "CSTR"]] },
+  objective: { maximise: "yield", product: "C" },
+  constraints: { maxTotalVolume: 2e4 },
+};
+{
+  const problem = makeProblem(autocatalytic, makeKinetics(resolveNetwork(autocatalytic)));
+  const sizes = Array.from({ length: 200 }, (_, q) => 10 * 1.04 ** q);
+  const per = (unique: boolean) => {
+    const p = { ...problem, tanksUnique: unique };
+    const t = performance.now();
+    for (const tau of sizes) {
+      try {
+        stageOutlet(p, "CSTR", p.kin.net.F0, tau);
+      } catch {
+        // past the fold Newton from the feed can fail; the search then falls back on the full search
+      }
+    }
+    return ((performance.now() - t) / sizes.length) * 1000;
+  };
+  per(true);
+  per(false);
+  console.log(`one autocatalytic tank: Newton from the feed ${per(true).toFixed(0)} µs, every steady state (what the search now uses) ${per(false).toFixed(0)} µs`);
+  const t = performance.now();
+  const d = designNetwork(autocatalytic);
+  console.log(`  two sequences of such tanks designed in ${(performance.now() - t).toFixed(0)} ms; best ${d.candidates[0].sequence.join("-")} yield ${d.candidates[0].objective}`);
+}

@@ -12,7 +12,7 @@ import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 // One-reaction screen until it learns the network kind (kind "network" carries other stages).
-import type { SingleCandidateDetail as CandidateDetail, SweepView } from "@/lib/services/views";
+import type { CandidateAnswer, SweepView } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
@@ -22,13 +22,17 @@ import { StageTable } from "./stage-table";
 import { VesselPlan } from "./vessel-plan";
 import { TemperatureProfile } from "./temperature-profile";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import type { UnitKind } from "@/lib/units/display";
+import { NetworkCandidateView } from "./network-candidate-view";
+import type { NetworkCandidateDetail } from "./network-types";
+import { networkObjectiveOf } from "@/components/sweeps/network-sweep";
 
-export function CandidateView({ candidateId, canPin }: { candidateId: string; canPin: boolean }) {
+export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId: string; canPin: boolean; typedUnits?: Partial<Record<UnitKind, string>> }) {
   const params = useSearchParams();
   const back = params.get("back");
   const q = useQuery({
     queryKey: ["candidate", candidateId],
-    queryFn: () => fetchJson<{ candidate: CandidateDetail }>(`/api/candidates/${candidateId}`).then((r) => r.candidate),
+    queryFn: () => fetchJson<{ candidate: CandidateAnswer }>(`/api/candidates/${candidateId}`).then((r) => r.candidate),
   });
   const sweepId = q.data?.sweep.id;
   const sweepQ = useQuery({
@@ -40,6 +44,12 @@ export function CandidateView({ candidateId, canPin }: { candidateId: string; ca
 
   if (q.isPending) return <LoadingPanel label="Loading the candidate…" />;
   if (q.isError) return <ErrorPanel error={q.error} what="this candidate" />;
+  // A train of several reactions has its own view (measures, composition, profiles, path).
+  if (q.data.kind === "network") {
+    // The server's answer, read through the screens' own shape of it (a mismatch fails to compile here).
+    const n: NetworkCandidateDetail = q.data;
+    return <NetworkCandidateView c={n} canPin={canPin} back={back} objective={n.scenario.reference?.objective ?? networkObjectiveOf(sweepQ.data)} typedUnits={typedUnits} />;
+  }
   const c = q.data;
   const sweepHref = back?.startsWith("/projects/") ? back : `/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}`;
   const ref = c.scenario.reference;

@@ -33,6 +33,8 @@ export interface LineChartProps {
   /** Axis ranges; taken from the data when left out. */
   xRange?: [number, number];
   yRange?: [number, number];
+  /** Spans of x shaded in turn and labelled at the top, e.g. the stages of a train along its residence time. */
+  bands?: { from: number; to: number; label: string }[];
 }
 
 const MARGIN = { top: 14, right: 16, bottom: 44, left: 68 };
@@ -69,7 +71,7 @@ function useWidth(fallback: number) {
   return [ref, width] as const;
 }
 
-export function LineChart({ series, xLabel, yLabel, summary, height = 300, testId, xRange, yRange }: LineChartProps) {
+export function LineChart({ series, xLabel, yLabel, summary, height = 300, testId, xRange, yRange, bands = [] }: LineChartProps) {
   const [wrapRef, width] = useWidth(560);
   const xs = rangeOf(series.flatMap((s) => s.points.map((p) => p.x)), xRange);
   const ys = rangeOf(series.flatMap((s) => s.points.map((p) => p.y)), yRange);
@@ -95,6 +97,15 @@ export function LineChart({ series, xLabel, yLabel, summary, height = 300, testI
               <rect x={MARGIN.left} y={MARGIN.top - 2} width={innerW + 2} height={innerH + 4} />
             </clipPath>
           </defs>
+          {bands.map((b, i) => (
+            <g key={`band${i}`} data-band={b.label}>
+              <rect x={sx(b.from)} y={MARGIN.top} width={Math.max(0, sx(b.to) - sx(b.from))} height={innerH} fill={i % 2 ? "#ffffff" : "#f4f6f8"} />
+              <line x1={sx(b.to)} x2={sx(b.to)} y1={MARGIN.top} y2={MARGIN.top + innerH} stroke="#c9cfd8" strokeDasharray="3 3" />
+              <text x={(sx(b.from) + sx(b.to)) / 2} y={MARGIN.top + 10} textAnchor="middle" fontSize={10} fill="#4a5565">
+                {b.label}
+              </text>
+            </g>
+          ))}
           {yTicks.tickValues.map((t) => (
             <g key={`y${t}`}>
               <line x1={MARGIN.left} x2={MARGIN.left + innerW} y1={sy(t)} y2={sy(t)} stroke="#eef0f3" />

@@ -12,12 +12,14 @@ import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 // One-reaction screen until it learns the network kind (kind "network" carries other stages).
-import type { SingleCandidateDetail as CandidateDetail } from "@/lib/services/views";
+import type { CandidateDetail as AnyCandidateDetail, NetworkCandidateDetail as NetworkCompared, SingleCandidateDetail as CandidateDetail } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import type { NetworkCandidateDetail } from "@/components/candidates/network-types";
+import { NetworkCompare } from "./network-compare";
 
 const signed = (v: number | null, text: (n: number) => string) => (v === null ? "—" : v === 0 ? "best" : `+${text(v)}`);
 
@@ -27,10 +29,10 @@ export function CompareView() {
   const valid = ids.length >= 2 && ids.length <= 4;
   const q = useQuery({
     queryKey: ["compare", ids.join(",")],
-    queryFn: () => fetchJson<{ candidates: CandidateDetail[] }>(`/api/candidates/compare?ids=${ids.join(",")}`).then((r) => r.candidates),
+    queryFn: () => fetchJson<{ candidates: AnyCandidateDetail[] }>(`/api/candidates/compare?ids=${ids.join(",")}`).then((r) => r.candidates),
     enabled: valid,
   });
-  const charts = useMemo(() => (q.data ?? []).map((c) => chartInputs(c.stages, c.levenspiel)), [q.data]);
+  const charts = useMemo(() => (q.data ?? []).map((c) => (c.kind === "network" ? chartInputs([], []) : chartInputs(c.stages, c.levenspiel))), [q.data]);
   const yMax = useMemo(() => (charts.length ? sharedYMax(charts) : undefined), [charts]);
   const [unit, setUnit] = useUrlUnit(Math.max(0, ...(q.data ?? []).map((c) => c.totalVolume ?? 0)) || null);
 
@@ -43,7 +45,20 @@ export function CompareView() {
     );
   if (q.isPending) return <LoadingPanel label="Loading the trains…" />;
   if (q.isError) return <ErrorPanel error={q.error} what="these candidates" />;
-  const list = q.data;
+  // Trains of several reactions compare by yield, selectivity and volume, without Levenspiel charts.
+  const networks = q.data.filter((c): c is NetworkCompared => c.kind === "network");
+  if (networks.length) {
+    // The server's items, read through the screens' own shape of them (a mismatch fails to compile here).
+    const read: NetworkCandidateDetail[] = networks;
+    if (networks.length === q.data.length) return <NetworkCompare list={read} />;
+    return (
+      <div className="card p-6 text-ink-soft" data-testid="compare-mixed">
+        <h1>Compare trains</h1>
+        <p className="mt-2">Trains for one reaction and for several reactions are ranked by different measures; compare trains of one kind at a time.</p>
+      </div>
+    );
+  }
+  const list = q.data.filter((c): c is CandidateDetail => c.kind === "single");
   const fewest = Math.min(...list.map((c) => c.stageCount));
   const anyCost = list.some((c) => c.totalCost !== null);
   // One train per row: side by side, a stage table lost its volume column at 1280 and 1024 px.

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
@@ -38,7 +38,18 @@ function StageBadge({ type }: { type: string }) {
   );
 }
 
-export function SweepBuilder({ projectId, versions, initial }: { projectId: string; versions: VersionOption[]; initial: BuilderValues }) {
+export function SweepBuilder({
+  projectId,
+  versions,
+  initial,
+  onVersionChange,
+}: {
+  projectId: string;
+  versions: VersionOption[];
+  initial: BuilderValues;
+  /** Told of the chosen version, so a model of several reactions can bring its own form. */
+  onVersionChange?: (id: string) => void;
+}) {
   const router = useRouter();
   const form = useForm<z.input<typeof schema>, unknown, z.output<typeof schema>>({ resolver: zodResolver(schema), defaultValues: initial, mode: "onChange" });
   const { register, control, formState, setValue, setError } = form;
@@ -49,6 +60,10 @@ export function SweepBuilder({ projectId, versions, initial }: { projectId: stri
   const grid = useFieldArray({ control, name: "grid" });
   const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
+  const chosenVersion = v.kineticsVersionId;
+  useEffect(() => {
+    if (chosenVersion) onVersionChange?.(chosenVersion);
+  }, [chosenVersion, onVersionChange]);
   // A message from the last submit describes the values then sent; once any field changes it is stale.
   // A message from the last submit describes the values then sent; once any field changes it goes.
   const valuesKey = JSON.stringify([v, uncertainty]);

@@ -8,6 +8,7 @@ import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
+import { networkColumns, NETWORK_COLUMN_TITLES } from "./network-columns";
 import type { CandidateRow } from "@/lib/services/views";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
 import type { OptionalColumn, SweepViewState } from "./view-state";
@@ -16,6 +17,19 @@ import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 const helper = createColumnHelper<typeof features, CandidateRow>();
 const NO_ROWS: CandidateRow[] = [];
+
+const feasibility = helper.accessor("feasible", {
+  header: "Feasibility",
+  enableSorting: false,
+  cell: (i) =>
+    i.getValue() ? (
+      <span className="badge whitespace-nowrap border-accent-200 bg-accent-50 text-accent-800">✓ feasible</span>
+    ) : (
+      <span className="badge border-red-300 bg-red-50 text-red-800" title={i.row.original.reason ?? undefined}>
+        ✕ {i.row.original.reason ?? "infeasible"}
+      </span>
+    ),
+});
 
 /** Column id → the server's sort key (the stage columns sort by stage count). */
 const SORT_OF: Record<string, SortKey> = {
@@ -28,7 +42,13 @@ const SORT_OF: Record<string, SortKey> = {
   stages: "stageCount",
   installedCost: "installedCost",
   reused: "reused",
+  conversion: "conversion",
+  yield: "yield",
+  selectivity: "selectivity",
 };
+
+/** Measures where more is better: their first click sorts the largest first. */
+const LARGEST_FIRST = new Set<SortKey>(["yield", "selectivity", "conversion"]);
 
 export const COLUMN_TITLES: Record<OptionalColumn, string> = {
   chart: "Chart",
@@ -37,6 +57,7 @@ export const COLUMN_TITLES: Record<OptionalColumn, string> = {
   stages: "Stages (volume, outlet X)",
   feasible: "Feasibility",
   ...COST_COLUMN_TITLES,
+  ...NETWORK_COLUMN_TITLES,
 };
 
 interface Props {
@@ -48,103 +69,99 @@ interface Props {
   candidateHref: (id: string) => string;
   yMax?: number;
   target?: number;
+  /** For a sweep of several reactions: the wanted product and the residence-time unit (its own columns then). */
+  network?: { product: string | null; timeUnit: string };
 }
 
-export function RankedTable({ rows, view, onSort, selected, onToggle, candidateHref, yMax, target }: Props) {
+export function RankedTable({ rows, view, onSort, selected, onToggle, candidateHref, yMax, target, network }: Props) {
   // The sweep page resolves a null (follow the setting) before passing the view in.
   const unit: VolumeUnit = view.unit ?? "m3";
-  const columns = useMemo(
-    () =>
-      helper.columns([
-        helper.display({
-          id: "select",
-          enableSorting: false,
-          header: () => <span className="sr-only">Select to compare</span>,
-          cell: ({ row }) => {
-            const c = row.original;
-            const checked = selected.includes(c.id);
-            return (
-              <input
-                type="checkbox"
-                className="size-4 accent-accent-600"
-                aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
-                checked={checked}
-                disabled={!checked && (selected.length >= 4 || !c.feasible)}
-                onChange={() => onToggle(c.id)}
-              />
-            );
-          },
-        }),
-        helper.accessor("rank", { header: "Rank", cell: (i) => <span className="num">{i.getValue()}</span> }),
-        helper.accessor("sequence", {
-          header: "Sequence",
-          cell: (i) => (
-            <>
-              <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
-                <StageBadges sequence={i.getValue()} />
-              </Link>
-              {i.row.original.emptyStages ? (
-                <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
-                  {i.row.original.emptyStages === 1 ? "1 empty stage" : `${i.row.original.emptyStages} empty stages`}
-                </span>
-              ) : null}
-            </>
-          ),
-        }),
-        helper.display({
-          id: "chart",
-          header: "Chart",
-          enableSorting: false,
-          cell: ({ row }) => {
-            const c = row.original;
-            if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
-            const input = chartInputs(c.stages, c.levenspiel);
-            return (
-              <div className="w-28" data-testid="thumbnail">
-                <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
-              </div>
-            );
-          },
-        }),
-        helper.accessor("totalVolume", {
-          header: `Total volume, ${VOLUME_LABEL[unit]}`,
-          cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4, TABLE_NUMBERS)}</span>,
-        }),
-        helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4, TABLE_NUMBERS)}</span> }),
-        ...costColumns(),
-        helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3, TABLE_NUMBERS)}×`}</span> }),
-        helper.accessor((r) => r.probabilityMeet ?? null, {
-          id: "probabilityMeet",
-          header: "P(meet target)",
-          cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${(100 * (i.getValue() as number)).toFixed(1)} %`}</span>,
-        }),
-        helper.accessor("stages", {
-          header: "Stages (volume, outlet X)",
-          cell: (i) => (
-            <ol className="flex flex-wrap gap-x-3 gap-y-0.5 text-xs">
-              {i.getValue().map((s, k) => (
-                <li key={k} className="num whitespace-nowrap">
-                  <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
-                </li>
-              ))}
-            </ol>
-          ),
-        }),
-        helper.accessor("feasible", {
-          header: "Feasibility",
-          enableSorting: false,
-          cell: (i) =>
-            i.getValue() ? (
-              <span className="badge whitespace-nowrap border-accent-200 bg-accent-50 text-accent-800">✓ feasible</span>
-            ) : (
-              <span className="badge border-red-300 bg-red-50 text-red-800" title={i.row.original.reason ?? undefined}>
-                ✕ {i.row.original.reason ?? "infeasible"}
+  const networkProduct = network?.product;
+  const networkTime = network?.timeUnit;
+  const isNetwork = !!network;
+  const columns = useMemo(() => {
+    const lead = [
+      helper.display({
+        id: "select",
+        enableSorting: false,
+        header: () => <span className="sr-only">Select to compare</span>,
+        cell: ({ row }) => {
+          const c = row.original;
+          const checked = selected.includes(c.id);
+          return (
+            <input
+              type="checkbox"
+              className="size-4 accent-accent-600"
+              aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
+              checked={checked}
+              disabled={!checked && (selected.length >= 4 || !c.feasible)}
+              onChange={() => onToggle(c.id)}
+            />
+          );
+        },
+      }),
+      helper.accessor("rank", { header: "Rank", cell: (i) => <span className="num">{i.getValue()}</span> }),
+      helper.accessor("sequence", {
+        header: isNetwork ? "Train" : "Sequence",
+        cell: (i) => (
+          <>
+            <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
+              <StageBadges sequence={i.getValue()} />
+            </Link>
+            {i.row.original.emptyStages ? (
+              <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
+                {i.row.original.emptyStages === 1 ? "1 empty stage" : `${i.row.original.emptyStages} empty stages`}
               </span>
-            ),
-        }),
-      ]),
-    [unit, selected, onToggle, candidateHref, yMax, target],
-  );
+            ) : null}
+          </>
+        ),
+      }),
+    ];
+    if (isNetwork) return helper.columns([...lead, ...networkColumns({ product: networkProduct ?? null, unit, timeUnit: networkTime ?? "s" }), feasibility]);
+    return helper.columns([
+      ...lead,
+      helper.display({
+        id: "chart",
+        header: "Chart",
+        enableSorting: false,
+        cell: ({ row }) => {
+          const c = row.original;
+          if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
+          const input = chartInputs(c.stages, c.levenspiel);
+          return (
+            <div className="w-28" data-testid="thumbnail">
+              <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
+            </div>
+          );
+        },
+      }),
+      helper.accessor("totalVolume", {
+        header: `Total volume, ${VOLUME_LABEL[unit]}`,
+        cell: (i) => <span className="num">{i.getValue() === null ? "—" : formatNumber(fromCubicMetres(i.getValue()!, unit), 4, TABLE_NUMBERS)}</span>,
+      }),
+      helper.accessor("totalCost", { header: "Total cost", cell: (i) => <span className="num">{formatNumber(i.getValue(), 4, TABLE_NUMBERS)}</span> }),
+      ...costColumns(),
+      helper.accessor("ratioToPfr", { header: "Times the single-PFR volume", cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${formatNumber(i.getValue(), 3, TABLE_NUMBERS)}×`}</span> }),
+      helper.accessor((r) => r.probabilityMeet ?? null, {
+        id: "probabilityMeet",
+        header: "P(meet target)",
+        cell: (i) => <span className="num">{i.getValue() === null ? "—" : `${(100 * (i.getValue() as number)).toFixed(1)} %`}</span>,
+      }),
+      helper.accessor("stages", {
+        header: "Stages (volume, outlet X)",
+        cell: (i) => (
+          <ol className="flex flex-wrap gap-x-3 gap-y-0.5 text-xs">
+            {i.getValue().map((s, k) => (
+              <li key={k} className="num whitespace-nowrap">
+                <span className="text-ink-faint">{k + 1}</span> {formatVolume(s.volume, unit)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
+              </li>
+            ))}
+          </ol>
+        ),
+      }),
+      feasibility,
+      ]);
+  }, [unit, selected, onToggle, candidateHref, yMax, target, isNetwork, networkProduct, networkTime]);
 
   const sorting: SortingState = useMemo(() => {
     const col = Object.entries(SORT_OF).find(([, k]) => k === view.sort)?.[0] ?? "rank";
@@ -182,7 +199,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
                       <button
                         type="button"
                         className="inline-flex items-center gap-1 rounded uppercase tracking-wide hover:text-ink"
-                        onClick={() => onSort(key, view.sort === key && view.dir === "asc" ? "desc" : "asc")}
+                        onClick={() => onSort(key, view.sort === key ? (view.dir === "asc" ? "desc" : "asc") : LARGEST_FIRST.has(key) ? "desc" : "asc")}
                         data-testid={`sort-${header.column.id}`}
                       >
                         {label}

@@ -5,12 +5,23 @@ import { COLUMN_TITLES } from "./ranked-table";
 import { UnitSelect } from "./unit-select";
 import { candidateExportHref } from "@/components/reports/export-links";
 import { downloadText, exportCandidatesCsv } from "./csv-export";
-import { OPTIONAL_COLUMNS, PAGE_SIZES, type SweepViewState } from "./view-state";
+import { PAGE_SIZES, SINGLE_COLUMNS, type OptionalColumn, type SweepViewState } from "./view-state";
 
 const CONTAINS = ["", "CSTR", "PFR", "CSTR-PFR", "PFR-CSTR", "CSTR-CSTR", "PFR-PFR"];
 
 /** Filters, units, columns, page size and CSV export of the ranked table; all kept in the URL. */
-export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; view: SweepViewState; setView: (p: Partial<SweepViewState>) => void }) {
+export function ResultsToolbar({
+  sweepId,
+  view,
+  setView,
+  columns = SINGLE_COLUMNS,
+}: {
+  sweepId: string;
+  view: SweepViewState;
+  setView: (p: Partial<SweepViewState>) => void;
+  /** The optional columns this sweep's table has. */
+  columns?: readonly OptionalColumn[];
+}) {
   const [exporting, setExporting] = useState<string | null>(null);
   const [exportError, setExportError] = useState<string | null>(null);
   const [withShown, setWithShown] = useState(false);
@@ -78,7 +89,7 @@ export function ResultsToolbar({ sweepId, view, setView }: { sweepId: string; vi
       <fieldset className="min-w-0">
         <legend className="field-label">Columns</legend>
         <div className="flex flex-wrap gap-x-3 gap-y-1 pb-1.5">
-          {OPTIONAL_COLUMNS.map((c) => (
+          {columns.map((c) => (
             <label key={c} className="flex items-center gap-1 text-sm">
               <input
                 type="checkbox"

@@ -5,6 +5,7 @@ import { useRef, useState, type KeyboardEvent } from "react";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, SI_UNIT, unitLabel, type UnitKind } from "@/lib/units/display";
 import { gridFieldAt } from "@/components/sweep-builder/builder-form-state";
+import { networkFieldKind } from "@/components/sweep-builder/network-grid-fields";
 import type { ScenarioRow } from "@/lib/services/views";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 
@@ -13,7 +14,7 @@ export type TypedUnits = Partial<Record<UnitKind, string>>;
 
 /** The unit a grid field's values are shown in: the one the kinetics was typed in, else the stored SI one. */
 const axisUnit = (path: string, units: TypedUnits | undefined): { kind: UnitKind; unit: string } | null => {
-  const kind = gridFieldAt(path)?.kind;
+  const kind = gridFieldAt(path)?.kind ?? networkFieldKind(path);
   if (!kind) return null;
   const typed = units?.[kind];
   return { kind, unit: typed && isUnit(kind, typed) ? typed : SI_UNIT[kind] };
@@ -39,8 +40,13 @@ export function describeOverrides(overrides: Record<string, number>): string {
   return parts.length ? parts.join(" · ") : "Base case";
 }
 
-export function formatObjective(v: number | null, objective: "volume" | "cost", unit: VolumeUnit): string {
+/** What a scenario's best train is ranked by: volume or cost (one reaction), or a network's yield, selectivity or volume. */
+export type RankedBy = "volume" | "cost" | "yield" | "selectivity";
+const LARGER_IS_BETTER = (o: RankedBy) => o === "yield" || o === "selectivity";
+
+export function formatObjective(v: number | null, objective: RankedBy, unit: VolumeUnit): string {
   if (v === null) return "no feasible train";
+  if (LARGER_IS_BETTER(objective)) return `${objective} ${(100 * v).toFixed(1)} %`;
   return objective === "cost" ? `cost ${formatNumber(v, 4, TABLE_NUMBERS)}` : formatVolume(v, unit);
 }
 
@@ -54,7 +60,7 @@ export function ScenarioPicker({
   scenarios: ScenarioRow[];
   value: number;
   onChange: (index: number) => void;
-  objective: "volume" | "cost";
+  objective: RankedBy;
   unit: VolumeUnit;
 }) {
   return (
@@ -158,7 +164,7 @@ export function ObjectiveHeatMap({
   fields: [string, string];
   selected: number;
   onSelect: (index: number) => void;
-  objective: "volume" | "cost";
+  objective: RankedBy;
   unit: VolumeUnit;
   typedUnits?: TypedUnits;
 }) {
@@ -169,7 +175,8 @@ export function ObjectiveHeatMap({
   const values = scenarios.map((s) => s.bestObjective).filter((v): v is number => v !== null);
   const lo = Math.min(...values);
   const hi = Math.max(...values);
-  const best = values.length ? lo : null;
+  const largest = LARGER_IS_BETTER(objective);
+  const best = values.length ? (largest ? hi : lo) : null;
   const shade = (v: number) => (hi > lo ? (v - lo) / (hi - lo) : 0);
   const [active, setActive] = useState<[number, number] | null>(null);
   const tableRef = useRef<HTMLTableElement>(null);
@@ -189,13 +196,13 @@ export function ObjectiveHeatMap({
     setActive(to);
     tableRef.current?.querySelector<HTMLButtonElement>(`[data-cell="${to[0]}-${to[1]}"]`)?.focus();
   };
-  const cellText = (v: number | null) => (v === null ? "—" : objective === "cost" ? formatNumber(v, 3, TABLE_NUMBERS) : formatVolume(v, unit, 3));
+  const cellText = (v: number | null) => (v === null ? "—" : largest ? `${(100 * v).toFixed(1)} %` : objective === "cost" ? formatNumber(v, 3, TABLE_NUMBERS) : formatVolume(v, unit, 3));
 
   return (
     <section className="card p-4" aria-labelledby="heatmap-title" data-testid="heat-map">
-      <h2 id="heatmap-title">Best {objective === "cost" ? "cost" : "total volume"} across the grid</h2>
+      <h2 id="heatmap-title">Best {objective === "cost" ? "cost" : largest ? objective : "total volume"} across the grid</h2>
       <p className="mt-0.5 text-xs text-ink-soft">
-        Darker cells are larger; the smallest is marked ★. Choose a cell to open its scenario.
+        Darker cells are larger; the {largest ? "largest" : "smallest"} is marked ★. Choose a cell to open its scenario.
       </p>
       <div className="mt-3 overflow-x-auto">
         <table
@@ -250,7 +257,7 @@ export function ObjectiveHeatMap({
                         onFocus={() => setActive([r, c])}
                         onClick={() => onSelect(s.index)}
                         aria-pressed={s.index === selected}
-                        aria-label={`${fieldName(fx, typedUnits)} ${axisValue(fx, x, typedUnits)}, ${fieldName(fy, typedUnits)} ${axisValue(fy, y, typedUnits)}: ${cellText(v)}${v === best ? ", smallest" : ""}`}
+                        aria-label={`${fieldName(fx, typedUnits)} ${axisValue(fx, x, typedUnits)}, ${fieldName(fy, typedUnits)} ${axisValue(fy, y, typedUnits)}: ${cellText(v)}${v === best ? (largest ? ", largest" : ", smallest") : ""}`}
                         className={`num block w-full min-w-20 rounded-sm px-2 py-1.5 text-right ${s.index === selected ? "ring-2 ring-ink ring-offset-1" : ""} ${dark ? "text-white" : "text-ink"}`}
                         style={{ background: v === null ? "repeating-linear-gradient(45deg,#f7f8fa 0 4px,#dde2e8 4px 8px)" : `rgb(${rgb[0]} ${rgb[1]} ${rgb[2]})` }}
                       >

@@ -18,7 +18,11 @@ import { RankedTable } from "./ranked-table";
 import { ObjectiveHeatMap, ScenarioPicker, twoVariedFields } from "./scenario-picker";
 import { StatusBadge, SweepProgressBar } from "./sweep-progress";
 import type { CandidatePage, ScenarioRow, SweepView as Sweep } from "@/lib/services/views";
-import { candidateQuery, serialiseViewState, useViewState } from "./view-state";
+import { candidateQuery, NETWORK_COLUMNS, serialiseViewState, useViewState } from "./view-state";
+import { isNetworkSweep, networkConstraintsOf, networkObjectiveOf } from "./network-sweep";
+import { objectiveLabel, percent } from "@/components/candidates/network-results-data";
+import { useNetworkUnits } from "@/components/candidates/network-units";
+import type { RankedBy } from "./scenario-picker";
 
 const ACTIVE = new Set(["queued", "running"]);
 
@@ -70,8 +74,10 @@ export function SweepView({
     queryFn: () => fetchJson<{ scenarios: ScenarioRow[] }>(`/api/sweeps/${sweepId}/scenarios`).then((r) => r.scenarios),
     enabled: !sweep || hasResults,
   });
-  // Thumbnails ride along with the page while it is small enough.
-  const withCharts = urlView.pageSize <= 50 && !urlView.hidden.includes("chart");
+  // Thumbnails ride along with the page while it is small enough (a network has no Levenspiel chart).
+  const network = isNetworkSweep(sweep);
+  const withCharts = !network && urlView.pageSize <= 50 && !urlView.hidden.includes("chart");
+  const networkUnits = useNetworkUnits(typedUnits);
   const candidatesQ = useQuery({
     queryKey: ["candidates", sweepId, urlView.scenario, candidateQuery(urlView, { levenspiel: withCharts })],
     queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${urlView.scenario}/candidates?${candidateQuery(urlView, { levenspiel: withCharts })}`),
@@ -107,14 +113,17 @@ export function SweepView({
   const singleSpec = sweep?.kind === "single" ? sweep.spec : undefined;
   const target = singleSpec?.target?.conversion;
   const yMax = useMemo(() => {
-    const charts = (rows ?? []).filter((r) => r.feasible && r.levenspiel).map((r) => ({ ...chartInputs(r.stages, r.levenspiel), target }));
+    const charts = (rows ?? []).filter((r) => !network && r.feasible && r.levenspiel?.length).map((r) => ({ ...chartInputs(r.stages, r.levenspiel), target }));
     return charts.length ? sharedYMax(charts) : undefined;
-  }, [rows, target]);
+  }, [rows, target, network]);
 
   if (sweepQ.isPending) return <LoadingPanel label="Loading the sweep…" />;
   if (sweepQ.isError || !sweep) return <ErrorPanel error={sweepQ.error} what="this sweep" />;
 
-  const objective = singleSpec?.objective?.minimise ?? "volume";
+  const networkObjective = networkObjectiveOf(sweep);
+  const objective: RankedBy = networkObjective ? ("maximise" in networkObjective ? networkObjective.maximise : "volume") : (singleSpec?.objective?.minimise ?? "volume");
+  const product = networkObjective?.product ?? null;
+  const limits = networkConstraintsOf(sweep);
   const scenarios = scenariosQ.data ?? [];
   const grid2 = twoVariedFields(scenarios);
   // When the target is a grid variable the base value is not what was run: show the grid's range.
@@ -122,7 +131,7 @@ export function SweepView({
   const targetText = swept.length ? `${Math.min(...swept)}–${Math.max(...swept)} (varied)` : (target ?? "—");
   const page = candidatesQ.data;
   const pages = page ? Math.max(1, Math.ceil(page.total / view.pageSize)) : 1;
-  const warnings = thermalWarnings({ thermal: singleSpec?.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
+  const warnings = network ? [] : thermalWarnings({ thermal: singleSpec?.reaction?.thermal, stageTemperatures: (rows ?? []).slice(0, 1).flatMap((r) => r.stages.map((s) => s.temperatureOut)) });
 
   return (
     <div className="space-y-5">
@@ -132,9 +141,17 @@ export function SweepView({
           <h1 data-testid="sweep-title">{sweep.name}</h1>
           <p className="mt-1 flex flex-wrap items-center gap-2 text-ink-soft">
             <StatusBadge status={sweep.status} />
-            <span>
-              {sweep.total} scenario{sweep.total === 1 ? "" : "s"} · minimise {objective} · target X {targetText}
-            </span>
+            {network ? (
+              <span data-testid="sweep-objective">
+                {sweep.total} scenario{sweep.total === 1 ? "" : "s"} · {objectiveLabel(networkObjective)}
+                {limits.minConversion !== undefined ? ` · minimum conversion ${percent(limits.minConversion)}` : ""}
+                {limits.minYield !== undefined ? ` · minimum yield ${percent(limits.minYield)}` : ""}
+              </span>
+            ) : (
+              <span>
+                {sweep.total} scenario{sweep.total === 1 ? "" : "s"} · minimise {objective} · target X {targetText}
+              </span>
+            )}
           </p>
         </div>
         {canSubmit ? (
@@ -189,7 +206,7 @@ export function SweepView({
               {scenarios.length > 1 ? (
                 <ScenarioPicker scenarios={scenarios} value={view.scenario} onChange={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} />
               ) : null}
-              <ResultsToolbar sweepId={sweepId} view={view} setView={setView} />
+              <ResultsToolbar sweepId={sweepId} view={view} setView={setView} {...(network ? { columns: NETWORK_COLUMNS } : {})} />
             </div>
             {candidatesQ.isPending ? (
               <LoadingPanel label="Loading the ranked trains…" bare />
@@ -213,6 +230,7 @@ export function SweepView({
                   candidateHref={candidateHref}
                   yMax={yMax}
                   target={target}
+                  network={network ? { product, timeUnit: networkUnits.time } : undefined}
                 />
               </div>
             )}

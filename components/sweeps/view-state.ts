@@ -7,8 +7,11 @@ import { SORT_KEYS, type SortKey } from "@/lib/sweeps/sort-keys";
 
 export const PAGE_SIZES = [25, 50, 100] as const;
 /** Columns the reader may hide. */
-export const OPTIONAL_COLUMNS = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused"] as const;
+export const OPTIONAL_COLUMNS = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused", "residenceTime", "onBound"] as const;
 export type OptionalColumn = (typeof OPTIONAL_COLUMNS)[number];
+/** The optional columns each kind of sweep has (a network sweep has no cost and no Levenspiel chart). */
+export const SINGLE_COLUMNS: readonly OptionalColumn[] = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused"];
+export const NETWORK_COLUMNS: readonly OptionalColumn[] = ["residenceTime", "onBound", "feasible"];
 
 /** Everything a link to the sweep page carries: scenario, sort, filters, page, columns and units. */
 export interface SweepViewState {

@@ -6,6 +6,18 @@ import type { NetworkKineticsSpec } from "@/lib/schemas/network-spec";
  * to a dimer D. The dimerisation is second order in A, so a stirred tank first (A diluted at once)
  * followed by a tube (stopped before B over-reacts) gives more B than a tube alone — the demo's point.
  */
+const spec: NetworkKineticsSpec = {
+  feed: { volumetricFlow: "3.6 m^3/h", concentrations: { A: "1.2 mol/L", B: 0, C: 0, D: 0 }, temperature: 330 },
+  phase: "liquid",
+  reactions: [
+    { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: "0.004 1/s", orders: { A: 1 } } },
+    { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: "0.0008 1/s", orders: { B: 1 } } },
+    { stoichiometry: { A: -2, D: 1 }, rate: { law: "power", k: "0.002 L/(mol*s)", orders: { A: 2 } } },
+  ],
+  keyReactant: "A",
+  product: "B",
+};
+
 export const DEMO_NETWORK = {
   project: {
     name: "Mono-adduct campaign",
@@ -14,17 +26,7 @@ export const DEMO_NETWORK = {
   model: {
     name: "Mono-adduct, three reactions",
     note: "Rate constants fitted to the August bench series at 57 °C (invented demo data).",
-    spec: {
-      feed: { volumetricFlow: "3.6 m^3/h", concentrations: { A: "1.2 mol/L", B: 0, C: 0, D: 0 }, temperature: 330 },
-      phase: "liquid",
-      reactions: [
-        { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: "0.004 1/s", orders: { A: 1 } } },
-        { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: "0.0008 1/s", orders: { B: 1 } } },
-        { stoichiometry: { A: -2, D: 1 }, rate: { law: "power", k: "0.002 L/(mol*s)", orders: { A: 2 } } },
-      ],
-      keyReactant: "A",
-      product: "B",
-    } satisfies NetworkKineticsSpec,
+    spec,
   },
   sweep: {
     name: "Demo: yield of B against the over-reaction rate",

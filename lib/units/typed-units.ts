@@ -35,6 +35,17 @@ export function typedUnits(spec: WithShownUnits | null | undefined): Partial<Rec
   take("energyPerMol", "reaction.rate.activationEnergy");
   const k = splitRateConstantUnit(shown["reaction.rate.k"]);
   if (k) out.time = k.time;
+  // A model of several reactions keeps a unit per species and per reaction: the first of each tells.
+  const keys = Object.keys(shown);
+  const conc = keys.find((f) => f.startsWith("feed.concentrations."));
+  if (!out.concentration && conc) take("concentration", conc);
+  const rateK = keys.find((f) => /^reactions\.\d+\.rate\.k$/.test(f));
+  const kn = rateK ? splitRateConstantUnit(shown[rateK]) : null;
+  if (!out.time && kn) out.time = kn.time;
+  if (!out.energyPerMol) {
+    const ea = keys.find((f) => /^reactions\.\d+\.rate\.activationEnergy$/.test(f));
+    if (ea) take("energyPerMol", ea);
+  }
   // A concentration per litre says the engineer thinks in litres; otherwise cubic metres.
   if (out.concentration) out.volume = /\/L$/.test(out.concentration) ? "L" : "m3";
   return out;

@@ -11,7 +11,9 @@ import type { NetworkSteadyState } from "./types";
  * Method: damped Newton (analytic Jacobian for power laws) from several starts — the feed itself (the
  * state a tank starts from when filled with feed) and the compositions a tube fed with the same stream
  * reaches at volumes from 1e-4 V to 1e4 V (factor 10^(1/3) apart), which run from "nothing has reacted"
- * to "as far as the reactions go" — then rounds until one finds nothing new: from points 1/12 ... 11/12 of
+ * to "as far as the reactions go" — and the compositions each reaction alone reaches at half and all of its
+ * largest extent from the feed (a tube can miss a state where a reaction the tube hardly runs dominates: an
+ * ignited autocatalytic tank past its fold) — then rounds until one finds nothing new: from points 1/12 ... 11/12 of
  * the way between consecutive states found, by plain Newton and, when that lands on a known state, by
  * deflated Newton (cstr-newton.ts); and from every other start again, deflated.
  * States found are merged when their flows agree to 1e-7 of the flow in.
@@ -68,6 +70,7 @@ export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: A
     } catch {
       // A tube that cannot be integrated to 1e4 V only costs starts; the feed start remains.
     }
+    starts.push(...extentStarts(kin, Fin));
   }
 
   const found: NetworkSteadyState[] = [];
@@ -146,4 +149,29 @@ function solveFrom(
     }
   }
   return null;
+}
+
+/**
+ * The feed advanced by one reaction alone to half and all of the largest extent its stoichiometry allows
+ * (until something it consumes runs out), forward, and backward for a reversible one: the corners of the
+ * compositions the tank can reach.
+ */
+function extentStarts(kin: Kinetics, Fin: Float64Array): Float64Array[] {
+  const net = kin.net;
+  const n = net.nSpecies;
+  const m = net.nReactions;
+  const out: Float64Array[] = [];
+  for (let j = 0; j < m; j++) {
+    const directions = net.rates[j].reverseOrders !== null || net.rates[j].opaque ? [1, -1] : [1];
+    for (const d of directions) {
+      let most = Number.POSITIVE_INFINITY;
+      for (let i = 0; i < n; i++) {
+        const nu = d * net.nu[i * m + j];
+        if (nu < 0) most = Math.min(most, Fin[i] / -nu);
+      }
+      if (!(most > 0 && Number.isFinite(most))) continue;
+      for (const f of [0.5, 1]) out.push(Fin.map((F, i) => Math.max(F + f * most * d * net.nu[i * m + j], 0)));
+    }
+  }
+  return out;
 }

@@ -2,6 +2,7 @@ import { EngineError, ensure } from "../errors";
 import type { Quantity, StageType } from "../types";
 import { toSI } from "../units";
 import { cstrSteadyStates } from "./cstr";
+import { tanksHaveOneState } from "./cstr-uniqueness";
 import type { NetworkCandidate, NetworkDesignResult, NetworkDesignSpec, NetworkReferenceDesign, NetworkStageResult } from "./design-types";
 import { makeKinetics, type Kinetics } from "./kinetics";
 import { chemistryTimeScale } from "./time-scale";
@@ -71,7 +72,7 @@ const SEARCH_RTOL = 1e-6;
 const CONVERSION_SHORT = "does not reach the minimum conversion within the volume limits";
 const YIELD_SHORT = "reaches the minimum conversion but not the minimum yield within the volume limits";
 
-function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProblem {
+export function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProblem {
   const net = kin.net;
   const objective = spec.objective;
   const c = spec.constraints ?? {};
@@ -113,6 +114,7 @@ function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProblem {
     tauLo: 1e-3 * tc,
     tauHi,
     searchRtol: SEARCH_RTOL,
+    tanksUnique: tanksHaveOneState(net),
     gridPoints: GRID_POINTS,
     polishStarts: POLISH_STARTS,
   };

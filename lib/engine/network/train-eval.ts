@@ -8,9 +8,10 @@ import type { StageType } from "../types";
  * What the optimiser needs to know of one design problem, and the outlet of a train at given residence
  * times. Isothermal stages at the feed temperature.
  *
- * During the search a stirred tank is solved by Newton from its feed (the state it starts up in), the
- * cheap mode of cstrSteadyStates; the design finally reported is re-solved with the full steady-state
- * search (design.ts), which lists every state and continues from the lowest conversion.
+ * The search scores what is reported: a train continues from each tank's state of lowest key-reactant
+ * conversion. When the network provably gives every tank one state (cstr-uniqueness.ts) that state is the
+ * one Newton reaches from the feed, the cheap mode of cstrSteadyStates; otherwise every tank is solved
+ * with the full steady-state search, as the reported design is (design.ts).
  */
 export interface DesignProblem {
   kin: Kinetics;
@@ -31,6 +32,8 @@ export interface DesignProblem {
   tauHi: number;
   /** Relative tolerance of tube integrations during the search (the reported design is re-run at 1e-9). */
   searchRtol: number;
+  /** True when every tank of this network has one steady state (cstr-uniqueness.ts): Newton from the feed then suffices. */
+  tanksUnique: boolean;
   /** Points of the log-spaced scan grid (0 comes in addition) and designs polished per sequence. */
   gridPoints: number;
   polishStarts: number;
@@ -46,6 +49,7 @@ export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array
   if (tau <= NEGLIGIBLE_TAU_FRACTION * p.tauLo) return Fin;
   const V = tau * p.kin.net.v0;
   if (type === "PFR") return pfrOutlet(p.kin, Fin, T, V, { rtol: p.searchRtol }).flows;
+  if (!p.tanksUnique) return cstrSteadyStates(p.kin, Fin, T, V)[0].flows;
   try {
     return cstrSteadyStates(p.kin, Fin, T, V, { starts: 0 })[0].flows;
   } catch {

@@ -33,7 +33,7 @@ describe("network designer: Van de Vusse and properties", { timeout: 300000 }, (
         const best = (s: StageType[]) => r.candidates.find((c) => c.sequence.join() === s.join())!.objective!;
         // A fixed split: total time a few times the tube's best, shared by the fractions drawn.
         const net = resolveNetwork(seriesDesign(k1, k2, only(["PFR"])));
-        const problem: DesignProblem = { kin: makeKinetics(net), T: net.T0, temperatures: null, product: 1, kind: "yield", minConversion: null, minYield: null, maxTotalTau: Infinity, maxStageTau: Infinity, tauLo: 1e-3, tauHi: 1e6, searchRtol: 1e-10, gridPoints: 25, polishStarts: 3 };
+        const problem: DesignProblem = { kin: makeKinetics(net), T: net.T0, temperatures: null, product: 1, kind: "yield", minConversion: null, minYield: null, maxTotalTau: Infinity, maxStageTau: Infinity, tauLo: 1e-3, tauHi: 1e6, searchRtol: 1e-10, tanksUnique: true, gridPoints: 25, polishStarts: 3 };
         const totalTau = (3 * Math.log(k2 / k1)) / (k2 - k1);
         for (const s of sequences.slice(0, 3)) {
           // a train does at least as well as one stage of each type it contains (the others left empty)

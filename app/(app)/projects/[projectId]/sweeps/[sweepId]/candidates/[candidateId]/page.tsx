@@ -19,7 +19,7 @@ export default async function CandidatePage({ params }: { params: Promise<{ proj
   return (
     <Suspense>
       <TypedUnitsProvider units={units}>
-        <CandidateView candidateId={candidateId} canPin={can(actor, "pin.create")} />
+        <CandidateView candidateId={candidateId} canPin={can(actor, "pin.create")} typedUnits={units} />
       </TypedUnitsProvider>
     </Suspense>
   );
