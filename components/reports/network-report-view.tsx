@@ -97,7 +97,9 @@ export function NetworkReportView({ network: n, trainLabel, units }: { network: 
             <tbody>
               {n.composition.rows.map((row) => (
                 <tr key={row.label}>
-                  <td className="whitespace-nowrap">{row.label}</td>
+                  <th scope="row" className="whitespace-nowrap">
+                    {row.label}
+                  </th>
                   {row.values.map((v, i) => (
                     <td key={n.composition.species[i]} className="num text-right whitespace-nowrap">
                       {fmtConcentration(v)}

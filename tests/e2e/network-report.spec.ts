@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
 import Papa from "papaparse";
 import { CAUTIONS } from "@/lib/engine";
+import { DEMO_NETWORK } from "@/lib/demo/network-demo";
 import type { DesignReport } from "@/lib/reports/design-report";
 import { openPage, signedInContext, USERS } from "./fixtures";
 import { firstProjectId } from "./sweep-fixtures";
@@ -78,6 +79,27 @@ test("robustness of the pinned train: a rate constant ± 30 % gives the chance o
   const run = list.runs.find((r) => r.request.seed === 12)!;
   await expect(panel.getByTestId("robustness-miss-yield")).toHaveText(`Chance of missing the minimum yield: ${(100 * run.result.probabilityMissMinYield).toFixed(0)} %`);
   await panel.screenshot({ path: "test-results/screens/network-robustness.png" });
+  await expectNoSeriousA11yViolations(page);
+  await page.close();
+});
+
+test("the seeded demo candidate of several reactions: the robustness panel rates it and shows the yield's spread", async () => {
+  const projects = ((await (await engineer.get("/api/projects")).json()) as { projects: { id: string; name: string }[] }).projects;
+  const demoProject = projects.find((p) => p.name === DEMO_NETWORK.project.name)!;
+  const pins = ((await (await engineer.get(`/api/projects/${demoProject.id}/pins`)).json()) as { pins: { sweepId: string; candidateId: string; note: string }[] }).pins;
+  const demo = pins.find((p) => p.note.includes("(demo)"))!;
+  const page = await openPage(browserCtx, `/projects/${demoProject.id}/sweeps/${demo.sweepId}/candidates/${demo.candidateId}`);
+  const panel = page.getByRole("region", { name: "Robustness" });
+  await expect(panel.getByLabel("± %", { exact: true })).toBeVisible();
+  await panel.getByLabel("Input", { exact: true }).selectOption("reactions.0.rate.k");
+  await panel.getByLabel("± %", { exact: true }).fill("25");
+  await panel.getByLabel("Samples", { exact: true }).fill("80");
+  await panel.getByLabel("Random seed (repeatable draws)", { exact: true }).fill("3");
+  await panel.getByTestId("robustness-run").click();
+  // The demo sweep sets no minimum yield: the panel says so, and draws the yield's histogram without a limit.
+  await expect(panel.getByTestId("robustness-miss-yield")).toHaveText("No minimum yield is set for this sweep");
+  await expect(panel.getByTestId("robustness-histogram").getByRole("img", { name: /^Histogram of the yield/ })).toBeVisible();
+  await expect(panel.getByTestId("robustness-summary")).toContainText("80 samples (random seed 3)");
   await expectNoSeriousA11yViolations(page);
   await page.close();
 });
