@@ -1,11 +1,14 @@
 /**
  * `npm run bench:robustness`: prints figures (never asserts): wall time of Monte Carlo rating of
  * fixed 5-stage trains (mixed CSTR/PFR) for 1,000 and 10,000 samples, by the lean path and, for
- * comparison, by calling rateTrain once per sample.
+ * comparison, by calling rateTrain once per sample; then trains of the demo's three reactions
+ * (`npm run bench:robustness -- network` for those alone).
  */
 import { EngineError, rateTrain, type RatingSpec } from "../lib/engine/index";
 import { rateUnderUncertainty, type Uncertainty } from "../lib/robustness/monte-carlo";
 import { applyOverrides } from "../lib/sweeps/grid";
+import { rateNetworkUnderUncertainty, type NetworkTrain } from "../lib/robustness/network-monte-carlo";
+import { DEMO_NETWORK } from "../lib/demo/network-demo";
 
 const secondOrder: RatingSpec = {
   feed: { flowA: "72 mol/h", concA: "0.8 mol/L", temperature: "320 K" },
@@ -92,6 +95,36 @@ for (const [name, spec, uncertain] of cases) {
     if (only === "reference" || (only === undefined && n === 1000)) {
       const ms = time(() => perSampleRateTrain(spec, n));
       console.log(`  rateTrain per sample, ${n.toLocaleString("en")} samples: ${ms}`);
+    }
+  }
+}
+
+/** Trains of the demo's three reactions (A -> B, B -> C, 2 A -> D), each sample rated by rateNetworkTrain. */
+function networkTrain(stages: NetworkTrain["stages"]): NetworkTrain {
+  const { product: _product, ...chemistry } = DEMO_NETWORK.model.spec;
+  return { kind: "network", chemistry, stages, product: "B", minConversion: 0.6, minYield: 0.4 };
+}
+const networkCases: [string, NetworkTrain, Uncertainty[]][] = [
+  ["three reactions, CSTR → PFR, k of B → C ±30 %", networkTrain([{ type: "CSTR", volume: 0.24 }, { type: "PFR", volume: 0.29 }]), [{ field: "reactions.1.rate.k", kind: "plusMinus", fraction: 0.3 }]],
+  [
+    "three reactions, CSTR → CSTR → PFR, all three k ±20 %, feed T normal sd 3 K",
+    networkTrain([{ type: "CSTR", volume: 0.15 }, { type: "CSTR", volume: 0.15 }, { type: "PFR", volume: 0.25 }]),
+    [
+      { field: "reactions.0.rate.k", kind: "plusMinus", fraction: 0.2 },
+      { field: "reactions.1.rate.k", kind: "plusMinus", fraction: 0.2 },
+      { field: "reactions.2.rate.k", kind: "plusMinus", fraction: 0.2 },
+      { field: "feed.temperature", kind: "normal", mean: 330, sd: 3 },
+    ],
+  ],
+];
+if (only === "network" || only === undefined) {
+  console.log("\nMonte Carlo rating of fixed trains of several reactions (one run each after a 50-sample warm-up)\n");
+  for (const [name, train, uncertain] of networkCases) {
+    rateNetworkUnderUncertainty({ train, uncertain, samples: 50, seed: 1 });
+    console.log(name);
+    for (const n of (process.env.BENCH_NETWORK_SAMPLES ?? "200,1000").split(",").map(Number)) {
+      const ms = time(() => rateNetworkUnderUncertainty({ train, uncertain, samples: n, seed: 2026 }));
+      console.log(`  ${n.toLocaleString("en")} samples: ${ms}`);
     }
   }
 }

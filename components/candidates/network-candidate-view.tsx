@@ -10,6 +10,7 @@ import { formatVolume } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import { fromSI, unitLabel, type UnitKind } from "@/lib/units/display";
 import type { NetworkObjective } from "@/lib/engine";
+import { RobustnessPanel } from "@/components/robustness/robustness-panel";
 import { PinForm } from "./pin-form";
 import { NetworkCompositionTable } from "./network-composition-table";
 import { NetworkStageTable } from "./network-stage-table";
@@ -162,7 +163,12 @@ export function NetworkCandidateView({
             <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
           </div>
         </section>
-        {/* Robustness rating of a network train (yield's distribution) comes with its own service; its panel goes here once the service rates networks. */}
+        {c.feasible ? (
+          <section className="card p-4" aria-labelledby="robustness-title">
+            <h2 id="robustness-title">Robustness</h2>
+            <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
+          </section>
+        ) : null}
       </div>
       <Cautions />
     </div>

@@ -1,12 +1,14 @@
 import { TemperatureProfile } from "@/components/candidates/temperature-profile";
 import { Cautions } from "@/components/cautions/cautions";
+import { NetworkReportView } from "./network-report-view";
+import { robustnessLines } from "@/lib/reports/robustness-lines";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import type { StoredStage } from "@/lib/sweeps/stored-json";
 import type { DesignReport } from "@/lib/reports/design-report";
 import type { DisplayPreference } from "@/lib/units/display-preference";
 import type { WordLine } from "@/lib/reports/kinetics-words";
 import { inputLines } from "@/lib/reports/input-lines";
-import { fmtConversion, fmtMoney, fmtPercent, fmtVolume, reportUnits, stageColumns } from "@/lib/reports/report-format";
+import { fmtConversion, fmtMoney, fmtVolume, reportUnits, stageColumns } from "@/lib/reports/report-format";
 import { formatDateTime } from "@/lib/format/dates";
 import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
@@ -60,66 +62,73 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
 
       <Cautions warnings={r.cautions.warnings} />
 
-      <Section id="report-train-title" title="Train">
-        <Pairs
-          lines={[
-            { label: "Sequence", value: r.train.label },
-            { label: "Target conversion", value: fmtConversion(r.target.conversion) },
-            { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
-            { label: "Total volume", value: fmtVolume(r.train.totalVolume, units) },
-            ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost, currency) }] : []),
-            { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : formatNumber(r.train.ratioToPfr, 4, RECORD_NUMBERS) },
-          ]}
-        />
-      </Section>
+      {r.network ? (
+        <NetworkReportView network={r.network} trainLabel={r.train.label} units={units} />
+      ) : (
+        <>
+          <Section id="report-train-title" title="Train">
+            <Pairs
+              lines={[
+                { label: "Sequence", value: r.train.label },
+                { label: "Target conversion", value: fmtConversion(r.target.conversion) },
+                { label: "Conversion reached", value: fmtConversion(r.target.conversionReached) },
+                { label: "Total volume", value: fmtVolume(r.train.totalVolume, units) },
+                ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost, currency) }] : []),
+                { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : formatNumber(r.train.ratioToPfr, 4, RECORD_NUMBERS) },
+              ]}
+            />
+          </Section>
 
-      <Section id="report-chart-title" title="Levenspiel plot">
-        <div className="report-chart">
-          <LevenspielChart curve={r.chart.curve} stages={r.chart.stages} target={r.chart.target ?? undefined} equilibrium={r.chart.equilibrium} />
-        </div>
-      </Section>
+          <Section id="report-chart-title" title="Levenspiel plot">
+            <div className="report-chart">
+              <LevenspielChart curve={r.chart.curve} stages={r.chart.stages} target={r.chart.target ?? undefined} equilibrium={r.chart.equilibrium} />
+            </div>
+          </Section>
 
-      <Section id="report-stages-title" title="Stages">
-        <div className="overflow-x-auto">
-          <table className="table-dense" data-testid="report-stage-table">
-            <thead>
-              <tr>
-                {STAGE_COLUMNS.map((c) => (
-                  <th key={c.heading} scope="col" className={c.numeric ? "text-right" : undefined}>
-                    {c.heading}
-                  </th>
-                ))}
-              </tr>
-            </thead>
-            <tbody>
-              {r.stages.map((s) => (
-                <tr key={s.index}>
-                  {STAGE_COLUMNS.map((c) => (
-                    <td key={c.heading} className={c.numeric ? "num text-right whitespace-nowrap" : undefined}>
-                      {c.shown(s)}
-                    </td>
+          <Section id="report-stages-title" title="Stages">
+            <div className="overflow-x-auto">
+              <table className="table-dense" data-testid="report-stage-table">
+                <thead>
+                  <tr>
+                    {STAGE_COLUMNS.map((c) => (
+                      <th key={c.heading} scope="col" className={c.numeric ? "text-right" : undefined}>
+                        {c.heading}
+                      </th>
+                    ))}
+                  </tr>
+                </thead>
+                <tbody>
+                  {r.stages.map((s) => (
+                    <tr key={s.index}>
+                      {STAGE_COLUMNS.map((c) => (
+                        <td key={c.heading} className={c.numeric ? "num text-right whitespace-nowrap" : undefined}>
+                          {c.shown(s)}
+                        </td>
+                      ))}
+                    </tr>
                   ))}
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
-      </Section>
+                </tbody>
+              </table>
+            </div>
+          </Section>
 
-      {r.thermal.mode === "adiabatic" && r.stages.length ? (
-        <Section id="report-temperature-title" title="Temperature profile (adiabatic)">
-          <TemperatureProfile stages={r.stages as unknown as StoredStage[]} />
-        </Section>
-      ) : null}
+          {r.thermal.mode === "adiabatic" && r.stages.length ? (
+            <Section id="report-temperature-title" title="Temperature profile (adiabatic)">
+              <TemperatureProfile stages={r.stages as unknown as StoredStage[]} />
+            </Section>
+          ) : null}
 
-      <div className="grid gap-4 lg:grid-cols-2">
-        <Section id="report-feed-title" title="Feed">
-          <Pairs lines={r.feed} />
-        </Section>
-        <Section id="report-kinetics-title" title="Kinetics">
-          <Pairs lines={[{ label: "Model and version", value: r.kinetics.label }, { label: "Rate law", value: `${r.kinetics.law}: ${r.kinetics.formula}` }, ...r.kinetics.parameters, ...r.kinetics.reaction]} />
-        </Section>
-      </div>
+          <div className="grid gap-4 lg:grid-cols-2">
+            <Section id="report-feed-title" title="Feed">
+              <Pairs lines={r.feed} />
+            </Section>
+            <Section id="report-kinetics-title" title="Kinetics">
+              <Pairs lines={[{ label: "Model and version", value: r.kinetics.label }, { label: "Rate law", value: `${r.kinetics.law}: ${r.kinetics.formula}` }, ...r.kinetics.parameters, ...r.kinetics.reaction]} />
+            </Section>
+          </div>
+
+        </>
+      )}
 
       <Section id="report-source-title" title="Source of the kinetics">
         {!r.source.recorded ? (
@@ -165,21 +174,23 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
         )}
       </Section>
 
-      <div className="grid gap-4 lg:grid-cols-2">
-        <Section id="report-target-title" title="Target and search">
-          <Pairs lines={[{ label: "Target conversion", value: fmtConversion(r.target.conversion) }, ...r.objective]} />
-        </Section>
-        <Section id="report-references-title" title="Equilibrium and references">
-          <Pairs
-            lines={[
-              { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
-              { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR, units) },
-              { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
-              { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${formatNumber(r.references.feedVolumetricFlow, 4, RECORD_NUMBERS)} m³/s` },
-            ]}
-          />
-        </Section>
-      </div>
+      {r.network ? null : (
+        <div className="grid gap-4 lg:grid-cols-2">
+          <Section id="report-target-title" title="Target and search">
+            <Pairs lines={[{ label: "Target conversion", value: fmtConversion(r.target.conversion) }, ...r.objective]} />
+          </Section>
+          <Section id="report-references-title" title="Equilibrium and references">
+            <Pairs
+              lines={[
+                { label: "Equilibrium conversion", value: r.equilibriumConversion === null ? "none (irreversible rate)" : fmtConversion(r.equilibriumConversion) },
+                { label: "Single CSTR to the target", value: fmtVolume(r.references.singleCSTR, units) },
+                { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
+                { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${formatNumber(r.references.feedVolumetricFlow, 4, RECORD_NUMBERS)} m³/s` },
+              ]}
+            />
+          </Section>
+        </div>
+      )}
 
       <Section id="report-costs-title" title="Costs">
         <div className="space-y-2" data-testid="report-costs">
@@ -224,19 +235,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
         {!r.robustness.recorded ? (
           <NotRecorded>Not recorded: no finished Monte Carlo run for this pinned design.</NotRecorded>
         ) : (
-          <Pairs
-            lines={[
-              { label: "Samples and random seed", value: `${r.robustness.samples ?? "—"} samples, random seed ${r.robustness.seed ?? "—"}${r.robustness.refusedSamples ? `, ${r.robustness.refusedSamples} could not be rated` : ""}` },
-              ...r.robustness.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
-              { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(r.robustness.p5)} / ${fmtConversion(r.robustness.p50)} / ${fmtConversion(r.robustness.p95)}` },
-              { label: "Mean outlet conversion", value: fmtConversion(r.robustness.mean) },
-              {
-                label: "Probability of missing the target",
-                value: `${fmtPercent(r.robustness.probabilityOfMissingTarget)} ± ${fmtPercent(r.robustness.probabilityStandardError)} (target ${fmtConversion(r.robustness.target)})`,
-              },
-              { label: "Finished", value: formatDateTime(r.robustness.finishedAt) },
-            ]}
-          />
+          <Pairs lines={robustnessLines(r.robustness, r.network?.product ?? null)} />
         )}
       </Section>
 
@@ -248,7 +247,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
           ))}
         </ul>
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-accent-700">Inputs as computed (as stored, in SI units)</summary>
+          <summary className="cursor-pointer text-accent-700">{r.network ? "Inputs as computed (as stored; a number without a unit is in SI units)" : "Inputs as computed (as stored, in SI units)"}</summary>
           <div className="mt-1">
             <Pairs lines={inputLines(r.assumptions.spec)} />
           </div>

@@ -4,8 +4,9 @@ import { useState } from "react";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { refusalText } from "@/components/sweeps/loading-and-error-panels";
 import { fetchJson } from "@/lib/client/fetch-json";
-import { MAX_SAMPLES, robustnessCreateSchema, type UncertainInput } from "@/lib/schemas/robustness";
+import { isNetworkRobustnessResult, MAX_SAMPLES, robustnessCreateSchema, type UncertainInput } from "@/lib/schemas/robustness";
 import { RobustnessResult } from "./robustness-result";
+import { NetworkRobustnessResult } from "./network-robustness-result";
 import type { OfferedField, RobustnessList, RobustnessRunView } from "@/lib/services/views";
 import { UncertainRow, type Draft } from "./uncertain-row";
 import { spreadFractionFromPercent } from "./spread-percent";
@@ -20,6 +21,19 @@ function toInput(d: Draft): UncertainInput | { field: string; kind: string } {
 
 function firstDraft(fields: OfferedField[]): Draft {
   return { field: fields[0]?.field ?? "reaction.rate.k", kind: "plusMinus", a: "20", b: "" };
+}
+
+const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
+
+/** What the run checks, in the words of the train's kind. */
+function introText(list: RobustnessList): string {
+  const tail = "Each sample draws the uncertain inputs and rates the same stages.";
+  if (list.kind !== "network" || !list.limits) return `How sure is this train to reach the target ${pct(list.target ?? 0)} if the inputs are not what was assumed? ${tail}`;
+  const l = list.limits;
+  const limits = [l.minYield !== null ? `the minimum yield ${pct(l.minYield)}${l.product ? ` of ${l.product}` : ""}` : null, l.minConversion !== null ? `the minimum conversion ${pct(l.minConversion)}` : null].filter(Boolean);
+  return limits.length
+    ? `How sure is this train to meet ${limits.join(" and ")} if the rate constants or the feed are not what was assumed? ${tail}`
+    : `How widely do this train's conversion and yield spread if the rate constants or the feed are not what was assumed? ${tail}`;
 }
 
 /**
@@ -75,10 +89,7 @@ export function RobustnessPanel({ base, canRun }: { base: string; canRun: boolea
 
   return (
     <div className="space-y-4">
-      <p className="text-sm text-ink-soft">
-        How sure is this train to reach the target {`${(100 * list.data.target).toFixed(1)} %`} if the inputs are not what the spec says? Each sample draws the uncertain inputs and rates
-        the same stages.
-      </p>
+      <p className="text-sm text-ink-soft">{introText(list.data)}</p>
       {canRun ? (
         <form
           className="space-y-3"
@@ -115,7 +126,7 @@ export function RobustnessPanel({ base, canRun }: { base: string; canRun: boolea
               </label>
               <input id="rb-samples" className="input w-32" inputMode="numeric" value={samples} onChange={(e) => setSamples(e.target.value)} aria-describedby="rb-samples-hint" />
               <p id="rb-samples-hint" className="mt-1 text-xs text-ink-soft">
-                1 to {MAX_SAMPLES.toLocaleString("en")}; above 2,000 the run is queued
+                1 to {MAX_SAMPLES.toLocaleString("en")}; above {list.data.inlineSamples.toLocaleString("en")} the run is queued
               </p>
               {errorFor("samples") ? <p className="field-error">{errorFor("samples")}</p> : null}
             </div>
@@ -143,7 +154,11 @@ export function RobustnessPanel({ base, canRun }: { base: string; canRun: boolea
       <div aria-live="polite">
         {current ? (
           current.status === "succeeded" && current.result ? (
-            <RobustnessResult result={current.result} />
+            isNetworkRobustnessResult(current.result) ? (
+              <NetworkRobustnessResult result={current.result} />
+            ) : (
+              <RobustnessResult result={current.result} />
+            )
           ) : current.status === "failed" ? (
             <p role="alert" className="field-error">
               The run failed: {current.error}

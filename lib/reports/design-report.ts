@@ -6,25 +6,21 @@
 import type { PinnedDesign } from "@/db/schema";
 import type { ChartStage, Point } from "@/lib/charts/levenspiel-geometry";
 import { CAUTIONS, MODEL_ASSUMPTIONS, thermalWarnings } from "@/lib/engine";
-import { PIN_STATE } from "@/lib/glossary";
-import { labelFor } from "@/lib/schemas/field-labels";
 import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
 import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display-preference";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
 import type { StageType } from "@/lib/engine";
+import { isPinnedNetworkCandidate, type NetworkCurves, type NetworkReport } from "./network-report";
+import { networkDesignReport } from "./network-design-report";
+import { costsSection, kineticsLabel, originSection, pinSection, robustnessSection, sourceSection } from "./report-sections";
 
 export const REPORT_FORMAT = "seriatim.design-report/1";
 
-export type PinState = PinnedDesign["state"];
+export type { PinState } from "./design-report-states";
+import type { PinState } from "./design-report-states";
 
-/** The pin states' one names, from the glossary (the screens use the same). */
-export const STATE_LABEL: Record<PinState, string> = {
-  proposed: PIN_STATE.proposed.label,
-  approved: PIN_STATE.approved.label,
-  rejected: PIN_STATE.rejected.label,
-  superseded: PIN_STATE.superseded.label,
-};
+export { STATE_LABEL } from "./design-report-states";
 
 export interface ReportStage {
   index: number;
@@ -54,6 +50,9 @@ export interface FitParameter {
 
 export interface DesignReport {
   format: typeof REPORT_FORMAT;
+  /** "network" for a train of several reactions: then `network` holds its chemistry, composition and path; the one-reaction sections stay empty. */
+  kind: "single" | "network";
+  network: NetworkReport | null;
   generatedAt: string;
   project: { id: string; name: string; description: string };
   pin: {
@@ -121,6 +120,13 @@ export interface DesignReport {
         probabilityOfMissingTarget: number | null;
         probabilityStandardError: number | null;
         refusedSamples: number | null;
+        /** For a train of several reactions: the yield's distribution and the chances of missing the minimum yield and of meeting every limit. */
+        network: {
+          yield: { p5: number | null; p50: number | null; p95: number | null; mean: number | null } | null;
+          minYield: number | null;
+          probabilityMissMinYield: number | null;
+          probabilityMeet: number | null;
+        } | null;
       };
   assumptions: { note: string; model: string[]; spec: Record<string, unknown> };
   chart: { curve: Point[]; stages: ChartStage[]; target: number | null; equilibrium: number | null };
@@ -146,70 +152,13 @@ export interface ReportInputs {
   now: Date;
   /** The reader's display-unit choice for the feed and temperature lines; absent, SI. */
   preference?: DisplayPreference;
-}
-
-function fitSection(fit: Obj | null) {
-  if (!fit) return null;
-  const params = Array.isArray(fit.parameters) ? (fit.parameters as unknown[]).map(obj) : [];
-  return {
-    law: str(fit.kind) ?? str(fit.law),
-    formula: str(fit.formula),
-    parameters: params.map((p) => {
-      const iv = Array.isArray(p.interval95) && p.interval95.length === 2 ? (p.interval95 as [number, number]) : null;
-      return { name: String(p.name ?? "?"), value: num(p.value) ?? NaN, standardError: num(p.standardError), interval95: iv };
-    }),
-    rSquared: num(fit.rSquared),
-    residualSumOfSquares: num(fit.residualSumOfSquares),
-  };
-}
-
-function uncertainLines(list: unknown): WordLine[] {
-  return (Array.isArray(list) ? list : []).map(obj).map((u) => {
-    // the label the form showed, from the one mapping; the report never prints a field path
-    const field = labelFor(String(u.field ?? "input"));
-    if (u.kind === "uniform") return { label: field, value: `uniform between ${u.low} and ${u.high}` };
-    if (u.kind === "normal") return { label: field, value: `normal, mean ${u.mean}, standard deviation ${u.sd}` };
-    if (u.kind === "plusMinus") return { label: field, value: `its value ± ${Math.round(Number(u.fraction) * 1000) / 10} %, uniformly` };
-    return { label: field, value: "a spread this report cannot describe" };
-  });
-}
-
-/** A cost-basis entry in words: sizes, limits and factors read as an engineer would write them. */
-function costLine(key: string, v: unknown): WordLine {
-  const o = obj(v);
-  if (key === "sizes") {
-    if (o.mode === "r10") return { label: "Standard sizes", value: `ISO 3 R10 preferred numbers from ${o.min} to ${o.max} m³` };
-    if (o.mode === "custom") return { label: "Standard sizes", value: `${(Array.isArray(o.values) ? o.values : []).join(", ")} m³` };
-    if (o.mode === "any") return { label: "Standard sizes", value: "any size" };
-  }
-  if (key === "maxVesselVolume") return { label: "Largest single vessel", value: v == null ? "no limit" : `${v} m³ (a larger stage is split into identical parallel vessels)` };
-  if (key === "installationFactor") {
-    const value = typeof v === "number" ? v : num(o.value);
-    const source = str(o.source);
-    return { label: "Installation factor", value: `${value ?? "—"} × purchase cost${source ? ` (${source})` : ""}` };
-  }
-  return { label: key, value: Array.isArray(v) ? v.join(", ") : typeof v === "object" && v !== null ? JSON.stringify(v) : String(v) };
-}
-
-function costSettingsSection(row: ReportInputs["costSettings"]): DesignReport["costs"]["settings"] {
-  if (!row) return { recorded: false };
-  const s = row.settings;
-  // The cost basis keeps correlations under "vessels"; older rows kept them at the top level.
-  const vessels = obj(s.vessels);
-  const correlations = (["CSTR", "PFR"] as const)
-    .filter((t) => vessels[t] ?? s[t])
-    .map((t) => {
-      const c = obj(vessels[t] ?? s[t]);
-      return { type: t, a: num(c.a), b: num(c.b), n: num(c.n), source: str(c.source) ?? "not given" };
-    });
-  const other: WordLine[] = Object.entries(s)
-    .filter(([k]) => !["vessels", "CSTR", "PFR", "currency", "basisYear"].includes(k))
-    .map(([k, v]) => costLine(k, v));
-  return { recorded: true, currency: str(s.currency), basisYear: num(s.basisYear), correlations, other, updatedAt: row.updatedAt.toISOString() };
+  /** For a train of several reactions: its scenario's design spec (the pin's, else the sweep's with the scenario's values) and its curves. */
+  network?: { spec: Obj; curves: NetworkCurves | null };
 }
 
 /** The report from what was read: pure, so the same rows always give the same report. */
 export function buildDesignReport(input: ReportInputs): DesignReport {
+  if (isPinnedNetworkCandidate(input.pin.candidate)) return networkDesignReport(input);
   const wordUnits = input.preference ? resolveDisplayUnits(input.preference, typedUnits(obj(input.kinetics?.spec) as WithShownUnits)) : undefined;
   const { pin } = input;
   const c = obj(pin.candidate);
@@ -242,36 +191,18 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
   const target = num(obj(spec.target).conversion);
   const equilibrium = num(reference.equilibriumConversion);
   const adiabatic = thermal.mode === "adiabatic";
-  const plan = input.candidate?.inventoryPlan ?? null;
-  const run = input.robustness;
-  const rres = run ? run.result : {};
-  const rreq = run ? run.request : {};
-  const name = (id: string | null) => (id ? (input.names[id] ?? "someone") : null);
 
   return {
     format: REPORT_FORMAT,
+    kind: "single",
+    network: null,
     generatedAt: input.now.toISOString(),
     project: input.project,
-    pin: {
-      id: pin.id,
-      state: pin.state,
-      stateLabel: STATE_LABEL[pin.state],
-      note: pin.note,
-      pinnedBy: name(pin.pinnedBy)!,
-      pinnedAt: pin.pinnedAt.toISOString(),
-      reviewedBy: name(pin.reviewerId),
-      reviewedAt: pin.reviewedAt?.toISOString() ?? null,
-      reviewComment: pin.reviewComment,
-    },
-    origin: {
-      sweep: c.sweep ? { id: String(obj(c.sweep).id), name: String(obj(c.sweep).name) } : null,
-      scenarioIndex: num(scenario.index),
-      overrides: obj(scenario.overrides) as Record<string, number>,
-      rank: num(c.rank),
-    },
+    pin: pinSection(input),
+    origin: originSection(input),
     feed: describeFeed(spec.feed, wordUnits),
     kinetics: {
-      label: input.kinetics ? `${input.kinetics.model}, version ${input.kinetics.version}` : "kinetics version not found",
+      label: kineticsLabel(input),
       model: input.kinetics?.model ?? null,
       version: input.kinetics?.version ?? null,
       typedUnits: typedUnits(obj(input.kinetics?.spec) as WithShownUnits),
@@ -280,9 +211,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       parameters: rate.parameters,
       reaction: describeReaction(reaction, wordUnits),
     },
-    source: input.source
-      ? { recorded: true, kind: input.source.kind, dataset: input.source.dataset, datasetVersion: input.source.datasetVersion, fileName: input.source.fileName, rowCount: input.source.rowCount, fit: fitSection(input.source.fit) }
-      : { recorded: false },
+    source: sourceSection(input),
     target: { conversion: target, conversionReached: num(c.conversionReached) ?? (stages.length ? stages[stages.length - 1].conversionOut : null) },
     objective: describeObjective(spec),
     train: { sequence, label: sequence.join(" → "), totalVolume: num(c.totalVolume), totalCost: num(c.totalCost), ratioToPfr: num(c.ratioToPfr) },
@@ -290,40 +219,8 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
     equilibriumConversion: equilibrium,
     references: { singleCSTR: num(reference.singleCSTR), singlePFR: num(reference.singlePFR), feedVolumetricFlow: num(reference.feedVolumetricFlow) },
     thermal: { mode: adiabatic ? "adiabatic" : "isothermal", adiabaticRise: num(thermal.adiabaticRise), maxTemperature: num(thermal.maxTemperature) },
-    costs: {
-      settings: costSettingsSection(input.costSettings),
-      totalCost: num(c.totalCost),
-      installedCost: input.candidate?.installedCost ?? null,
-      inventoryPlan: plan
-        ? {
-            recorded: true,
-            totalCost: num(plan.totalCost),
-            allNewCost: num(plan.allNewCost),
-            assignments: (Array.isArray(plan.assignments) ? plan.assignments : []).map(obj).map((a) => {
-              const vesselId = str(a.vesselId);
-              return { stage: (num(a.stage) ?? 0) + 1, vesselId, vesselTag: vesselId ? (input.inventoryTags[vesselId] ?? str(a.tag)) : null, cost: num(a.cost) };
-            }),
-          }
-        : { recorded: false },
-    },
-    robustness: run
-      ? {
-          recorded: true,
-          runId: run.id,
-          finishedAt: run.finishedAt?.toISOString() ?? null,
-          samples: num(rres.samples) ?? num(rreq.samples),
-          seed: num(rres.seed) ?? num(rreq.seed),
-          target: num(rreq.target),
-          uncertain: uncertainLines(rreq.uncertain),
-          p5: num(rres.p5),
-          p50: num(rres.p50),
-          p95: num(rres.p95),
-          mean: num(rres.mean),
-          probabilityOfMissingTarget: num(rres.probabilityOfMissingTarget),
-          probabilityStandardError: num(rres.probabilityStandardError),
-          refusedSamples: num(rres.refusedSamples),
-        }
-      : { recorded: false },
+    costs: costsSection(input, num(c.totalCost)),
+    robustness: robustnessSection(input),
     assumptions: { note: pin.note, model: [...MODEL_ASSUMPTIONS], spec },
     chart: {
       curve,

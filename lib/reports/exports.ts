@@ -7,6 +7,8 @@ import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import { CAUTIONS } from "@/lib/engine";
 import type { exportCandidates } from "@/lib/services/candidate-export";
 import type { DesignReport } from "./design-report";
+import { compositionCsvHeaders } from "./network-format";
+import type { NetworkReport } from "./network-report";
 import { STAGE_COLUMNS, VESSEL_SIZE_COLUMN } from "./report-format";
 
 /** A leading "# " line carrying user text, safe to open in a spreadsheet (see commentText). */
@@ -17,8 +19,9 @@ const PREFACE = commentLine(CAUTIONS.join(" "));
 
 const cell = (v: unknown) => (v === null || v === undefined || (typeof v === "number" && !Number.isFinite(v)) ? "" : v);
 
-/** The stage table of a pinned design. */
+/** The stage table of a pinned design (for several reactions, its composition table). */
 export function stageTableCsv(report: DesignReport): string {
+  if (report.network) return compositionCsv(report, report.network);
   const rows = report.stages.map((s) => {
     const row: Record<string, unknown> = {};
     for (const c of STAGE_COLUMNS) row[c.csv] = cell(c.raw(s));
@@ -28,6 +31,35 @@ export function stageTableCsv(report: DesignReport): string {
   const fields = [...STAGE_COLUMNS.map((c) => c.csv), VESSEL_SIZE_COLUMN.csv];
   const title = commentLine(`${report.project.name}: ${report.train.label}, pinned design ${report.pin.id} (${report.pin.state})`);
   return `${title}\n${PREFACE}\n${Papa.unparse({ fields, data: rows.map((r) => fields.map((f) => r[f])) }, SAFE_UNPARSE)}\n`;
+}
+
+/**
+ * The composition table of a train of several reactions: the feed, each stage's outlet and the
+ * train's totals, one column per species (mol/m3), with each stage's size and the train's measures.
+ */
+export function compositionCsv(report: DesignReport, n: NetworkReport): string {
+  const product = n.product;
+  const fields = [
+    "stream",
+    "stage",
+    "type",
+    "volume (m3)",
+    "residence time (s)",
+    "temperature (K)",
+    ...compositionCsvHeaders(n).slice(1),
+    `conversion of ${n.keyReactant} (-)`,
+    ...(product ? [`yield of ${product} (-)`, `selectivity to ${product} (-)`] : []),
+  ];
+  const measures = (m: { conversion: number | null; yield: number | null; selectivity: number | null }) => [cell(m.conversion), ...(product ? [cell(m.yield), cell(m.selectivity)] : [])];
+  const blankMeasures = product ? ["", "", ""] : [""];
+  const rows = n.composition.rows.map((row) => {
+    const stage = row.stage === null ? null : n.stages[row.stage - 1];
+    return [row.label, stage?.index ?? "", stage?.type ?? "", cell(stage?.volume), cell(stage?.residenceTime), cell(stage?.temperature), ...row.values.map(cell), ...blankMeasures];
+  });
+  const last = n.composition.rows[n.composition.rows.length - 1];
+  rows.push(["Train outlet (totals)", "", report.train.label, cell(n.measures.totalVolume), cell(n.measures.totalResidenceTime), "", ...last.values.map(cell), ...measures(n.measures)]);
+  const title = commentLine(`${report.project.name}: ${report.train.label}, pinned design ${report.pin.id} (${report.pin.state}); ${n.measures.objectiveLabel}`);
+  return `${title}\n${PREFACE}\n${Papa.unparse({ fields, data: rows }, SAFE_UNPARSE)}\n`;
 }
 
 type Export = Awaited<ReturnType<typeof exportCandidates>>;

@@ -26,12 +26,18 @@ const SI_UNITS: Record<string, string> = {
   vmax: "mol/(m³·s)",
   km: "mol/m³",
   ki: "mol/m³",
+  volumetricFlow: "m³/s",
+  maxTotalVolume: "m³",
+  maxStageVolume: "m³",
 };
+
+/** A number under a record of concentrations ("feed.concentrations.A") is one, whatever the species' name. */
+const unitOf = (path: (string | number)[]) => SI_UNITS[String(path[path.length - 1])] ?? (path[path.length - 2] === "concentrations" ? "mol/m³" : undefined);
 
 const skip = new Set(["shownUnits"]);
 
-function valueText(key: string, v: unknown): string {
-  if (typeof v === "number") return SI_UNITS[key] ? `${formatNumber(v, 6, RECORD_NUMBERS)} ${SI_UNITS[key]}` : formatNumber(v, 6, RECORD_NUMBERS);
+function valueText(unit: string | undefined, v: unknown): string {
+  if (typeof v === "number") return unit ? `${formatNumber(v, 6, RECORD_NUMBERS)} ${unit}` : formatNumber(v, 6, RECORD_NUMBERS);
   if (typeof v === "boolean") return v ? "yes" : "no";
   return String(v);
 }
@@ -43,12 +49,12 @@ export function inputLines(spec: Record<string, unknown>): InputLine[] {
     const key = String(path[path.length - 1] ?? "");
     if (skip.has(key)) return;
     if (Array.isArray(v)) {
-      if (v.every((x) => typeof x !== "object" || x === null)) out.push({ label: labelFor(path), value: v.map((x) => valueText(key, x)).join(", ") });
+      if (v.every((x) => typeof x !== "object" || x === null)) out.push({ label: labelFor(path), value: v.map((x) => valueText(unitOf(path), x)).join(", ") });
       else v.forEach((x, i) => walk(x, [...path, i]));
     } else if (v && typeof v === "object") {
       for (const [k, x] of Object.entries(v as Record<string, unknown>)) walk(x, [...path, k]);
     } else if (v !== undefined && v !== null && v !== "") {
-      out.push({ label: labelFor(path), value: valueText(key, v) });
+      out.push({ label: labelFor(path), value: valueText(unitOf(path), v) });
     }
   };
   walk(spec, []);

@@ -7,11 +7,13 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import PDFDocument from "pdfkit";
 import { stageStyle } from "@/lib/charts/stage-styles";
-import { chartGeometry, ticks, type Point } from "@/lib/charts/levenspiel-geometry";
+import { chartGeometry, type Point } from "@/lib/charts/levenspiel-geometry";
 import type { DesignReport } from "./design-report";
-import type { WordLine } from "./kinetics-words";
+import { networkBody } from "./network-report-pdf";
+import { robustnessLines } from "./robustness-lines";
+import { axes, ensureSpace, FOOTER, heading, INK, MARGIN, pairs, paragraph, SOFT, table, width, type Doc } from "./pdf-parts";
 import { inputLines } from "./input-lines";
-import { fmtConversion, fmtKelvin, fmtMoney, fmtPercent, fmtVolume, stageColumns } from "./report-format";
+import { fmtConversion, fmtKelvin, fmtMoney, fmtVolume, stageColumns } from "./report-format";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
 import { formatDateTime } from "@/lib/format/dates";
@@ -24,14 +26,6 @@ function fontFiles() {
   fonts ??= { regular: readFileSync(path.join(FONT_DIR, "DejaVuSans.ttf")), bold: readFileSync(path.join(FONT_DIR, "DejaVuSans-Bold.ttf")) };
   return fonts;
 }
-
-const INK = "#1c2430";
-const SOFT = "#4a5565";
-const LINE = "#c9ced6";
-const MARGIN = 50;
-const FOOTER = 30;
-
-type Doc = PDFKit.PDFDocument;
 
 /** Renders the report; resolves with the whole file. */
 export function renderReportPdf(report: DesignReport, units?: DisplayUnits): Promise<Buffer> {
@@ -55,47 +49,17 @@ export function renderReportPdf(report: DesignReport, units?: DisplayUnits): Pro
 
   header(doc, report);
   cautionsBox(doc, report, "Before you rely on this design");
-  summary(doc, report, units);
-  levenspiel(doc, report);
-  stageTable(doc, report, units);
-  if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report, units);
+  if (report.network) networkBody(doc, report, report.network, units);
+  else {
+    summary(doc, report, units);
+    levenspiel(doc, report);
+    stageTable(doc, report, units);
+    if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report, units);
+  }
   sections(doc, report, units);
   footers(doc, report);
   doc.end();
   return done;
-}
-
-const width = (doc: Doc) => doc.page.width - MARGIN * 2;
-const bottom = (doc: Doc) => doc.page.height - MARGIN - FOOTER;
-
-function ensureSpace(doc: Doc, h: number) {
-  if (doc.y + h > bottom(doc)) doc.addPage();
-}
-
-function heading(doc: Doc, text: string) {
-  ensureSpace(doc, 60);
-  doc.moveDown(0.6).font("bold").fontSize(12.5).fillColor(INK).text(text, MARGIN, doc.y);
-  doc.moveTo(MARGIN, doc.y + 1).lineTo(MARGIN + width(doc), doc.y + 1).lineWidth(0.5).strokeColor(LINE).stroke();
-  doc.moveDown(0.4).font("body").fontSize(9.5);
-}
-
-/** Label: value lines in two columns. */
-function pairs(doc: Doc, lines: WordLine[]) {
-  const labelW = 170;
-  for (const l of lines) {
-    const h = Math.max(doc.heightOfString(l.value, { width: width(doc) - labelW }), 12);
-    ensureSpace(doc, h + 2);
-    const y = doc.y;
-    doc.font("body").fontSize(9.5).fillColor(SOFT).text(l.label, MARGIN, y, { width: labelW - 8 });
-    doc.fillColor(INK).text(l.value, MARGIN + labelW, y, { width: width(doc) - labelW });
-    doc.y = Math.max(doc.y, y + h) + 2;
-  }
-  doc.x = MARGIN;
-}
-
-function paragraph(doc: Doc, text: string, opts: { colour?: string; size?: number } = {}) {
-  ensureSpace(doc, 14);
-  doc.font("body").fontSize(opts.size ?? 9.5).fillColor(opts.colour ?? INK).text(text, MARGIN, doc.y, { width: width(doc) });
 }
 
 function header(doc: Doc, r: DesignReport) {
@@ -143,29 +107,6 @@ function summary(doc: Doc, r: DesignReport, units?: DisplayUnits) {
     ...(r.train.totalCost !== null ? [{ label: "Total vessel cost", value: fmtMoney(r.train.totalCost) }] : []),
     { label: "Volume over single PFR", value: r.train.ratioToPfr === null ? "—" : formatNumber(r.train.ratioToPfr, 4, RECORD_NUMBERS) },
   ]);
-}
-
-/** Axes with ticks and labels inside the box; returns the scales. */
-function axes(doc: Doc, box: { x: number; y: number; w: number; h: number }, xMax: number, yMin: number, yMax: number, xLabel: string, yLabel: string, yFmt: (v: number) => string) {
-  const sx = (x: number) => box.x + (x / xMax) * box.w;
-  const sy = (y: number) => box.y + box.h - ((Math.min(Math.max(y, yMin), yMax) - yMin) / (yMax - yMin)) * box.h;
-  doc.lineWidth(0.4).strokeColor("#e5e7eb");
-  for (const t of ticks(yMax - yMin, 4)) {
-    const v = yMin + t;
-    if (v > yMax) continue;
-    doc.moveTo(box.x, sy(v)).lineTo(box.x + box.w, sy(v)).stroke();
-    doc.font("body").fontSize(7.5).fillColor(SOFT).text(yFmt(v), box.x - 52, sy(v) - 4, { width: 48, align: "right" });
-  }
-  for (const t of ticks(xMax, 5).filter((t) => t <= xMax)) {
-    doc.moveTo(sx(t), box.y + box.h).lineTo(sx(t), box.y + box.h + 3).lineWidth(0.6).strokeColor(SOFT).stroke();
-    doc.font("body").fontSize(7.5).fillColor(SOFT).text(formatNumber(t, 3, RECORD_NUMBERS), sx(t) - 20, box.y + box.h + 5, { width: 40, align: "center" });
-  }
-  doc.moveTo(box.x, box.y).lineTo(box.x, box.y + box.h).lineTo(box.x + box.w, box.y + box.h).lineWidth(0.8).strokeColor(SOFT).stroke();
-  doc.font("body").fontSize(8.5).fillColor(INK).text(xLabel, box.x, box.y + box.h + 17, { width: box.w, align: "center" });
-  doc.save().rotate(-90, { origin: [box.x - 58, box.y + box.h / 2] });
-  doc.text(yLabel, box.x - 58 - box.h / 2, box.y + box.h / 2 - 5, { width: box.h, align: "center" });
-  doc.restore();
-  return { sx, sy };
 }
 
 const HATCH_ANGLES = [45, 90, -45, 0, 30, -30, 60, -60];
@@ -227,33 +168,6 @@ function levenspiel(doc: Doc, r: DesignReport) {
   doc.x = MARGIN;
 }
 
-function table(doc: Doc, headings: string[], rows: string[][], widths: number[], numeric: boolean[]) {
-  const total = widths.reduce((a, b) => a + b, 0);
-  const scale = width(doc) / total;
-  const ws = widths.map((w) => w * scale);
-  const drawRow = (cells: string[], bold: boolean) => {
-    doc.font(bold ? "bold" : "body").fontSize(8.5);
-    const h = Math.max(...cells.map((c, i) => doc.heightOfString(c, { width: ws[i] - 6 }))) + 6;
-    if (doc.y + h > bottom(doc)) {
-      doc.addPage();
-      if (!bold) drawRow(headings, true);
-      doc.font("body").fontSize(8.5);
-    }
-    const y = doc.y;
-    let x = MARGIN;
-    cells.forEach((c, i) => {
-      doc.fillColor(bold ? SOFT : INK).text(c, x + 3, y + 3, { width: ws[i] - 6, align: numeric[i] && !bold ? "right" : "left" });
-      x += ws[i];
-    });
-    doc.moveTo(MARGIN, y + h).lineTo(MARGIN + width(doc), y + h).lineWidth(0.4).strokeColor(LINE).stroke();
-    doc.y = y + h;
-  };
-  drawRow(headings, true);
-  for (const r of rows) drawRow(r, false);
-  doc.x = MARGIN;
-  doc.moveDown(0.3);
-}
-
 function stageTable(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   const columns = stageColumns(units);
   // Keep a short table on one page with its heading.
@@ -295,6 +209,14 @@ function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {
 }
 
 function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
+  // A train of several reactions shows its feed, reactions, limits and references in networkBody.
+  if (!r.network) feedAndKinetics(doc, r);
+  source(doc, r);
+  if (!r.network) targetAndReferences(doc, r, units);
+  costsAndAfter(doc, r);
+}
+
+function feedAndKinetics(doc: Doc, r: DesignReport) {
   heading(doc, "Feed");
   pairs(doc, r.feed);
   heading(doc, "Kinetics");
@@ -304,6 +226,9 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
     ...r.kinetics.parameters,
     ...r.kinetics.reaction,
   ]);
+}
+
+function source(doc: Doc, r: DesignReport) {
   heading(doc, "Source of the kinetics");
   if (!r.source.recorded) paragraph(doc, "Not recorded: the kinetics were typed in, not derived from a rate dataset.", { colour: SOFT });
   else {
@@ -322,6 +247,9 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
       );
     }
   }
+}
+
+function targetAndReferences(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   heading(doc, "Target and search");
   pairs(doc, [{ label: "Target conversion", value: fmtConversion(r.target.conversion) }, ...r.objective]);
   heading(doc, "Equilibrium and references");
@@ -331,6 +259,9 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
     { label: "Single PFR to the target", value: fmtVolume(r.references.singlePFR, units) },
     { label: "Feed volumetric flow", value: r.references.feedVolumetricFlow === null ? "—" : `${formatNumber(r.references.feedVolumetricFlow, 4, RECORD_NUMBERS)} m³/s` },
   ]);
+}
+
+function costsAndAfter(doc: Doc, r: DesignReport) {
   heading(doc, "Costs");
   const cs = r.costs.settings;
   pairs(doc, [
@@ -363,21 +294,14 @@ function sections(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   heading(doc, "Robustness");
   if (!r.robustness.recorded) paragraph(doc, "Not recorded: no finished Monte Carlo run for this pinned design.", { colour: SOFT });
   else {
-    const rb = r.robustness;
-    pairs(doc, [
-      { label: "Samples and random seed", value: `${rb.samples ?? "—"} samples, random seed ${rb.seed ?? "—"}${rb.refusedSamples ? `, ${rb.refusedSamples} could not be rated` : ""}` },
-      ...rb.uncertain.map((u) => ({ label: `Uncertain: ${u.label}`, value: u.value })),
-      { label: "Outlet conversion P5 / P50 / P95", value: `${fmtConversion(rb.p5)} / ${fmtConversion(rb.p50)} / ${fmtConversion(rb.p95)}` },
-      { label: "Mean outlet conversion", value: fmtConversion(rb.mean) },
-      { label: "Probability of missing the target", value: `${fmtPercent(rb.probabilityOfMissingTarget)} ± ${fmtPercent(rb.probabilityStandardError)} (target ${fmtConversion(rb.target)})` },
-      { label: "Finished", value: formatDateTime(rb.finishedAt) },
-    ]);
+    pairs(doc, robustnessLines(r.robustness, r.network?.product ?? null));
   }
   heading(doc, "Assumptions");
   pairs(doc, [{ label: "Note of the pin", value: r.pin.note || "—" }]);
   for (const a of r.assumptions.model) paragraph(doc, `• ${a}`);
   doc.moveDown(0.4);
-  paragraph(doc, "The inputs as computed (as stored, in SI units):", { colour: SOFT, size: 8.5 });
+  // A model of several reactions may keep a quantity with the unit it was typed in; a bare number is SI.
+  paragraph(doc, r.network ? "The inputs as computed (as stored; a number without a unit is in SI units):" : "The inputs as computed (as stored, in SI units):", { colour: SOFT, size: 8.5 });
   pairs(doc, inputLines(r.assumptions.spec));
 }
 

@@ -1,7 +1,7 @@
-import { uniformFloat64 } from "pure-rand/distribution/uniformFloat64";
-import { xoroshiro128plus } from "pure-rand/generator/xoroshiro128plus";
 import { EngineError, normaliseRatingSpec, rateTrainOutlet, type RatingSpec } from "@/lib/engine";
 import { applyOverrides } from "@/lib/sweeps/grid";
+import { sampler } from "./draws";
+import { quantile } from "./sample-stats";
 
 /** How one numeric input of the rating spec is uncertain. */
 export type Uncertainty =
@@ -43,17 +43,6 @@ function valueAt(spec: unknown, path: string): number {
   return v;
 }
 
-/** Standard normal from two uniforms (Box-Muller). */
-function normal(u1: number, u2: number): number {
-  return Math.sqrt(-2 * Math.log(1 - u1)) * Math.cos(2 * Math.PI * u2);
-}
-
-const quantile = (sorted: number[], p: number) => {
-  const h = (sorted.length - 1) * p;
-  const lo = Math.floor(h);
-  return sorted[lo] + (h - lo) * ((sorted[Math.min(lo + 1, sorted.length - 1)] ?? sorted[lo]) - sorted[lo]);
-};
-
 /**
  * Rates the fixed train for `samples` draws of its uncertain inputs (xoroshiro128+ seeded,
  * so a seed gives the same answer everywhere) and summarises the outlet conversion. Each sample is
@@ -61,21 +50,15 @@ const quantile = (sorted: number[], p: number) => {
  * @throws EngineError when the spec itself cannot be read (a unit), before any sample.
  */
 export function rateUnderUncertainty(req: RobustnessRequest): RobustnessResult {
-  const rng = xoroshiro128plus(req.seed);
-  const draw = () => uniformFloat64(rng);
   // Units are parsed once here; each sample then overrides SI numbers (and ±fractions apply to SI values).
   const spec = normaliseRatingSpec(req.spec);
   const base = req.uncertain.map((u) => (u.kind === "plusMinus" ? valueAt(spec, u.field) : 0));
+  const next = sampler(req.uncertain, base, req.seed);
   const outcomes: number[] = [];
   let refused = 0;
   let misses = 0;
   for (let s = 0; s < req.samples; s++) {
-    const overrides: Record<string, number> = {};
-    req.uncertain.forEach((u, i) => {
-      if (u.kind === "uniform") overrides[u.field] = u.low + (u.high - u.low) * draw();
-      else if (u.kind === "normal") overrides[u.field] = u.mean + u.sd * normal(draw(), draw());
-      else overrides[u.field] = base[i] * (1 + u.fraction * (2 * draw() - 1));
-    });
+    const overrides = next();
     try {
       const x = rateTrainOutlet(applyOverrides(spec, overrides));
       outcomes.push(x);

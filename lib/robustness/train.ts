@@ -1,5 +1,6 @@
 import { EngineError, normaliseRatingSpec, rateTrain, type DesignSpec, type RatingSpec, type StageType } from "@/lib/engine";
 import { AppError } from "@/lib/errors";
+import { labelFor } from "@/lib/schemas/field-labels";
 import { ROBUSTNESS_FIELD_LABELS, ROBUSTNESS_FIELDS, type RobustnessField, type RobustnessRunResult, type UncertainInput } from "@/lib/schemas/robustness";
 import { rateUnderUncertainty } from "./monte-carlo";
 
@@ -28,13 +29,14 @@ export function offeredFields(train: RatingSpec): { field: RobustnessField; labe
 
 /** 400 naming uncertain.N.field for every field the train's spec does not hold as a number. */
 export function checkUncertainFields(train: RatingSpec, uncertain: UncertainInput[], prefix = "uncertain"): void {
-  const offered = new Set(offeredFields(train).map((f) => f.field));
+  const offered = new Set<string>(offeredFields(train).map((f) => f.field));
   const fields: Record<string, string[]> = {};
   uncertain.forEach((u, i) => {
-    if (!offered.has(u.field)) fields[`${prefix}.${i}.field`] = [`${u.field} is not a numeric input of this train's spec`];
+    // In the form's words: the field's label, never its path.
+    if (!offered.has(u.field)) fields[`${prefix}.${i}.field`] = [`${labelFor(u.field)} is not an input of this train that can be varied; choose one from the list`];
   });
   if (Object.keys(fields).length > 0) {
-    throw new AppError("bad_request", `Not numeric inputs of this train: ${Object.values(fields).flat().join("; ")}`, { fields });
+    throw new AppError("bad_request", `Not inputs of this train: ${Object.values(fields).flat().join("; ")}`, { fields });
   }
 }
 

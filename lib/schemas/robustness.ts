@@ -28,7 +28,22 @@ export const ROBUSTNESS_FIELD_LABELS: Record<RobustnessField, { label: string; u
   "feed.temperature": { label: "Feed temperature", unit: "K" },
 };
 
-const field = z.enum(ROBUSTNESS_FIELDS, { error: "Choose an input from the list" });
+/**
+ * Uncertain inputs of a train of several reactions: each reaction's rate constants and activation
+ * energy (by its place in the list, "reactions.0.rate.k"), the feed's volumetric flow and temperature.
+ */
+export type NetworkRobustnessField =
+  | `reactions.${number}.rate.k`
+  | `reactions.${number}.rate.reverse.k`
+  | `reactions.${number}.rate.activationEnergy`
+  | "feed.volumetricFlow"
+  | "feed.temperature";
+export const NETWORK_ROBUSTNESS_FIELD = /^(reactions\.\d{1,2}\.rate\.(k|reverse\.k|activationEnergy)|feed\.volumetricFlow|feed\.temperature)$/;
+
+export const isNetworkRobustnessField = (v: unknown): v is NetworkRobustnessField => typeof v === "string" && NETWORK_ROBUSTNESS_FIELD.test(v);
+const isOneReactionField = (v: unknown): v is RobustnessField => typeof v === "string" && (ROBUSTNESS_FIELDS as readonly string[]).includes(v);
+
+const field = z.custom<RobustnessField | NetworkRobustnessField>((v) => isOneReactionField(v) || isNetworkRobustnessField(v), { error: "Choose an input from the list" });
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 
 export const uncertainInputSchema = z.discriminatedUnion(
@@ -63,6 +78,11 @@ export const seedSchema = z.int("The random seed must be a whole number").min(0,
 /** Most samples a run may ask for; up to INLINE_SAMPLES are rated in the request, more by the worker. */
 export const MAX_SAMPLES = 100_000;
 export const INLINE_SAMPLES = 2_000;
+/**
+ * Up to this many samples of a train of several reactions are rated in the request: each sample solves
+ * every stirred tank's balances in full (all steady states), some milliseconds a sample, so larger runs go to the worker.
+ */
+export const NETWORK_INLINE_SAMPLES = 200;
 
 export const robustnessCreateSchema = z.strictObject({
   uncertain: uncertainListSchema,
@@ -101,3 +121,40 @@ export interface RobustnessRunResult {
   nominal: number | null;
   cautions: string[];
 }
+
+/** The spread of one measure over the rated samples, with its histogram. */
+export interface SampledDistribution {
+  p5: number;
+  p50: number;
+  p95: number;
+  mean: number;
+  /** 20 equal bins between the least and the greatest sample. */
+  histogram: { from: number; to: number; count: number }[];
+}
+
+/**
+ * The stored summary of a finished run on a train of several reactions. The conversion's percentiles
+ * also sit at the top level, and the chance of missing any limit as probabilityOfMissingTarget, so a
+ * reader of either kind of run finds the same names.
+ */
+export interface NetworkRobustnessRunResult extends Omit<RobustnessRunResult, "target" | "nominal"> {
+  kind: "network";
+  /** The sweep's minimum conversion, or null. */
+  target: number | null;
+  product: string | null;
+  conversion: SampledDistribution;
+  /** null without a wanted product. */
+  yield: SampledDistribution | null;
+  minConversion: number | null;
+  minYield: number | null;
+  /** Share of samples below the minimum yield (a sample that cannot be rated counts as a miss); null without one. */
+  probabilityMissMinYield: number | null;
+  probabilityMissMinYieldStandardError: number | null;
+  /** Share of samples meeting every limit (minimum conversion and minimum yield). */
+  probabilityMeet: number;
+  nominal: { conversion: number; yield: number | null; selectivity: number | null } | null;
+}
+
+/** Either kind of stored result. */
+export type AnyRobustnessRunResult = RobustnessRunResult | NetworkRobustnessRunResult;
+export const isNetworkRobustnessResult = (r: AnyRobustnessRunResult | null | undefined): r is NetworkRobustnessRunResult => !!r && "kind" in r && r.kind === "network";

@@ -2,9 +2,13 @@ import { and, desc, eq, inArray, isNull, or, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { teamKineticsSources } from "@/db/queries/kinetics-sources";
 import { teamUserNames } from "@/db/queries/user-names";
-import { candidates, inventoryVessels, projectCostSettings, projects, robustnessRuns, type PinnedDesign } from "@/db/schema";
+import { candidates, inventoryVessels, projectCostSettings, projects, robustnessRuns, sweeps, type PinnedDesign } from "@/db/schema";
 import type { Actor } from "@/lib/authz/policy";
 import { buildDesignReport, plannedVesselIds, reportCosting, type DesignReport } from "@/lib/reports/design-report";
+import { networkCurves } from "@/lib/reports/network-curves";
+import { isPinnedNetworkCandidate } from "@/lib/reports/network-report";
+import { withNumbers } from "@/lib/robustness/numeric-path";
+import { isNetworkSpec } from "@/lib/schemas/network-spec";
 import { getDisplayPreference } from "./display-units";
 import { requireTeamKineticsVersion } from "./kinetics";
 import { getPin } from "./pins";
@@ -36,6 +40,7 @@ export async function getDesignReport(db: Database, actor: Actor, pinId: string,
   ]);
   const costing = reportCosting(pin, candidate ?? null);
   return buildDesignReport({
+    network: await networkInputs(db, actor.teamId, pin, kinetics?.version.spec),
     pin,
     project: project ?? { id: pin.projectId, name: "project", description: "" },
     names,
@@ -72,6 +77,35 @@ async function latestRobustnessRun(db: Database, teamId: string, pin: PinnedDesi
     .orderBy(sql`${robustnessRuns.finishedAt} desc nulls last`, desc(robustnessRuns.createdAt))
     .limit(1);
   return run ?? null;
+}
+
+/**
+ * For a pinned train of several reactions: its scenario's design spec (the pin's own when it holds
+ * the chemistry, else its sweep's starting spec with the scenario's values), the frozen candidate and
+ * the model's wanted product. Null for a one-reaction pin.
+ */
+export async function pinNetworkSpec(db: Database, teamId: string, pin: PinnedDesign, modelSpec?: unknown) {
+  if (!isPinnedNetworkCandidate(pin.candidate)) return null;
+  const frozen = pin.candidate;
+  let spec: Record<string, unknown> = pin.spec;
+  if (!isNetworkSpec(spec)) {
+    const [sweep] = await db
+      .select({ baseSpec: sweeps.baseSpec })
+      .from(sweeps)
+      .where(and(eq(sweeps.id, frozen.sweep.id), eq(sweeps.teamId, teamId)));
+    spec = withNumbers(sweep?.baseSpec ?? {}, frozen.scenario.overrides ?? {});
+  }
+  const model = (modelSpec ?? {}) as { product?: unknown };
+  return { spec, candidate: frozen, modelProduct: typeof model.product === "string" ? model.product : null };
+}
+
+/** The network part of a report's inputs: the spec and the curves the report draws. */
+async function networkInputs(db: Database, teamId: string, pin: PinnedDesign, modelSpec: unknown) {
+  const found = await pinNetworkSpec(db, teamId, pin, modelSpec);
+  if (!found) return undefined;
+  const objective = (found.spec.objective ?? {}) as { product?: unknown };
+  const product = typeof objective.product === "string" ? objective.product : found.modelProduct;
+  return { spec: found.spec, curves: networkCurves(found.spec, found.candidate, product) };
 }
 
 /** Tags of the team's vessels by id; ids that are not well-formed uuids are skipped rather than queried. */

@@ -5,13 +5,16 @@ import type { RatingSpec } from "@/lib/engine";
 import type { RobustnessPayload } from "@/lib/jobs/queues";
 import type { UncertainInput } from "@/lib/schemas/robustness";
 import { rateRobustness } from "@/lib/robustness/train";
+import type { NetworkTrain } from "@/lib/robustness/network-monte-carlo";
+import { isNetworkTrain, rateNetworkRobustness } from "@/lib/robustness/network-train";
 
 interface StoredRequest {
   uncertain: UncertainInput[];
   target: number;
   samples: number;
   seed: number;
-  train: RatingSpec;
+  /** A one-reaction train, or a train of several reactions (kind "network"). */
+  train: RatingSpec | NetworkTrain;
 }
 
 /**
@@ -27,7 +30,8 @@ export async function runRobustnessJob(db: Database, payload: RobustnessPayload)
   if (!run) return { status: "skipped" };
   const req = run.request as unknown as StoredRequest;
   try {
-    const result = rateRobustness(req.train, { uncertain: req.uncertain, target: req.target, samples: req.samples, seed: req.seed });
+    const asked = { uncertain: req.uncertain, samples: req.samples, seed: req.seed };
+    const result = isNetworkTrain(req.train) ? rateNetworkRobustness(req.train, asked) : rateRobustness(req.train, { ...asked, target: req.target });
     await db
       .update(robustnessRuns)
       .set({ status: "succeeded", result: result as unknown as Record<string, unknown>, finishedAt: new Date() })

@@ -8,22 +8,38 @@ import { AppError, notFound } from "@/lib/errors";
 import { bossDbFor, queueFor } from "@/lib/jobs/boss";
 import { QUEUES, WAKE_CHANNEL, type RobustnessPayload } from "@/lib/jobs/queues";
 import { checkUncertainFields, offeredFields, rateRobustness, trainSpec } from "@/lib/robustness/train";
-import { INLINE_SAMPLES, type RobustnessCreate, type RobustnessRunRequest, type RobustnessRunResult } from "@/lib/schemas/robustness";
+import type { NetworkTrain } from "@/lib/robustness/network-monte-carlo";
+import { checkNetworkUncertainFields, networkTrainOf, offeredNetworkFields, rateNetworkRobustness } from "@/lib/robustness/network-train";
+import { withNumbers } from "@/lib/robustness/numeric-path";
+import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import type { StoredNetworkStage } from "@/lib/sweeps/stored-json";
+import { pinNetworkSpec } from "./design-reports";
+import { INLINE_SAMPLES, NETWORK_INLINE_SAMPLES, type AnyRobustnessRunResult, type RobustnessCreate, type RobustnessRunRequest } from "@/lib/schemas/robustness";
 import { toBadRequest } from "./engine-errors";
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
 import { getPin } from "./pins";
 
 /** The fixed train a run rates, and where it belongs. */
-interface Subject {
+type Subject = {
   teamId: string;
   projectId: string;
   candidateId: string | null;
   pinId: string | null;
-  train: RatingSpec;
-  /** The scenario's target conversion. */
-  target: number;
-}
+} & (
+  | {
+      kind: "single";
+      train: RatingSpec;
+      /** The scenario's target conversion. */
+      target: number;
+    }
+  | {
+      /** A train of several reactions: checked against its sweep's minimum conversion and yield. */
+      kind: "network";
+      train: NetworkTrain;
+      target: number | null;
+    }
+);
 
 async function candidateSubject(db: Database, actor: Actor, candidateId: string): Promise<Subject> {
   const row = await teamCandidateWithScenario(db, actor.teamId, candidateId);
@@ -32,22 +48,33 @@ async function candidateSubject(db: Database, actor: Actor, candidateId: string)
   if (!row.candidate.feasible) {
     throw new AppError("conflict", "An infeasible candidate has no train to rate", { fields: { candidateId: [row.candidate.reason ?? "infeasible"] } });
   }
+  const where = { teamId: row.sweep.teamId, projectId: row.sweep.projectId, candidateId, pinId: null };
+  if (isNetworkSpec(row.sweep.baseSpec)) {
+    const train = networkTrainOf(withNumbers(row.sweep.baseSpec, row.scenario.overrides), row.candidate.stages as unknown as StoredNetworkStage[]);
+    return { ...where, kind: "network", train, target: train.minConversion };
+  }
   const spec = applyOverrides(row.sweep.baseSpec, row.scenario.overrides) as unknown as DesignSpec;
-  return { teamId: row.sweep.teamId, projectId: row.sweep.projectId, candidateId, pinId: null, train: trainSpec(spec, row.candidate.stages), target: spec.target.conversion };
+  return { ...where, kind: "single", train: trainSpec(spec, row.candidate.stages), target: spec.target.conversion };
 }
 
 async function pinSubject(db: Database, actor: Actor, pinId: string): Promise<Subject> {
   const pin = await getPin(db, actor, pinId);
+  const where = { teamId: pin.teamId, projectId: pin.projectId, candidateId: null, pinId };
+  const network = await pinNetworkSpec(db, pin.teamId, pin);
+  if (network) {
+    const train = networkTrainOf(network.spec, network.candidate.stages, network.modelProduct);
+    return { ...where, kind: "network", train, target: train.minConversion };
+  }
   const spec = pin.spec as unknown as DesignSpec;
   const stages = (pin.candidate as { stages: Record<string, unknown>[] }).stages;
-  return { teamId: pin.teamId, projectId: pin.projectId, candidateId: null, pinId, train: trainSpec(spec, stages), target: spec.target.conversion };
+  return { ...where, kind: "single", train: trainSpec(spec, stages), target: spec.target.conversion };
 }
 
 /** What the API shows of a run: no job id; the request without the stored train. */
 export function runView(r: RobustnessRun) {
   const { jobId: _job, teamId: _team, request, ...rest } = r;
   const { train: _train, ...asked } = request as RobustnessRunRequest;
-  return { ...rest, result: r.result as RobustnessRunResult | null, request: asked };
+  return { ...rest, result: r.result as AnyRobustnessRunResult | null, request: asked };
 }
 
 /**
@@ -56,14 +83,21 @@ export function runView(r: RobustnessRun) {
  */
 async function createRun(db: Database, actor: Actor, subject: Subject, input: RobustnessCreate) {
   assertCan(actor, "robustness.create", { teamId: subject.teamId });
-  checkUncertainFields(subject.train, input.uncertain);
+  if (subject.kind === "network") {
+    if (input.target !== undefined) {
+      const why = "A train of several reactions is checked against its sweep's minimum conversion and minimum yield; leave the target out";
+      throw new AppError("bad_request", why, { fields: { target: [why] } });
+    }
+    checkNetworkUncertainFields(subject.train, input.uncertain);
+  } else checkUncertainFields(subject.train, input.uncertain);
   const target = input.target ?? subject.target;
   const request = { uncertain: input.uncertain, target, samples: input.samples, seed: input.seed, train: subject.train };
-  const inline = input.samples <= INLINE_SAMPLES;
+  const inline = input.samples <= (subject.kind === "network" ? NETWORK_INLINE_SAMPLES : INLINE_SAMPLES);
   let result = null;
   if (inline) {
     try {
-      result = rateRobustness(subject.train, { uncertain: input.uncertain, target, samples: input.samples, seed: input.seed });
+      const asked = { uncertain: input.uncertain, samples: input.samples, seed: input.seed };
+      result = subject.kind === "network" ? rateNetworkRobustness(subject.train, asked) : rateRobustness(subject.train, { ...asked, target: target as number });
     } catch (err) {
       if (err instanceof EngineError) throw toBadRequest(err, "train");
       throw err;
@@ -120,13 +154,15 @@ export async function createPinRun(db: Database, actor: Actor, pinId: string, in
 async function listFor(db: Database, subject: Subject) {
   const where = subject.pinId ? eq(robustnessRuns.pinId, subject.pinId) : eq(robustnessRuns.candidateId, subject.candidateId as string);
   const rows = await db.select().from(robustnessRuns).where(and(where, eq(robustnessRuns.teamId, subject.teamId))).orderBy(desc(robustnessRuns.createdAt));
-  let fields: ReturnType<typeof offeredFields> = [];
+  let fields: { field: string; label: string; unit: string; value: number }[] = [];
   try {
-    fields = offeredFields(subject.train);
+    fields = subject.kind === "network" ? offeredNetworkFields(subject.train) : offeredFields(subject.train);
   } catch (err) {
     if (!(err instanceof EngineError)) throw err;
   }
-  return { runs: rows.map(runView), fields, target: subject.target };
+  const limits = subject.kind === "network" ? { minConversion: subject.train.minConversion, minYield: subject.train.minYield, product: subject.train.product } : null;
+  const inlineSamples = subject.kind === "network" ? NETWORK_INLINE_SAMPLES : INLINE_SAMPLES;
+  return { runs: rows.map(runView), fields, target: subject.target, kind: subject.kind, limits, inlineSamples };
 }
 
 /** A candidate's runs, newest first, with the numeric inputs its train offers. */
