@@ -20,6 +20,7 @@ import { NetworkTrainFields } from "./network-train-fields";
 import { mapNetworkServerFields } from "./network-field-paths";
 import { networkGridFields } from "./network-grid-fields";
 import { DecimalField } from "./decimal-field";
+import { SweepHead } from "./sweep-head";
 import { SweepCountPanel } from "./sweep-count-panel";
 import { useSweepSubmit } from "./use-sweep-submit";
 
@@ -92,31 +93,15 @@ export function NetworkBuilder({
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="New sweep" className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-4">
-          <section className="card grid gap-3 p-4 sm:grid-cols-[2fr_1fr]">
-            <div>
-              <label htmlFor="n-kineticsVersionId" className="field-label">
-                Kinetics version
-              </label>
-              <select id="n-kineticsVersionId" className="input" aria-invalid={!!err("kineticsVersionId")} {...register("kineticsVersionId")}>
-                {versions.map((o) => (
-                  <option key={o.id} value={o.id}>
-                    {o.label}
-                  </option>
-                ))}
-              </select>
-              <ErrorText id="n-kineticsVersionId" message={err("kineticsVersionId")} />
-            </div>
-            <p className="self-end text-sm text-ink-soft">
-              Several reactions · key reactant <strong>{version?.keyReactant ?? "—"}</strong>
-            </p>
-            <div className="sm:col-span-2">
-              <label htmlFor="n-name" className="field-label">
-                Sweep name <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
-              </label>
-              <input id="n-name" className="input" placeholder="Named after the kinetics and scenario count when blank" {...register("name")} />
-              <ErrorText id="n-name" message={err("name")} />
-            </div>
-          </section>
+          <SweepHead
+            prefix="n"
+            versions={versions}
+            beside={
+              <p className="self-end text-sm text-ink-soft">
+                Several reactions · key reactant <strong>{version?.keyReactant ?? "—"}</strong>
+              </p>
+            }
+          />
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Rank by</legend>

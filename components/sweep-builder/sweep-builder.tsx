@@ -12,9 +12,11 @@ import type { UnitKind } from "@/lib/units/display";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { CostBasisOptions } from "./cost-basis-options";
 import { DecimalField } from "./decimal-field";
+import { SweepHead } from "./sweep-head";
+import { ListedTrainsEditor } from "./listed-trains-editor";
 import { SweepCountPanel } from "./sweep-count-panel";
 import { useSweepSubmit } from "./use-sweep-submit";
-import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-form-state";
+import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, type BuilderValues } from "./builder-form-state";
 
 export interface VersionOption {
   id: string;
@@ -56,7 +58,6 @@ export function SweepBuilder({
   const [uncertainty, setUncertainty] = useState(SWEEP_OPTION_OFF);
   const uncertaintyValue = sweepOptionValue(uncertainty);
   const grid = useFieldArray({ control, name: "grid" });
-  const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
   const chosenVersion = v.kineticsVersionId;
   useEffect(() => {
@@ -81,30 +82,7 @@ export function SweepBuilder({
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="New sweep" className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-4">
-          <section className="card grid gap-3 p-4 sm:grid-cols-[2fr_1fr]">
-            <div>
-              <label htmlFor="s-kineticsVersionId" className="field-label">
-                Kinetics version
-              </label>
-              <select id="s-kineticsVersionId" className="input" aria-invalid={!!err("kineticsVersionId")} {...register("kineticsVersionId")}>
-                <option value="">Choose…</option>
-                {versions.map((o) => (
-                  <option key={o.id} value={o.id}>
-                    {o.label}
-                  </option>
-                ))}
-              </select>
-              <ErrorText id="s-kineticsVersionId" message={err("kineticsVersionId")} />
-            </div>
-            {num("target", "Target conversion X", "w-full")}
-            <div className="sm:col-span-2">
-              <label htmlFor="s-name" className="field-label">
-                Sweep name <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
-              </label>
-              <input id="s-name" className="input" placeholder="Named after the kinetics and scenario count when blank" {...register("name")} />
-              <ErrorText id="s-name" message={err("name")} />
-            </div>
-          </section>
+          <SweepHead prefix="s" versions={versions} choose beside={num("target", "Target conversion X", "w-full")} />
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Trains to try</legend>
@@ -137,39 +115,7 @@ export function SweepBuilder({
               </div>
             ) : null}
             {v.trainMode === "candidates" ? (
-              <div className="space-y-2" data-testid="sequence-editor">
-                {candidates.fields.map((f, i) => {
-                  const seq = parseSequence(v.candidates?.[i]?.seq ?? "");
-                  const set = (next: string[]) => setValue(`candidates.${i}.seq`, next.join("-"), { shouldValidate: true });
-                  return (
-                    <div key={f.id} className="rounded border border-line p-2">
-                      <div className="flex flex-wrap items-center gap-1.5" aria-label={`Sequence ${i + 1}`} role="group">
-                        <span className="mr-1 text-xs text-ink-soft">#{i + 1}</span>
-                        {seq.length ? seq.map((t, j) => <StageBadge key={j} type={t} />) : <span className="text-xs text-ink-soft">empty</span>}
-                        <span className="ml-auto flex gap-1">
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "CSTR"])} disabled={seq.length >= 8} aria-label={`Add a CSTR to sequence ${i + 1}`}>
-                            + CSTR
-                          </button>
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "PFR"])} disabled={seq.length >= 8} aria-label={`Add a PFR to sequence ${i + 1}`}>
-                            + PFR
-                          </button>
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set(seq.slice(0, -1))} disabled={!seq.length} aria-label={`Remove the last stage of sequence ${i + 1}`}>
-                            ⌫
-                          </button>
-                          <button type="button" className="btn-danger py-0.5" onClick={() => candidates.remove(i)} aria-label={`Delete sequence ${i + 1}`}>
-                            Delete
-                          </button>
-                        </span>
-                      </div>
-                      <ErrorText id={`s-candidates-${i}`} message={err(`candidates.${i}.seq`)} />
-                    </div>
-                  );
-                })}
-                <button type="button" className="btn-quiet py-1" onClick={() => candidates.append({ seq: "" })}>
-                  + Add a sequence
-                </button>
-                <ErrorText id="s-candidates" message={err("candidates")} />
-              </div>
+              <ListedTrainsEditor prefix="s" noun="sequence" maxStages={8} badges={(seq) => seq.map((t, j) => <StageBadge key={j} type={t} />)} />
             ) : null}
             {v.trainMode === "multiset" ? (
               <div className="flex flex-wrap gap-4">
