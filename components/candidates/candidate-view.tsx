@@ -12,8 +12,7 @@ import type { CandidateAnswer, SweepView } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { useUrlUnit } from "@/components/sweeps/unit-select";
-import { RobustnessPanel } from "@/components/robustness/robustness-panel";
-import { PinForm } from "./pin-form";
+import { PinSection, RobustnessSection } from "./candidate-actions";
 import { CandidateHeader, MeasureCards } from "./candidate-header";
 import { StageTable } from "./stage-table";
 import { VesselPlan } from "./vessel-plan";
@@ -83,12 +82,7 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
             {empty.length ? <p className="mt-1 text-xs text-ink-soft">Stage {empty.join(", ")} has zero volume at this optimum and draws no area.</p> : null}
           </section>
           <div className="space-y-4">
-            <section className="card p-4" aria-labelledby="pin-title">
-              <h2 id="pin-title">Pin to project</h2>
-              <div className="mt-2">
-                <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
-              </div>
-            </section>
+            <PinSection c={c} canPin={canPin} />
             {adiabatic ? (
               <section className="card p-4" aria-labelledby="temp-title">
                 <h2 id="temp-title">Temperature profile</h2>
@@ -99,12 +93,7 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
         </div>
       )}
 
-      {c.feasible ? (
-        <section className="card p-4" aria-labelledby="robustness-title">
-          <h2 id="robustness-title">Robustness</h2>
-          <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
-        </section>
-      ) : null}
+      <RobustnessSection c={c} canRun={canPin} />
 
       <section className="card overflow-hidden" aria-labelledby="stages-title">
         <h2 id="stages-title" className="border-b border-line px-3 py-2">

@@ -6,8 +6,7 @@ import { formatVolume } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import { fromSI, unitLabel, type UnitKind } from "@/lib/units/display";
 import type { NetworkObjective } from "@/lib/engine";
-import { RobustnessPanel } from "@/components/robustness/robustness-panel";
-import { PinForm } from "./pin-form";
+import { PinSection, RobustnessSection } from "./candidate-actions";
 import { CandidateHeader, MeasureCards } from "./candidate-header";
 import { NetworkCompositionTable } from "./network-composition-table";
 import { NetworkStageTable } from "./network-stage-table";
@@ -119,18 +118,8 @@ export function NetworkCandidateView({
       </section>
 
       <div className="grid gap-4 lg:grid-cols-2">
-        <section className="card p-4" aria-labelledby="pin-title">
-          <h2 id="pin-title">Pin to project</h2>
-          <div className="mt-2">
-            <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
-          </div>
-        </section>
-        {c.feasible ? (
-          <section className="card p-4" aria-labelledby="robustness-title">
-            <h2 id="robustness-title">Robustness</h2>
-            <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
-          </section>
-        ) : null}
+        <PinSection c={c} canPin={canPin} />
+        <RobustnessSection c={c} canRun={canPin} />
       </div>
       <Cautions />
     </div>
