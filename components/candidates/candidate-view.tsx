@@ -1,23 +1,19 @@
 "use client";
 
-import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
 import { Cautions } from "@/components/cautions/cautions";
 import { thermalWarnings } from "@/lib/engine";
-import { candidateExportHref } from "@/components/reports/export-links";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
-import { describeOverrides } from "@/components/sweeps/scenario-picker";
-import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 // One-reaction screen until it learns the network kind (kind "network" carries other stages).
 import type { CandidateAnswer, SweepView } from "@/lib/services/views";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { formatVolume } from "@/lib/charts/volume-units";
-import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
-import { RobustnessPanel } from "@/components/robustness/robustness-panel";
-import { PinForm } from "./pin-form";
+import { useUrlUnit } from "@/components/sweeps/unit-select";
+import { PinSection, RobustnessSection } from "./candidate-actions";
+import { CandidateHeader, MeasureCards } from "./candidate-header";
 import { StageTable } from "./stage-table";
 import { VesselPlan } from "./vessel-plan";
 import { TemperatureProfile } from "./temperature-profile";
@@ -62,49 +58,16 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
 
   return (
     <div className="space-y-5">
-      <nav aria-label="Breadcrumb" className="text-sm text-ink-soft">
-        <Link href={`/projects/${c.sweep.projectId}`} className="hover:underline">
-          Project
-        </Link>{" "}
-        /{" "}
-        <Link href={sweepHref} className="hover:underline">
-          {c.sweep.name}
-        </Link>{" "}
-        / Rank {c.rank}
-      </nav>
-      <header className="flex flex-wrap items-start justify-between gap-4">
-        <div>
-          <h1 className="flex flex-wrap items-center gap-2" data-testid="candidate-title">
-            Rank {c.rank} <StageBadges sequence={c.sequence} />
-          </h1>
-          <p className="mt-1 text-ink-soft">
-            Scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
-          </p>
-        </div>
-        <div className="flex flex-wrap items-end gap-2">
-          <a className="btn-quiet" href={candidateExportHref(c.sweep.id, c.scenario.index, "csv")} download data-testid="candidate-export-csv">
-            Scenario CSV
-          </a>
-          <a className="btn-quiet" href={candidateExportHref(c.sweep.id, c.scenario.index, "json")} download data-testid="candidate-export-json">
-            Scenario JSON
-          </a>
-          <UnitSelect id="cand-unit" value={unit} onChange={setUnit} />
-        </div>
-      </header>
+      <CandidateHeader c={c} sweepHref={sweepHref} unit={unit} onUnit={setUnit} />
 
-      <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
-        {[
+      <MeasureCards
+        measures={[
           ["Total volume", formatVolume(c.totalVolume, unit, 4)],
           ["Total cost", formatNumber(c.totalCost, 4, TABLE_NUMBERS)],
           ["Ratio to single PFR", c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4, TABLE_NUMBERS)}×`],
           ["Single CSTR / PFR", `${formatVolume(ref?.singleCSTR, unit)} / ${formatVolume(ref?.singlePFR, unit)}`],
-        ].map(([k, v]) => (
-          <div key={k} className="card px-3 py-2">
-            <dt className="text-xs uppercase tracking-wide text-ink-soft">{k}</dt>
-            <dd className="num mt-0.5 text-base">{v}</dd>
-          </div>
-        ))}
-      </dl>
+        ]}
+      />
 
       {!c.feasible ? (
         <div role="status" className="card border-red-200 p-4 text-red-800">
@@ -119,12 +82,7 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
             {empty.length ? <p className="mt-1 text-xs text-ink-soft">Stage {empty.join(", ")} has zero volume at this optimum and draws no area.</p> : null}
           </section>
           <div className="space-y-4">
-            <section className="card p-4" aria-labelledby="pin-title">
-              <h2 id="pin-title">Pin to project</h2>
-              <div className="mt-2">
-                <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
-              </div>
-            </section>
+            <PinSection c={c} canPin={canPin} />
             {adiabatic ? (
               <section className="card p-4" aria-labelledby="temp-title">
                 <h2 id="temp-title">Temperature profile</h2>
@@ -135,12 +93,7 @@ export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId
         </div>
       )}
 
-      {c.feasible ? (
-        <section className="card p-4" aria-labelledby="robustness-title">
-          <h2 id="robustness-title">Robustness</h2>
-          <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
-        </section>
-      ) : null}
+      <RobustnessSection c={c} canRun={canPin} />
 
       <section className="card overflow-hidden" aria-labelledby="stages-title">
         <h2 id="stages-title" className="border-b border-line px-3 py-2">

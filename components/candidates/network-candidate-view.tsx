@@ -1,17 +1,13 @@
 "use client";
 
-import Link from "next/link";
 import { Cautions } from "@/components/cautions/cautions";
-import { candidateExportHref } from "@/components/reports/export-links";
-import { describeOverrides } from "@/components/sweeps/scenario-picker";
-import { StageBadges } from "@/components/sweeps/stage-badges";
-import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+import { useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import { fromSI, unitLabel, type UnitKind } from "@/lib/units/display";
 import type { NetworkObjective } from "@/lib/engine";
-import { RobustnessPanel } from "@/components/robustness/robustness-panel";
-import { PinForm } from "./pin-form";
+import { PinSection, RobustnessSection } from "./candidate-actions";
+import { CandidateHeader, MeasureCards } from "./candidate-header";
 import { NetworkCompositionTable } from "./network-composition-table";
 import { NetworkStageTable } from "./network-stage-table";
 import { NetworkPathChart, NetworkProfilesChart } from "./network-charts";
@@ -71,44 +67,9 @@ export function NetworkCandidateView({
 
   return (
     <div className="space-y-5">
-      <nav aria-label="Breadcrumb" className="text-sm text-ink-soft">
-        <Link href={`/projects/${c.sweep.projectId}`} className="hover:underline">
-          Project
-        </Link>{" "}
-        /{" "}
-        <Link href={sweepHref} className="hover:underline">
-          {c.sweep.name}
-        </Link>{" "}
-        / Rank {c.rank}
-      </nav>
-      <header className="flex flex-wrap items-start justify-between gap-4">
-        <div>
-          <h1 className="flex flex-wrap items-center gap-2" data-testid="candidate-title">
-            Rank {c.rank} <StageBadges sequence={c.sequence} />
-          </h1>
-          <p className="mt-1 text-ink-soft">
-            Scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)} · {objectiveLabel(objective)}
-          </p>
-        </div>
-        <div className="flex flex-wrap items-end gap-2">
-          <a className="btn-quiet" href={candidateExportHref(c.sweep.id, c.scenario.index, "csv")} download data-testid="candidate-export-csv">
-            Scenario CSV
-          </a>
-          <a className="btn-quiet" href={candidateExportHref(c.sweep.id, c.scenario.index, "json")} download data-testid="candidate-export-json">
-            Scenario JSON
-          </a>
-          <UnitSelect id="cand-unit" value={unit} onChange={setUnit} />
-        </div>
-      </header>
+      <CandidateHeader c={c} sweepHref={sweepHref} unit={unit} onUnit={setUnit} after={objectiveLabel(objective)} />
 
-      <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4" data-testid="network-summary">
-        {measures.map(([k, v]) => (
-          <div key={k} className="card px-3 py-2">
-            <dt className="text-xs uppercase tracking-wide text-ink-soft">{k}</dt>
-            <dd className="num mt-0.5 text-base">{v}</dd>
-          </div>
-        ))}
-      </dl>
+      <MeasureCards measures={measures} testId="network-summary" />
       {c.onBound?.length ? (
         <div className="card border-amber-300 bg-amber-50 px-3 py-2 text-sm text-amber-900" data-testid="on-bound">
           <p className="font-medium">The optimum sits on a limit:</p>
@@ -157,18 +118,8 @@ export function NetworkCandidateView({
       </section>
 
       <div className="grid gap-4 lg:grid-cols-2">
-        <section className="card p-4" aria-labelledby="pin-title">
-          <h2 id="pin-title">Pin to project</h2>
-          <div className="mt-2">
-            <PinForm candidateId={c.id} projectId={c.sweep.projectId} feasible={c.feasible} canPin={canPin} />
-          </div>
-        </section>
-        {c.feasible ? (
-          <section className="card p-4" aria-labelledby="robustness-title">
-            <h2 id="robustness-title">Robustness</h2>
-            <RobustnessPanel base={`/api/candidates/${c.id}`} canRun={canPin} />
-          </section>
-        ) : null}
+        <PinSection c={c} canPin={canPin} />
+        <RobustnessSection c={c} canRun={canPin} />
       </div>
       <Cautions />
     </div>

@@ -1,5 +1,4 @@
-import { StageSwatch } from "@/components/charts/stage-patterns";
-import { StageGlyph } from "@/components/sweeps/stage-badges";
+import { StageLabelCell, StageTableFrame } from "./stage-table-parts";
 import type { StoredStage } from "@/lib/sweeps/stored-json";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
@@ -13,47 +12,37 @@ export function StageTable({ stages, unit, caption }: { stages: StoredStage[]; u
   const tUnit = useDisplayUnits().temperature;
   const t = (k: number) => formatNumber(fromSI("temperature", k, tUnit), 5, TABLE_NUMBERS);
   return (
-    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={caption}>
-      <table className="table-dense" data-testid="stage-table">
-        <caption className="sr-only">{caption}</caption>
-        <thead>
-          <tr>
-            <th scope="col">Stage</th>
-            <th scope="col">X in → out</th>
-            <th scope="col">T in → out, {unitLabel("temperature", tUnit)}</th>
-            <th scope="col">Volume</th>
-            <th scope="col">Residence time, s</th>
-            <th scope="col">Vessels</th>
-            {anyCost ? <th scope="col">Cost</th> : null}
+    <StageTableFrame caption={caption} testId="stage-table">
+      <thead>
+        <tr>
+          <th scope="col">Stage</th>
+          <th scope="col">X in → out</th>
+          <th scope="col">T in → out, {unitLabel("temperature", tUnit)}</th>
+          <th scope="col">Volume</th>
+          <th scope="col">Residence time, s</th>
+          <th scope="col">Vessels</th>
+          {anyCost ? <th scope="col">Cost</th> : null}
+        </tr>
+      </thead>
+      <tbody>
+        {stages.map((s, i) => (
+          <tr key={i}>
+            <StageLabelCell index={i} type={s.type} />
+            <td className="num whitespace-nowrap">
+              {formatNumber(s.conversionIn, 4, TABLE_NUMBERS)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
+            </td>
+            <td className="num whitespace-nowrap">
+              {t(s.temperatureIn)} → {t(s.temperatureOut)}
+            </td>
+            <td className="num whitespace-nowrap">{formatVolume(s.volume, unit, 4)}</td>
+            <td className="num">{formatNumber(s.residenceTime, 4, TABLE_NUMBERS)}</td>
+            <td className="num whitespace-nowrap">
+              {s.vessels.count} × {formatVolume(s.vessels.sizeEach, unit, 4)}
+            </td>
+            {anyCost ? <td className="num">{formatNumber(s.cost, 4, TABLE_NUMBERS)}</td> : null}
           </tr>
-        </thead>
-        <tbody>
-          {stages.map((s, i) => (
-            <tr key={i}>
-              <td>
-                <span className="inline-flex items-center gap-1.5 whitespace-nowrap">
-                  <StageSwatch index={i} />
-                  <span className="num">{i + 1}</span>
-                  <StageGlyph type={s.type} />
-                  {s.type}
-                </span>
-              </td>
-              <td className="num whitespace-nowrap">
-                {formatNumber(s.conversionIn, 4, TABLE_NUMBERS)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
-              </td>
-              <td className="num whitespace-nowrap">
-                {t(s.temperatureIn)} → {t(s.temperatureOut)}
-              </td>
-              <td className="num whitespace-nowrap">{formatVolume(s.volume, unit, 4)}</td>
-              <td className="num">{formatNumber(s.residenceTime, 4, TABLE_NUMBERS)}</td>
-              <td className="num whitespace-nowrap">
-                {s.vessels.count} × {formatVolume(s.vessels.sizeEach, unit, 4)}
-              </td>
-              {anyCost ? <td className="num">{formatNumber(s.cost, 4, TABLE_NUMBERS)}</td> : null}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+        ))}
+      </tbody>
+    </StageTableFrame>
   );
 }

@@ -16,10 +16,11 @@ import type { CandidateDetail as AnyCandidateDetail, NetworkCandidateDetail as N
 import { fetchJson } from "@/lib/client/fetch-json";
 import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
 import { formatVolume } from "@/lib/charts/volume-units";
-import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+import { useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import type { NetworkCandidateDetail } from "@/components/candidates/network-types";
 import { NetworkCompare } from "./network-compare";
+import { CompareHeader, DifferencesTable } from "./compare-frame";
 
 const signed = (v: number | null, text: (n: number) => string) => (v === null ? "—" : v === 0 ? "best" : `+${text(v)}`);
 
@@ -63,58 +64,27 @@ export function CompareView() {
   const anyCost = list.some((c) => c.totalCost !== null);
   // One train per row: side by side, a stage table lost its volume column at 1280 and 1024 px.
   const cols = "grid-cols-1";
-  const sweepsCompared = [...new Map(list.map((c) => [c.sweep.id, c.sweep])).values()];
 
   return (
     <div className="space-y-5">
-      <nav aria-label="Back to the sweeps compared" className="flex flex-wrap gap-3 text-sm" data-testid="compare-back">
-        {sweepsCompared.map((sw) => (
-          <Link key={sw.id} href={`/projects/${sw.projectId}/sweeps/${sw.id}`} className="text-accent-700 hover:underline">
-            ← Back to sweep {sw.name}
-          </Link>
-        ))}
-      </nav>
-      <header className="flex flex-wrap items-end justify-between gap-4">
-        <div>
-          <h1>Compare {list.length} trains</h1>
-          <p className="mt-1 text-ink-soft">Charts share one vertical scale, so equal areas are equal volumes across them.</p>
-        </div>
-        <UnitSelect id="cmp-unit" value={unit} onChange={setUnit} />
-      </header>
+      <CompareHeader list={list} summary="Charts share one vertical scale, so equal areas are equal volumes across them." unit={unit} onUnit={setUnit} />
 
-      <section className="card overflow-x-auto" aria-labelledby="diff-title">
-        <h2 id="diff-title" className="border-b border-line px-3 py-2">
-          Differences
-        </h2>
-        <table className="table-dense" data-testid="compare-differences">
-          <thead>
-            <tr>
-              <th scope="col">Measure</th>
-              {list.map((c, i) => (
-                <th key={c.id} scope="col">
-                  {String.fromCharCode(65 + i)} · rank {c.rank}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            <tr>
-              <th scope="row">Sequence</th>
-              {list.map((c) => (
-                <td key={c.id}>
-                  <StageBadges sequence={c.sequence} />
-                </td>
-              ))}
-            </tr>
-            <Row label="Total volume" list={list} cell={(c) => formatVolume(c.totalVolume, unit, 4)} />
-            <Row label="Volume over the smallest" list={list} cell={(c) => signed(c.differences.volumeOverBest, (v) => formatVolume(v, unit, 3))} />
-            {anyCost ? <Row label="Total cost" list={list} cell={(c) => formatNumber(c.totalCost, 4, TABLE_NUMBERS)} /> : null}
-            {anyCost ? <Row label="Cost over the cheapest" list={list} cell={(c) => signed(c.differences.costOverBest, (v) => formatNumber(v, 3, TABLE_NUMBERS))} /> : null}
-            <Row label="Stages" list={list} cell={(c) => `${c.stageCount}${c.stageCount > fewest ? ` (+${c.stageCount - fewest})` : ""}`} />
-            <Row label="Ratio to single PFR" list={list} cell={(c) => (c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4, TABLE_NUMBERS)}×`)} />
-          </tbody>
-        </table>
-      </section>
+      <DifferencesTable list={list}>
+        <tr>
+          <th scope="row">Sequence</th>
+          {list.map((c) => (
+            <td key={c.id}>
+              <StageBadges sequence={c.sequence} />
+            </td>
+          ))}
+        </tr>
+        <Row label="Total volume" list={list} cell={(c) => formatVolume(c.totalVolume, unit, 4)} />
+        <Row label="Volume over the smallest" list={list} cell={(c) => signed(c.differences.volumeOverBest, (v) => formatVolume(v, unit, 3))} />
+        {anyCost ? <Row label="Total cost" list={list} cell={(c) => formatNumber(c.totalCost, 4, TABLE_NUMBERS)} /> : null}
+        {anyCost ? <Row label="Cost over the cheapest" list={list} cell={(c) => signed(c.differences.costOverBest, (v) => formatNumber(v, 3, TABLE_NUMBERS))} /> : null}
+        <Row label="Stages" list={list} cell={(c) => `${c.stageCount}${c.stageCount > fewest ? ` (+${c.stageCount - fewest})` : ""}`} />
+        <Row label="Ratio to single PFR" list={list} cell={(c) => (c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4, TABLE_NUMBERS)}×`)} />
+      </DifferencesTable>
 
       <div className={`grid gap-4 ${cols}`}>
         {list.map((c, i) => (

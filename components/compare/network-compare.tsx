@@ -11,13 +11,13 @@ import { productOf, speciesOf, type NetworkCandidateDetail } from "@/components/
 import { useNetworkUnits } from "@/components/candidates/network-units";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
-import { UnitSelect, useUrlUnit } from "@/components/sweeps/unit-select";
+import { useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import { compareNetworkTrains } from "./network-compare-data";
+import { CompareHeader, DifferencesTable, trainLetter } from "./compare-frame";
 
-const letter = (i: number) => String.fromCharCode(65 + i);
 /** A difference to the best: "best" for the best one itself, else the gap with its sign. */
 const gap = (v: number | null, text: (n: number) => string, sign: "+" | "−") => (v === null ? "—" : Math.abs(v) < 1e-12 ? "best" : `${sign}${text(v)}`);
 
@@ -36,7 +36,6 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
   const diffs = compareNetworkTrains(list.map((c) => ({ ...c, product: productOf(c) })));
   const products = [...new Set(list.map(productOf).filter((p): p is string => !!p))];
   const product = products.length === 1 ? products[0] : null;
-  const sweepsCompared = [...new Map(list.map((c) => [c.sweep.id, c.sweep])).values()];
   const conc = (v: number | null) => (v === null ? "—" : `${formatNumber(fromSI("concentration", v, units.concentration), 4, TABLE_NUMBERS)} ${unitLabel("concentration", units.concentration)}`);
   const rows: [string, (c: NetworkCandidateDetail, i: number) => React.ReactNode][] = [
     ["Train", (c) => <StageBadges sequence={c.sequence} />],
@@ -65,57 +64,27 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
 
   return (
     <div className="space-y-5">
-      <nav aria-label="Back to the sweeps compared" className="flex flex-wrap gap-3 text-sm" data-testid="compare-back">
-        {sweepsCompared.map((sw) => (
-          <Link key={sw.id} href={`/projects/${sw.projectId}/sweeps/${sw.id}`} className="text-accent-700 hover:underline">
-            ← Back to sweep {sw.name}
-          </Link>
-        ))}
-      </nav>
-      <header className="flex flex-wrap items-end justify-between gap-4">
-        <div>
-          <h1>Compare {list.length} trains</h1>
-          <p className="mt-1 text-ink-soft">Trains for several reactions: each measure, and how far each train is from the best of those compared.</p>
-        </div>
-        <UnitSelect id="cmp-unit" value={unit} onChange={setUnit} />
-      </header>
+      <CompareHeader list={list} summary="Trains for several reactions: each measure, and how far each train is from the best of those compared." unit={unit} onUnit={setUnit} />
 
-      <section className="card overflow-x-auto" aria-labelledby="diff-title">
-        <h2 id="diff-title" className="border-b border-line px-3 py-2">
-          Differences
-        </h2>
-        <table className="table-dense" data-testid="compare-differences">
-          <thead>
-            <tr>
-              <th scope="col">Measure</th>
-              {list.map((c, i) => (
-                <th key={c.id} scope="col">
-                  {letter(i)} · rank {c.rank}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map(([label, cell]) => (
-              <tr key={label}>
-                <th scope="row">{label}</th>
-                {list.map((c, i) => (
-                  <td key={c.id} className="num">
-                    {cell(c, i)}
-                  </td>
-                ))}
-              </tr>
+      <DifferencesTable list={list}>
+        {rows.map(([label, cell]) => (
+          <tr key={label}>
+            <th scope="row">{label}</th>
+            {list.map((c, i) => (
+              <td key={c.id} className="num">
+                {cell(c, i)}
+              </td>
             ))}
-          </tbody>
-        </table>
-      </section>
+          </tr>
+        ))}
+      </DifferencesTable>
 
       <div className="grid gap-4">
         {list.map((c, i) => (
           <section key={c.id} className="card min-w-0 overflow-hidden" aria-labelledby={`cmp-${c.id}`} data-testid="compare-card">
             <div className="border-b border-line px-3 py-2">
               <h2 id={`cmp-${c.id}`} className="flex flex-wrap items-center gap-2">
-                {letter(i)} · rank {c.rank} <StageBadges sequence={c.sequence} />
+                {trainLetter(i)} · rank {c.rank} <StageBadges sequence={c.sequence} />
               </h2>
               <p className="text-xs text-ink-soft">
                 <Link href={`/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}/candidates/${c.id}?unit=${unit}`} className="hover:underline">
@@ -138,7 +107,7 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
               stages={c.stages}
               feed={feedOf(views[i]?.data?.profiles)}
               unit={units.concentration}
-              caption={`Outlet composition of train ${letter(i)}`}
+              caption={`Outlet composition of train ${trainLetter(i)}`}
             />
           </section>
         ))}

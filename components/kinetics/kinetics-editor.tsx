@@ -2,21 +2,22 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { UnitOptions } from "@/components/ui/unit-options";
-import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useCallback, useMemo, useState } from "react";
 import { FormProvider, useForm, useFormContext, useWatch, type Path } from "react-hook-form";
 import type { z } from "zod";
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import { FormMessage } from "@/components/ui/field";
-import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { ApiError } from "@/lib/client/fetch-json";
 import { rateConstantLabel, unitOptions } from "@/lib/units/display";
 import { formToSpec, kineticsFormSchema, mapServerFields, type KineticsFormValues } from "./kinetics-form-state";
 import { PreviewPanel } from "./preview-panel";
 import { ErrorText, fieldId, messageAt, QuantityField, type ExternalErrors } from "./quantity-field";
 import { RowsEditor } from "./rows-editor";
+import { KineticsSaveBar, markRefusedFields, saveKinetics } from "./kinetics-save";
+import { ModelNameNote, type KineticsEditorMode } from "./model-name-note";
 
-type Mode = { kind: "create"; projectId: string } | { kind: "version"; projectId: string; modelId: string; modelName: string; latestVersion: number };
+type Mode = KineticsEditorMode;
 
 const LAWS = [
   ["power", "Power law", "k ∏ Cᵢ^aᵢ, optional reverse term"],
@@ -55,20 +56,14 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
     setFormError(undefined);
     setSaved(undefined);
     try {
-      if (mode.kind === "create") {
-        const res = await fetchJson<{ model: { id: string } }>(`/api/projects/${mode.projectId}/kinetics`, { method: "POST", json: body });
-        router.push(`/projects/${mode.projectId}/kinetics/${res.model.id}?saved=1`);
-      } else {
-        const res = await fetchJson<{ version: { version: number } }>(`/api/kinetics/${mode.modelId}/versions`, { method: "POST", json: { spec: body.spec, note: body.note } });
-        setSaved(`Saved as version ${res.version.version}.`);
+      const message = await saveKinetics(mode, body, router);
+      if (message) {
+        setSaved(message);
         form.reset(form.getValues());
-        router.refresh();
       }
     } catch (e) {
       if (!(e instanceof ApiError)) return setFormError("Could not reach the server; nothing was saved.");
-      const { byField, rest } = mapServerFields(Object.fromEntries(Object.entries(e.fields).filter(([k]) => k.startsWith("spec."))));
-      for (const [path, message] of Object.entries(byField)) form.setError(path as Path<KineticsFormValues>, { type: "server", message });
-      for (const key of ["name", "note"] as const) if (e.fields[key]) form.setError(key, { type: "server", message: e.fields[key].join(" ") });
+      const { rest } = markRefusedFields(e.fields, mapServerFields, form.setError);
       setFormError(rest.length || !Object.keys(e.fields).length ? [e.message, ...rest].filter((m, i, a) => a.indexOf(m) === i).join(" ") : "Fix the fields marked with ✕.");
     }
   });
@@ -109,28 +104,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
     <FormProvider {...form}>
       <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <form onSubmit={onSubmit} noValidate aria-label={mode.kind === "create" ? "New kinetics" : "New version"} className="space-y-4">
-          <section className="card space-y-3 p-4">
-            {mode.kind === "create" ? (
-              <div>
-                <label htmlFor="f-name" className="field-label">
-                  Model name
-                </label>
-                <input id="f-name" className="input" placeholder="e.g. Esterification, bench fit" aria-invalid={!!err("name")} {...register("name")} />
-                <ErrorText id="f-name" message={err("name")} />
-              </div>
-            ) : (
-              <p className="text-sm text-ink-soft">
-                Saving makes version {mode.latestVersion + 1} of <strong className="text-ink">{mode.modelName}</strong>; earlier versions and the sweeps run on them stay as they were.
-              </p>
-            )}
-            <div>
-              <label htmlFor="f-note" className="field-label">
-                Note <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
-              </label>
-              <input id="f-note" className="input" placeholder="Where the numbers come from" aria-invalid={!!err("note")} {...register("note")} />
-              <ErrorText id="f-note" message={err("note")} />
-            </div>
-          </section>
+          <ModelNameNote mode={mode} namePlaceholder="e.g. Esterification, bench fit" errorAt={err} />
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Feed</legend>
@@ -277,16 +251,7 @@ export function KineticsEditor({ mode, initial }: { mode: Mode; initial: Kinetic
             ) : null}
           </fieldset>
 
-          {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-          {saved ? <FormMessage kind="info">{saved}</FormMessage> : null}
-          <div className="flex items-center gap-2">
-            <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>
-              {mode.kind === "create" ? "Save kinetics" : `Save as version ${mode.latestVersion + 1}`}
-            </button>
-            <Link href={`/projects/${mode.projectId}`} className="btn-quiet">
-              Back to the project
-            </Link>
-          </div>
+          <KineticsSaveBar mode={mode} formError={formError} saved={saved} submitting={formState.isSubmitting} />
         </form>
         <div className="lg:sticky lg:top-4 lg:self-start">
           <PreviewPanel specJson={specJson} target={target} onTarget={setTarget} targetError={ext.previewTarget} onEngineErrors={onEngineErrors} />

@@ -4,8 +4,9 @@
  */
 import { z } from "zod";
 import { kineticsModelCreateSchema, kineticsSpecSchema, type KineticsSpec } from "@/lib/schemas/sweeps";
-import { fromSI, isUnit, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
+import { fromSI, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
 import { RATE_CONSTANT_UNIT_SEPARATOR, splitRateConstantUnit } from "@/lib/units/typed-units";
+import { asNumber, show, storedQuantities } from "./stored-quantities";
 
 const quantityInput = z.object({ value: z.string(), unit: z.string() });
 const rateConstantInput = z.object({ value: z.string(), conc: z.string(), time: z.string() });
@@ -297,22 +298,15 @@ export function mapServerFields(fields: Record<string, string[]>): { byField: Re
   return { byField, rest };
 }
 
-/** A stored number back as the engineer typed it: 12 significant digits undo the unit round trip. */
-const show = (n: number) => String(Number(n.toPrecision(12)));
 const rowsOf = (r: Record<string, number> | undefined, skip?: string) =>
   Object.entries(r ?? {})
     .filter(([k]) => k !== skip)
     .map(([name, value]) => ({ name, value: String(value) }));
-const asNumber = (v: unknown): number => (typeof v === "number" ? v : Number(v));
 
 /** The form for an SI spec (quantities as numbers), each field in the unit it was typed in (else the default). */
 export function specToForm(spec: KineticsSpec, extra: { name?: string; note?: string } = {}): KineticsFormValues {
   const shown = spec.shownUnits ?? {};
-  const unitAt = (kind: UnitKind, path: string, fallback: string) => (shown[path] && isUnit(kind, shown[path]) ? shown[path] : fallback);
-  const qAt = (kind: UnitKind, path: string, si: unknown, fallback: string): QuantityInput => {
-    const unit = unitAt(kind, path, fallback);
-    return si === undefined || si === null ? q("", unit) : q(show(fromSI(kind, asNumber(si), unit)), unit);
-  };
+  const { unitAt, qAt } = storedQuantities(shown);
   const d = defaultKineticsValues();
   const v: KineticsFormValues = structuredClone(d);
   v.name = extra.name ?? "";

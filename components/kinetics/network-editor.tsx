@@ -1,13 +1,12 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useCallback, useMemo, useState } from "react";
-import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
+import { FormProvider, useFieldArray, useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { FormMessage } from "@/components/ui/field";
-import { ApiError, fetchJson } from "@/lib/client/fetch-json";
+import { ApiError } from "@/lib/client/fetch-json";
 import { MAX_NETWORK_REACTIONS } from "@/lib/schemas/network-spec";
 import { isUnit } from "@/lib/units/display";
 import { blankReaction, formToNetworkSpec, mapNetworkServerFields, networkFormSchema, type NetworkFormValues } from "./network-form-state";
@@ -15,8 +14,10 @@ import { NetworkPreviewPanel } from "./network-preview-panel";
 import { NetworkReactionEditor } from "./network-reaction-editor";
 import { NetworkSpeciesEditor } from "./network-species-editor";
 import { ErrorText, messageAt } from "./quantity-field";
+import { KineticsSaveBar, markRefusedFields, saveKinetics } from "./kinetics-save";
+import { ModelNameNote, type KineticsEditorMode } from "./model-name-note";
 
-type Mode = { kind: "create"; projectId: string } | { kind: "version"; projectId: string; modelId: string; modelName: string; latestVersion: number };
+type Mode = KineticsEditorMode;
 
 /**
  * The editor of a kinetics model of several reactions: feed and species, reactions 1..10, and beside
@@ -26,7 +27,7 @@ export function NetworkEditor({ mode, initial }: { mode: Mode; initial: NetworkF
   const router = useRouter();
   const schema = useMemo(() => networkFormSchema(mode.kind), [mode.kind]);
   const form = useForm<z.input<typeof schema>, unknown, z.output<typeof schema>>({ resolver: zodResolver(schema), defaultValues: initial, mode: "onChange" });
-  const { register, formState, control } = form;
+  const { formState, control } = form;
   const values = useWatch({ control }) as NetworkFormValues;
   const reactions = useFieldArray({ control, name: "reactions" });
   const [engineFields, setEngineFields] = useState<Record<string, string[]>>({});
@@ -50,23 +51,15 @@ export function NetworkEditor({ mode, initial }: { mode: Mode; initial: NetworkF
     setFormError(undefined);
     setSaved(undefined);
     try {
-      if (mode.kind === "create") {
-        const res = await fetchJson<{ model: { id: string } }>(`/api/projects/${mode.projectId}/kinetics`, { method: "POST", json: body });
-        router.push(`/projects/${mode.projectId}/kinetics/${res.model.id}?saved=1`);
-      } else {
-        const res = await fetchJson<{ version: { version: number } }>(`/api/kinetics/${mode.modelId}/versions`, { method: "POST", json: { spec: body.spec, note: body.note } });
-        setSaved(`Saved as version ${res.version.version}.`);
+      const message = await saveKinetics(mode, body, router, true);
+      if (message) {
+        setSaved(message);
         form.reset(form.getValues());
         // The page reopens on the new version (the editor remounts on it): its banner carries the news.
-        router.replace(`/projects/${mode.projectId}/kinetics/${mode.modelId}?saved=1`);
-        router.refresh();
       }
     } catch (e) {
       if (!(e instanceof ApiError)) return setFormError("Could not reach the server; nothing was saved.");
-      const { byField, rest } = mapNetworkServerFields(Object.fromEntries(Object.entries(e.fields).filter(([k]) => k.startsWith("spec."))), form.getValues());
-      for (const [path, message] of Object.entries(byField)) form.setError(path as Path<NetworkFormValues>, { type: "server", message });
-      for (const key of ["name", "note"] as const) if (e.fields[key]) form.setError(key, { type: "server", message: e.fields[key].join(" ") });
-      const marked = Object.keys(byField).length > 0 || e.fields.name || e.fields.note;
+      const { rest, marked } = markRefusedFields(e.fields, (f) => mapNetworkServerFields(f, form.getValues()), form.setError);
       setFormError(marked && !rest.length ? "Fix the fields marked with ✕." : [e.message, ...rest].filter((m, i, a) => a.indexOf(m) === i).join(" "));
     }
   });
@@ -75,28 +68,7 @@ export function NetworkEditor({ mode, initial }: { mode: Mode; initial: NetworkF
     <FormProvider {...form}>
       <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <form onSubmit={onSubmit} noValidate aria-label={mode.kind === "create" ? "New kinetics" : "New version"} className="space-y-4">
-          <section className="card space-y-3 p-4">
-            {mode.kind === "create" ? (
-              <div>
-                <label htmlFor="f-name" className="field-label">
-                  Model name
-                </label>
-                <input id="f-name" className="input" placeholder="e.g. Mono-adduct, bench fit" aria-invalid={!!errorAt("name")} {...register("name")} />
-                <ErrorText id="f-name" message={errorAt("name")} />
-              </div>
-            ) : (
-              <p className="text-sm text-ink-soft">
-                Saving makes version {mode.latestVersion + 1} of <strong className="text-ink">{mode.modelName}</strong>; earlier versions and the sweeps run on them stay as they were.
-              </p>
-            )}
-            <div>
-              <label htmlFor="f-note" className="field-label">
-                Note <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
-              </label>
-              <input id="f-note" className="input" placeholder="Where the numbers come from" aria-invalid={!!errorAt("note")} {...register("note")} />
-              <ErrorText id="f-note" message={errorAt("note")} />
-            </div>
-          </section>
+          <ModelNameNote mode={mode} namePlaceholder="e.g. Mono-adduct, bench fit" errorAt={errorAt} />
 
           <NetworkSpeciesEditor errorAt={errorAt} external={external} />
 
@@ -113,16 +85,7 @@ export function NetworkEditor({ mode, initial }: { mode: Mode; initial: NetworkF
             <ErrorText id="f-reactions" message={errorAt("reactions")} />
           </section>
 
-          {formError ? <FormMessage kind="error">{formError}</FormMessage> : null}
-          {saved ? <FormMessage kind="info">{saved}</FormMessage> : null}
-          <div className="flex items-center gap-2">
-            <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>
-              {mode.kind === "create" ? "Save kinetics" : `Save as version ${mode.latestVersion + 1}`}
-            </button>
-            <Link href={`/projects/${mode.projectId}`} className="btn-quiet">
-              Back to the project
-            </Link>
-          </div>
+          <KineticsSaveBar mode={mode} formError={formError} saved={saved} submitting={formState.isSubmitting} />
         </form>
         <div className="lg:sticky lg:top-4 lg:self-start">
           <NetworkPreviewPanel specJson={specJson} concUnit={keySpecies?.conc?.unit && isUnit("concentration", keySpecies.conc.unit) ? keySpecies.conc.unit : "mol/L"} onEngineErrors={onEngineErrors} />

@@ -10,8 +10,9 @@
 import { z } from "zod";
 import { kineticsModelCreateSchema } from "@/lib/schemas/sweeps";
 import { MAX_NETWORK_REACTIONS, MAX_NETWORK_SPECIES, networkKineticsSpecSchema, SPECIES_NAME, type NetworkKineticsSpec } from "@/lib/schemas/network-spec";
-import { fromSI, isUnit, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
+import { isUnit, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
 import { RATE_CONSTANT_UNIT_SEPARATOR, splitRateConstantUnit } from "@/lib/units/typed-units";
+import { asNumber, show, storedQuantities } from "./stored-quantities";
 
 const quantityInput = z.object({ value: z.string(), unit: z.string() });
 const rateConstantInput = z.object({ value: z.string(), conc: z.string(), time: z.string() });
@@ -345,9 +346,6 @@ export function reactionText(v: NetworkFormValues, j: number): string {
   return equationText(stoichiometry);
 }
 
-/** A stored number back as the engineer typed it: 12 significant digits undo the unit round trip. */
-const show = (n: number) => String(Number(n.toPrecision(12)));
-const asNumber = (x: unknown): number => (typeof x === "number" ? x : Number(x));
 
 /**
  * The form for stored chemistry with SI numbers (the model page converts any quantity stored as text
@@ -355,11 +353,7 @@ const asNumber = (x: unknown): number => (typeof x === "number" ? x : Number(x))
  */
 export function networkSpecToForm(spec: NetworkKineticsSpec, extra: { name?: string; note?: string } = {}): NetworkFormValues {
   const shown = spec.shownUnits ?? {};
-  const unitAt = (kind: UnitKind, path: string, fallback: string) => (shown[path] && isUnit(kind, shown[path]) ? shown[path] : fallback);
-  const qAt = (kind: UnitKind, path: string, si: unknown, fallback: string): QuantityInput => {
-    const unit = unitAt(kind, path, fallback);
-    return si === undefined || si === null ? q("", unit) : q(show(fromSI(kind, asNumber(si), unit)), unit);
-  };
+  const { qAt } = storedQuantities(shown);
   const kAt = (path: string, si: unknown, order: number) => {
     const unit = splitRateConstantUnit(shown[path]) ?? { conc: "mol/L", time: "s" };
     return { ...unit, value: show(rateConstantFromSI(asNumber(si), order, unit.conc, unit.time)) };

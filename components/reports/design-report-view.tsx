@@ -1,40 +1,16 @@
 import { TemperatureProfile } from "@/components/candidates/temperature-profile";
 import { Cautions } from "@/components/cautions/cautions";
 import { NetworkReportView } from "./network-report-view";
+import { Pairs, Section, StageTable } from "./report-parts";
 import { robustnessLines } from "@/lib/reports/robustness-lines";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import type { StoredStage } from "@/lib/sweeps/stored-json";
 import type { DesignReport } from "@/lib/reports/design-report";
 import type { DisplayPreference } from "@/lib/units/display-preference";
-import type { WordLine } from "@/lib/reports/kinetics-words";
 import { inputLines } from "@/lib/reports/input-lines";
 import { fmtConversion, fmtMoney, fmtVolume, reportUnits, stageColumns } from "@/lib/reports/report-format";
 import { formatDateTime } from "@/lib/format/dates";
 import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
-
-function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
-  return (
-    <section className="report-section card p-4" aria-labelledby={id}>
-      <h2 id={id} className="mb-2">
-        {title}
-      </h2>
-      {children}
-    </section>
-  );
-}
-
-function Pairs({ lines }: { lines: WordLine[] }) {
-  return (
-    <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[14rem_1fr]">
-      {lines.map((l, i) => (
-        <div key={`${l.label}-${i}`} className="contents">
-          <dt className="text-ink-soft">{l.label}</dt>
-          <dd>{l.value}</dd>
-        </div>
-      ))}
-    </dl>
-  );
-}
 
 const NotRecorded = ({ children }: { children: React.ReactNode }) => <p className="text-sm text-ink-soft">{children}</p>;
 
@@ -86,30 +62,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
           </Section>
 
           <Section id="report-stages-title" title="Stages">
-            <div className="overflow-x-auto">
-              <table className="table-dense" data-testid="report-stage-table">
-                <thead>
-                  <tr>
-                    {STAGE_COLUMNS.map((c) => (
-                      <th key={c.heading} scope="col" className={c.numeric ? "text-right" : undefined}>
-                        {c.heading}
-                      </th>
-                    ))}
-                  </tr>
-                </thead>
-                <tbody>
-                  {r.stages.map((s) => (
-                    <tr key={s.index}>
-                      {STAGE_COLUMNS.map((c) => (
-                        <td key={c.heading} className={c.numeric ? "num text-right whitespace-nowrap" : undefined}>
-                          {c.shown(s)}
-                        </td>
-                      ))}
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <StageTable columns={STAGE_COLUMNS} stages={r.stages} />
           </Section>
 
           {r.thermal.mode === "adiabatic" && r.stages.length ? (

@@ -1,32 +1,8 @@
 import { LineChart, type LineSeries } from "@/components/charts/line-chart";
-import type { WordLine } from "@/lib/reports/kinetics-words";
 import type { NetworkReport } from "@/lib/reports/network-report";
 import { chemistryLines, compositionHeadings, fmtConcentration, measureLines, networkStageColumns, referenceLines } from "@/lib/reports/network-format";
 import type { DisplayUnits } from "@/lib/units/display-preference";
-
-function Section({ id, title, children }: { id: string; title: string; children: React.ReactNode }) {
-  return (
-    <section className="report-section card p-4" aria-labelledby={id}>
-      <h2 id={id} className="mb-2">
-        {title}
-      </h2>
-      {children}
-    </section>
-  );
-}
-
-function Pairs({ lines }: { lines: WordLine[] }) {
-  return (
-    <dl className="grid gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[14rem_1fr]">
-      {lines.map((l, i) => (
-        <div key={`${l.label}-${i}`} className="contents">
-          <dt className="text-ink-soft">{l.label}</dt>
-          <dd>{l.value}</dd>
-        </div>
-      ))}
-    </dl>
-  );
-}
+import { Pairs, Section, StageTable } from "./report-parts";
 
 function pathSeries(n: NetworkReport): LineSeries[] {
   const c = n.chart;
@@ -56,30 +32,7 @@ export function NetworkReportView({ network: n, trainLabel, units }: { network: 
       </Section>
 
       <Section id="report-stages-title" title="Stages">
-        <div className="overflow-x-auto">
-          <table className="table-dense" data-testid="report-stage-table">
-            <thead>
-              <tr>
-                {columns.map((c) => (
-                  <th key={c.heading} scope="col" className={c.numeric ? "text-right" : undefined}>
-                    {c.heading}
-                  </th>
-                ))}
-              </tr>
-            </thead>
-            <tbody>
-              {n.stages.map((s) => (
-                <tr key={s.index}>
-                  {columns.map((c) => (
-                    <td key={c.heading} className={c.numeric ? "num text-right whitespace-nowrap" : undefined}>
-                      {c.shown(s)}
-                    </td>
-                  ))}
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <StageTable columns={columns} stages={n.stages} />
       </Section>
 
       <Section id="report-composition-title" title="Outlet composition">

@@ -8,6 +8,7 @@ import { sweepCreateSchema, type SweepCreate } from "@/lib/schemas/sweeps";
 import { toSI, type UnitKind } from "@/lib/units/display";
 import type { StageType } from "@/lib/engine";
 import { STAGE_TYPES } from "@/lib/stage-types";
+import { listIn, numberIn, type BuilderIssue } from "./typed-numbers";
 
 const vessel = z.object({ a: z.string(), b: z.string(), n: z.string() });
 const axis = z.object({
@@ -143,35 +144,6 @@ export function axisLength(a: SweepCreate["grid"][number]): number {
 
 export function scenarioCountOf(grid: SweepCreate["grid"]): number {
   return grid.reduce((n, a) => n * axisLength(a), 1);
-}
-
-export interface BuilderIssue {
-  path: string;
-  message: string;
-}
-
-function numberIn(text: string, path: string, issues: BuilderIssue[], required = true): number | undefined {
-  const t = text.trim();
-  if (!t) {
-    if (required) issues.push({ path, message: "Required" });
-    return undefined;
-  }
-  const n = Number(t);
-  if (!Number.isFinite(n)) {
-    issues.push({ path, message: "Enter a number" });
-    return undefined;
-  }
-  return n;
-}
-
-function listIn(text: string, path: string, issues: BuilderIssue[]): number[] {
-  // A doubled separator ("1,,2") is a value left out, not a separator to skip.
-  const parts = text.trim() ? text.trim().split(/\s*[,;]\s*|\s+/) : [];
-  const out = parts.map(Number);
-  if (parts.length === 0) issues.push({ path, message: "Give at least one value" });
-  else if (parts.some((p) => p === "")) issues.push({ path, message: "A value is missing between two commas" });
-  else if (out.some((n) => !Number.isFinite(n))) issues.push({ path, message: "Separate numbers with commas, e.g. 0.01, 0.02, 0.04" });
-  return out;
 }
 
 /** Every swept quantity is a positive amount once in base units (kelvin for temperatures). */

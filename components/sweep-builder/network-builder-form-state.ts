@@ -9,7 +9,8 @@ import { networkParts, MAX_NETWORK_STAGES } from "@/lib/schemas/network-spec";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { isUnit, toSI, type UnitKind } from "@/lib/units/display";
 import type { StageType } from "@/lib/engine";
-import { parseSequence, type BuilderIssue } from "./builder-form-state";
+import { parseSequence } from "./builder-form-state";
+import { listIn, numberIn, type BuilderIssue } from "./typed-numbers";
 import { networkBuilderPathOf } from "./network-field-paths";
 import { networkGridFields, type NetworkGridField, type NetworkGridSource } from "./network-grid-fields";
 
@@ -115,28 +116,6 @@ export function newNetworkAxis(field: NetworkGridField): NetworkAxisValues {
   return { field: field.field, unit: field.defaultUnit, kind: "values", values: "", from: "", to: "", steps: "3", scale: "linear" };
 }
 
-function numberIn(text: string, path: string, issues: BuilderIssue[], required = true): number | undefined {
-  const t = text.trim();
-  if (!t) {
-    if (required) issues.push({ path, message: "Required" });
-    return undefined;
-  }
-  const n = Number(t);
-  if (!Number.isFinite(n)) {
-    issues.push({ path, message: "Enter a number" });
-    return undefined;
-  }
-  return n;
-}
-
-function listIn(text: string, path: string, issues: BuilderIssue[]): number[] {
-  const parts = text.trim() ? text.trim().split(/\s*[,;]\s*|\s+/) : [];
-  const out = parts.map(Number);
-  if (parts.length === 0) issues.push({ path, message: "Give at least one value" });
-  else if (parts.some((p) => p === "")) issues.push({ path, message: "A value is missing between two commas" });
-  else if (out.some((n) => !Number.isFinite(n))) issues.push({ path, message: "Separate numbers with commas, e.g. 0.01, 0.02, 0.04" });
-  return out;
-}
 
 /** A percentage typed in the form as a fraction for the request; a problem at its field. */
 function percentIn(text: string, path: string, label: string, issues: BuilderIssue[], max = 100): number | undefined {

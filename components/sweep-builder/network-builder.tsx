@@ -1,15 +1,12 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
-import { useEffect, useMemo, useState } from "react";
-import { FormProvider, useForm, useWatch, type Path } from "react-hook-form";
+import { useEffect, useMemo } from "react";
+import { FormProvider, useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { ChoiceCards } from "@/components/forms/choice-cards";
-import { FormMessage } from "@/components/ui/field";
 import { UnitOptions } from "@/components/ui/unit-options";
-import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import {
   defaultProduct,
   networkBuilderToRequest,
@@ -22,6 +19,10 @@ import { NetworkGridEditor } from "./network-grid-editor";
 import { NetworkTrainFields } from "./network-train-fields";
 import { mapNetworkServerFields } from "./network-field-paths";
 import { networkGridFields } from "./network-grid-fields";
+import { DecimalField } from "./decimal-field";
+import { SweepHead } from "./sweep-head";
+import { SweepCountPanel } from "./sweep-count-panel";
+import { useSweepSubmit } from "./use-sweep-submit";
 
 /** A version in the picker: either kind, so choosing a one-reaction model hands over to its own form. */
 export interface AnyVersionOption {
@@ -42,7 +43,6 @@ export function NetworkBuilder({
   initial: NetworkBuilderValues;
   onVersionChange: (id: string) => void;
 }) {
-  const router = useRouter();
   const versionOf = (id: string) => versions.find((o) => o.id === id)?.network;
   const schema = useMemo(
     () =>
@@ -59,10 +59,7 @@ export function NetworkBuilder({
   const version = versionOf(v.kineticsVersionId);
   const count = useMemo(() => networkImplied(v, version), [v, version]);
   const gridFields = useMemo(() => (version ? networkGridFields(version) : []), [version]);
-  const [formError, setFormError] = useState<string>();
-  const valuesKey = JSON.stringify(v);
-  const [sentKey, setSentKey] = useState<string>();
-  const shownError = formError !== undefined && sentKey === valuesKey ? formError : undefined;
+  const { shownError, submit } = useSweepSubmit({ projectId, valuesKey: JSON.stringify(v), mapFields: mapNetworkServerFields, setError });
   const err = (p: string) => messageAt(formState.errors, p);
 
   // Another model: hand over to the one-reaction form, or take this model's wanted product.
@@ -77,32 +74,9 @@ export function NetworkBuilder({
     // eslint-disable-next-line react-hooks/exhaustive-deps -- only when the chosen version changes
   }, [chosen]);
 
-  const onSubmit = form.handleSubmit(async (body) => {
-    setFormError(undefined);
-    setSentKey(valuesKey);
-    try {
-      const res = await fetchJson<{ sweep: { id: string } }>(`/api/projects/${projectId}/sweeps`, { method: "POST", json: body });
-      router.push(`/projects/${projectId}/sweeps/${res.sweep.id}`);
-    } catch (e) {
-      if (!(e instanceof ApiError)) return setFormError("Could not reach the server; nothing was submitted.");
-      const { byField, rest } = mapNetworkServerFields(e.fields);
-      for (const [p, message] of Object.entries(byField)) setError(p as Path<NetworkBuilderValues>, { type: "server", message });
-      setFormError([e.message, ...rest].filter((m, i, a) => a.indexOf(m) === i).join(" "));
-    }
-  });
+  const onSubmit = form.handleSubmit((body) => submit(body));
 
-  const num = (path: string, label: string, extra = "w-24") => {
-    const id = `n-${path.replace(/\./g, "-")}`;
-    return (
-      <div>
-        <label htmlFor={id} className="field-label">
-          {label}
-        </label>
-        <input id={id} className={`input num ${extra}`} inputMode="decimal" autoComplete="off" aria-invalid={!!err(path)} {...register(path as Path<NetworkBuilderValues>)} />
-        <ErrorText id={id} message={err(path)} />
-      </div>
-    );
-  };
+  const num = (path: string, label: string, extra = "w-24") => <DecimalField prefix="n" path={path} label={label} extra={extra} />;
   const unitSelect = (path: "tUnit" | "volumeUnit", kind: "temperature" | "volume", label: string) => (
     <div>
       <label htmlFor={`n-${path}`} className="field-label">
@@ -119,31 +93,15 @@ export function NetworkBuilder({
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="New sweep" className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-4">
-          <section className="card grid gap-3 p-4 sm:grid-cols-[2fr_1fr]">
-            <div>
-              <label htmlFor="n-kineticsVersionId" className="field-label">
-                Kinetics version
-              </label>
-              <select id="n-kineticsVersionId" className="input" aria-invalid={!!err("kineticsVersionId")} {...register("kineticsVersionId")}>
-                {versions.map((o) => (
-                  <option key={o.id} value={o.id}>
-                    {o.label}
-                  </option>
-                ))}
-              </select>
-              <ErrorText id="n-kineticsVersionId" message={err("kineticsVersionId")} />
-            </div>
-            <p className="self-end text-sm text-ink-soft">
-              Several reactions · key reactant <strong>{version?.keyReactant ?? "—"}</strong>
-            </p>
-            <div className="sm:col-span-2">
-              <label htmlFor="n-name" className="field-label">
-                Sweep name <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
-              </label>
-              <input id="n-name" className="input" placeholder="Named after the kinetics and scenario count when blank" {...register("name")} />
-              <ErrorText id="n-name" message={err("name")} />
-            </div>
-          </section>
+          <SweepHead
+            prefix="n"
+            versions={versions}
+            beside={
+              <p className="self-end text-sm text-ink-soft">
+                Several reactions · key reactant <strong>{version?.keyReactant ?? "—"}</strong>
+              </p>
+            }
+          />
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Rank by</legend>
@@ -216,31 +174,7 @@ export function NetworkBuilder({
           <NetworkGridEditor fields={gridFields} />
         </div>
 
-        <aside className="lg:sticky lg:top-4 lg:self-start">
-          <div className="card space-y-3 p-4" aria-live="polite">
-            <h2>This sweep</h2>
-            <dl className="grid grid-cols-[1fr_auto] gap-y-1 text-sm">
-              <dt className="text-ink-soft">Scenarios</dt>
-              <dd className="num text-right" data-testid="scenario-count">
-                {count.scenarios ?? "—"}
-              </dd>
-              <dt className="text-ink-soft">Trains per scenario</dt>
-              <dd className="num text-right" data-testid="sequence-count">
-                {count.sequences ?? "—"}
-              </dd>
-              <dt className="border-t border-line pt-1 font-medium">Trains sized in all</dt>
-              <dd className="num border-t border-line pt-1 text-right text-lg font-semibold" data-testid="optimisation-count">
-                {count.optimisations ?? "—"}
-              </dd>
-            </dl>
-            {count.optimisations === null ? <p className="text-xs text-ink-soft">Complete the fields marked with ✕ to see the count.</p> : null}
-            {shownError ? <FormMessage kind="error">{shownError}</FormMessage> : null}
-            <button type="submit" className="btn-primary w-full justify-center" disabled={formState.isSubmitting}>
-              {formState.isSubmitting ? "Submitting…" : "Submit sweep"}
-            </button>
-            <p className="text-xs text-ink-soft">The sweep runs on the queue; you can leave the page and come back.</p>
-          </div>
-        </aside>
+        <SweepCountPanel count={count} error={shownError} submitting={formState.isSubmitting} />
       </form>
     </FormProvider>
   );

@@ -1,10 +1,11 @@
 "use client";
 
-import { useFieldArray, useFormContext, useWatch, type Path } from "react-hook-form";
+import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { UnitOptions } from "@/components/ui/unit-options";
 import { newNetworkAxis, type NetworkBuilderValues } from "./network-builder-form-state";
 import type { NetworkGridField } from "./network-grid-fields";
+import { DecimalField } from "./decimal-field";
 
 /** The scenario grid of a network sweep: up to four inputs of the model, each with its values or a range. */
 export function NetworkGridEditor({ fields }: { fields: NetworkGridField[] }) {
@@ -12,18 +13,7 @@ export function NetworkGridEditor({ fields }: { fields: NetworkGridField[] }) {
   const grid = useFieldArray({ control, name: "grid" });
   const axes = useWatch({ control, name: "grid" }) ?? [];
   const err = (p: string) => messageAt(formState.errors, p);
-  const num = (path: string, label: string, extra = "w-24") => {
-    const id = `n-${path.replace(/\./g, "-")}`;
-    return (
-      <div>
-        <label htmlFor={id} className="field-label">
-          {label}
-        </label>
-        <input id={id} className={`input num ${extra}`} inputMode="decimal" autoComplete="off" aria-invalid={!!err(path)} {...register(path as Path<NetworkBuilderValues>)} />
-        <ErrorText id={id} message={err(path)} />
-      </div>
-    );
-  };
+  const num = (path: string, label: string, extra = "w-24") => <DecimalField prefix="n" path={path} label={label} extra={extra} />;
   const unused = fields.find((f) => !axes.some((a) => a.field === f.field));
 
   return (

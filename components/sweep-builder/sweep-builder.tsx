@@ -2,19 +2,21 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { UnitOptions } from "@/components/ui/unit-options";
-import { useRouter } from "next/navigation";
 import { useEffect, useMemo, useState } from "react";
-import { FormProvider, useFieldArray, useForm, useWatch, type Path } from "react-hook-form";
+import { FormProvider, useFieldArray, useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { SWEEP_OPTION_OFF, SweepRobustnessOption, sweepOptionValue } from "@/components/robustness/sweep-option";
 import { ChoiceCards } from "@/components/forms/choice-cards";
-import { FormMessage } from "@/components/ui/field";
-import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { UnitKind } from "@/lib/units/display";
 import { STAGE_TYPES } from "@/lib/stage-types";
 import { CostBasisOptions } from "./cost-basis-options";
-import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, parseSequence, type BuilderValues } from "./builder-form-state";
+import { DecimalField } from "./decimal-field";
+import { SweepHead } from "./sweep-head";
+import { ListedTrainsEditor } from "./listed-trains-editor";
+import { SweepCountPanel } from "./sweep-count-panel";
+import { useSweepSubmit } from "./use-sweep-submit";
+import { builderToRequest, builderValuesSchema, GRID_FIELDS, implied, mapSweepServerFields, newAxis, type BuilderValues } from "./builder-form-state";
 
 export interface VersionOption {
   id: string;
@@ -50,25 +52,18 @@ export function SweepBuilder({
   /** Told of the chosen version, so a model of several reactions can bring its own form. */
   onVersionChange?: (id: string) => void;
 }) {
-  const router = useRouter();
   const form = useForm<z.input<typeof schema>, unknown, z.output<typeof schema>>({ resolver: zodResolver(schema), defaultValues: initial, mode: "onChange" });
   const { register, control, formState, setValue, setError } = form;
   const v = useWatch({ control }) as BuilderValues;
-  const [formError, setFormError] = useState<string>();
   const [uncertainty, setUncertainty] = useState(SWEEP_OPTION_OFF);
   const uncertaintyValue = sweepOptionValue(uncertainty);
   const grid = useFieldArray({ control, name: "grid" });
-  const candidates = useFieldArray({ control, name: "candidates" });
   const count = useMemo(() => implied(v), [v]);
   const chosenVersion = v.kineticsVersionId;
   useEffect(() => {
     if (chosenVersion) onVersionChange?.(chosenVersion);
   }, [chosenVersion, onVersionChange]);
-  // A message from the last submit describes the values then sent; once any field changes it is stale.
-  // A message from the last submit describes the values then sent; once any field changes it goes.
-  const valuesKey = JSON.stringify([v, uncertainty]);
-  const [sentKey, setSentKey] = useState<string>();
-  const shownError = formError !== undefined && sentKey === valuesKey ? formError : undefined;
+  const { shownError, submit } = useSweepSubmit({ projectId, valuesKey: JSON.stringify([v, uncertainty]), mapFields: mapSweepServerFields, setError });
   const err = (p: string) => messageAt(formState.errors, p);
   const typed = versions.find((o) => o.id === v.kineticsVersionId)?.units ?? {};
   /** A varied field's starting unit: the one the kinetics was typed in, else the field's usual one. */
@@ -77,63 +72,17 @@ export function SweepBuilder({
     return (g?.kind ? typed[g.kind] : undefined) ?? g?.defaultUnit ?? "";
   };
 
-  const onSubmit = form.handleSubmit(async (body) => {
-    setFormError(undefined);
-    setSentKey(valuesKey);
-    if (uncertaintyValue.error) return setFormError(`Uncertainty: ${uncertaintyValue.error}`);
-    try {
-      const json = uncertaintyValue.value ? { ...body, robustness: uncertaintyValue.value } : body;
-      const res = await fetchJson<{ sweep: { id: string } }>(`/api/projects/${projectId}/sweeps`, { method: "POST", json });
-      router.push(`/projects/${projectId}/sweeps/${res.sweep.id}`);
-    } catch (e) {
-      if (!(e instanceof ApiError)) return setFormError("Could not reach the server; nothing was submitted.");
-      const { byField, rest } = mapSweepServerFields(e.fields);
-      for (const [p, message] of Object.entries(byField)) setError(p as Path<BuilderValues>, { type: "server", message });
-      setFormError([e.message, ...rest].filter((m, i, a) => a.indexOf(m) === i).join(" "));
-    }
-  });
+  const onSubmit = form.handleSubmit((body) =>
+    submit(uncertaintyValue.value ? { ...body, robustness: uncertaintyValue.value } : body, uncertaintyValue.error ? `Uncertainty: ${uncertaintyValue.error}` : undefined),
+  );
 
-  const num = (path: string, label: string, extra = "w-24") => {
-    const id = `s-${path.replace(/\./g, "-")}`;
-    return (
-      <div>
-        <label htmlFor={id} className="field-label">
-          {label}
-        </label>
-        <input id={id} className={`input num ${extra}`} inputMode="decimal" autoComplete="off" aria-invalid={!!err(path)} {...register(path as Path<BuilderValues>)} />
-        <ErrorText id={id} message={err(path)} />
-      </div>
-    );
-  };
+  const num = (path: string, label: string, extra = "w-24") => <DecimalField prefix="s" path={path} label={label} extra={extra} />;
 
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="New sweep" className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-4">
-          <section className="card grid gap-3 p-4 sm:grid-cols-[2fr_1fr]">
-            <div>
-              <label htmlFor="s-kineticsVersionId" className="field-label">
-                Kinetics version
-              </label>
-              <select id="s-kineticsVersionId" className="input" aria-invalid={!!err("kineticsVersionId")} {...register("kineticsVersionId")}>
-                <option value="">Choose…</option>
-                {versions.map((o) => (
-                  <option key={o.id} value={o.id}>
-                    {o.label}
-                  </option>
-                ))}
-              </select>
-              <ErrorText id="s-kineticsVersionId" message={err("kineticsVersionId")} />
-            </div>
-            {num("target", "Target conversion X", "w-full")}
-            <div className="sm:col-span-2">
-              <label htmlFor="s-name" className="field-label">
-                Sweep name <span className="normal-case tracking-normal text-ink-soft">(optional)</span>
-              </label>
-              <input id="s-name" className="input" placeholder="Named after the kinetics and scenario count when blank" {...register("name")} />
-              <ErrorText id="s-name" message={err("name")} />
-            </div>
-          </section>
+          <SweepHead prefix="s" versions={versions} choose beside={num("target", "Target conversion X", "w-full")} />
 
           <fieldset className="card space-y-3 p-4">
             <legend className="px-1 text-base font-semibold">Trains to try</legend>
@@ -166,39 +115,7 @@ export function SweepBuilder({
               </div>
             ) : null}
             {v.trainMode === "candidates" ? (
-              <div className="space-y-2" data-testid="sequence-editor">
-                {candidates.fields.map((f, i) => {
-                  const seq = parseSequence(v.candidates?.[i]?.seq ?? "");
-                  const set = (next: string[]) => setValue(`candidates.${i}.seq`, next.join("-"), { shouldValidate: true });
-                  return (
-                    <div key={f.id} className="rounded border border-line p-2">
-                      <div className="flex flex-wrap items-center gap-1.5" aria-label={`Sequence ${i + 1}`} role="group">
-                        <span className="mr-1 text-xs text-ink-soft">#{i + 1}</span>
-                        {seq.length ? seq.map((t, j) => <StageBadge key={j} type={t} />) : <span className="text-xs text-ink-soft">empty</span>}
-                        <span className="ml-auto flex gap-1">
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "CSTR"])} disabled={seq.length >= 8} aria-label={`Add a CSTR to sequence ${i + 1}`}>
-                            + CSTR
-                          </button>
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "PFR"])} disabled={seq.length >= 8} aria-label={`Add a PFR to sequence ${i + 1}`}>
-                            + PFR
-                          </button>
-                          <button type="button" className="btn-quiet py-0.5" onClick={() => set(seq.slice(0, -1))} disabled={!seq.length} aria-label={`Remove the last stage of sequence ${i + 1}`}>
-                            ⌫
-                          </button>
-                          <button type="button" className="btn-danger py-0.5" onClick={() => candidates.remove(i)} aria-label={`Delete sequence ${i + 1}`}>
-                            Delete
-                          </button>
-                        </span>
-                      </div>
-                      <ErrorText id={`s-candidates-${i}`} message={err(`candidates.${i}.seq`)} />
-                    </div>
-                  );
-                })}
-                <button type="button" className="btn-quiet py-1" onClick={() => candidates.append({ seq: "" })}>
-                  + Add a sequence
-                </button>
-                <ErrorText id="s-candidates" message={err("candidates")} />
-              </div>
+              <ListedTrainsEditor prefix="s" noun="sequence" maxStages={8} badges={(seq) => seq.map((t, j) => <StageBadge key={j} type={t} />)} />
             ) : null}
             {v.trainMode === "multiset" ? (
               <div className="flex flex-wrap gap-4">
@@ -337,31 +254,7 @@ export function SweepBuilder({
           <SweepRobustnessOption state={uncertainty} onChange={setUncertainty} error={uncertaintyValue.error} />
         </div>
 
-        <aside className="lg:sticky lg:top-4 lg:self-start">
-          <div className="card space-y-3 p-4" aria-live="polite">
-            <h2>This sweep</h2>
-            <dl className="grid grid-cols-[1fr_auto] gap-y-1 text-sm">
-              <dt className="text-ink-soft">Scenarios</dt>
-              <dd className="num text-right" data-testid="scenario-count">
-                {count.scenarios ?? "—"}
-              </dd>
-              <dt className="text-ink-soft">Trains per scenario</dt>
-              <dd className="num text-right" data-testid="sequence-count">
-                {count.sequences ?? "—"}
-              </dd>
-              <dt className="border-t border-line pt-1 font-medium">Trains sized in all</dt>
-              <dd className="num border-t border-line pt-1 text-right text-lg font-semibold" data-testid="optimisation-count">
-                {count.optimisations ?? "—"}
-              </dd>
-            </dl>
-            {count.optimisations === null ? <p className="text-xs text-ink-soft">Complete the fields marked with ✕ to see the count.</p> : null}
-            {shownError ? <FormMessage kind="error">{shownError}</FormMessage> : null}
-            <button type="submit" className="btn-primary w-full justify-center" disabled={formState.isSubmitting}>
-              {formState.isSubmitting ? "Submitting…" : "Submit sweep"}
-            </button>
-            <p className="text-xs text-ink-soft">The sweep runs on the queue; you can leave the page and come back.</p>
-          </div>
-        </aside>
+        <SweepCountPanel count={count} error={shownError} submitting={formState.isSubmitting} />
       </form>
     </FormProvider>
   );
