@@ -14,10 +14,11 @@ import { withNumbers } from "@/lib/robustness/numeric-path";
 import { isNetworkRobustnessResult } from "@/lib/schemas/robustness";
 import { getDesignReport } from "@/lib/services/design-reports";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
+import { networkCandidateRows, networkScenarioReference } from "@/lib/sweeps/network-candidate-rows";
 import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
 import { actorByEmail, createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
-import { demoNetworkSpec } from "../unit/helpers/network-pin";
+import { demoNetworkSpec, frozenNetworkCandidate } from "../unit/helpers/network-pin";
 
 // Stored rows in the shapes the web app keeps for a sweep of several reactions (the contract of issue 13):
 // the sweep's starting spec, a scenario with the over-reaction's rate constant set, its ranked candidates
@@ -55,52 +56,15 @@ beforeAll(async () => {
     .insert(sweeps)
     .values({ teamId: engineer.teamId, projectId: project.id, kineticsVersionId: version.id, name: "Yield of B", baseSpec: base as unknown as Record<string, unknown>, total: 1, done: 1, status: "succeeded", submittedBy: engineer.userId })
     .returning();
-  const reference = { kind: "network" as const, singleCSTR: result.reference.singleCSTR, singlePFR: result.reference.singlePFR, objective: scenarioSpec.objective, feedVolumetricFlow: 1e-3 };
+  // Scenario reference and candidate rows built by the same code the sweep worker and the demo seed use.
+  const reference = networkScenarioReference(scenarioSpec, result);
   const [scenario] = await t.db
     .insert(scenarios)
-    .values({ sweepId: sweep.id, index: 0, overrides: OVERRIDES, status: "succeeded", reference, bestObjective: result.candidates[0].objective, candidateCount: result.candidates.length })
+    .values({ sweepId: sweep.id, index: 0, overrides: OVERRIDES, status: "succeeded", reference: { ...reference }, bestObjective: result.candidates[0].objective, candidateCount: result.candidates.length })
     .returning();
-  const rows = await t.db
-    .insert(candidates)
-    .values(
-      result.candidates.map((c) => ({
-        sweepId: sweep.id,
-        scenarioId: scenario.id,
-        sequenceKey: c.sequence.join("-"),
-        rank: c.rank,
-        stageCount: c.sequence.length,
-        feasible: c.feasible,
-        totalVolume: c.totalVolume,
-        conversion: c.conversion,
-        yield: c.yield,
-        selectivity: c.selectivity,
-        objectiveValue: c.objective,
-        onBound: c.onBound ?? null,
-        reason: c.reason ?? null,
-        stages: c.stages as unknown as Record<string, unknown>[],
-        levenspiel: [],
-      })),
-    )
-    .returning();
-  const best = result.candidates[0];
+  const rows = await t.db.insert(candidates).values(networkCandidateRows(sweep.id, scenario.id, result)).returning();
   candidateId = rows.find((r) => r.rank === 1)!.id;
-  frozen = {
-    kind: "network",
-    rank: 1,
-    sequence: best.sequence,
-    feasible: true,
-    totalVolume: best.totalVolume,
-    totalResidenceTime: best.totalResidenceTime,
-    conversion: best.conversion,
-    yield: best.yield,
-    selectivity: best.selectivity,
-    objective: best.objective,
-    outlet: best.outlet,
-    onBound: best.onBound ?? [],
-    stages: best.stages,
-    scenario: { index: 0, overrides: OVERRIDES, reference },
-    sweep: { id: sweep.id, name: sweep.name },
-  };
+  frozen = frozenNetworkCandidate(result.candidates[0], { index: 0, overrides: OVERRIDES, reference }, { id: sweep.id, name: sweep.name });
   const pinRow = { teamId: engineer.teamId, projectId: project.id, sweepId: sweep.id, candidateId, kineticsVersionId: version.id, candidate: frozen as unknown as Record<string, unknown>, pinnedBy: engineer.userId };
   [{ id: pinId }] = await t.db.insert(pinnedDesigns).values({ ...pinRow, spec: scenarioSpec as unknown as Record<string, unknown> }).returning();
   [{ id: pinWithoutSpecId }] = await t.db.insert(pinnedDesigns).values({ ...pinRow, candidateId: null, spec: {} }).returning();
