@@ -5,55 +5,28 @@
  * constant × the largest total volume), 2 worker processes, submit (commit) → last result stored.
  * Goal on this 2-core machine, quiet: at most 60 s. Prints figures; asserts nothing.
  */
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { fileURLToPath } from "node:url";
 import { eq } from "drizzle-orm";
-import pg from "pg";
-import { createDb } from "../db/client";
-import { runMigrations } from "../db/migrate";
-import { seedDemoData } from "../lib/demo/seed";
-import { sweeps, users } from "../db/schema";
-import { startThrowawayCluster, createDatabase } from "../scripts/lib/postgres";
+import { sweeps } from "../db/schema";
+import { benchRoot as root, seededBenchDatabase, startWorkers, stopAll } from "./queue-bench-setup";
+import { startThrowawayCluster } from "../scripts/lib/postgres";
 import { applyOverrides, expandGrid, type GridAxis } from "../lib/sweeps/grid";
 import { designNetwork, type NetworkDesignSpec } from "../lib/engine";
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const fixture = JSON.parse(readFileSync(path.join(root, "tests/fixtures/specs/network-three-reactions.json"), "utf8"));
 const chemistry = { feed: fixture.feed, phase: fixture.phase, reactions: fixture.reactions, keyReactant: fixture.keyReactant, product: "B" };
 const WORKERS = 2;
-
-function startWorkers(n: number, env: NodeJS.ProcessEnv): Promise<ChildProcess[]> {
-  return Promise.all(
-    Array.from({ length: n }, () => {
-      const child = spawn(process.execPath, ["--import", "tsx", "worker/index.ts"], { cwd: root, env, stdio: ["ignore", "pipe", "inherit"] });
-      return new Promise<ChildProcess>((resolve) => child.stdout!.on("data", (d: Buffer) => d.toString().includes("listening for jobs") && resolve(child)));
-    }),
-  );
-}
-
-async function stopAll(children: ChildProcess[]) {
-  await Promise.all(children.map((c) => new Promise((r) => (c.on("exit", r), c.kill("SIGTERM")))));
-}
 
 async function main() {
   const cluster = await startThrowawayCluster();
   const children: ChildProcess[] = [];
   try {
-    const url = await createDatabase(cluster.serverUrl, "bench_queue_network");
-    process.env.DATABASE_URL = url;
-    await runMigrations(url);
-    const pool = new pg.Pool({ connectionString: url, max: 4 });
-    const db = createDb(pool);
-    await seedDemoData(db);
-    const { loadActor } = await import("../lib/authz/actor");
+    const { url, pool, db, actor, projectId } = await seededBenchDatabase(cluster.serverUrl, "bench_queue_network");
     const { createKineticsModel } = await import("../lib/services/kinetics");
     const { createSweep } = await import("../lib/services/sweeps");
     const { networkSweepCreateSchema } = await import("../lib/schemas/sweeps");
-    const [eli] = await db.select().from(users).where(eq(users.email, "eli.engineer@brightwater.example"));
-    const actor = (await loadActor(db, eli.id))!;
-    const projectId = (await pool.query("select id from projects where team_id = $1 limit 1", [actor.teamId])).rows[0].id as string;
     const { version } = await createKineticsModel(db, actor, projectId, { name: "Bench three reactions", spec: chemistry, note: "" });
     const env: NodeJS.ProcessEnv = { ...process.env, DATABASE_URL: url, NODE_ENV: "production" as const };
 

@@ -8,19 +8,14 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
-import { fileURLToPath } from "node:url";
 import autocannon from "autocannon";
 import { eq } from "drizzle-orm";
-import pg from "pg";
-import { createDb } from "../db/client";
-import { runMigrations } from "../db/migrate";
-import { seedDemoData } from "../lib/demo/seed";
-import { sweeps, users } from "../db/schema";
-import { freePort, startThrowawayCluster, createDatabase } from "../scripts/lib/postgres";
+import { sweeps } from "../db/schema";
+import { benchRoot as root, seededBenchDatabase, startWorkers, stopAll } from "./queue-bench-setup";
+import { freePort, startThrowawayCluster } from "../scripts/lib/postgres";
 import { waitForHttp } from "../scripts/lib/processes";
 import type { GridAxis } from "../lib/sweeps/grid";
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const SCENARIOS_FLOW = 20;
 const SCENARIOS_TARGET = 10;
 
@@ -29,38 +24,16 @@ const kinetics = {
   reaction: { stoichiometry: { A: -1, B: -1, R: 1 }, phase: "liquid" as const, rate: { law: "power" as const, k: 1e-4, orders: { A: 1, B: 1 } } },
 };
 
-function startWorkers(n: number, env: NodeJS.ProcessEnv): Promise<ChildProcess[]> {
-  return Promise.all(
-    Array.from({ length: n }, () => {
-      const child = spawn(process.execPath, ["--import", "tsx", "worker/index.ts"], { cwd: root, env, stdio: ["ignore", "pipe", "inherit"] });
-      return new Promise<ChildProcess>((resolve) => child.stdout!.on("data", (d: Buffer) => d.toString().includes("listening for jobs") && resolve(child)));
-    }),
-  );
-}
-
-async function stopAll(children: ChildProcess[]) {
-  await Promise.all(children.map((c) => new Promise((r) => (c.on("exit", r), c.kill("SIGTERM")))));
-}
-
 const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 
 async function main() {
   const cluster = await startThrowawayCluster();
   const children: ChildProcess[] = [];
   try {
-    const url = await createDatabase(cluster.serverUrl, "bench_queue");
-    process.env.DATABASE_URL = url;
-    await runMigrations(url);
-    const pool = new pg.Pool({ connectionString: url, max: 4 });
-    const db = createDb(pool);
-    await seedDemoData(db);
-    const { loadActor } = await import("../lib/authz/actor");
+    const { url, pool, db, actor, projectId } = await seededBenchDatabase(cluster.serverUrl, "bench_queue");
     const { createKineticsModel } = await import("../lib/services/kinetics");
     const { createSweep } = await import("../lib/services/sweeps");
     const { createApiToken } = await import("../lib/services/tokens");
-    const [eli] = await db.select().from(users).where(eq(users.email, "eli.engineer@brightwater.example"));
-    const actor = (await loadActor(db, eli.id))!;
-    const projectId = (await pool.query("select id from projects where team_id = $1 limit 1", [actor.teamId])).rows[0].id as string;
     const { version } = await createKineticsModel(db, actor, projectId, { name: "Bench second order", spec: kinetics, note: "" });
     const env: NodeJS.ProcessEnv = { ...process.env, DATABASE_URL: url, NODE_ENV: "production" as const };
 
