@@ -167,12 +167,17 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
     actor,
     projectId,
     kineticsVersionId: kv.version.id,
-    name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
+    name: input.name ?? defaultSweepName(kv, total),
     baseSpec,
     grid: input.grid,
     inventory,
     robustness: input.robustness ?? null,
   });
+}
+
+/** The name a sweep gets when the engineer gives none: the model, its version and how many scenarios. */
+function defaultSweepName(kv: { model: { name: string }; version: { version: number } }, total: number): string {
+  return `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`;
 }
 
 async function createNetworkSweep(
@@ -193,7 +198,7 @@ async function createNetworkSweep(
     actor,
     projectId,
     kineticsVersionId: kv.version.id,
-    name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
+    name: input.name ?? defaultSweepName(kv, total),
     baseSpec,
     grid: input.grid,
     robustness: null,
