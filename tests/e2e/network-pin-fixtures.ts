@@ -1,11 +1,10 @@
 import { eq } from "drizzle-orm";
-import { drizzle } from "drizzle-orm/node-postgres";
-import pg from "pg";
 import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, projects, scenarios, sweeps, users } from "../../db/schema";
 import { designNetwork, type NetworkDesignSpec } from "../../lib/engine";
 import { DEMO_NETWORK } from "../../lib/demo/network-demo";
 import { networkCandidateRows, networkScenarioReference } from "../../lib/sweeps/network-candidate-rows";
 import { demoNetworkSpec, frozenNetworkCandidate } from "../unit/helpers/network-pin";
+import { withE2eDatabase } from "./helpers/e2e-database";
 
 /**
  * Writes a finished sweep of the demo's chemistry of several reactions (a minimum yield of 45 % added, close below the best train's 47 %),
@@ -13,11 +12,7 @@ import { demoNetworkSpec, frozenNetworkCandidate } from "../unit/helpers/network
  * app stores them (sweeping and pinning are other screens' jobs), pinned by `email` in `projectId`.
  */
 export async function insertNetworkPin(opts: { email: string; projectId: string; note: string }) {
-  const url = process.env.DATABASE_URL;
-  if (!url) throw new Error("DATABASE_URL is not set; run e2e tests through `npm test -- e2e`");
-  const pool = new pg.Pool({ connectionString: url, max: 1 });
-  try {
-    const db = drizzle(pool);
+  return withE2eDatabase(async (db) => {
     const [user] = await db.select().from(users).where(eq(users.email, opts.email));
     const [project] = await db.select().from(projects).where(eq(projects.id, opts.projectId));
     const [model] = await db.insert(kineticsModels).values({ teamId: project.teamId, projectId: project.id, name: `${DEMO_NETWORK.model.name} (report check)`, createdBy: user.id }).returning();
@@ -44,7 +39,5 @@ export async function insertNetworkPin(opts: { email: string; projectId: string;
       .values({ teamId: project.teamId, projectId: project.id, sweepId: sweep.id, candidateId, kineticsVersionId: version.id, candidate: frozen as unknown as Record<string, unknown>, spec: spec as unknown as Record<string, unknown>, note: opts.note, pinnedBy: user.id })
       .returning();
     return { pinId: pin.id, candidateId, sweepId: sweep.id, frozen };
-  } finally {
-    await pool.end();
-  }
+  });
 }
