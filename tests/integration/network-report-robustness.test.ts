@@ -7,7 +7,6 @@ import type { Actor } from "@/lib/authz/policy";
 import { designNetwork, rateNetworkTrain, type NetworkDesignSpec, type NetworkSpec } from "@/lib/engine";
 import { DEMO_NETWORK } from "@/lib/demo/network-demo";
 import { seedDemoData } from "@/lib/demo/seed";
-import { AppError } from "@/lib/errors";
 import { renderReportPdf } from "@/lib/reports/report-pdf";
 import { networkTrainOf, rateNetworkRobustness } from "@/lib/robustness/network-train";
 import { withNumbers } from "@/lib/robustness/numeric-path";
@@ -19,6 +18,7 @@ import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
 import { actorByEmail, createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
 import { demoNetworkSpec, frozenNetworkCandidate } from "../unit/helpers/network-pin";
+import { refusal } from "../helpers/refusal";
 
 // Stored rows in the shapes the web app keeps for a sweep of several reactions (the contract of issue 13):
 // the sweep's starting spec, a scenario with the over-reaction's rate constant set, its ranked candidates
@@ -75,16 +75,6 @@ afterEach(async () => {
 });
 afterAll(() => t.drop());
 
-async function refusal(fn: () => Promise<unknown>): Promise<AppError> {
-  try {
-    await fn();
-  } catch (err) {
-    if (err instanceof AppError) return err;
-    throw err;
-  }
-  throw new Error("expected a refusal");
-}
-
 async function pdfText(pdf: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
   try {
@@ -119,7 +109,7 @@ describe("design report of a pinned train of several reactions, read from the da
   });
 
   it("another team's pin is not found", async () => {
-    expect((await refusal(() => getDesignReport(t.db, otherTeam, pinId))).code).toBe("not_found");
+    expect((await refusal(getDesignReport(t.db, otherTeam, pinId))).code).toBe("not_found");
   });
 });
 
@@ -153,12 +143,12 @@ describe("robustness of a train of several reactions", () => {
   });
 
   it("refuses a one-reaction input and a target, naming the field", async () => {
-    const wrong = await refusal(() => createCandidateRun(t.db, engineer, candidateId, { uncertain: [{ field: "reaction.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 10, seed: 1 }));
+    const wrong = await refusal(createCandidateRun(t.db, engineer, candidateId, { uncertain: [{ field: "reaction.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 10, seed: 1 }));
     expect(wrong.code).toBe("bad_request");
     expect(Object.keys(wrong.fields ?? {})).toEqual(["uncertain.0.field"]);
-    const target = await refusal(() => createCandidateRun(t.db, engineer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1, target: 0.9 }));
+    const target = await refusal(createCandidateRun(t.db, engineer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1, target: 0.9 }));
     expect(Object.keys(target.fields ?? {})).toEqual(["target"]);
-    const viewerRun = await refusal(() => createCandidateRun(t.db, viewer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1 }));
+    const viewerRun = await refusal(createCandidateRun(t.db, viewer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1 }));
     expect(["forbidden", "not_found"]).toContain(viewerRun.code);
   });
 
