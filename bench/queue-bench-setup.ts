@@ -12,7 +12,7 @@ import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
 import { users } from "../db/schema";
 import { seedDemoData } from "../lib/demo/seed";
-import { createDatabase } from "../scripts/lib/postgres";
+import { createDatabase, startThrowawayCluster } from "../scripts/lib/postgres";
 
 export const benchRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 
@@ -44,4 +44,29 @@ export async function seededBenchDatabase(serverUrl: string, name: string) {
   const actor = (await loadActor(db, eli.id))!;
   const projectId = (await pool.query("select id from projects where team_id = $1 limit 1", [actor.teamId])).rows[0].id as string;
   return { url, pool, db, actor, projectId };
+}
+
+/**
+ * Runs a queue bench on a throwaway cluster: `body` gets the cluster's server URL and a list to put
+ * the processes it starts in; whatever is still running is stopped and the cluster removed afterwards,
+ * then the process exits (1 on an error, printed).
+ */
+export function runQueueBench(body: (serverUrl: string, children: ChildProcess[]) => Promise<void>): void {
+  const run = async () => {
+    const cluster = await startThrowawayCluster();
+    const children: ChildProcess[] = [];
+    try {
+      await body(cluster.serverUrl, children);
+    } finally {
+      await stopAll(children.filter((c) => c.exitCode === null));
+      cluster.stop();
+    }
+  };
+  run().then(
+    () => process.exit(0),
+    (err) => {
+      console.error(err);
+      process.exit(1);
+    },
+  );
 }
