@@ -164,20 +164,25 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
   if (input.robustness) checkUncertainFields(trainSpec(engineSpec, []), input.robustness.uncertain, "robustness.uncertain");
   const baseSpec = costing ? { ...engineSpec, costing } : engineSpec;
   return insertSweepWithJobs(db, {
-    actor,
-    projectId,
-    kineticsVersionId: kv.version.id,
-    name: input.name ?? defaultSweepName(kv, total),
+    ...sweepOrigin(actor, projectId, kv, input, total),
     baseSpec,
-    grid: input.grid,
     inventory,
     robustness: input.robustness ?? null,
   });
 }
 
-/** The name a sweep gets when the engineer gives none: the model, its version and how many scenarios. */
-function defaultSweepName(kv: { model: { name: string }; version: { version: number } }, total: number): string {
-  return `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`;
+/**
+ * Who submits a sweep of either kind, where, on which kinetics version, its grid, and its name: the
+ * engineer's, or the model, its version and how many scenarios when they give none.
+ */
+function sweepOrigin(actor: Actor, projectId: string, kv: { model: { name: string }; version: { id: string; version: number } }, input: { name?: string; grid: GridAxis[] }, total: number) {
+  return {
+    actor,
+    projectId,
+    kineticsVersionId: kv.version.id,
+    name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
+    grid: input.grid,
+  };
 }
 
 async function createNetworkSweep(
@@ -195,12 +200,8 @@ async function createNetworkSweep(
   const baseSpec = networkBaseSpec(kv.version.spec as unknown as NetworkKineticsSpec, input);
   checkNetworkScenarios(baseSpec, input.grid, expandGrid(input.grid));
   return insertSweepWithJobs(db, {
-    actor,
-    projectId,
-    kineticsVersionId: kv.version.id,
-    name: input.name ?? defaultSweepName(kv, total),
+    ...sweepOrigin(actor, projectId, kv, input, total),
     baseSpec,
-    grid: input.grid,
     robustness: null,
   });
 }
