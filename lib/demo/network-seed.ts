@@ -1,11 +1,11 @@
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { candidates, kineticsModels, kineticsVersions, pinnedDesigns, projects, scenarios, sweeps } from "@/db/schema";
+import { candidates, kineticsModels, kineticsVersions, projects, scenarios, sweeps } from "@/db/schema";
 import { designNetwork, type NetworkDesignSpec } from "@/lib/engine";
-import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
 import { bestNetworkObjective, networkCandidateRows, networkScenarioReference } from "@/lib/sweeps/network-candidate-rows";
 import { DEMO_NETWORK } from "./network-demo";
+import { pinDemoCandidate } from "./pin-demo-candidate";
 
 /**
  * The demo's model of several reactions in its own project, a finished sweep on it computed here by
@@ -44,18 +44,15 @@ export async function seedDemoNetwork(tx: Executor, team: { id: string }, ownerI
     if (overrides["reactions.1.rate.k"] === d.sweep.pinAt) pinSource = rows.find((r) => r.rank === 1)!.id;
   }
   if (!pinSource) return;
-  const [c] = await tx.select().from(candidates).where(eq(candidates.id, pinSource));
-  const [sc] = await tx.select().from(scenarios).where(eq(scenarios.id, c.scenarioId));
-  await tx.insert(pinnedDesigns).values({
+  await pinDemoCandidate(tx, {
     teamId: team.id,
     projectId: project.id,
-    sweepId: sweep.id,
-    candidateId: c.id,
+    sweep,
     kineticsVersionId: version.id,
-    candidate: freezeCandidate(c, sc, sweep),
-    spec: applyOverrides(baseSpec, sc.overrides),
+    candidateId: pinSource,
+    baseSpec,
     note: "Highest yield of B at the fitted over-reaction rate: a stirred tank keeps A dilute against the dimer, the tube after it stops before B over-reacts (demo).",
     pinnedBy: ownerId,
-    pinnedAt: at,
+    at,
   });
 }

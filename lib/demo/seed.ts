@@ -1,10 +1,9 @@
 import { and, eq } from "drizzle-orm";
 import { fileURLToPath } from "node:url";
 import type { Database, Executor } from "@/db/client";
-import { candidates, kineticsModels, kineticsVersions, memberships, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps, teams, users, type Role } from "@/db/schema";
+import { candidates, kineticsModels, kineticsVersions, memberships, projects, robustnessRuns, scenarios, sweeps, teams, users, type Role } from "@/db/schema";
 import { seedDemoDatasets } from "./datasets";
 import { designTrains, type DesignSpec } from "@/lib/engine";
-import { freezeCandidate } from "@/lib/sweeps/freeze-candidate";
 import { rateRobustness, trainSpec } from "@/lib/robustness/train";
 import { applyOverrides, expandGrid, type GridAxis } from "@/lib/sweeps/grid";
 import { bestObjective, candidateRows } from "@/lib/sweeps/candidate-rows";
@@ -12,6 +11,7 @@ import type { KineticsSpec } from "@/lib/schemas/sweeps";
 import { hashPassword } from "@/lib/auth/password";
 import { seedDemoInventory } from "./inventory";
 import { seedDemoNetwork } from "./network-seed";
+import { pinDemoCandidate } from "./pin-demo-candidate";
 
 /** The demo scenario: an invented fine-chemicals company and a second, unrelated team. */
 export const DEMO_PASSWORD = "seriatim-demo-2026";
@@ -180,20 +180,17 @@ async function seedDemoSweep(tx: Executor, project: typeof projects.$inferSelect
     if (overrides["feed.flowA"] === 0.02 && overrides["target.conversion"] === 0.9) pinSource = { candidateId: rows.find((r) => r.rank === 1)!.id, scenarioIndex: index };
   }
   if (!pinSource) return;
-  const [c] = await tx.select().from(candidates).where(eq(candidates.id, pinSource.candidateId));
-  const [sc] = await tx.select().from(scenarios).where(eq(scenarios.id, c.scenarioId));
-  const [pin] = await tx.insert(pinnedDesigns).values({
+  const { pin, candidate: c, scenario: sc } = await pinDemoCandidate(tx, {
     teamId: project.teamId,
     projectId: project.id,
-    sweepId: sweep.id,
-    candidateId: c.id,
+    sweep,
     kineticsVersionId: version.id,
-    candidate: freezeCandidate(c, sc, sweep),
-    spec: applyOverrides(baseSpec, sc.overrides),
+    candidateId: pinSource.candidateId,
+    baseSpec,
     note: "Least volume at the design feed of 0.02 mol/s and X = 0.9 (demo).",
     pinnedBy: project.createdBy,
-    pinnedAt: at,
-  }).returning();
+    at,
+  });
   // The manager's first question, answered before review: what if k is 20 % off? (demo run)
   const spec = applyOverrides(baseSpec, sc.overrides);
   const train = trainSpec(spec, c.stages);

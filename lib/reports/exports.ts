@@ -6,6 +6,7 @@ import Papa from "papaparse";
 import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import { CAUTIONS } from "@/lib/engine";
 import type { exportCandidates } from "@/lib/services/candidate-export";
+import { scenarioCandidatesCsv } from "./scenario-candidates-csv";
 import type { DesignReport } from "./design-report";
 import { compositionCsvHeaders } from "./network-format";
 import type { NetworkReport } from "./network-report";
@@ -112,9 +113,5 @@ export function candidatesCsv(sweepId: string, data: Export): string {
     c.stageConversionsOut.join(" | "),
     c.reason ?? "",
   ]);
-  const overrides = Object.entries(data.scenario.overrides)
-    .map(([k, v]) => `${k} = ${v}`)
-    .join(", ");
-  const title = commentLine(`sweep ${sweepId}, scenario ${data.scenario.index + 1}${overrides ? ` (${overrides})` : ""}: ${data.total} candidates`);
-  return `${title}\n${PREFACE}\n${Papa.unparse({ fields, data: rows }, SAFE_UNPARSE)}\n`;
+  return scenarioCandidatesCsv(sweepId, data, fields, rows);
 }

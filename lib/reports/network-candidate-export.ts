@@ -3,10 +3,8 @@
  * network is ranked by beside the volumes, SI numbers at full precision, the unit in every header, the
  * cautions in a leading "#" comment line (as the one-reaction list in exports.ts).
  */
-import Papa from "papaparse";
-import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
-import { CAUTIONS } from "@/lib/engine";
 import type { exportCandidates } from "@/lib/services/candidate-export";
+import { scenarioCandidatesCsv } from "./scenario-candidates-csv";
 
 type Export = Awaited<ReturnType<typeof exportCandidates>>;
 
@@ -77,9 +75,5 @@ export function networkCandidatesCsv(sweepId: string, data: Export): string {
     c.onBound.join(" | "),
     c.reason ?? "",
   ]);
-  const overrides = Object.entries(data.scenario.overrides)
-    .map(([k, v]) => `${k} = ${v}`)
-    .join(", ");
-  const title = `# ${commentText(`sweep ${sweepId}, scenario ${data.scenario.index + 1}${overrides ? ` (${overrides})` : ""}: ${data.total} candidates`)}`;
-  return `${title}\n# ${commentText(CAUTIONS.join(" "))}\n${Papa.unparse({ fields, data: rows }, SAFE_UNPARSE)}\n`;
+  return scenarioCandidatesCsv(sweepId, data, fields, rows);
 }

@@ -10,23 +10,14 @@ import type { DisplayUnits } from "@/lib/units/display-preference";
 import type { DesignReport } from "./design-report";
 import type { NetworkReport, PathChart } from "./network-report";
 import { chemistryLines, compositionHeadings, fmtConcentration, measureLines, networkStageColumns, referenceLines } from "./network-format";
-import { axes, ensureSpace, heading, INK, MARGIN, pairs, paragraph, SOFT, table, width, type Doc } from "./pdf-parts";
+import { axes, ensureSpace, heading, INK, MARGIN, pairs, paragraph, SOFT, stagesTable, table, width, type Doc } from "./pdf-parts";
 
 export function networkBody(doc: Doc, r: DesignReport, n: NetworkReport, units?: DisplayUnits) {
   heading(doc, "Train");
   pairs(doc, [{ label: "Sequence", value: r.train.label }, { label: "Ranked by", value: n.measures.objectiveLabel }, ...measureLines(n, units)]);
   for (const note of [...n.limitNotes, ...n.steadyStateNotes]) paragraph(doc, note, { colour: "#7c2d12" });
 
-  const columns = networkStageColumns(units);
-  if (n.stages.length <= 8) ensureSpace(doc, 80 + n.stages.length * 26);
-  heading(doc, "Stages");
-  table(
-    doc,
-    columns.map((c) => c.heading),
-    n.stages.map((s) => columns.map((c) => c.shown(s))),
-    [36, 40, 60, 80, 60, 50],
-    columns.map((c) => c.numeric),
-  );
+  stagesTable(doc, networkStageColumns(units), n.stages, [36, 40, 60, 80, 60, 50]);
 
   ensureSpace(doc, 80 + n.composition.rows.length * 22);
   heading(doc, "Outlet composition");

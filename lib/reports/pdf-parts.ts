@@ -97,3 +97,16 @@ export function table(doc: Doc, headings: string[], rows: string[][], widths: nu
   doc.moveDown(0.3);
 }
 
+
+/** The "Stages" heading and table of either kind of train; a short table (8 stages or fewer) is kept on one page with its heading. */
+export function stagesTable<S>(doc: Doc, columns: { heading: string; shown: (s: S) => string; numeric: boolean }[], stages: S[], widths: number[]) {
+  if (stages.length <= 8) ensureSpace(doc, 80 + stages.length * 26);
+  heading(doc, "Stages");
+  table(
+    doc,
+    columns.map((c) => c.heading),
+    stages.map((s) => columns.map((c) => c.shown(s))),
+    widths,
+    columns.map((c) => c.numeric),
+  );
+}

@@ -11,7 +11,7 @@ import { chartGeometry, type Point } from "@/lib/charts/levenspiel-geometry";
 import type { DesignReport } from "./design-report";
 import { networkBody } from "./network-report-pdf";
 import { robustnessLines } from "./robustness-lines";
-import { axes, ensureSpace, FOOTER, heading, INK, MARGIN, pairs, paragraph, SOFT, table, width, type Doc } from "./pdf-parts";
+import { axes, ensureSpace, FOOTER, heading, INK, MARGIN, pairs, paragraph, SOFT, stagesTable, table, width, type Doc } from "./pdf-parts";
 import { inputLines } from "./input-lines";
 import { fmtConversion, fmtKelvin, fmtMoney, fmtVolume, stageColumns } from "./report-format";
 import { fromSI, unitLabel } from "@/lib/units/display";
@@ -169,17 +169,7 @@ function levenspiel(doc: Doc, r: DesignReport) {
 }
 
 function stageTable(doc: Doc, r: DesignReport, units?: DisplayUnits) {
-  const columns = stageColumns(units);
-  // Keep a short table on one page with its heading.
-  if (r.stages.length <= 8) ensureSpace(doc, 80 + r.stages.length * 26);
-  heading(doc, "Stages");
-  table(
-    doc,
-    columns.map((c) => c.heading),
-    r.stages.map((s) => columns.map((c) => c.shown(s))),
-    [36, 36, 40, 40, 46, 46, 56, 70, 76, 44],
-    columns.map((c) => c.numeric),
-  );
+  stagesTable(doc, stageColumns(units), r.stages, [36, 36, 40, 40, 46, 46, 56, 70, 76, 44]);
 }
 
 function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {

@@ -164,15 +164,25 @@ export async function createSweep(db: Database, actor: Actor, projectId: string,
   if (input.robustness) checkUncertainFields(trainSpec(engineSpec, []), input.robustness.uncertain, "robustness.uncertain");
   const baseSpec = costing ? { ...engineSpec, costing } : engineSpec;
   return insertSweepWithJobs(db, {
+    ...sweepOrigin(actor, projectId, kv, input, total),
+    baseSpec,
+    inventory,
+    robustness: input.robustness ?? null,
+  });
+}
+
+/**
+ * Who submits a sweep of either kind, where, on which kinetics version, its grid, and its name: the
+ * engineer's, or the model, its version and how many scenarios when they give none.
+ */
+function sweepOrigin(actor: Actor, projectId: string, kv: { model: { name: string }; version: { id: string; version: number } }, input: { name?: string; grid: GridAxis[] }, total: number) {
+  return {
     actor,
     projectId,
     kineticsVersionId: kv.version.id,
     name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
-    baseSpec,
     grid: input.grid,
-    inventory,
-    robustness: input.robustness ?? null,
-  });
+  };
 }
 
 async function createNetworkSweep(
@@ -190,12 +200,8 @@ async function createNetworkSweep(
   const baseSpec = networkBaseSpec(kv.version.spec as unknown as NetworkKineticsSpec, input);
   checkNetworkScenarios(baseSpec, input.grid, expandGrid(input.grid));
   return insertSweepWithJobs(db, {
-    actor,
-    projectId,
-    kineticsVersionId: kv.version.id,
-    name: input.name ?? `${kv.model.name} v${kv.version.version} · ${total} scenario${total === 1 ? "" : "s"}`,
+    ...sweepOrigin(actor, projectId, kv, input, total),
     baseSpec,
-    grid: input.grid,
     robustness: null,
   });
 }

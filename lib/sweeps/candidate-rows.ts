@@ -1,18 +1,12 @@
 import type { DesignResult } from "@/lib/engine";
+import { commonCandidateColumns } from "./common-candidate-columns";
 
 /** The candidate rows of one scenario's ranking, as stored: the charts apart from the stages. */
 export function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
   const pfr = result.reference.singlePFR;
   return result.candidates.map((c) => ({
-    sweepId,
-    scenarioId,
-    sequenceKey: c.sequence.join("-"),
-    rank: c.rank,
-    stageCount: c.sequence.length,
-    feasible: c.feasible,
-    totalVolume: c.totalVolume,
+    ...commonCandidateColumns(sweepId, scenarioId, c, pfr),
     totalCost: c.totalCost,
-    ratioToPfr: c.totalVolume !== null && pfr ? c.totalVolume / pfr : null,
     reason: c.reason,
     // Measures of the network kind only (lib/sweeps/network-candidate-rows.ts).
     conversion: null,

@@ -1,4 +1,5 @@
 import { toSI, type NetworkDesignResult, type NetworkDesignSpec } from "@/lib/engine";
+import { commonCandidateColumns } from "./common-candidate-columns";
 import type { NetworkScenarioReference } from "./stored-json";
 
 /**
@@ -9,16 +10,8 @@ import type { NetworkScenarioReference } from "./stored-json";
 export function networkCandidateRows(sweepId: string, scenarioId: string, result: NetworkDesignResult) {
   const pfr = result.reference.singlePFR?.volume ?? null;
   return result.candidates.map((c) => ({
-    sweepId,
-    scenarioId,
-    sequenceKey: c.sequence.join("-"),
-    rank: c.rank,
-    stageCount: c.sequence.length,
-    feasible: c.feasible,
-    totalVolume: c.totalVolume,
+    ...commonCandidateColumns(sweepId, scenarioId, c, pfr),
     totalCost: null,
-    // A single tube of zero volume (nothing to do) gives no ratio rather than an infinite one.
-    ratioToPfr: c.totalVolume !== null && pfr !== null && pfr > 0 ? c.totalVolume / pfr : null,
     reason: c.reason ?? null,
     conversion: c.conversion,
     yield: c.yield,

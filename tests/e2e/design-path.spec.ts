@@ -4,6 +4,7 @@ import { CAUTIONS as CAUTION_TEXTS } from "@/lib/engine";
 import { appReady } from "./fixtures";
 import { signInWithForm } from "./helpers/sign-in";
 import { pdfText } from "./helpers/pdf-text";
+import { approveAsManager, pinWithNote } from "./helpers/pin-and-approve";
 
 /**
  * The whole path through the screens, from bench data to the downloaded report: upload rates with
@@ -109,27 +110,11 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   // The train as the candidate page draws it (stage badges), written the way the report writes it.
   const train = ((await page.getByTestId("candidate-title").textContent()) ?? "").match(/CSTR|PFR/g)?.join(" → ") ?? "";
   expect(train).toMatch(/^(CSTR|PFR)( → (CSTR|PFR))?$/);
-  await page.getByLabel("Note for the reviewer").fill(note);
-  await page.getByTestId("pin-button").click();
   // The project may already hold a current design (the seeded one, or another spec's): then pinning asks first.
-  const supersede = page.getByRole("dialog", { name: "Supersede the current design?" });
-  await expect(page.getByTestId("pin-done").or(supersede)).toBeVisible();
-  if (await supersede.isVisible()) await supersede.getByRole("button", { name: "Pin and supersede" }).click();
-  await expect(page.getByTestId("pin-done")).toBeVisible();
-  await page.getByTestId("pin-done").getByRole("link", { name: "Open the project" }).click();
-  const pinned = page.getByTestId("pin").filter({ hasText: note });
-  await expect(pinned.getByTestId("pin-state")).toHaveText(/pending review/i);
+  const pinned = await pinWithNote(page, note);
 
   // 6. The manager approves it on the project page.
-  const managerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const managerPage = await managerCtx.newPage();
-  await signInWithForm(managerPage, "manager", 60_000);
-  await managerPage.getByRole("link", { name: "Ester line 3 revamp" }).click();
-  const toReview = managerPage.getByTestId("pin").filter({ hasText: note });
-  await toReview.getByLabel("Review comment").fill(`Approved for the line 3 design basis ${stamp}`);
-  await toReview.getByRole("button", { name: "Approve" }).click();
-  await expect(toReview.getByTestId("pin-state")).toHaveText(/approved/i);
-  await managerCtx.close();
+  await approveAsManager(browser, "Ester line 3 revamp", note, `Approved for the line 3 design basis ${stamp}`);
 
   // 7. The engineer opens the report: it names the train, the kinetics and the fit's source dataset.
   await page.reload();

@@ -1,8 +1,7 @@
 import { eq } from "drizzle-orm";
-import { drizzle } from "drizzle-orm/node-postgres";
-import pg from "pg";
 import { memberships, teams, users, type Role } from "../../db/schema";
 import { hashPassword } from "../../lib/auth/password";
+import { withE2eDatabase } from "./helpers/e2e-database";
 
 export const MEMBER_PASSWORD = "a-member-of-the-test-2026";
 
@@ -12,17 +11,11 @@ export const MEMBER_PASSWORD = "a-member-of-the-test-2026";
  * demo users other specs sign in as.
  */
 export async function insertMember(role: Role): Promise<{ userId: string; email: string }> {
-  const url = process.env.DATABASE_URL;
-  if (!url) throw new Error("DATABASE_URL is not set; run e2e tests through `npm test -- e2e`");
-  const pool = new pg.Pool({ connectionString: url, max: 1 });
-  try {
-    const db = drizzle(pool);
+  return withE2eDatabase(async (db) => {
     const email = `member.${Date.now()}.${Math.random().toString(36).slice(2, 8)}@brightwater.example`;
     const [team] = await db.select().from(teams).where(eq(teams.name, "Brightwater Fine Chemicals"));
     const [user] = await db.insert(users).values({ email, name: "Test Member", passwordHash: await hashPassword(MEMBER_PASSWORD), emailVerified: new Date() }).returning();
     await db.insert(memberships).values({ teamId: team.id, userId: user.id, role });
     return { userId: user.id, email };
-  } finally {
-    await pool.end();
-  }
+  });
 }

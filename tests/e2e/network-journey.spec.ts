@@ -5,6 +5,7 @@ import { appReady } from "./fixtures";
 import { leadingNumber } from "./ranked-rows";
 import { signInWithForm } from "./helpers/sign-in";
 import { pdfText } from "./helpers/pdf-text";
+import { approveAsManager, pinWithNote } from "./helpers/pin-and-approve";
 
 /**
  * The whole path for a chemistry with side reactions, through the screens only: a model of several
@@ -86,27 +87,11 @@ test("several reactions, end to end: model, path chart, sweep, sort by yield, ca
   await expect(page.getByTestId("profiles-chart")).toBeVisible();
   const train = ((await page.getByTestId("candidate-title").textContent()) ?? "").match(/CSTR|PFR/g)?.join(" → ") ?? "";
   expect(train).toMatch(/^(CSTR|PFR)( → (CSTR|PFR))?$/);
-  await page.getByLabel("Note for the reviewer").fill(note);
-  await page.getByTestId("pin-button").click();
   // The demo project already holds a current design: pinning asks first.
-  const supersede = page.getByRole("dialog", { name: "Supersede the current design?" });
-  await expect(page.getByTestId("pin-done").or(supersede)).toBeVisible();
-  if (await supersede.isVisible()) await supersede.getByRole("button", { name: "Pin and supersede" }).click();
-  await expect(page.getByTestId("pin-done")).toBeVisible();
-  await page.getByTestId("pin-done").getByRole("link", { name: "Open the project" }).click();
-  const pinned = page.getByTestId("pin").filter({ hasText: note });
-  await expect(pinned.getByTestId("pin-state")).toHaveText(/pending review/i);
+  const pinned = await pinWithNote(page, note);
 
   // 6. The manager approves it on the project page.
-  const managerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const managerPage = await managerCtx.newPage();
-  await signInWithForm(managerPage, "manager", 60_000);
-  await managerPage.getByRole("link", { name: "Mono-adduct campaign" }).click();
-  const toReview = managerPage.getByTestId("pin").filter({ hasText: note });
-  await toReview.getByLabel("Review comment").fill(`Approved for the campaign's design basis ${stamp}`);
-  await toReview.getByRole("button", { name: "Approve" }).click();
-  await expect(toReview.getByTestId("pin-state")).toHaveText(/approved/i);
-  await managerCtx.close();
+  await approveAsManager(browser, "Mono-adduct campaign", note, `Approved for the campaign's design basis ${stamp}`);
 
   // 7. The report names the train and carries the composition table, the path chart and the cautions.
   await page.reload();

@@ -7,17 +7,18 @@ import type { Actor } from "@/lib/authz/policy";
 import { designNetwork, rateNetworkTrain, type NetworkDesignSpec, type NetworkSpec } from "@/lib/engine";
 import { DEMO_NETWORK } from "@/lib/demo/network-demo";
 import { seedDemoData } from "@/lib/demo/seed";
-import { AppError } from "@/lib/errors";
 import { renderReportPdf } from "@/lib/reports/report-pdf";
 import { networkTrainOf, rateNetworkRobustness } from "@/lib/robustness/network-train";
 import { withNumbers } from "@/lib/robustness/numeric-path";
 import { isNetworkRobustnessResult } from "@/lib/schemas/robustness";
 import { getDesignReport } from "@/lib/services/design-reports";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
+import { networkCandidateRows, networkScenarioReference } from "@/lib/sweeps/network-candidate-rows";
 import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
 import { actorByEmail, createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
-import { demoNetworkSpec } from "../unit/helpers/network-pin";
+import { demoNetworkSpec, frozenNetworkCandidate } from "../unit/helpers/network-pin";
+import { refusal } from "../helpers/refusal";
 
 // Stored rows in the shapes the web app keeps for a sweep of several reactions (the contract of issue 13):
 // the sweep's starting spec, a scenario with the over-reaction's rate constant set, its ranked candidates
@@ -55,52 +56,15 @@ beforeAll(async () => {
     .insert(sweeps)
     .values({ teamId: engineer.teamId, projectId: project.id, kineticsVersionId: version.id, name: "Yield of B", baseSpec: base as unknown as Record<string, unknown>, total: 1, done: 1, status: "succeeded", submittedBy: engineer.userId })
     .returning();
-  const reference = { kind: "network" as const, singleCSTR: result.reference.singleCSTR, singlePFR: result.reference.singlePFR, objective: scenarioSpec.objective, feedVolumetricFlow: 1e-3 };
+  // Scenario reference and candidate rows built by the same code the sweep worker and the demo seed use.
+  const reference = networkScenarioReference(scenarioSpec, result);
   const [scenario] = await t.db
     .insert(scenarios)
-    .values({ sweepId: sweep.id, index: 0, overrides: OVERRIDES, status: "succeeded", reference, bestObjective: result.candidates[0].objective, candidateCount: result.candidates.length })
+    .values({ sweepId: sweep.id, index: 0, overrides: OVERRIDES, status: "succeeded", reference: { ...reference }, bestObjective: result.candidates[0].objective, candidateCount: result.candidates.length })
     .returning();
-  const rows = await t.db
-    .insert(candidates)
-    .values(
-      result.candidates.map((c) => ({
-        sweepId: sweep.id,
-        scenarioId: scenario.id,
-        sequenceKey: c.sequence.join("-"),
-        rank: c.rank,
-        stageCount: c.sequence.length,
-        feasible: c.feasible,
-        totalVolume: c.totalVolume,
-        conversion: c.conversion,
-        yield: c.yield,
-        selectivity: c.selectivity,
-        objectiveValue: c.objective,
-        onBound: c.onBound ?? null,
-        reason: c.reason ?? null,
-        stages: c.stages as unknown as Record<string, unknown>[],
-        levenspiel: [],
-      })),
-    )
-    .returning();
-  const best = result.candidates[0];
+  const rows = await t.db.insert(candidates).values(networkCandidateRows(sweep.id, scenario.id, result)).returning();
   candidateId = rows.find((r) => r.rank === 1)!.id;
-  frozen = {
-    kind: "network",
-    rank: 1,
-    sequence: best.sequence,
-    feasible: true,
-    totalVolume: best.totalVolume,
-    totalResidenceTime: best.totalResidenceTime,
-    conversion: best.conversion,
-    yield: best.yield,
-    selectivity: best.selectivity,
-    objective: best.objective,
-    outlet: best.outlet,
-    onBound: best.onBound ?? [],
-    stages: best.stages,
-    scenario: { index: 0, overrides: OVERRIDES, reference },
-    sweep: { id: sweep.id, name: sweep.name },
-  };
+  frozen = frozenNetworkCandidate(result.candidates[0], { index: 0, overrides: OVERRIDES, reference }, { id: sweep.id, name: sweep.name });
   const pinRow = { teamId: engineer.teamId, projectId: project.id, sweepId: sweep.id, candidateId, kineticsVersionId: version.id, candidate: frozen as unknown as Record<string, unknown>, pinnedBy: engineer.userId };
   [{ id: pinId }] = await t.db.insert(pinnedDesigns).values({ ...pinRow, spec: scenarioSpec as unknown as Record<string, unknown> }).returning();
   [{ id: pinWithoutSpecId }] = await t.db.insert(pinnedDesigns).values({ ...pinRow, candidateId: null, spec: {} }).returning();
@@ -110,16 +74,6 @@ afterEach(async () => {
   await Promise.all(workers.splice(0).map((w) => stopWorkerProcess(w, "SIGKILL")));
 });
 afterAll(() => t.drop());
-
-async function refusal(fn: () => Promise<unknown>): Promise<AppError> {
-  try {
-    await fn();
-  } catch (err) {
-    if (err instanceof AppError) return err;
-    throw err;
-  }
-  throw new Error("expected a refusal");
-}
 
 async function pdfText(pdf: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -155,7 +109,7 @@ describe("design report of a pinned train of several reactions, read from the da
   });
 
   it("another team's pin is not found", async () => {
-    expect((await refusal(() => getDesignReport(t.db, otherTeam, pinId))).code).toBe("not_found");
+    expect((await refusal(getDesignReport(t.db, otherTeam, pinId))).code).toBe("not_found");
   });
 });
 
@@ -189,12 +143,12 @@ describe("robustness of a train of several reactions", () => {
   });
 
   it("refuses a one-reaction input and a target, naming the field", async () => {
-    const wrong = await refusal(() => createCandidateRun(t.db, engineer, candidateId, { uncertain: [{ field: "reaction.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 10, seed: 1 }));
+    const wrong = await refusal(createCandidateRun(t.db, engineer, candidateId, { uncertain: [{ field: "reaction.rate.k", kind: "plusMinus", fraction: 0.2 }], samples: 10, seed: 1 }));
     expect(wrong.code).toBe("bad_request");
     expect(Object.keys(wrong.fields ?? {})).toEqual(["uncertain.0.field"]);
-    const target = await refusal(() => createCandidateRun(t.db, engineer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1, target: 0.9 }));
+    const target = await refusal(createCandidateRun(t.db, engineer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1, target: 0.9 }));
     expect(Object.keys(target.fields ?? {})).toEqual(["target"]);
-    const viewerRun = await refusal(() => createCandidateRun(t.db, viewer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1 }));
+    const viewerRun = await refusal(createCandidateRun(t.db, viewer, candidateId, { uncertain: kOverReaction, samples: 10, seed: 1 }));
     expect(["forbidden", "not_found"]).toContain(viewerRun.code);
   });
 

@@ -5,7 +5,6 @@ import { seedDemoData } from "@/lib/demo/seed";
 import { auditEntries, candidates, pinnedDesigns, projects, robustnessRuns, scenarios, sweeps } from "@/db/schema";
 import type { DesignSpec } from "@/lib/engine";
 import type { Actor } from "@/lib/authz/policy";
-import { AppError } from "@/lib/errors";
 import { rateUnderUncertainty } from "@/lib/robustness/monte-carlo";
 import { trainSpec } from "@/lib/robustness/train";
 import { candidateQuerySchema } from "@/lib/schemas/sweeps";
@@ -16,6 +15,7 @@ import { applyOverrides } from "@/lib/sweeps/grid";
 import { createCandidateRun, createPinRun, getRun, listCandidateRuns, listPinRuns } from "@/lib/services/robustness";
 import { actorByEmail, createTestDatabase, type TestDatabase } from "../helpers/test-db";
 import { FAST_RECOVERY_ENV, startWorkerProcess, stopWorkerProcess, waitFor } from "../helpers/worker-process";
+import { refusal } from "../helpers/refusal";
 
 let t: TestDatabase;
 let engineer: Actor;
@@ -49,16 +49,6 @@ const kPlusMinus20 = [{ field: "reaction.rate.k" as const, kind: "plusMinus" as 
 function direct(samples: number, seed: number, target: number) {
   const train = trainSpec(pin.spec as unknown as DesignSpec, (pin.candidate as { stages: Record<string, unknown>[] }).stages);
   return rateUnderUncertainty({ spec: train, uncertain: kPlusMinus20, target, samples, seed });
-}
-
-async function refusal(fn: () => Promise<unknown>): Promise<AppError> {
-  try {
-    await fn();
-  } catch (err) {
-    if (err instanceof AppError) return err;
-    throw err;
-  }
-  throw new Error("expected a refusal");
 }
 
 describe("robustness runs", () => {
@@ -106,7 +96,7 @@ describe("robustness runs", () => {
 
   it("a field the spec does not hold is a 400 naming uncertain.N.field, and nothing is written", async () => {
     const before = await t.db.select().from(robustnessRuns);
-    const err = await refusal(() =>
+    const err = await refusal(
       createCandidateRun(t.db, engineer, pin.candidateId!, {
         uncertain: [...kPlusMinus20, { field: "reaction.rate.vmax", kind: "uniform", low: 1, high: 2 }],
         samples: 100,
@@ -120,11 +110,11 @@ describe("robustness runs", () => {
 
   it("another team sees no candidate, pin or run; a viewer sees no run of a proposed pin", async () => {
     const [any] = await t.db.select().from(robustnessRuns).where(eq(robustnessRuns.pinId, pin.id));
-    expect((await refusal(() => createCandidateRun(t.db, otherTeam, pin.candidateId!, { uncertain: kPlusMinus20, samples: 10, seed: 1 }))).code).toBe("not_found");
-    expect((await refusal(() => listPinRuns(t.db, otherTeam, pin.id))).code).toBe("not_found");
-    expect((await refusal(() => getRun(t.db, otherTeam, any.id))).code).toBe("not_found");
-    expect((await refusal(() => getRun(t.db, viewer, any.id))).code).toBe("not_found");
-    expect((await refusal(() => createPinRun(t.db, viewer, pin.id, { uncertain: kPlusMinus20, samples: 10, seed: 1 }))).code).toBe("not_found");
+    expect((await refusal(createCandidateRun(t.db, otherTeam, pin.candidateId!, { uncertain: kPlusMinus20, samples: 10, seed: 1 }))).code).toBe("not_found");
+    expect((await refusal(listPinRuns(t.db, otherTeam, pin.id))).code).toBe("not_found");
+    expect((await refusal(getRun(t.db, otherTeam, any.id))).code).toBe("not_found");
+    expect((await refusal(getRun(t.db, viewer, any.id))).code).toBe("not_found");
+    expect((await refusal(createPinRun(t.db, viewer, pin.id, { uncertain: kPlusMinus20, samples: 10, seed: 1 }))).code).toBe("not_found");
   });
 
   it("a sweep with robustness stores probabilityMeet on every feasible candidate, and sorting by it works", async () => {
@@ -134,7 +124,7 @@ describe("robustness runs", () => {
     const spec = { feed: { flowA: 0.02, concA: 1000, temperature: 330 }, reaction: { rate: { law: "power" as const, k: 0.002, orders: { A: 1 } } } };
     const { version } = await createKineticsModel(t.db, engineer, projectId, { name: "First order, robustness sweep", spec, note: "" });
     const robustness = { uncertain: kPlusMinus20, samples: 200, seed: 9 };
-    const bad = await refusal(() =>
+    const bad = await refusal(
       createSweep(t.db, engineer, projectId, { kineticsVersionId: version.id, target: { conversion: 0.9 }, train: { maxStages: 2 }, grid: [], robustness: { ...robustness, uncertain: [{ field: "reaction.rate.km", kind: "plusMinus", fraction: 0.1 }] } }),
     );
     expect(Object.keys(bad.fields ?? {})).toEqual(["robustness.uncertain.0.field"]);

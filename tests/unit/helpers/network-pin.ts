@@ -1,5 +1,5 @@
 import type { PinnedDesign } from "@/db/schema";
-import { designNetwork, type NetworkDesignSpec } from "@/lib/engine";
+import { designNetwork, type NetworkDesignResult, type NetworkDesignSpec } from "@/lib/engine";
 import { DEMO_NETWORK } from "@/lib/demo/network-demo";
 import type { PinnedNetworkCandidate } from "@/lib/sweeps/stored-json";
 
@@ -11,13 +11,16 @@ export function demoNetworkSpec(): NetworkDesignSpec {
 }
 
 /**
- * The best train of a network spec frozen by hand into the shape a pinned design keeps
- * (PinnedNetworkCandidate), and a pin row holding it: what pinning a network candidate stores.
+ * One ranked train of the engine's result frozen by hand into the shape a pinned design keeps
+ * (PinnedNetworkCandidate), under the scenario and sweep given: the one builder the unit, integration
+ * and browser tests share, so a change to the frozen shape is made once.
  */
-export function frozenNetworkPin(spec: NetworkDesignSpec = demoNetworkSpec(), feedVolumetricFlow = 1e-3): { pin: PinnedDesign; candidate: PinnedNetworkCandidate; spec: NetworkDesignSpec } {
-  const result = designNetwork(spec);
-  const best = result.candidates[0];
-  const candidate: PinnedNetworkCandidate = {
+export function frozenNetworkCandidate(
+  best: NetworkDesignResult["candidates"][number],
+  scenario: PinnedNetworkCandidate["scenario"],
+  sweep: PinnedNetworkCandidate["sweep"],
+): PinnedNetworkCandidate {
+  return {
     kind: "network",
     rank: best.rank,
     sequence: best.sequence,
@@ -31,9 +34,19 @@ export function frozenNetworkPin(spec: NetworkDesignSpec = demoNetworkSpec(), fe
     outlet: best.outlet,
     onBound: best.onBound ?? [],
     stages: best.stages,
-    scenario: { index: 0, overrides: {}, reference: { kind: "network", singleCSTR: result.reference.singleCSTR, singlePFR: result.reference.singlePFR, objective: spec.objective, feedVolumetricFlow } },
-    sweep: { id: "00000000-0000-4000-8000-000000000001", name: "Demo: yield of B" },
+    scenario,
+    sweep,
   };
+}
+
+/**
+ * The best train of a network spec frozen by hand into the shape a pinned design keeps
+ * (PinnedNetworkCandidate), and a pin row holding it: what pinning a network candidate stores.
+ */
+export function frozenNetworkPin(spec: NetworkDesignSpec = demoNetworkSpec(), feedVolumetricFlow = 1e-3): { pin: PinnedDesign; candidate: PinnedNetworkCandidate; spec: NetworkDesignSpec } {
+  const result = designNetwork(spec);
+  const reference = { kind: "network" as const, singleCSTR: result.reference.singleCSTR, singlePFR: result.reference.singlePFR, objective: spec.objective, feedVolumetricFlow };
+  const candidate = frozenNetworkCandidate(result.candidates[0], { index: 0, overrides: {}, reference }, { id: "00000000-0000-4000-8000-000000000001", name: "Demo: yield of B" });
   const pin: PinnedDesign = {
     id: "00000000-0000-4000-8000-0000000000aa",
     teamId: "00000000-0000-4000-8000-0000000000bb",
