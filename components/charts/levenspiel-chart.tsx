@@ -1,6 +1,7 @@
 "use client";
 
-import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
+import { useId, useMemo, useState, type KeyboardEvent, type PointerEvent } from "react";
+import { useWidth } from "./use-width";
 import { chartGeometry, interpolate, ticks, type ChartStage, type Point } from "@/lib/charts/levenspiel-geometry";
 import { tickFormatter } from "./tick-format";
 import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
@@ -23,21 +24,6 @@ export interface LevenspielChartProps {
 
 const MARGIN = { top: 14, right: 16, bottom: 40, left: 64 };
 const COMPACT_MARGIN = { top: 2, right: 2, bottom: 2, left: 2 };
-
-/** Width of the element, followed as it resizes. */
-function useWidth(fallback: number) {
-  const ref = useRef<HTMLDivElement>(null);
-  const [width, setWidth] = useState(fallback);
-  useEffect(() => {
-    const el = ref.current;
-    if (!el) return;
-    setWidth(el.clientWidth || fallback);
-    const ro = new ResizeObserver(([entry]) => setWidth(Math.max(40, Math.round(entry.contentRect.width))));
-    ro.observe(el);
-    return () => ro.disconnect();
-  }, [fallback]);
-  return [ref, width] as const;
-}
 
 /**
  * Levenspiel area chart: FA0/(-rA) against conversion, each CSTR a filled rectangle, each PFR a

@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef, useState } from "react";
+import { useWidth } from "./use-width";
 import { axisTicks } from "./axis-ticks";
 import { stageStyle } from "@/lib/charts/stage-styles";
 
@@ -54,21 +54,6 @@ function rangeOf(values: number[], given?: [number, number]): [number, number] {
   let hi = Math.max(...finite);
   if (!(hi > lo)) hi = lo + (Math.abs(lo) || 1);
   return [lo, hi * 1.04 - lo * 0.04];
-}
-
-/** Width of the element, followed as it resizes. */
-function useWidth(fallback: number) {
-  const ref = useRef<HTMLDivElement>(null);
-  const [width, setWidth] = useState(fallback);
-  useEffect(() => {
-    const el = ref.current;
-    if (!el) return;
-    setWidth(el.clientWidth || fallback);
-    const ro = new ResizeObserver(([entry]) => setWidth(Math.max(40, Math.round(entry.contentRect.width))));
-    ro.observe(el);
-    return () => ro.disconnect();
-  }, [fallback]);
-  return [ref, width] as const;
 }
 
 export function LineChart({ series, xLabel, yLabel, summary, height = 300, testId, xRange, yRange, bands = [] }: LineChartProps) {

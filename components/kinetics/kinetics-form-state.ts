@@ -7,8 +7,8 @@ import { kineticsModelCreateSchema, kineticsSpecSchema, type KineticsSpec } from
 import { fromSI, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
 import { RATE_CONSTANT_UNIT_SEPARATOR, splitRateConstantUnit } from "@/lib/units/typed-units";
 import { asNumber, show, storedQuantities } from "./stored-quantities";
+import { q, quantityInput, type FormIssue, type QuantityInput } from "./form-quantities";
 
-const quantityInput = z.object({ value: z.string(), unit: z.string() });
 const rateConstantInput = z.object({ value: z.string(), conc: z.string(), time: z.string() });
 const row = z.object({ name: z.string(), value: z.string() });
 
@@ -46,15 +46,6 @@ export const kineticsFormValuesSchema = z.object({
   }),
 });
 export type KineticsFormValues = z.infer<typeof kineticsFormValuesSchema>;
-export type QuantityInput = z.infer<typeof quantityInput>;
-
-export interface FormIssue {
-  /** Form field path, e.g. "feed.flowA.value" or "reaction.rate.orders". */
-  path: string;
-  message: string;
-}
-
-const q = (value: string | number, unit: string): QuantityInput => ({ value: String(value), unit });
 
 /** A new model's starting point: invented first-order liquid kinetics. */
 export function defaultKineticsValues(): KineticsFormValues {

@@ -13,8 +13,8 @@ import { MAX_NETWORK_REACTIONS, MAX_NETWORK_SPECIES, networkKineticsSpecSchema, 
 import { isUnit, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
 import { RATE_CONSTANT_UNIT_SEPARATOR, splitRateConstantUnit } from "@/lib/units/typed-units";
 import { asNumber, show, storedQuantities } from "./stored-quantities";
+import { q, quantityInput, type FormIssue, type QuantityInput } from "./form-quantities";
 
-const quantityInput = z.object({ value: z.string(), unit: z.string() });
 const rateConstantInput = z.object({ value: z.string(), conc: z.string(), time: z.string() });
 const row = z.object({ name: z.string(), value: z.string() });
 /** Species id → the text typed for it (blank: not involved). */
@@ -47,15 +47,6 @@ export const networkFormValuesSchema = z.object({
 });
 export type NetworkFormValues = z.infer<typeof networkFormValuesSchema>;
 export type NetworkReactionValues = z.infer<typeof reactionInput>;
-type QuantityInput = z.infer<typeof quantityInput>;
-
-export interface FormIssue {
-  /** Form field path, e.g. "feed.volumetricFlow.value" or "reactions.1.k.value". */
-  path: string;
-  message: string;
-}
-
-const q = (value: string | number, unit: string): QuantityInput => ({ value: String(value), unit });
 
 /** A reaction with nothing typed in yet: a first-order power law. */
 export function blankReaction(): NetworkReactionValues {

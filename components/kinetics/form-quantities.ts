@@ -1,0 +1,15 @@
+import { z } from "zod";
+
+/* What both kinetics editors (one reaction, several reactions) share about a typed quantity and a form problem. */
+
+/** A number as typed and the unit picked beside it. */
+export const quantityInput = z.object({ value: z.string(), unit: z.string() });
+export type QuantityInput = z.infer<typeof quantityInput>;
+
+/** A problem at a field of the form, by the form's own field path (e.g. "feed.flowA.value", "reactions.1.k.value"). */
+export interface FormIssue {
+  path: string;
+  message: string;
+}
+
+export const q = (value: string | number, unit: string): QuantityInput => ({ value: String(value), unit });
