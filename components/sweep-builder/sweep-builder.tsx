@@ -99,7 +99,7 @@ export function SweepBuilder({
             />
             {v.trainMode === "range" ? (
               <div className="flex flex-wrap items-start gap-4">
-                {num("maxStages", "Maximum stages (1–8)")}
+                {num("maxStages", "Largest number of stages (1–8)")}
                 <fieldset>
                   <legend className="field-label">Stage types</legend>
                   <div className="flex gap-3 text-sm">

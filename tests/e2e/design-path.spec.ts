@@ -92,7 +92,7 @@ test("bench data to downloaded report: upload, fix, accept, fit, sweep, pin, app
   await page.getByRole("link", { name: "Build a sweep on version 1" }).click();
   await expect(page.getByRole("heading", { name: "New sweep" })).toBeVisible();
   await expect(page.getByLabel("Kinetics version").locator("option:checked")).toHaveText(`${modelName} · v1`);
-  await page.getByLabel("Maximum stages (1–8)").fill("2");
+  await page.getByLabel("Largest number of stages (1–8)").fill("2");
   await expect(page.getByTestId("scenario-count")).toHaveText("1");
   await expect(page.getByTestId("optimisation-count")).toHaveText("6"); // 2 + 4 sequences of 1..2 stages
   await page.getByRole("button", { name: "Submit sweep" }).click();

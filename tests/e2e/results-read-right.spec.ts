@@ -212,7 +212,7 @@ test("sweep builder: refuses bad values as typed, starts costs from the project'
   await expect(trains).not.toHaveText("—");
 
   // Nine stages is beyond the engine's eight: refused as typed (not 1,022 sequences counted).
-  const stages = page.getByLabel("Maximum stages (1–8)");
+  const stages = page.getByLabel("Largest number of stages (1–8)");
   await stages.fill("9");
   await expect(page.locator("#s-maxStages-error")).toContainText("from 1 to 8");
   await expect(trains).toHaveText("—");

@@ -112,7 +112,7 @@ test("the kinetics form names a rate constant that is not a number by its label"
 
 test("the sweep builder names too many stages and an unreadable value by their labels", async ({ browser }) => {
   const page = await engineerPage(browser, `/projects/${projectId}/sweeps/new?version=${versionId}`);
-  await page.getByLabel("Maximum stages (1–8)").fill("9");
+  await page.getByLabel("Largest number of stages (1–8)").fill("9");
   await page.getByRole("button", { name: "+ Vary a field" }).click();
   await page.getByLabel("Values (comma separated)").fill("0.02, abc");
   await page.getByRole("button", { name: "Submit sweep" }).click();
