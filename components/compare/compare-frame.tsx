@@ -1,6 +1,9 @@
 import Link from "next/link";
 import { UnitSelect } from "@/components/sweeps/unit-select";
 import type { VolumeUnit } from "@/lib/charts/volume-units";
+import type { StageType } from "@/lib/engine";
+import { describeOverrides } from "@/components/sweeps/scenario-picker";
+import { StageBadges } from "@/components/sweeps/stage-badges";
 
 /** A train compared, as far as the frame of the comparison needs it. */
 interface Compared {
@@ -59,5 +62,22 @@ export function DifferencesTable({ list, children }: { list: Compared[]; childre
         <tbody>{children}</tbody>
       </table>
     </section>
+  );
+}
+
+/** The head of one train's card: its letter, rank and stages, and the sweep and scenario it came from. */
+export function CompareCardHeading({ c, index, unit }: { c: Compared & { sequence: StageType[]; scenario: { index: number; overrides: Record<string, number> } }; index: number; unit: VolumeUnit }) {
+  return (
+    <div className="border-b border-line px-3 py-2">
+      <h2 id={`cmp-${c.id}`} className="flex flex-wrap items-center gap-2">
+        {trainLetter(index)} · rank {c.rank} <StageBadges sequence={c.sequence} />
+      </h2>
+      <p className="text-xs text-ink-soft">
+        <Link href={`/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}/candidates/${c.id}?unit=${unit}`} className="hover:underline">
+          {c.sweep.name}
+        </Link>{" "}
+        · scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
+      </p>
+    </div>
   );
 }

@@ -1,6 +1,5 @@
 "use client";
 
-import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useMemo } from "react";
 import { useQuery } from "@tanstack/react-query";
@@ -8,7 +7,6 @@ import { StageTable } from "@/components/candidates/stage-table";
 import { Cautions } from "@/components/cautions/cautions";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
-import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { ErrorPanel, LoadingPanel } from "@/components/sweeps/loading-and-error-panels";
 // One-reaction screen until it learns the network kind (kind "network" carries other stages).
@@ -20,7 +18,7 @@ import { useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import type { NetworkCandidateDetail } from "@/components/candidates/network-types";
 import { NetworkCompare } from "./network-compare";
-import { CompareHeader, DifferencesTable } from "./compare-frame";
+import { CompareCardHeading, CompareHeader, DifferencesTable } from "./compare-frame";
 
 const signed = (v: number | null, text: (n: number) => string) => (v === null ? "—" : v === 0 ? "best" : `+${text(v)}`);
 
@@ -89,17 +87,7 @@ export function CompareView() {
       <div className={`grid gap-4 ${cols}`}>
         {list.map((c, i) => (
           <section key={c.id} className="card min-w-0 overflow-hidden" aria-labelledby={`cmp-${c.id}`} data-testid="compare-card">
-            <div className="border-b border-line px-3 py-2">
-              <h2 id={`cmp-${c.id}`} className="flex flex-wrap items-center gap-2">
-                {String.fromCharCode(65 + i)} · rank {c.rank} <StageBadges sequence={c.sequence} />
-              </h2>
-              <p className="text-xs text-ink-soft">
-                <Link href={`/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}/candidates/${c.id}?unit=${unit}`} className="hover:underline">
-                  {c.sweep.name}
-                </Link>{" "}
-                · scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
-              </p>
-            </div>
+            <CompareCardHeading c={c} index={i} unit={unit} />
             <div className="p-3">
               {c.feasible ? (
                 <LevenspielChart {...charts[i]} yMax={yMax} volumeUnit={unit} height={260} equilibrium={c.scenario.reference?.equilibriumConversion ?? null} />

@@ -1,6 +1,5 @@
 "use client";
 
-import Link from "next/link";
 import { useQueries } from "@tanstack/react-query";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { Cautions } from "@/components/cautions/cautions";
@@ -9,14 +8,13 @@ import { NetworkPathChart } from "@/components/candidates/network-charts";
 import { boundNote, feedOf, objectiveLabel, percent, trainResidenceTime } from "@/components/candidates/network-results-data";
 import { productOf, speciesOf, type NetworkCandidateDetail } from "@/components/candidates/network-types";
 import { useNetworkUnits } from "@/components/candidates/network-units";
-import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { useUrlUnit } from "@/components/sweeps/unit-select";
 import { formatVolume } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import { compareNetworkTrains } from "./network-compare-data";
-import { CompareHeader, DifferencesTable, trainLetter } from "./compare-frame";
+import { CompareCardHeading, CompareHeader, DifferencesTable, trainLetter } from "./compare-frame";
 
 /** A difference to the best: "best" for the best one itself, else the gap with its sign. */
 const gap = (v: number | null, text: (n: number) => string, sign: "+" | "−") => (v === null ? "—" : Math.abs(v) < 1e-12 ? "best" : `${sign}${text(v)}`);
@@ -82,17 +80,7 @@ export function NetworkCompare({ list }: { list: NetworkCandidateDetail[] }) {
       <div className="grid gap-4">
         {list.map((c, i) => (
           <section key={c.id} className="card min-w-0 overflow-hidden" aria-labelledby={`cmp-${c.id}`} data-testid="compare-card">
-            <div className="border-b border-line px-3 py-2">
-              <h2 id={`cmp-${c.id}`} className="flex flex-wrap items-center gap-2">
-                {trainLetter(i)} · rank {c.rank} <StageBadges sequence={c.sequence} />
-              </h2>
-              <p className="text-xs text-ink-soft">
-                <Link href={`/projects/${c.sweep.projectId}/sweeps/${c.sweep.id}/candidates/${c.id}?unit=${unit}`} className="hover:underline">
-                  {c.sweep.name}
-                </Link>{" "}
-                · scenario {c.scenario.index + 1}: {describeOverrides(c.scenario.overrides)}
-              </p>
-            </div>
+            <CompareCardHeading c={c} index={i} unit={unit} />
             {!c.feasible ? (
               <p className="p-3 text-red-800">This train cannot meet the limits{c.reason ? `: ${c.reason}` : "."}</p>
             ) : views[i]?.data?.paths && views[i]?.data?.profiles ? (
