@@ -43,6 +43,13 @@ export interface StiffOptions {
   maxStep?: number;
   /** Points (ascending, within [t0, t1]) where the solution is wanted, from the dense output. */
   outputTimes?: readonly number[];
+  /**
+   * Largest step as a fraction of the distance from the start, never below `floor`: keeps every step short
+   * against where it lies, for a caller that reads values between steps off the cubic Hermite dense output.
+   */
+  maxStepRelative?: { fraction: number; floor: number };
+  /** Called with the start and with every accepted point (t, y, f(t, y)); the arrays are reused afterwards: copy them. */
+  onStep?: (t: number, y: Float64Array, f: Float64Array) => void;
   /** Stop at the first point where this becomes true (located by bisection on the dense output). */
   stopWhen?: (t: number, y: Float64Array) => boolean;
   /** How the integration is named in error messages, e.g. "the species balances along the PFR". */
@@ -129,6 +136,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
   evalF(t, y, f0);
   if (!allFinite(f0)) fail(`cannot start: the rates are not finite at ${variable} = ${fmt(t0)}`);
   while (nextOutput < outputTimes.length && outputTimes[nextOutput] === t0) outputs.push({ t: outputTimes[nextOutput++], y: Float64Array.from(y) });
+  options.onStep?.(t, y, f0);
   if (options.stopWhen?.(t, y)) return finish("stopped");
   if (t1 === t0) return finish("ok");
 
@@ -175,6 +183,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
   for (;;) {
     if (stats.steps >= maxSteps) fail(`did not reach the end within ${maxSteps} steps (stopped at ${variable} = ${fmt(t)} of ${fmt(t1)}); the reactions may be too fast for the interval, or a rate expression may jump`);
     if (0.1 * Math.abs(h) <= Math.abs(t) * EPS || !(h > 0)) fail(`cannot continue at ${variable} = ${fmt(t)}: the step became too small to resolve (a rate may be discontinuous or the solution may grow without bound)`);
+    if (options.maxStepRelative) h = Math.min(h, options.maxStepRelative.fraction * Math.max(t - t0, options.maxStepRelative.floor));
     let last = false;
     if (t + 1.0001 * h >= t1) {
       h = t1 - t;
@@ -268,6 +277,7 @@ export function integrateStiff(f: OdeFunction, y0: ArrayLike<number>, t0: number
       f1 = fOld;
       t = tNew;
       jacobianCurrent = false;
+      options.onStep?.(t, y, f0);
       if (last) return finish("ok");
       let hNew = Math.min(h / factor, hmax);
       if (reject) hNew = Math.min(hNew, h);

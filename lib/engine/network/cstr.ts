@@ -37,6 +37,8 @@ export interface CstrOptions {
   path?: string;
   /** Number of tube compositions used as starts besides the feed; 0 seeks only the state reached from the feed. @default 25 */
   starts?: number;
+  /** Newton's first start instead of the feed (with `starts: 0`, the only one besides `seeds`); a tank of one state may start anywhere. */
+  startFrom?: ArrayLike<number>;
   /** Further starts for Newton, tried after the feed (e.g. the states of a slightly smaller tank, when following a locus). */
   seeds?: readonly ArrayLike<number>[];
 }
@@ -60,7 +62,7 @@ export function cstrSteadyStates(network: ResolvedNetwork | Kinetics, FinLike: A
   if (V === 0) return [{ flows: Fin, conversion: conversion(Fin), residual: 0 }];
 
   const count = options.starts ?? 25;
-  const starts: Float64Array[] = [Fin, ...(options.seeds ?? []).map((q) => Float64Array.from(q))];
+  const starts: Float64Array[] = [options.startFrom === undefined ? Fin : Float64Array.from(options.startFrom), ...(options.seeds ?? []).map((q) => Float64Array.from(q))];
   if (count > 0) {
     const half = (count - 1) / 2;
     const volumes = Array.from({ length: count }, (_, k) => V * 10 ** (((k - half) / half) * 4));

@@ -117,6 +117,8 @@ export function makeProblem(spec: NetworkDesignSpec, kin: Kinetics): DesignProbl
     tanksUnique: tanksHaveOneState(net),
     gridPoints: GRID_POINTS,
     polishStarts: POLISH_STARTS,
+    warmStarts: [],
+    feedTube: {},
   };
 }
 

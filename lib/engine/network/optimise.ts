@@ -149,7 +149,7 @@ export function optimiseSequence(p: DesignProblem, sequence: StageType[], memo: 
     grid.forEach((t, q) => {
       const taus = [...prefix, t];
       if (total(taus) > p.maxTotalTau * (1 + 1e-12)) return;
-      const F = Fprefix === null ? null : last === "PFR" ? (tube?.[q] ?? null) : solvable(() => stageOutlet(p, last, Fprefix, t, T));
+      const F = Fprefix === null ? null : last === "PFR" ? (tube?.[q] ?? null) : solvable(() => stageOutlet(p, last, Fprefix, t, T, n - 1));
       starts.push({ sequence, taus, temps: [...prefixTemps, T], score: F === null ? UNSOLVED : scoreOutlet(p, F, total(taus)) });
     });
   }

@@ -115,7 +115,7 @@ export function pfrOutletByResidenceTime(network: ResolvedNetwork | Kinetics, Fi
   return pfrOutlet(network, Fin, T, tau * net.v0, options);
 }
 
-function jacobianRows(kin: Kinetics, y: Float64Array, T: number, J: number[][]): void {
+export function jacobianRows(kin: Kinetics, y: Float64Array, T: number, J: number[][]): void {
   const n = kin.net.nSpecies;
   const flat = scratchFor(n);
   kin.jacobian(y, T, flat);

@@ -1,5 +1,6 @@
 import { EngineError } from "../errors";
 import { cstrSteadyStates } from "./cstr";
+import { buildFeedTube, type FeedTube } from "./feed-tube";
 import type { Kinetics } from "./kinetics";
 import { pfrOutlet } from "./pfr";
 import type { StageType } from "../types";
@@ -37,6 +38,13 @@ export interface DesignProblem {
   /** Points of the log-spaced scan grid (0 comes in addition) and designs polished per sequence. */
   gridPoints: number;
   polishStarts: number;
+  /**
+   * The last tank outlet solved at each stage position, Newton's first start for the next tank solved
+   * there (only when tanks have one state, so any start that converges gives that state).
+   */
+  warmStarts?: (Float64Array | undefined)[];
+  /** The tube fed with the feed, read off one fine integration (feed-tube.ts): built on first use, null when not applicable. */
+  feedTube?: { value?: FeedTube | null };
 }
 
 /**
@@ -45,22 +53,54 @@ export interface DesignProblem {
  */
 export const NEGLIGIBLE_TAU_FRACTION = 1e-12;
 
-export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number, T = p.T): Float64Array {
+export function stageOutlet(p: DesignProblem, type: StageType, Fin: Float64Array, tau: number, T = p.T, position = -1): Float64Array {
   if (tau <= NEGLIGIBLE_TAU_FRACTION * p.tauLo) return Fin;
   const V = tau * p.kin.net.v0;
-  if (type === "PFR") return pfrOutlet(p.kin, Fin, T, V, { rtol: p.searchRtol }).flows;
+  if (type === "PFR") return (Fin === p.kin.net.F0 && T === p.T ? feedTubeAt(p, tau) : null) ?? pfrOutlet(p.kin, Fin, T, V, { rtol: p.searchRtol }).flows;
   if (!p.tanksUnique) return cstrSteadyStates(p.kin, Fin, T, V)[0].flows;
-  try {
-    return cstrSteadyStates(p.kin, Fin, T, V, { starts: 0 })[0].flows;
-  } catch {
-    // Newton from the feed can fail for a large tank; the full search starts from a tube's compositions too.
-    return cstrSteadyStates(p.kin, Fin, T, V)[0].flows;
+  const warm = position >= 0 ? p.warmStarts?.[position] : undefined;
+  let F: Float64Array | null = null;
+  if (warm !== undefined) {
+    try {
+      F = cstrSteadyStates(p.kin, Fin, T, V, { starts: 0, startFrom: warm })[0].flows;
+    } catch {
+      // Newton from the last tank solved here did not converge: the feed's start follows.
+    }
   }
+  if (F === null) {
+    try {
+      F = cstrSteadyStates(p.kin, Fin, T, V, { starts: 0 })[0].flows;
+    } catch {
+      // Newton from the feed can fail for a large tank; the full search starts from a tube's compositions too.
+      F = cstrSteadyStates(p.kin, Fin, T, V)[0].flows;
+    }
+  }
+  if (position >= 0 && p.warmStarts) p.warmStarts[position] = F;
+  return F;
+}
+
+/**
+ * The tube fed with the feed at the feed's temperature, read off the one fine integration (feed-tube.ts);
+ * null when that does not apply: at 1e-9 or tighter (the repair, which sets a limit exactly, and the
+ * reported design; the bench's finer search) every tube is integrated, as are lengths beyond the scan's range.
+ */
+function feedTubeAt(p: DesignProblem, tau: number): Float64Array | null {
+  const holder = p.feedTube;
+  if (holder === undefined || p.searchRtol <= 1e-9) return null;
+  if (holder.value === undefined) {
+    const end = Math.min(p.tauHi, p.maxStageTau, p.maxTotalTau);
+    holder.value = buildFeedTube(p.kin, p.tauLo, end);
+  }
+  return holder.value?.at(tau) ?? null;
 }
 
 /** Outlets of a PFR fed with Fin at every residence time of `taus` (ascending), from one integration. */
 export function pfrOutletsAt(p: DesignProblem, Fin: Float64Array, taus: readonly number[], T = p.T): Float64Array[] {
   const v0 = p.kin.net.v0;
+  if (Fin === p.kin.net.F0 && T === p.T) {
+    const read = taus.map((t) => (t > 0 ? feedTubeAt(p, t) : Fin));
+    if (read.every((F) => F !== null)) return read as Float64Array[];
+  }
   const positive = taus.filter((t) => t > 0);
   const res = positive.length === 0 ? null : pfrOutlet(p.kin, Fin, T, positive[positive.length - 1] * v0, { outputVolumes: positive.map((t) => t * v0), rtol: p.searchRtol });
   let q = 0;
@@ -101,7 +141,7 @@ export function trainOutlets(p: DesignProblem, sequence: readonly StageType[], t
   const out: Float64Array[] = [];
   let F = p.kin.net.F0;
   sequence.forEach((type, s) => {
-    F = stageOutlet(p, type, F, taus[s], temps?.[s] ?? p.T);
+    F = stageOutlet(p, type, F, taus[s], temps?.[s] ?? p.T, s);
     out.push(F);
   });
   return out;
