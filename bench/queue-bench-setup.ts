@@ -8,6 +8,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { eq } from "drizzle-orm";
 import pg from "pg";
+import { SMTPServer } from "smtp-server";
 import { createDb } from "../db/client";
 import { runMigrations } from "../db/migrate";
 import { users } from "../db/schema";
@@ -16,8 +17,22 @@ import { createDatabase, startThrowawayCluster } from "../scripts/lib/postgres";
 
 export const benchRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 
-/** `n` worker processes, resolved once each says it is listening for jobs. */
-export function startWorkers(n: number, env: NodeJS.ProcessEnv): Promise<ChildProcess[]> {
+/** A mail sink on a free loopback port for the workers' "sweep finished" mail (discarded), started once. */
+let mailSink: Promise<{ url: string; server: SMTPServer }> | null = null;
+function startMailSink() {
+  mailSink ??= new Promise((resolve) => {
+    const server = new SMTPServer({ authOptional: true, disabledCommands: ["STARTTLS"], logger: false, onData: (stream, _s, done) => (stream.resume(), stream.on("end", () => done())) });
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.server.address();
+      resolve({ url: `smtp://127.0.0.1:${typeof address === "object" && address ? address.port : 0}`, server });
+    });
+  });
+  return mailSink;
+}
+
+/** `n` worker processes, resolved once each says it is listening for jobs; their mail goes to a local sink. */
+export async function startWorkers(n: number, baseEnv: NodeJS.ProcessEnv): Promise<ChildProcess[]> {
+  const env = { ...baseEnv, SMTP_URL: (await startMailSink()).url };
   return Promise.all(
     Array.from({ length: n }, () => {
       const child = spawn(process.execPath, ["--import", "tsx", "worker/index.ts"], { cwd: benchRoot, env, stdio: ["ignore", "pipe", "inherit"] });
@@ -59,6 +74,7 @@ export function runQueueBench(body: (serverUrl: string, children: ChildProcess[]
       await body(cluster.serverUrl, children);
     } finally {
       await stopAll(children.filter((c) => c.exitCode === null));
+      if (mailSink) (await mailSink).server.close();
       cluster.stop();
     }
   };

@@ -1,5 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import type { NetworkDesignSpec } from "../../../../lib/engine/network/design-types";
 import { designNetwork } from "../../../../lib/engine/network/design";
 import { makeKinetics } from "../../../../lib/engine/network/kinetics";
 import { resolveNetwork } from "../../../../lib/engine/network/resolve";
@@ -60,17 +61,17 @@ describe("network designer: Van de Vusse and properties", { timeout: 300000 }, (
     // tank of about 2 % of the tube's volume ahead of it lowers A's concentration where the second-order
     // dimer would form (common practice: a tank first favours the lower-order reaction). A train never does
     // worse than its own part, so CSTR-PFR's best is at least the single tube's; here strictly better.
-    const spec = {
+    const spec: NetworkDesignSpec = {
       feed: { volumetricFlow: 0.1, concentrations: { A: 580, B: 0, C: 0, D: 0 }, temperature: 300 },
-      phase: "liquid" as const,
+      phase: "liquid",
       reactions: [
-        { stoichiometry: { A: -1, B: 1 }, rate: { law: "power" as const, k: 10, orders: { A: 1 } } },
-        { stoichiometry: { B: -1, C: 1 }, rate: { law: "power" as const, k: 0.5, orders: { B: 1 } } },
-        { stoichiometry: { A: -2, D: 1 }, rate: { law: "power" as const, k: 5e-4, orders: { A: 2 } } },
+        { stoichiometry: { A: -1, B: 1 }, rate: { law: "power", k: 10, orders: { A: 1 } } },
+        { stoichiometry: { B: -1, C: 1 }, rate: { law: "power", k: 0.5, orders: { B: 1 } } },
+        { stoichiometry: { A: -2, D: 1 }, rate: { law: "power", k: 5e-4, orders: { A: 2 } } },
       ],
       keyReactant: "A",
-      train: { candidates: [["CSTR", "PFR"] as ("CSTR" | "PFR")[]] },
-      objective: { maximise: "yield" as const, product: "B" },
+      train: { candidates: [["CSTR", "PFR"]] },
+      objective: { maximise: "yield", product: "B" },
       constraints: { minConversion: 0.5, maxTotalVolume: 0.5 },
     };
     const r = designNetwork(spec);
