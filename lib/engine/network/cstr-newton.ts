@@ -47,19 +47,9 @@ export function newtonCstr(
   const n = net.nSpecies;
   let FTin = 0;
   for (let i = 0; i < n; i++) FTin += Fin[i];
-  const z = new Float64Array(n);
-  for (let i = 0; i < n; i++) z[i] = limited.has(i) ? fractions0[i] : Math.max(start[i], 0);
-  const F = new Float64Array(n);
   const m = net.nReactions;
-  const r = new Float64Array(m);
-  const gross = new Float64Array(m);
-  const G = new Float64Array(n);
-  const J = new Float64Array(n * n);
-  const A = new Float64Array(n * n);
-  const pivots = new Int32Array(n);
-  const trial = new Float64Array(n);
-  const Gtrial = new Float64Array(n);
-  const delta = new Float64Array(n);
+  const { z, F, r, gross, G, J, A, pivots, trial, Gtrial, delta } = workArrays(n, m);
+  for (let i = 0; i < n; i++) z[i] = limited.has(i) ? fractions0[i] : Math.max(start[i], 0);
 
   /** Flows and reaction weights from the unknowns, then the balances into out; returns their scaled norm. */
   const balances = (zz: Float64Array, out: Float64Array): number => {
@@ -179,4 +169,21 @@ export function newtonCstr(
   const fractions = new Float64Array(n).fill(1);
   for (const i of limited) fractions[i] = z[i];
   return { flows: Float64Array.from(F), fractions, residual: norm, balances: Float64Array.from(G), converged: converged || norm <= 1e-11 };
+}
+
+/**
+ * Work arrays by problem size, reused from call to call: the search solves thousands of small tanks, and
+ * allocating a dozen arrays for each was a tenth of its time in garbage collection. newtonCstr does not
+ * call itself and copies what it returns, so one set per size suffices.
+ */
+const work = new Map<string, ReturnType<typeof allocate>>();
+function allocate(n: number, m: number) {
+  const v = () => new Float64Array(n);
+  return { z: v(), F: v(), r: new Float64Array(m), gross: new Float64Array(m), G: v(), J: new Float64Array(n * n), A: new Float64Array(n * n), pivots: new Int32Array(n), trial: v(), Gtrial: v(), delta: v() };
+}
+function workArrays(n: number, m: number) {
+  const key = `${n} ${m}`;
+  let w = work.get(key);
+  if (!w) work.set(key, (w = allocate(n, m)));
+  return w;
 }
