@@ -1,12 +1,16 @@
 /**
- * Command line: `npm run --silent sweep -- FILE.json [FILE2.json ...]`.
+ * Command line: `npm run --silent sweep -- [--plot] FILE.json [FILE2.json ...]`.
  * One design (or rating) result per file, one JSON document per line, in file order; an error object
- * `{ "error": "...", "path": "..." }` on the line of a spec that fails. Exit 1 if any failed.
+ * `{ "error": "...", "path": "..." }` on the line of a file that fails. Exit 1 if any failed, 2 when the
+ * command line itself is wrong (an unknown option, no file).
+ * Levenspiel plot points are left out unless `--plot` is given: they are most of the bytes and a batch
+ * rarely draws them (docs/sweep-spec.md).
  */
 import { readFileSync } from "node:fs";
-import { designNetwork, designTrains, EngineError, rateTrain } from "../lib/engine/index";
+import { designNetwork, designTrains, EngineError, rateTrain, type DesignResult } from "../lib/engine/index";
 import { isNetworkSpec, networkSpecSchema } from "../lib/schemas/network-spec";
 import { designSpecSchema, ratingSpecSchema } from "../lib/schemas/sweep-spec";
+import { readSweepArgs } from "./sweep-args";
 
 interface ErrorLine {
   error: string;
@@ -23,7 +27,19 @@ function schemaError(issues: readonly { path: readonly PropertyKey[]; message: s
   return fail(path ? `${path}: ${issue.message}` : issue.message, path);
 }
 
-function runOne(file: string): { line: unknown; ok: boolean } {
+/**
+ * The design without its plot points. Rest copies rather than `delete` (which would turn every stage into
+ * a slow dictionary object before serialising) and rather than a JSON replacer (a call per key); any field
+ * the engine adds later is kept.
+ */
+function withoutPlot(result: DesignResult): unknown {
+  return {
+    ...result,
+    candidates: result.candidates.map((c) => ({ ...c, stages: c.stages.map(({ levenspiel: _plot, ...stage }) => stage) })),
+  };
+}
+
+function runOne(file: string, plot: boolean): { line: unknown; ok: boolean } {
   let raw: unknown;
   try {
     raw = JSON.parse(readFileSync(file, "utf8"));
@@ -34,34 +50,37 @@ function runOne(file: string): { line: unknown; ok: boolean } {
   const isRating = typeof raw === "object" && raw !== null && "stages" in raw && !("target" in raw);
   try {
     if (isNetwork) {
-      // A spec with "reactions" (several reactions) follows the network contract; "reaction" keeps today's.
+      // A file with "reactions" (several reactions) follows the network contract; its result has no plot points.
       const parsed = networkSpecSchema.safeParse(raw);
       if (!parsed.success) return { line: schemaError(parsed.error.issues), ok: false };
       return { line: designNetwork(parsed.data), ok: true };
     }
     if (isRating) {
+      // A rating lists steady states per stage, no plot points.
       const parsed = ratingSpecSchema.safeParse(raw);
       if (!parsed.success) return { line: schemaError(parsed.error.issues), ok: false };
       return { line: rateTrain(parsed.data), ok: true };
     }
     const parsed = designSpecSchema.safeParse(raw);
     if (!parsed.success) return { line: schemaError(parsed.error.issues), ok: false };
-    return { line: designTrains(parsed.data), ok: true };
+    const design = designTrains(parsed.data);
+    return { line: plot ? design : withoutPlot(design), ok: true };
   } catch (err) {
     if (err instanceof EngineError) return { line: fail(err.message, err.path), ok: false };
     return { line: fail(`internal error: ${err instanceof Error ? err.message : String(err)}`, ""), ok: false };
   }
 }
 
-function main(files: readonly string[]): number {
-  if (files.length === 0) {
-    process.stdout.write(`${JSON.stringify(fail("usage: npm run --silent sweep -- FILE.json [FILE2.json ...]", ""))}\n`);
-    return 1;
+function main(argv: readonly string[]): number {
+  const args = readSweepArgs(argv);
+  if ("error" in args) {
+    process.stdout.write(`${JSON.stringify(fail(args.error, ""))}\n`);
+    return 2;
   }
   let failed = false;
   const out: string[] = [];
-  for (const file of files) {
-    const { line, ok } = runOne(file);
+  for (const file of args.files) {
+    const { line, ok } = runOne(file, args.plot);
     failed ||= !ok;
     out.push(JSON.stringify(line));
   }
@@ -69,4 +88,4 @@ function main(files: readonly string[]): number {
   return failed ? 1 : 0;
 }
 
-process.exitCode = main(process.argv.slice(2).filter((a) => a !== "--"));
+process.exitCode = main(process.argv.slice(2));

@@ -7,10 +7,19 @@ import { describe, expect, it } from "vitest";
 const root = join(__dirname, "../../..");
 const spec = (name: string) => join(root, "tests/fixtures/specs", name);
 
-function sweep(...files: string[]) {
-  const out = spawnSync("npm", ["run", "--silent", "sweep", "--", ...files], { cwd: root, encoding: "utf8", timeout: 60000 });
+function sweep(...args: string[]) {
+  const out = spawnSync("npm", ["run", "--silent", "sweep", "--", ...args], { cwd: root, encoding: "utf8", timeout: 60000 });
   return { code: out.status, lines: out.stdout.trim().split("\n").map((l) => JSON.parse(l)) };
 }
+
+interface Stage {
+  type: string;
+  conversionIn: number;
+  conversionOut: number;
+  volume: number;
+  levenspiel?: { curve: [number, number][]; area: [number, number][] };
+}
+const stagesOf = (r: { candidates: { stages: Stage[] }[] }) => r.candidates.flatMap((c) => c.stages);
 
 describe("sweep command line", { timeout: 60000 }, () => {
   it("prints one result and exits 0 for a valid spec", () => {
@@ -34,6 +43,58 @@ describe("sweep command line", { timeout: 60000 }, () => {
     expect(lines[2].candidates.length).toBe(3);
     expect(lines[3].path).toBe("feed.flowA");
     expect(lines[4].stages[0].multiple).toBe(true);
+  });
+
+  it("leaves the Levenspiel plot points out by default and gives them back with --plot, anywhere among the files", () => {
+    const plain = sweep(spec("first-order-liquid.json"), spec("rating-adiabatic-cstr.json"));
+    const plotted = sweep(spec("first-order-liquid.json"), "--plot", spec("rating-adiabatic-cstr.json"));
+    expect(plain.code).toBe(0);
+    expect(plotted.code).toBe(0);
+    expect(JSON.stringify(plain.lines)).not.toContain("levenspiel");
+    for (const s of stagesOf(plain.lines[0])) expect(Object.keys(s)).not.toContain("levenspiel");
+    // Apart from the plot points, the two outputs are the same numbers.
+    const stripped = {
+      ...plotted.lines[0],
+      candidates: plotted.lines[0].candidates.map((c: { stages: Stage[] }) => ({ ...c, stages: c.stages.map(({ levenspiel: _p, ...s }) => s) })),
+    };
+    expect(stripped).toEqual(plain.lines[0]);
+    expect(plotted.lines[1]).toEqual(plain.lines[1]);
+    // The points are those of the first-order curve FA0/(-rA) = FA0/(k CA0 (1 - X)) (closed form, common
+    // practice), FA0 = 0.05 mol/s, CA0 = 1500 mol/m3, k = 0.002 1/s, printed to 6 significant digits.
+    const pfr: Stage = plotted.lines[0].candidates[0].stages[0];
+    expect(pfr.type).toBe("PFR");
+    expect(pfr.levenspiel?.curve).toHaveLength(25);
+    for (const [x, h] of pfr.levenspiel?.curve ?? []) expect(Math.abs(h - 0.05 / (0.002 * 1500 * (1 - x))) / h).toBeLessThan(1e-5);
+    expect(pfr.levenspiel?.curve[0]).toEqual([0, 0.0166667]);
+    // The PFR's outline closes the area under the curve: by the trapezoid rule close to its volume.
+    const area = pfr.levenspiel?.area ?? [];
+    let under = 0;
+    for (let i = 1; i < area.length; i++) under += ((area[i][0] - area[i - 1][0]) * (area[i][1] + area[i - 1][1])) / 2;
+    expect(Math.abs(under - pfr.volume) / pfr.volume).toBeLessThan(0.02);
+    // Every stage of every design gets its plot with --plot: a CSTR's is the rectangle X_in..X_out under its outlet height.
+    for (const s of stagesOf(plotted.lines[0])) {
+      expect(s.levenspiel?.curve.length).toBeGreaterThan(0);
+      if (s.type === "CSTR" && s.conversionOut > s.conversionIn) {
+        const h = 0.05 / (0.002 * 1500 * (1 - s.conversionOut));
+        expect(Math.abs((s.conversionOut - s.conversionIn) * h - s.volume) / s.volume).toBeLessThan(1e-5);
+        expect(s.levenspiel?.area).toHaveLength(4);
+      }
+    }
+  });
+
+  it("refuses an unknown option with one error line naming what it accepts, and exit code 2", () => {
+    for (const args of [["--plots", spec("first-order-liquid.json")], [spec("first-order-liquid.json"), "-p"]]) {
+      const { code, lines } = sweep(...args);
+      expect(code).toBe(2);
+      expect(lines).toHaveLength(1);
+      expect(lines[0].error).toBe(
+        `unknown option "${args.find((a) => a.startsWith("-"))}": the command line accepts --plot (adds each stage's Levenspiel plot points to a design) and one or more design or rating files (FILE.json); a file whose name starts with - is given as ./-name.json`,
+      );
+      expect(lines[0].path).toBe("");
+    }
+    const none = sweep("--plot");
+    expect(none.code).toBe(2);
+    expect(none.lines[0].error).toMatch(/^no design or rating file given; usage: npm run --silent sweep -- \[--plot\] FILE\.json/);
   });
 
   it("reports schema errors with the JSON path", () => {
