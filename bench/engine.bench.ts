@@ -4,7 +4,7 @@
  * whole-process comparison with the straightforward baseline in bench/baseline.ts.
  */
 import { execFileSync, spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { designTrains, type DesignResult, type DesignSpec } from "../lib/engine/index";
@@ -61,37 +61,43 @@ const cases: [string, DesignSpec][] = [
   ["cost objective with standard sizes, 62 sequences", fixture("cost-standard-sizes.json")],
 ];
 
-console.log("Seriatim engine benchmark (one process, after warm-up)\n");
-for (const [name, spec] of cases) {
-  const t = timeIt(() => designTrains(spec));
-  const sized = spec.objective?.minimise === "cost" && spec.objective.standardSizes !== undefined;
-  const accuracy = sized
-    ? "exact search over sizes (no grid; checked against exhaustive enumeration in the tests)"
-    : `worst relative difference of stage volumes vs a 1024-point grid: ${worstVolumeDifference(designTrains(spec), designTrains(spec, { gridPoints: 1024 })).toExponential(2)}`;
-  console.log(`${name}\n  median ${ms(t.median)}  (min ${ms(t.min)}, p90 ${ms(t.p90)}); ${accuracy}`);
-}
-
-const rss = process.resourceUsage().maxRSS / 1024;
-const heap = process.memoryUsage().heapUsed / 2 ** 20;
-console.log(`\nmemory: peak RSS ${rss.toFixed(1)} MiB (whole process), heap in use now ${heap.toFixed(1)} MiB`);
-
-console.log("\ntime against N (second order, all sequences of 1..N stages of both types):");
+// `BENCH_ONLY=cli node --import tsx bench/engine.bench.ts` prints only the whole-process figures (the command line).
+const only = process.env.BENCH_ONLY;
 const base = fixture("second-order-five-stages.json");
-for (let n = 1; n <= 8; n++) {
-  const spec: DesignSpec = { ...base, train: { maxStages: n, types: ["CSTR", "PFR"] } };
-  const count = 2 ** (n + 1) - 2;
-  const t = timeIt(() => designTrains(spec), n > 6 ? 3 : 8, n > 6 ? 9 : 21);
-  console.log(`  N=${n}: ${String(count).padStart(3)} sequences  median ${ms(t.median).padStart(10)}  ${(t.median / count * 1000).toFixed(1)} us/sequence`);
+if (only !== "cli") inProcess();
+
+function inProcess(): void {
+  console.log("Seriatim engine benchmark (one process, after warm-up)\n");
+  for (const [name, spec] of cases) {
+    const t = timeIt(() => designTrains(spec));
+    const sized = spec.objective?.minimise === "cost" && spec.objective.standardSizes !== undefined;
+    const accuracy = sized
+      ? "exact search over sizes (no grid; checked against exhaustive enumeration in the tests)"
+      : `worst relative difference of stage volumes vs a 1024-point grid: ${worstVolumeDifference(designTrains(spec), designTrains(spec, { gridPoints: 1024 })).toExponential(2)}`;
+    console.log(`${name}\n  median ${ms(t.median)}  (min ${ms(t.min)}, p90 ${ms(t.p90)}); ${accuracy}`);
+  }
+
+  const rss = process.resourceUsage().maxRSS / 1024;
+  const heap = process.memoryUsage().heapUsed / 2 ** 20;
+  console.log(`\nmemory: peak RSS ${rss.toFixed(1)} MiB (whole process), heap in use now ${heap.toFixed(1)} MiB`);
+
+  console.log("\ntime against N (second order, all sequences of 1..N stages of both types):");
+  for (let n = 1; n <= 8; n++) {
+    const spec: DesignSpec = { ...base, train: { maxStages: n, types: ["CSTR", "PFR"] } };
+    const count = 2 ** (n + 1) - 2;
+    const t = timeIt(() => designTrains(spec), n > 6 ? 3 : 8, n > 6 ? 9 : 21);
+    console.log(`  N=${n}: ${String(count).padStart(3)} sequences  median ${ms(t.median).padStart(10)}  ${(t.median / count * 1000).toFixed(1)} us/sequence`);
+  }
 }
 
-// Whole processes: the CLI bundle (as npm run sweep runs it) and the baseline, bundled the same way.
+// Whole processes: the command line as `npm run --silent sweep` runs it (scripts/sweep-run.mjs, its bundle and
+// code cache) and the baseline, bundled.
 const dir = mkdtempSync(join(tmpdir(), "seriatim-bench-"));
 const esbuild = join(root, "node_modules/.bin/esbuild");
 const bundle = (entry: string, out: string) =>
   execFileSync(esbuild, [entry, "--bundle", "--platform=node", "--format=esm", "--minify", `--outfile=${out}`, "--log-level=error"], { cwd: root });
-const ours = join(dir, "sweep.mjs");
+const ours = join(root, "scripts/sweep-run.mjs");
 const theirs = join(dir, "baseline.mjs");
-bundle("scripts/sweep.ts", ours);
 bundle("bench/baseline-cli.ts", theirs);
 
 const files: string[] = [];
@@ -101,40 +107,65 @@ for (let i = 0; i < 24; i++) {
   writeFileSync(f, JSON.stringify(spec));
   files.push(f);
 }
-const wall = (cmd: string, args: string[]) => {
+const wall = (cmd: string, args: string[], cwd = root) => {
   const t = performance.now();
-  const r = spawnSync(cmd, args, { cwd: root, encoding: "utf8" });
+  const r = spawnSync(cmd, args, { cwd, encoding: "utf8", maxBuffer: 1 << 30 });
   return { ms: performance.now() - t, out: r.stdout };
 };
+const median5 = (cmd: string, args: string[], cwd = root) => median([0, 1, 2, 3, 4].map(() => wall(cmd, args, cwd).ms));
+
+// npm's own floor: `npm run --silent` of a script that does nothing, in a copy of this package.json.
+const npmDir = join(dir, "npm-floor");
+mkdirSync(npmDir);
+const manifest = JSON.parse(readFileSync(join(root, "package.json"), "utf8"));
+writeFileSync(join(npmDir, "package.json"), JSON.stringify({ ...manifest, scripts: { ...manifest.scripts, nothing: "true" } }));
+
+// The first run builds the bundle if stale and writes its code cache; the runs timed below find both.
 spawnSync("npm", ["run", "--silent", "sweep", "--", files[0]], { cwd: root });
-const batchNpm = median([0, 1, 2].map(() => wall("npm", ["run", "--silent", "sweep", "--", ...files]).ms));
-const batchNode = median([0, 1, 2].map(() => wall("node", [ours, ...files]).ms));
-console.log(`\n24-spec batch through the command line (62 sequences each, start-up included):`);
-console.log(`  npm run --silent sweep: ${ms(batchNpm)}   node on the bundle alone: ${ms(batchNode)}`);
+const batchNpm = median5("npm", ["run", "--silent", "sweep", "--", ...files]);
+const batchNode = median5("node", [ours, ...files]);
+const plotNpm = median5("npm", ["run", "--silent", "sweep", "--", "--plot", ...files]);
+const npmFloor = median5("npm", ["run", "--silent", "nothing"], npmDir);
+const nodeFloor = median5("node", ["-e", "0"]);
+// Loaded with nothing to do: an unknown option is refused after the bundle has loaded (exit 2).
+const loaded = median5("node", [ours, "--nothing"]);
+const bytes = Buffer.byteLength(wall("node", [ours, ...files]).out);
+const plotBytes = Buffer.byteLength(wall("node", [ours, "--plot", ...files]).out);
+console.log(`\n24-spec batch through the command line (62 sequences each, start-up included; medians of 5):`);
+console.log(`  npm run --silent sweep: ${ms(batchNpm)}   node on the bundle alone (node scripts/sweep-run.mjs): ${ms(batchNode)}`);
+console.log(`  with --plot: ${ms(plotNpm)} through npm`);
+console.log(`  output: ${bytes} bytes without plot points, ${plotBytes} bytes with --plot`);
+console.log(`  where the time goes: npm run --silent of a script that does nothing ${ms(npmFloor)}; node -e 0 ${ms(nodeFloor)};`);
+console.log(`    the command line loaded with nothing to do ${ms(loaded)}; designing and printing the 24 specs ≈ ${ms(batchNode - loaded)}`);
 
-const baseBatch = wall("node", [theirs, ...files]).ms;
-console.log(`  baseline on the same 24 specs, one process: ${ms(baseBatch)}   whole-process factor ${(baseBatch / batchNode).toFixed(1)}x (node on the bundles)`);
+if (only !== "cli") againstBaseline();
 
-const specFile = join(dir, "second-order.json");
-writeFileSync(specFile, JSON.stringify(base));
-const oursOne = median([0, 1, 2].map(() => wall("node", [ours, specFile]).ms));
-const runs = [0, 1, 2].map(() => wall("node", [theirs, specFile]));
-const theirsOne = median(runs.map((r) => r.ms));
-const baselineVolumes: number[] = JSON.parse(runs[0].out.trim()).volumes;
-const ourResult = designTrains(base);
-const ourVolumes = new Map(ourResult.candidates.map((c) => [c.sequence.join("-"), c.totalVolume as number]));
-const seqs: string[] = [];
-let level: string[][] = [[]];
-for (let n = 1; n <= 5; n++) {
-  level = level.flatMap((s) => ["CSTR", "PFR"].map((t) => [...s, t]));
-  seqs.push(...level.map((s) => s.join("-")));
+/** The same work through the straightforward baseline, whole process and in process. */
+function againstBaseline(): void {
+  const baseBatch = wall("node", [theirs, ...files]).ms;
+  console.log(`  baseline on the same 24 specs, one process: ${ms(baseBatch)}   whole-process factor ${(baseBatch / batchNode).toFixed(1)}x (node on the bundles)`);
+
+  const specFile = join(dir, "second-order.json");
+  writeFileSync(specFile, JSON.stringify(base));
+  const oursOne = median([0, 1, 2].map(() => wall("node", [ours, specFile]).ms));
+  const runs = [0, 1, 2].map(() => wall("node", [theirs, specFile]));
+  const theirsOne = median(runs.map((r) => r.ms));
+  const baselineVolumes: number[] = JSON.parse(runs[0].out.trim()).volumes;
+  const ourResult = designTrains(base);
+  const ourVolumes = new Map(ourResult.candidates.map((c) => [c.sequence.join("-"), c.totalVolume as number]));
+  const seqs: string[] = [];
+  let level: string[][] = [[]];
+  for (let n = 1; n <= 5; n++) {
+    level = level.flatMap((s) => ["CSTR", "PFR"].map((t) => [...s, t]));
+    seqs.push(...level.map((s) => s.join("-")));
+  }
+  const baseErr = Math.max(...seqs.map((s, i) => Math.abs(baselineVolumes[i] - (ourVolumes.get(s) as number)) / (ourVolumes.get(s) as number)));
+  console.log(`\nwhole process, one 62-sequence second-order case:`);
+  console.log(`  baseline (golden-section per sequence, adaptive Simpson, tightened to 1e-4): ${ms(theirsOne)}`);
+  console.log(`  Seriatim (node on the CLI bundle): ${ms(oursOne)}   factor ${(theirsOne / oursOne).toFixed(1)}x`);
+  const bt = timeIt(() => execFileSync("node", ["-e", "0"]), 1, 5);
+  console.log(`  (bare node start-up on this machine: ${ms(bt.median)}; in-process baseline vs engine factor below)`);
+  const inBase = timeIt(() => spawnSync("node", [theirs, specFile]), 0, 3).median - bt.median;
+  console.log(`  baseline minus node start-up ≈ ${ms(inBase)}; engine in-process median ${ms(timeIt(() => designTrains(base)).median)}`);
+  console.log(`  largest relative difference between baseline and Seriatim totals: ${baseErr.toExponential(2)}`);
 }
-const baseErr = Math.max(...seqs.map((s, i) => Math.abs(baselineVolumes[i] - (ourVolumes.get(s) as number)) / (ourVolumes.get(s) as number)));
-console.log(`\nwhole process, one 62-sequence second-order case:`);
-console.log(`  baseline (golden-section per sequence, adaptive Simpson, tightened to 1e-4): ${ms(theirsOne)}`);
-console.log(`  Seriatim (node on the CLI bundle): ${ms(oursOne)}   factor ${(theirsOne / oursOne).toFixed(1)}x`);
-const bt = timeIt(() => execFileSync("node", ["-e", "0"]), 1, 5);
-console.log(`  (bare node start-up on this machine: ${ms(bt.median)}; in-process baseline vs engine factor below)`);
-const inBase = timeIt(() => spawnSync("node", [theirs, specFile]), 0, 3).median - bt.median;
-console.log(`  baseline minus node start-up ≈ ${ms(inBase)}; engine in-process median ${ms(timeIt(() => designTrains(base)).median)}`);
-console.log(`  largest relative difference between baseline and Seriatim totals: ${baseErr.toExponential(2)}`);

@@ -94,5 +94,5 @@ if (cachedData === undefined || script.cachedDataRejected) {
     }
   });
 }
-const module = { exports: {} };
-run(module.exports, createRequire(bundle), module, bundle, dir);
+const cjsModule = { exports: {} };
+run(cjsModule.exports, createRequire(bundle), cjsModule, bundle, dir);
