@@ -7,7 +7,7 @@
 // - compiling: V8's code cache of the bundle, written after the first run, spares parsing and compiling
 //   the bundle's functions again (about a third of loading it); V8 refuses a cache of another Node
 //   version or another bundle, and then a new one is written.
-import { mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -16,12 +16,20 @@ import { Script } from "node:vm";
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const dir = path.join(root, "node_modules", ".cache", "seriatim");
 const bundle = path.join(dir, "sweep.cjs");
-const codeCache = path.join(dir, "sweep.cjs.v8cache");
+// V8 refuses a cache made under other flags; one cache per Node version and flags, so runs with different
+// flags (a test runner's NODE_OPTIONS, say) do not keep rewriting each other's.
+const codeCache = path.join(dir, `sweep.cjs.${fnv1a(`${process.version} ${process.execArgv.join(" ")} ${process.env.NODE_OPTIONS ?? ""}`)}.v8cache`);
 const manifest = path.join(dir, "sweep.inputs.json");
 // Bump when the build options below change, so an older bundle is rebuilt.
 const RECIPE = "cjs-minify-1";
 // Inputs besides the sources: this launcher, and the installed dependencies (npm rewrites this file on install).
 const ALWAYS = ["scripts/sweep-run.mjs", "node_modules/.package-lock.json"];
+
+function fnv1a(text) {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193);
+  return (h >>> 0).toString(16);
+}
 
 function fresh() {
   let m;
@@ -68,7 +76,7 @@ async function build() {
   });
   const sources = Object.keys(result.metafile.inputs).filter((f) => !f.startsWith("node_modules/"));
   mkdirSync(dir, { recursive: true });
-  rmSync(codeCache, { force: true });
+  for (const f of readdirSync(dir)) if (f.endsWith(".v8cache")) rmSync(path.join(dir, f), { force: true });
   replace(bundle, result.outputFiles[0].contents);
   replace(manifest, JSON.stringify({ recipe: RECIPE, builtAt, inputs: [...ALWAYS, ...sources] }));
 }
