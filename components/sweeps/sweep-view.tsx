@@ -19,7 +19,7 @@ import { ObjectiveHeatMap, ScenarioPicker, twoVariedFields } from "./scenario-pi
 import { StatusBadge, SweepProgressBar } from "./sweep-progress";
 import type { CandidatePage, ScenarioRow, SweepView as Sweep } from "@/lib/services/views";
 import { candidatesKey, NETWORK_COLUMNS, serialiseViewState, useViewState } from "./view-state";
-import type { FirstPage } from "./first-page";
+import type { FirstPage } from "./view-query";
 import { isNetworkSweep, networkConstraintsOf, networkObjectiveOf } from "./network-sweep";
 import { objectiveLabel, percent } from "@/components/candidates/network-results-data";
 import { useNetworkUnits } from "@/components/candidates/network-units";

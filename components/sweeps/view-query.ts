@@ -5,6 +5,7 @@
  */
 import { isVolumeUnit, type VolumeUnit } from "@/lib/charts/volume-units";
 import { SORT_KEYS, type SortKey } from "@/lib/sweeps/sort-keys";
+import type { CandidatePage, ScenarioRow, SweepView } from "@/lib/services/views";
 
 export const PAGE_SIZES = [25, 50, 100] as const;
 /** Columns the reader may hide. */
@@ -87,4 +88,12 @@ export function chartsRideAlong(s: SweepViewState, network: boolean): boolean {
 /** The TanStack Query key of one page of candidates: the server's first page is seeded under it. */
 export function candidatesKey(sweepId: string, s: SweepViewState, network: boolean) {
   return ["candidates", sweepId, s.scenario, candidateQuery(s, { levenspiel: chartsRideAlong(s, network) })] as const;
+}
+
+/** What the server read for the sweep page's first paint (the page's first-page.ts fills it). */
+export interface FirstPage {
+  sweep: SweepView;
+  scenarios?: ScenarioRow[];
+  /** The first table page and the query key it answers (the client seeds its cache under that key only). */
+  candidates?: { key: readonly unknown[]; page: CandidatePage };
 }

@@ -1,6 +1,6 @@
 "use client";
 
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { usePathname, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
 import { parseViewState, serialiseViewState, type SweepViewState } from "./view-query";
 
@@ -11,7 +11,6 @@ export type { OptionalColumn, SweepViewState } from "./view-query";
 /** The view state held in the URL, and a setter that replaces the URL (no new history entry per click). */
 export function useViewState() {
   const params = useSearchParams();
-  const router = useRouter();
   const pathname = usePathname();
   const state = useMemo(() => parseViewState(new URLSearchParams(params.toString())), [params]);
   const update = useCallback(
@@ -19,9 +18,12 @@ export function useViewState() {
       // Any change but paging itself starts again at page 1.
       const next = { ...state, ...("page" in patch ? {} : { page: 1 }), ...patch };
       const qs = serialiseViewState(next);
-      router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
+      // The browser's own history call, which Next.js folds into useSearchParams: the URL changes
+      // without asking the server to render the page again, so a sort or a page change waits for
+      // one request (its rows), not for a server render and then the rows.
+      window.history.replaceState(window.history.state, "", qs ? `${pathname}?${qs}` : pathname);
     },
-    [state, router, pathname],
+    [state, pathname],
   );
   return [state, update] as const;
 }

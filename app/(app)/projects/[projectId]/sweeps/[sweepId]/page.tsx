@@ -1,6 +1,5 @@
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
-import { loadFirstPage } from "@/components/sweeps/first-page";
 import { SweepView } from "@/components/sweeps/sweep-view";
 import { getDb } from "@/db/client";
 import { requirePageActor } from "@/lib/auth/session";
@@ -9,6 +8,7 @@ import { AppError } from "@/lib/errors";
 import { uuidSchema } from "@/lib/schemas/ids";
 import { getProjectById } from "@/lib/services/projects";
 import { sweepTypedUnits } from "@/lib/services/sweeps";
+import { loadFirstPage } from "./first-page";
 
 export const dynamic = "force-dynamic";
 

@@ -1,5 +1,5 @@
 /**
- * Server side only (the sweep page imports it; no client component may): what the sweep page needs
+ * The sweep page's server-side read: what the sweep page needs
  * for its first paint — the sweep, its scenarios and the first page of the ranked table the URL asks
  * for — read through the same services the API answers from, so the screen shows rows with the page
  * instead of after three round trips. Each answer goes through JSON as the API's does, so the client
@@ -11,15 +11,8 @@ import { candidateQuerySchema } from "@/lib/schemas/sweeps";
 import { listCandidates } from "@/lib/services/candidates";
 import { getSweep, listScenarios } from "@/lib/services/sweeps";
 import type { CandidatePage, Jsonify, ScenarioRow, SweepView } from "@/lib/services/views";
-import { isNetworkSweep } from "./network-sweep";
-import { candidateQuery, candidatesKey, chartsRideAlong, parseViewState } from "./view-query";
-
-export interface FirstPage {
-  sweep: SweepView;
-  scenarios?: ScenarioRow[];
-  /** The first table page and the query key it answers (the client seeds its cache under that key only). */
-  candidates?: { key: readonly unknown[]; page: CandidatePage };
-}
+import { isNetworkSweep } from "@/components/sweeps/network-sweep";
+import { candidateQuery, candidatesKey, chartsRideAlong, parseViewState, type FirstPage } from "@/components/sweeps/view-query";
 
 const ACTIVE = new Set(["queued", "running"]);
 const asJson = <T>(value: T): Jsonify<T> => JSON.parse(JSON.stringify(value)) as Jsonify<T>;
