@@ -158,6 +158,7 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     await cand.close();
   }
   const load1 = os.loadavg();
+  const html = await (await api.get(sweepUrl)).body();
 
   console.log(`\nSeriatim page benchmark (Chromium against next start${appDir === root ? "" : ` from ${appDir}`}, throwaway PostgreSQL, this machine)`);
   console.log(`  sweep: 160 scenarios × 62 sequences, ${count} candidates; table pages of 25 rows`);
@@ -167,6 +168,7 @@ async function main(serverUrl: string, children: ChildProcess[]) {
   console.log(`  candidate page → title and chart:        ${fmt(candidate)}   (goal 600 ms)`);
   console.log(`  sort by sequence → new rows:             ${fmt(sort)}   (goal 300 ms)`);
   console.log(`  next page → new rows:                    ${fmt(nextPage)}   (goal 300 ms)`);
+  console.log(`  sweep page HTML (first page and its thumbnails' plot data inside): ${(html.length / 1024).toFixed(0)} KB`);
   console.log(`  load average (1, 5, 15 min): before ${load0.map((x) => x.toFixed(2)).join(", ")}; after ${load1.map((x) => x.toFixed(2)).join(", ")}; ${os.cpus().length} cores`);
 
   await context.close();

@@ -20,8 +20,9 @@ export function useViewState() {
       const qs = serialiseViewState(next);
       // The browser's own history call, which Next.js folds into useSearchParams: the URL changes
       // without asking the server to render the page again, so a sort or a page change waits for
-      // one request (its rows), not for a server render and then the rows.
-      window.history.replaceState(window.history.state, "", qs ? `${pathname}?${qs}` : pathname);
+      // one request (its rows), not for a server render and then the rows. Its state must be null:
+      // Next.js copies its own history state over, and skips the update for a state it made itself.
+      window.history.replaceState(null, "", qs ? `${pathname}?${qs}` : pathname);
     },
     [state, pathname],
   );
