@@ -115,7 +115,7 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
   });
-  const context = await browser.newContext({ storageState: await api.storageState(), viewport: { width: 1280, height: 900 } });
+  const context = await browser.newContext({ baseURL: base, storageState: await api.storageState(), viewport: { width: 1280, height: 900 } });
 
   const sweepUrl = `/projects/${projectId}/sweeps/${sweep.id}`;
   const candidateUrl = `${sweepUrl}/candidates/${candidateId}`;
