@@ -58,6 +58,10 @@ test("a page in the URL comes with the page too: page 2 sorted by volume, larges
 
 test("no refetch of the first page on opening; a sort keeps the old rows until the new ones arrive; a compare box ticks without waiting for the server", async () => {
   const page = await browserCtx.newPage();
+  // The browser takes over the server's rows as they are: a mismatch would be thrown away and redrawn (React's error 418).
+  const pageErrors: string[] = [];
+  page.on("pageerror", (e) => pageErrors.push(e.message));
+  page.on("console", (m) => m.type() === "error" && pageErrors.push(m.text()));
   const candidateCalls: string[] = [];
   page.on("request", (r) => {
     if (r.url().includes(`/api/sweeps/${sweepId}/scenarios/0/candidates`)) candidateCalls.push(r.url());
@@ -67,6 +71,7 @@ test("no refetch of the first page on opening; a sort keeps the old rows until t
   const rows = page.getByTestId("candidate-row");
   await expect(rows).toHaveCount(25);
   await expect(rows.first().getByTestId("thumbnail")).toBeVisible();
+  expect(pageErrors.filter((e) => /418|hydrat/i.test(e))).toEqual([]);
 
   // Sort by volume with the answer held: the 25 rows stay on screen meanwhile.
   const held = holder();
