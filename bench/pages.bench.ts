@@ -13,6 +13,7 @@
  * .next must be there.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { chromium, request, type Page } from "@playwright/test";
@@ -129,6 +130,9 @@ async function main(serverUrl: string, children: ChildProcess[]) {
 
   const firstRow: number[] = [];
   const firstChart: number[] = [];
+  const firstByte: number[] = [];
+  const lastByte: number[] = [];
+  const parsed: number[] = [];
   const interactive: number[] = [];
   const candidate: number[] = [];
   const sort: number[] = [];
@@ -138,6 +142,14 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     const page = await context.newPage();
     await page.goto(`${sweepUrl}?scenario=${(i * 23) % 160}`, { waitUntil: "commit" });
     firstRow.push(await paintedAt(page, '[data-testid="candidate-row"]'));
+    // Where the wait goes: the server's answer (first byte, last byte) and the browser's parse of it.
+    const nav = (await page.evaluate(() => {
+      const n = performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming;
+      return [n.responseStart, n.responseEnd, n.domContentLoadedEventEnd];
+    })) as number[];
+    firstByte.push(nav[0]);
+    lastByte.push(nav[1]);
+    if (nav[2] > 0) parsed.push(nav[2]);
     firstChart.push(await paintedAt(page, '[data-testid="thumbnail"] svg'));
     interactive.push(
       (await (
@@ -159,11 +171,14 @@ async function main(serverUrl: string, children: ChildProcess[]) {
   }
   const load1 = os.loadavg();
   const html = await (await api.get(sweepUrl)).body();
+  // BENCH_SAVE_HTML=file keeps the page's HTML, to see what its size is made of.
+  if (process.env.BENCH_SAVE_HTML) writeFileSync(process.env.BENCH_SAVE_HTML, html);
 
   console.log(`\nSeriatim page benchmark (Chromium against next start${appDir === root ? "" : ` from ${appDir}`}, throwaway PostgreSQL, this machine)`);
   console.log(`  sweep: 160 scenarios × 62 sequences, ${count} candidates; table pages of 25 rows`);
   console.log(`  sweep page → first ranked row painted:   ${fmt(firstRow)}   (goal 800 ms)`);
   console.log(`  sweep page → first thumbnail painted:    ${fmt(firstChart)}   (goal 1000 ms)`);
+  console.log(`    of which: server's first byte ${fmt(firstByte)}; last byte ${fmt(lastByte)}${parsed.length ? `; document parsed ${fmt(parsed)}` : ""}`);
   console.log(`  sweep page → answering clicks:           ${fmt(interactive)}`);
   console.log(`  candidate page → title and chart:        ${fmt(candidate)}   (goal 600 ms)`);
   console.log(`  sort by sequence → new rows:             ${fmt(sort)}   (goal 300 ms)`);
