@@ -147,8 +147,9 @@ async function main(serverUrl: string, children: ChildProcess[]) {
       const n = performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming;
       return [n.responseStart, n.responseEnd, n.domContentLoadedEventEnd];
     })) as number[];
-    firstByte.push(nav[0]);
-    lastByte.push(nav[1]);
+    // A timing still 0 had not happened yet when the row was painted (the answer was still streaming).
+    if (nav[0] > 0) firstByte.push(nav[0]);
+    if (nav[1] > 0) lastByte.push(nav[1]);
     if (nav[2] > 0) parsed.push(nav[2]);
     firstChart.push(await paintedAt(page, '[data-testid="thumbnail"] svg'));
     interactive.push(
