@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useMemo } from "react";
+import { memo, useMemo } from "react";
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures, useTable, type SortingState } from "@tanstack/react-table";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
@@ -59,6 +59,22 @@ export const COLUMN_TITLES: Record<OptionalColumn, string> = {
   ...COST_COLUMN_TITLES,
   ...NETWORK_COLUMN_TITLES,
 };
+
+type ThumbnailProps = { stages: CandidateRow["stages"]; levenspiel: NonNullable<CandidateRow["levenspiel"]>; target?: number; yMax?: number; unit: VolumeUnit };
+
+/**
+ * One row's Levenspiel thumbnail, drawn from the plot data the row came with (no request of its own).
+ * Memoised on the row's own arrays: ticking a compare box rebuilds the columns, and must not redraw
+ * every chart on the page before the box shows its tick.
+ */
+const Thumbnail = memo(function Thumbnail({ stages, levenspiel, target, yMax, unit }: ThumbnailProps) {
+  const input = useMemo(() => chartInputs(stages, levenspiel), [stages, levenspiel]);
+  return (
+    <div className="w-28" data-testid="thumbnail">
+      <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
+    </div>
+  );
+});
 
 interface Props {
   rows: CandidateRow[] | undefined;
@@ -127,12 +143,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         cell: ({ row }) => {
           const c = row.original;
           if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
-          const input = chartInputs(c.stages, c.levenspiel);
-          return (
-            <div className="w-28" data-testid="thumbnail">
-              <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
-            </div>
-          );
+          return <Thumbnail stages={c.stages} levenspiel={c.levenspiel} target={target} yMax={yMax} unit={unit} />;
         },
       }),
       helper.accessor("totalVolume", {

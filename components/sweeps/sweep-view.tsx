@@ -18,7 +18,8 @@ import { RankedTable } from "./ranked-table";
 import { ObjectiveHeatMap, ScenarioPicker, twoVariedFields } from "./scenario-picker";
 import { StatusBadge, SweepProgressBar } from "./sweep-progress";
 import type { CandidatePage, ScenarioRow, SweepView as Sweep } from "@/lib/services/views";
-import { candidateQuery, NETWORK_COLUMNS, serialiseViewState, useViewState } from "./view-state";
+import { candidatesKey, NETWORK_COLUMNS, serialiseViewState, useViewState } from "./view-state";
+import type { FirstPage } from "./view-query";
 import { isNetworkSweep, networkConstraintsOf, networkObjectiveOf } from "./network-sweep";
 import { objectiveLabel, percent } from "@/components/candidates/network-results-data";
 import { useNetworkUnits } from "@/components/candidates/network-units";
@@ -32,6 +33,7 @@ export function SweepView({
   projectName,
   canSubmit,
   typedUnits,
+  initial,
 }: {
   sweepId: string;
   projectId: string;
@@ -39,6 +41,8 @@ export function SweepView({
   canSubmit: boolean;
   /** The units the sweep's kinetics was typed in: the grid axis speaks them. */
   typedUnits?: Partial<Record<UnitKind, string>>;
+  /** What the server read for the first paint: the sweep, its scenarios and the first table page. */
+  initial?: FirstPage;
 }) {
   const router = useRouter();
   const qc = useQueryClient();
@@ -50,7 +54,9 @@ export function SweepView({
     queryKey: ["sweep", sweepId],
     queryFn: () => fetchJson<{ sweep: Sweep }>(`/api/sweeps/${sweepId}`).then((r) => r.sweep),
     refetchInterval: (q) => (q.state.data && !ACTIVE.has(q.state.data.status) ? false : 1000),
-    staleTime: 0,
+    initialData: initial?.sweep,
+    // A running sweep is read again at once (its progress moves); a finished one the server just read is not.
+    staleTime: (q) => (q.state.data && !ACTIVE.has(q.state.data.status) ? 15_000 : 0),
   });
   const sweep = sweepQ.data;
   const finished = !!sweep && !ACTIVE.has(sweep.status);
@@ -73,15 +79,23 @@ export function SweepView({
     queryKey: ["scenarios", sweepId],
     queryFn: () => fetchJson<{ scenarios: ScenarioRow[] }>(`/api/sweeps/${sweepId}/scenarios`).then((r) => r.scenarios),
     enabled: !sweep || hasResults,
+    initialData: initial?.scenarios,
   });
   // Thumbnails ride along with the page while it is small enough (a network has no Levenspiel chart).
   const network = isNetworkSweep(sweep);
-  const withCharts = !network && urlView.pageSize <= 50 && !urlView.hidden.includes("chart");
   const networkUnits = useNetworkUnits(typedUnits);
+  const candidatesKeyNow = candidatesKey(sweepId, urlView, network);
+  // The server's first page seeds the cache only under the key it answers; any other sort, page or
+  // scenario is fetched. A finished scenario's ranking never changes, so a page read once stays fresh
+  // (the end of a run invalidates them explicitly above).
+  const seeded = initial?.candidates && JSON.stringify(initial.candidates.key) === JSON.stringify(candidatesKeyNow) ? initial.candidates.page : undefined;
   const candidatesQ = useQuery({
-    queryKey: ["candidates", sweepId, urlView.scenario, candidateQuery(urlView, { levenspiel: withCharts })],
-    queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${urlView.scenario}/candidates?${candidateQuery(urlView, { levenspiel: withCharts })}`),
+    queryKey: candidatesKeyNow,
+    queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${urlView.scenario}/candidates?${candidatesKeyNow[3]}`),
     enabled: !sweep || hasResults,
+    initialData: seeded,
+    staleTime: finished ? Infinity : 0,
+    // The rows on screen stay while the next sort or page loads: no flash of an empty table.
     placeholderData: keepPreviousData,
   });
 

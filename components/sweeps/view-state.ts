@@ -1,87 +1,16 @@
 "use client";
 
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { usePathname, useSearchParams } from "next/navigation";
 import { useCallback, useMemo } from "react";
-import { isVolumeUnit, type VolumeUnit } from "@/lib/charts/volume-units";
-import { SORT_KEYS, type SortKey } from "@/lib/sweeps/sort-keys";
+import { parseViewState, serialiseViewState, type SweepViewState } from "./view-query";
 
-export const PAGE_SIZES = [25, 50, 100] as const;
-/** Columns the reader may hide. */
-export const OPTIONAL_COLUMNS = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused", "residenceTime", "onBound"] as const;
-export type OptionalColumn = (typeof OPTIONAL_COLUMNS)[number];
-/** The optional columns each kind of sweep has (a network sweep has no cost and no Levenspiel chart). */
-export const SINGLE_COLUMNS: readonly OptionalColumn[] = ["chart", "totalCost", "ratioToPfr", "stages", "feasible", "installedCost", "reused"];
-export const NETWORK_COLUMNS: readonly OptionalColumn[] = ["residenceTime", "onBound", "feasible"];
-
-/** Everything a link to the sweep page carries: scenario, sort, filters, page, columns and units. */
-export interface SweepViewState {
-  scenario: number;
-  sort: SortKey;
-  dir: "asc" | "desc";
-  feasible: boolean;
-  contains: string;
-  stages: number | null;
-  page: number;
-  pageSize: number;
-  hidden: OptionalColumn[];
-  /** A volume unit chosen on this page; null follows the user's display-unit setting. */
-  unit: VolumeUnit | null;
-}
-
-const intOr = (v: string | null, fallback: number, min = 0) => {
-  const n = Number(v);
-  return v !== null && Number.isInteger(n) && n >= min ? n : fallback;
-};
-
-export function parseViewState(q: URLSearchParams): SweepViewState {
-  const sort = q.get("sort");
-  const size = intOr(q.get("size"), 25, 1);
-  const stages = intOr(q.get("stages"), 0, 1);
-  const contains = q.get("contains") ?? "";
-  return {
-    scenario: intOr(q.get("scenario"), 0),
-    sort: (SORT_KEYS as readonly string[]).includes(sort ?? "") ? (sort as SortKey) : "rank",
-    dir: q.get("dir") === "desc" ? "desc" : "asc",
-    feasible: q.get("feasible") === "1",
-    contains: /^(CSTR|PFR)(-(CSTR|PFR))*$/.test(contains) ? contains : "",
-    stages: stages >= 1 && stages <= 8 ? stages : null,
-    page: intOr(q.get("page"), 1, 1),
-    pageSize: (PAGE_SIZES as readonly number[]).includes(size) ? size : 25,
-    hidden: (q.get("hide") ?? "").split(",").filter((c): c is OptionalColumn => (OPTIONAL_COLUMNS as readonly string[]).includes(c)),
-    unit: isVolumeUnit(q.get("unit")) ? (q.get("unit") as VolumeUnit) : null,
-  };
-}
-
-/** The query string of a state, leaving out defaults so links stay short. */
-export function serialiseViewState(s: SweepViewState): string {
-  const q = new URLSearchParams();
-  if (s.scenario) q.set("scenario", String(s.scenario));
-  if (s.sort !== "rank") q.set("sort", s.sort);
-  if (s.dir !== "asc") q.set("dir", s.dir);
-  if (s.feasible) q.set("feasible", "1");
-  if (s.contains) q.set("contains", s.contains);
-  if (s.stages) q.set("stages", String(s.stages));
-  if (s.page > 1) q.set("page", String(s.page));
-  if (s.pageSize !== 25) q.set("size", String(s.pageSize));
-  if (s.hidden.length) q.set("hide", s.hidden.join(","));
-  if (s.unit) q.set("unit", s.unit);
-  return q.toString();
-}
-
-/** The candidates endpoint's query for a state. */
-export function candidateQuery(s: SweepViewState, overrides: { page?: number; pageSize?: number; levenspiel?: boolean } = {}): string {
-  const q = new URLSearchParams({ sort: s.sort, dir: s.dir, page: String(overrides.page ?? s.page), pageSize: String(overrides.pageSize ?? s.pageSize) });
-  if (s.feasible) q.set("feasible", "true");
-  if (s.contains) q.set("contains", s.contains);
-  if (s.stages) q.set("stages", String(s.stages));
-  if (overrides.levenspiel) q.set("include", "levenspiel");
-  return q.toString();
-}
+// Re-exported by name: a client module's exports must be listed, not star-exported.
+export { candidateQuery, candidatesKey, chartsRideAlong, NETWORK_COLUMNS, OPTIONAL_COLUMNS, PAGE_SIZES, parseViewState, serialiseViewState, SINGLE_COLUMNS } from "./view-query";
+export type { OptionalColumn, SweepViewState } from "./view-query";
 
 /** The view state held in the URL, and a setter that replaces the URL (no new history entry per click). */
 export function useViewState() {
   const params = useSearchParams();
-  const router = useRouter();
   const pathname = usePathname();
   const state = useMemo(() => parseViewState(new URLSearchParams(params.toString())), [params]);
   const update = useCallback(
@@ -89,9 +18,13 @@ export function useViewState() {
       // Any change but paging itself starts again at page 1.
       const next = { ...state, ...("page" in patch ? {} : { page: 1 }), ...patch };
       const qs = serialiseViewState(next);
-      router.replace(qs ? `${pathname}?${qs}` : pathname, { scroll: false });
+      // The browser's own history call, which Next.js folds into useSearchParams: the URL changes
+      // without asking the server to render the page again, so a sort or a page change waits for
+      // one request (its rows), not for a server render and then the rows. Its state must be null:
+      // Next.js copies its own history state over, and skips the update for a state it made itself.
+      window.history.replaceState(null, "", qs ? `${pathname}?${qs}` : pathname);
     },
-    [state, router, pathname],
+    [state, pathname],
   );
   return [state, update] as const;
 }
