@@ -5,7 +5,8 @@
  *   3. the candidates endpoint of the production server under 50 concurrent connections (autocannon), a
  *      finished sweep's and a running sweep's, served by one `next start` process and by the clustered
  *      server of `npm start` (scripts/web-server.mjs), with the health route's throughput beside.
- * BENCH_WEB_ONLY=1 skips the worker figures (1 and 2) and the queue latency; BENCH_SECONDS sets each run's length.
+ * BENCH_WEB_ONLY=1 skips the worker figures (1 and 2) and the queue latency; BENCH_SECONDS sets each run's length;
+ * BENCH_CPU_PROF=<dir> writes CPU profiles of the web processes (node --cpu-prof) under <dir>/single and <dir>/cluster.
  * Prints figures; asserts nothing.
  */
 import { spawnSync, type ChildProcess } from "node:child_process";

@@ -31,7 +31,7 @@ export async function startWebServer(mode: "single" | "cluster", env: NodeJS.Pro
     mode === "single"
       ? [path.join(root, "node_modules/next/dist/bin/next"), "start", "-H", "127.0.0.1", "-p", String(port)]
       : [path.join(root, "scripts/web-server.mjs"), "127.0.0.1", String(port)];
-  const child: ChildProcess = spawn(process.execPath, [...(process.env.BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_CPU_PROF}`] : []), ...args], { cwd: root, env, stdio: "ignore" });
+  const child: ChildProcess = spawn(process.execPath, [...(process.env.BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${path.join(process.env.BENCH_CPU_PROF, mode)}`] : []), ...args], { cwd: root, env, stdio: "ignore" });
   await waitForHttp(`http://127.0.0.1:${port}/api/health`, 120_000, () => child.exitCode === null);
   const label = mode === "single" ? "next start, 1 process" : `scripts/web-server.mjs, ${env.WEB_PROCESSES ?? "one per core"} processes`;
   return { child, url: `http://127.0.0.1:${port}`, label };
