@@ -110,6 +110,8 @@ export type CandidatesAnswer =
  */
 export async function readCandidates(db: Database, actor: Actor, sweepId: string, index: number, q: CandidateQuery, ifNoneMatch: string | null): Promise<CandidatesAnswer> {
   assertCan(actor, "sweep.read");
+  // The sweep's state is read before, never alongside, the page: a page read while the last chunk
+  // commits could miss its rows, and with a state read after that commit it would be kept as final.
   const state = await sweepState(db, sweepId);
   // Another team's sweep is "no such scenario", as listCandidates says it, before any tag is compared.
   if (!state || state.teamId !== actor.teamId) throw notFound("scenario");
