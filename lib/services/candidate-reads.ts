@@ -39,14 +39,28 @@ interface SweepState {
 const finalSweeps = new Map<string, SweepState>();
 const MAX_FINAL_SWEEPS = 5000;
 
+/**
+ * Sweeps seen queued or running, for a second: a repeat within it skips the state query. Safe
+ * because believing a sweep still runs only means answering from the database, uncached (correct,
+ * merely not yet cacheable); the team, which the access check compares, never changes.
+ */
+const activeSweeps = new Map<string, { state: SweepState; until: number }>();
+const ACTIVE_STATE_MS = 1_000;
+
 async function sweepState(db: Database, sweepId: string): Promise<SweepState | null> {
   const known = finalSweeps.get(sweepId);
   if (known) return known;
+  const active = activeSweeps.get(sweepId);
+  if (active && active.until > Date.now()) return active.state;
   const [row] = await db.select({ teamId: sweeps.teamId, status: sweeps.status, finishedAt: sweeps.finishedAt }).from(sweeps).where(eq(sweeps.id, sweepId));
   if (!row) return null;
   if (FINAL.has(row.status)) {
+    activeSweeps.delete(sweepId);
     if (finalSweeps.size >= MAX_FINAL_SWEEPS) finalSweeps.delete(finalSweeps.keys().next().value!);
     finalSweeps.set(sweepId, row);
+  } else {
+    if (activeSweeps.size >= MAX_FINAL_SWEEPS) activeSweeps.clear();
+    activeSweeps.set(sweepId, { state: row, until: Date.now() + ACTIVE_STATE_MS });
   }
   return row;
 }

@@ -124,10 +124,14 @@ describe("a running sweep's candidates", () => {
     // A tag is never answered with 304 while the sweep runs.
     expect((await read(actors.engineer, sweepId, 1, query(), '"anything"')).status).toBe(200);
 
-    // Once the last scenario arrives the sweep is finished and its answers become cacheable.
+    // Once the last scenario arrives the sweep is finished, and its answers become cacheable as soon
+    // as the process looks at the sweep's state again (it trusts "running" for a second at most).
     expect(await runSweepChunk(t.db, { sweepId, from: 2, to: 3 })).toMatchObject({ finished: "succeeded" });
+    expect((await read(actors.engineer, sweepId, 2)).status).toBe(200);
+    expect(bodyOf(await read(actors.engineer, sweepId, 2)).scenario.status).toBe("succeeded");
+    await expect.poll(async () => (await read(actors.engineer, sweepId, 1)).etag, { timeout: 10_000 }).not.toBeNull();
     const finished = await read(actors.engineer, sweepId, 1);
-    expect(finished.etag).not.toBeNull();
+    expect(finished.cacheControl).toBe(FINAL_CACHE_CONTROL);
     expect(bodyOf(finished)).toEqual(bodyOf(after));
   });
 
