@@ -19,6 +19,9 @@ import { listCandidates } from "./candidates";
  * The access check runs before any of it on every request (the caller's actor, read fresh, must be
  * of the sweep's team and may read sweeps), so a tag or a cached body never reaches anyone else.
  * A running sweep's scenario is read from the database each time and marked no-store.
+ * The actor is deliberately not cached: it is one query (session row or token, with membership),
+ * and reading it fresh keeps a sign-out, a removal or a revoked token effective at once in every
+ * web process. With the answers kept, a repeat costs that one query and no other.
  */
 
 /** Bumped whenever the answer's shape changes, so a browser's copy from an older build is not reused. */
