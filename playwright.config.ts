@@ -52,7 +52,8 @@ export default defineConfig({
       timeout: 120_000,
     },
     {
-      command: `node_modules/.bin/next start -H 127.0.0.1 -p ${port}`,
+      // The server `npm start` runs: web processes behind one port (WEB_PROCESSES, default one per core).
+      command: `node scripts/web-server.mjs 127.0.0.1 ${port}`,
       url: `${baseURL}/api/health`,
       env: { ...env, NODE_ENV: "production" },
       reuseExistingServer: false,

@@ -2,29 +2,32 @@
  * `npm run bench:queue`: the sweep queue end to end on a throwaway PostgreSQL cluster.
  *   1. a 200-scenario sweep of 62 sequences each, submit → last result stored, with 1 and 2 worker processes;
  *   2. queue latency, submit (commit) → first job started, with idle workers;
- *   3. the candidates endpoint of the production server under 50 concurrent connections (autocannon).
+ *   3. the candidates endpoint of the production server under 50 concurrent connections (autocannon), a
+ *      finished sweep's and a running sweep's, served by one `next start` process and by the clustered
+ *      server of `npm start` (scripts/web-server.mjs), with the health route's throughput beside.
+ * BENCH_WEB_ONLY=1 skips the worker figures (1 and 2) and the queue latency; BENCH_SECONDS sets each run's length;
+ * BENCH_CPU_PROF=<dir> writes CPU profiles of the web processes (node --cpu-prof) under <dir>/single and <dir>/cluster.
  * Prints figures; asserts nothing.
  */
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
-import autocannon from "autocannon";
 import { eq } from "drizzle-orm";
 import { sweeps } from "../db/schema";
 import { benchRoot as root, runQueueBench, seededBenchDatabase, startWorkers, stopAll } from "./queue-bench-setup";
-import { freePort } from "../scripts/lib/postgres";
-import { waitForHttp } from "../scripts/lib/processes";
+import { loadAverage, loadFigures, startWebServer, warmUp, withTags, type LoadRequest } from "./web-load";
 import type { GridAxis } from "../lib/sweeps/grid";
 
 const SCENARIOS_FLOW = 20;
 const SCENARIOS_TARGET = 10;
+/** Scenarios of the running sweep stored before the endpoint is measured. */
+const RUNNING_DONE = 40;
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 
 const kinetics = {
   feed: { flowA: 0.02, concA: 1000, temperature: 340, ratios: { B: 1.2 } },
   reaction: { stoichiometry: { A: -1, B: -1, R: 1 }, phase: "liquid" as const, rate: { law: "power" as const, k: 1e-4, orders: { A: 1, B: 1 } } },
 };
-
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 
 async function main(serverUrl: string, children: ChildProcess[]) {
   const { url, pool, db, actor, projectId } = await seededBenchDatabase(serverUrl, "bench_queue");
@@ -58,12 +61,13 @@ async function main(serverUrl: string, children: ChildProcess[]) {
   const rows: string[] = [];
   let bigSweepId = "";
   const timings: Record<number, number> = {};
-  for (const n of [1, 2]) {
+  // BENCH_WEB_ONLY=1: only what the endpoint figures need (the sweep, stored once by 2 workers).
+  for (const n of process.env.BENCH_WEB_ONLY ? [2] : [1, 2]) {
     const ws = await startWorkers(n, env);
     children.push(...ws);
     await waitDone((await submit([{ field: "feed.flowA", values: [0.01, 0.02, 0.03, 0.04] }])).id); // warm-up
     const latencies: number[] = [];
-    for (let i = 0; i < 5; i++) {
+    for (let i = 0; i < (process.env.BENCH_WEB_ONLY ? 0 : 5); i++) {
       await new Promise((r) => setTimeout(r, 700)); // let the workers go idle
       const s = await submit([]);
       await waitDone(s.id);
@@ -77,7 +81,7 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     bigSweepId = big.id;
     const count = (await pool.query("select count(*)::int n from candidates where sweep_id = $1", [big.id])).rows[0].n;
     latencies.sort((a, b) => a - b);
-    rows.push(
+    if (latencies.length) rows.push(
       `  ${n} worker${n > 1 ? "s" : " "}  200 scenarios × 62 sequences: ${seconds.toFixed(2)} s (${status}, ${count} candidates, ${(count / seconds).toFixed(0)} candidates/s); ` +
         `submit → first job started: median ${latencies[2].toFixed(0)} ms, max ${latencies[4].toFixed(0)} ms`,
     );
@@ -85,44 +89,42 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     children.length = 0;
   }
 
-  // The candidates endpoint of the production server, under load.
+  // The candidates endpoint under load: a finished sweep (kept answers) and a running one (read
+  // each time), served by `next start` (one process, as before scripts/web-server.mjs) and by the
+  // clustered server `npm start` runs (one process per core).
   if (!existsSync(path.join(root, ".next", "BUILD_ID"))) spawnSync(path.join(root, "node_modules/.bin/next"), ["build"], { cwd: root, stdio: "inherit", env });
-  const port = await freePort();
-  const web = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], { cwd: root, env, stdio: "ignore" });
-  children.push(web);
-  await waitForHttp(`http://127.0.0.1:${port}/api/health`, 60_000);
   const { token } = await createApiToken(db, actor, { name: "bench" });
   const total = (await pool.query("select count(*)::int n from candidates where sweep_id = $1", [bigSweepId])).rows[0].n;
-  const requests = Array.from({ length: 50 }, (_, i) => ({
+  const running = await submit(grid);
+  const { runSweepChunk } = await import("../lib/services/sweep-chunks");
+  await runSweepChunk(db, { sweepId: running.id, from: 0, to: RUNNING_DONE });
+  const finishedRequests = Array.from({ length: 50 }, (_, i) => ({
     method: "GET" as const,
     path: `/api/sweeps/${bigSweepId}/scenarios/${(i * 7) % 200}/candidates?sort=${["totalVolume", "rank", "stageCount"][i % 3]}&dir=${i % 2 ? "desc" : "asc"}&page=${1 + (i % 2)}&pageSize=25`,
   }));
-  // Closed loop: every connection sends its next request as soon as the last one is answered,
-  // so this measures the server's saturation throughput (latency = connections / throughput).
-  // Open loop: 50 connections sharing a fixed offered rate, as 50 people paging through
-  // results would; latency then shows service time plus any queueing.
-  const load = async (overallRate?: number) => {
-    const times: number[] = [];
-    const result = await new Promise<autocannon.Result>((resolve, reject) => {
-      const inst = autocannon(
-        { url: `http://127.0.0.1:${port}`, connections: 50, duration: 10, headers: { authorization: `Bearer ${token}` }, requests, ...(overallRate ? { overallRate } : {}) },
-        (err, res) => (err ? reject(err) : resolve(res)),
-      );
-      inst.on("response", (_client, _status, _bytes, responseTime) => times.push(responseTime));
-    });
-    times.sort((a, b) => a - b);
-    return (
-      `${result.requests.total} requests, ${result.non2xx} non-2xx, ${result.requests.average.toFixed(0)} req/s, ` +
-      `p50 ${percentile(times, 50).toFixed(1)} ms, p95 ${percentile(times, 95).toFixed(1)} ms, p99 ${percentile(times, 99).toFixed(1)} ms`
-    );
-  };
-  const closed = await load();
-  const open = await load(100);
-  rows.push(`  candidates endpoint, sweep of ${total} candidates, sorted + paged (25 rows), 50 connections, 10 s each:`);
-  rows.push(`    closed loop (saturation): ${closed}`);
-  rows.push(`    open loop at 100 req/s:   ${open}`);
+  // A running sweep's first page, as its page asks for it: the first 25 by rank of a scenario that has results.
+  const runningRequests = Array.from({ length: 50 }, (_, i) => ({ method: "GET" as const, path: `/api/sweeps/${running.id}/scenarios/${i % RUNNING_DONE}/candidates?sort=rank&page=1&pageSize=25` }));
+  const auth = { authorization: `Bearer ${token}` };
+  rows.push(`  candidates endpoint, finished sweep of ${total} candidates, sorted + paged (25 rows), 50 connections, ${SECONDS} s each; running sweep: ${RUNNING_DONE} of 200 scenarios stored:`);
+  for (const mode of ["single", "cluster"] as const) {
+    const server = await startWebServer(mode, env);
+    children.push(server.child);
+    const at = (requests: LoadRequest[], overallRate?: number, headers: Record<string, string> = auth) => loadFigures(server.url, { requests, overallRate, headers, seconds: SECONDS });
+    // Warm-up: every URL once (a finished answer is then kept) and a short run for the JIT.
+    await warmUp(server.url, [...finishedRequests, ...runningRequests], auth);
+    const tagged = await withTags(server.url, finishedRequests, auth);
+    rows.push(`   ${server.label}  (load average ${loadAverage()} before this server's runs)`);
+    rows.push(`    health route (the framework's floor), closed loop: ${await at([{ method: "GET", path: "/api/health" }], undefined, {})}`);
+    rows.push(`    finished, closed loop (saturation):     ${await at(finishedRequests)}`);
+    rows.push(`    finished, open loop at 200 req/s:       ${await at(finishedRequests, 200)}`);
+    rows.push(`    finished, repeat with If-None-Match:    ${await at(tagged)}`);
+    rows.push(`    running, first page, closed loop:       ${await at(runningRequests)}`);
+    rows.push(`    running, first page, open at 200 req/s: ${await at(runningRequests, 200)}`);
+    await stopAll([server.child]);
+    children.length = 0;
+  }
   console.log("\nSeriatim queue benchmark (throwaway PostgreSQL, this machine)\n" + rows.join("\n"));
-  console.log(`  speed-up 1 → 2 workers: ${(timings[1] / timings[2]).toFixed(2)}×`);
+  if (timings[1]) console.log(`  speed-up 1 → 2 workers: ${(timings[1] / timings[2]).toFixed(2)}×`);
   await pool.end();
 }
 

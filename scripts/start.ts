@@ -155,11 +155,8 @@ async function main() {
   step("starting mail fake, worker and web");
   supervise("mail fake", node("scripts/mail-fake.ts"));
   supervise("worker", node("worker/index.ts"));
-  const nextBin = path.join(root, "node_modules", "next", "dist", "bin", "next");
-  const web = supervise("web app", [
-    process.execPath,
-    ["--require", marker("scripts/lib/parent-watch.cjs"), nextBin, "start", "-H", "127.0.0.1", "-p", String(port)],
-  ]);
+  // One web process per core behind one port (scripts/web-server.mjs; WEB_PROCESSES sets the count).
+  const web = supervise("web app", [process.execPath, ["--require", marker("scripts/lib/parent-watch.cjs"), marker("scripts/web-server.mjs"), "127.0.0.1", String(port)]]);
   recordRun();
   await waitForHttp(`http://127.0.0.1:${port}/api/health`, 120_000, () => web.restarts === 0 && web.current.child.exitCode === null);
   if (shuttingDown) return;

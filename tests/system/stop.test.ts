@@ -1,7 +1,8 @@
 /**
  * The stop path of `npm start`: every signal a terminal, a supervisor or a human sends, to
  * npm alone or to its whole process group, stops the web app, the worker, the mail fake and
- * PostgreSQL, frees the ports, and a next start works.
+ * PostgreSQL, frees the ports, and a next start works. The web app runs as several processes
+ * (scripts/web-server.mjs): its primary and every web process are among what must be gone.
  */
 import { afterAll, afterEach, beforeAll, describe, expect, it, onTestFailed } from "vitest";
 import { cloneCheckout, killAll, portsFree, postmasterPid, processesOf, recordedPids, startProduct, waitFor, type Checkout } from "./harness";
@@ -41,7 +42,7 @@ describe("npm start stops everything it started", () => {
   const cases = (["SIGINT", "SIGTERM", "SIGHUP"] as const).flatMap((signal) => (["the process group", "npm alone"] as const).map((to) => ({ signal, to })));
 
   for (const { signal, to } of cases) it(`${signal} to ${to}`, async () => {
-    const run = await startProduct(checkout);
+    const run = await startProduct(checkout, { WEB_PROCESSES: "2" });
     onTestFailed(() => console.log(`npm start said:\n${run.output()}`));
     const pids = recordedPids(checkout);
     expect(Object.keys(pids).sort()).toEqual(["mail fake", "web app", "worker"]);
@@ -49,6 +50,10 @@ describe("npm start stops everything it started", () => {
     expect(postmaster).toBeGreaterThan(0);
     const running = processesOf(checkout).map((p) => p.pid);
     for (const pid of [...Object.values(pids), postmaster!, run.npm.pid!]) expect(running).toContain(pid);
+    // The web app is a primary and its two web processes (WEB_PROCESSES=2): all three must go too.
+    const web = processesOf(checkout).filter((p) => p.cmdline.includes("scripts/web-server.mjs"));
+    expect(web.map((p) => p.pid)).toContain(pids["web app"]);
+    expect(web).toHaveLength(3);
 
     const t = Date.now();
     process.kill(to === "npm alone" ? run.npm.pid! : -run.npm.pid!, signal);
