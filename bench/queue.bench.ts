@@ -89,6 +89,22 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     children.length = 0;
   }
 
+  // Storage: the candidates table with its indexes (TOAST included) shared out per candidate, and the
+  // big sweep's share of it.
+  const st = (
+    await pool.query(
+      `select pg_total_relation_size('candidates')::bigint total, (select count(*) from candidates)::int n,
+              (select sum(pg_column_size(c.*)) from candidates c where sweep_id = $1)::bigint sweep_data,
+              (select count(*) from candidates where sweep_id = $1)::int sweep_n`,
+      [bigSweepId],
+    )
+  ).rows[0];
+  const perCandidate = Number(st.total) / st.n;
+  rows.push(
+    `  storage: candidates table with indexes ${(Number(st.total) / 1e6).toFixed(1)} MB for ${st.n} candidates = ${perCandidate.toFixed(0)} bytes a candidate; ` +
+      `the 200 × 62 sweep about ${((perCandidate * st.sweep_n) / 1e6).toFixed(1)} MB (its rows' own data ${(Number(st.sweep_data) / 1e6).toFixed(1)} MB)`,
+  );
+
   // The candidates endpoint under load: a finished sweep (kept answers) and a running one (read
   // each time), served by `next start` (one process, as before scripts/web-server.mjs) and by the
   // clustered server `npm start` runs (one process per core).

@@ -22,7 +22,7 @@ export async function pinDemoCandidate(
       sweepId: opts.sweep.id,
       candidateId: c.id,
       kineticsVersionId: opts.kineticsVersionId,
-      candidate: freezeCandidate(c, sc, opts.sweep),
+      candidate: freezeCandidate(c, sc, { ...opts.sweep, baseSpec: opts.baseSpec }),
       spec: applyOverrides(opts.baseSpec, sc.overrides),
       note: opts.note,
       pinnedBy: opts.pinnedBy,

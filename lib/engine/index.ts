@@ -4,6 +4,7 @@
  */
 export { designTrains, type DesignOptions } from "./design";
 export { rateTrain } from "./rate-train";
+export { stagePlots } from "./stage-plots";
 export { designNetwork } from "./network/design";
 export type * from "./network/design-types";
 // Views of a network (paths, train profiles, fixed trains) for the screens and the report.

@@ -9,6 +9,7 @@ import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
 import type { NetworkScenarioReference, ScenarioReference, StoredNetworkStage, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
+import { candidatePlots } from "@/lib/sweeps/stage-plots";
 
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
 const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedCount')::int, 0)`;
@@ -65,7 +66,17 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   // The scenario (with the team check) and the page are read concurrently; the page is only
   // returned when the scenario query found the sweep in the actor's team.
   const scenarioQuery = db
-    .select({ id: scenarios.id, index: scenarios.index, overrides: scenarios.overrides, status: scenarios.status, error: scenarios.error, reference: scenarios.reference, network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'` })
+    .select({
+      id: scenarios.id,
+      index: scenarios.index,
+      overrides: scenarios.overrides,
+      status: scenarios.status,
+      error: scenarios.error,
+      reference: scenarios.reference,
+      network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'`,
+      // Only when plot points are asked for: they are recomputed from the stages and the scenario's chemistry.
+      baseSpec: q.include === "levenspiel" ? sweeps.baseSpec : sql<null>`null`,
+    })
     .from(scenarios)
     .innerJoin(sweeps, eq(sweeps.id, scenarios.sweepId))
     .where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, scenarioIndex), eq(sweeps.teamId, actor.teamId)));
@@ -93,7 +104,11 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   ]);
   if (!scenario) throw notFound("scenario");
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
-  const items = rows.map(({ filteredTotal: _t, ...c }) => c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>);
+  const items = rows.map(({ filteredTotal: _t, ...c }) => {
+    const typed = c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>;
+    if (q.include !== "levenspiel" || scenario.network || !scenario.baseSpec) return typed;
+    return { ...typed, levenspiel: candidatePlots(typed.levenspiel, typed.stages, scenario.baseSpec, scenario.overrides) };
+  });
   return {
     kind: scenario.network ? ("network" as const) : ("single" as const),
     scenario: { index: scenario.index, overrides: scenario.overrides, status: scenario.status, error: scenario.error, reference: scenario.reference as ScenarioReference | NetworkScenarioReference | null },
@@ -118,6 +133,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
       scenario: { index: scenarios.index, overrides: scenarios.overrides, reference: scenarios.reference },
       sweep: { id: sweeps.id, name: sweeps.name, projectId: sweeps.projectId, teamId: sweeps.teamId },
       network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'`,
+      baseSpec: sweeps.baseSpec,
     })
     .from(candidates)
     .innerJoin(scenarios, eq(scenarios.id, candidates.scenarioId))
@@ -129,7 +145,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
   const best = Math.min(...list.map((r) => r.candidate.totalVolume ?? Infinity));
   const bestCost = Math.min(...list.map((r) => r.candidate.totalCost ?? Infinity));
   const bestYield = Math.max(...list.map((r) => r.candidate.yield ?? -Infinity));
-  return list.map(({ candidate: c, scenario, sweep, network }) => {
+  return list.map(({ candidate: c, scenario, sweep, network, baseSpec }) => {
     const common = {
       id: c.id,
       sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
@@ -158,7 +174,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
     // The kind decides the stages' shape: screens narrow on it.
     return network
       ? { ...common, kind: "network" as const, scenario: scenario as WithShapes<typeof scenario, { reference: NetworkScenarioReference | null }>, stages: c.stages as unknown as StoredNetworkStage[], levenspiel: [] as StagePlot[] }
-      : { ...common, kind: "single" as const, scenario: scenario as WithShapes<typeof scenario, { reference: ScenarioReference | null }>, stages: c.stages as StoredStage[], levenspiel: c.levenspiel as StagePlot[] };
+      : { ...common, kind: "single" as const, scenario: scenario as WithShapes<typeof scenario, { reference: ScenarioReference | null }>, stages: c.stages as StoredStage[], levenspiel: candidatePlots(c.levenspiel, c.stages as StoredStage[], baseSpec, scenario.overrides) };
   });
 }
 

@@ -1,7 +1,7 @@
 import type { DesignResult } from "@/lib/engine";
 import { commonCandidateColumns } from "./common-candidate-columns";
 
-/** The candidate rows of one scenario's ranking, as stored: the charts apart from the stages. */
+/** The candidate rows of one scenario's ranking, as stored: without plot points (recomputed when drawn). */
 export function candidateRows(sweepId: string, scenarioId: string, result: DesignResult) {
   const pfr = result.reference.singlePFR;
   return result.candidates.map((c) => ({
@@ -15,7 +15,8 @@ export function candidateRows(sweepId: string, scenarioId: string, result: Desig
     objectiveValue: null,
     onBound: null,
     stages: c.stages.map(({ levenspiel: _plot, ...stage }) => stage as unknown as Record<string, unknown>),
-    levenspiel: c.stages.map((s) => s.levenspiel),
+    // Plot points are recomputed from the stages when a chart is drawn (lib/sweeps/stage-plots.ts).
+    levenspiel: [] as unknown[],
   }));
 }
 

@@ -2,6 +2,7 @@ import type { Candidate, Scenario, Sweep } from "@/db/schema";
 import type { StagePlot, StageType } from "@/lib/engine";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import { candidatePlots } from "./stage-plots";
 import type { NetworkScenarioReference, PinnedCandidate, PinnedNetworkCandidate, ScenarioReference, StoredNetworkStage, StoredStage } from "./stored-json";
 
 /** The frozen copy of a candidate that a pinned design keeps: totals, stages with plot data, its scenario and sweep. */
@@ -19,7 +20,7 @@ export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
     installedCost: c.installedCost,
     inventoryPlan: c.inventoryPlan as TrainPlan | null,
     probabilityMeet: c.probabilityMeet,
-    stages: c.stages.map((s, i) => ({ ...(s as unknown as StoredStage), levenspiel: c.levenspiel[i] as StagePlot })),
+    stages: frozenStages(c, scenario.overrides, sweep.baseSpec),
     scenario: { index: scenario.index, overrides: scenario.overrides, reference: scenario.reference as ScenarioReference | null },
     sweep: { id: sweep.id, name: sweep.name },
   };
@@ -50,4 +51,12 @@ function freezeNetworkCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
     scenario: { index: scenario.index, overrides: scenario.overrides, reference: scenario.reference as NetworkScenarioReference | null },
     sweep: { id: sweep.id, name: sweep.name },
   };
+}
+
+/** Stages with their plot data: as stored by older sweeps, else recomputed from the scenario's chemistry. */
+function frozenStages(c: Candidate, overrides: Record<string, number>, baseSpec: Sweep["baseSpec"] | undefined) {
+  const stages = c.stages as unknown as StoredStage[];
+  const stored = c.levenspiel as StagePlot[];
+  const plots = baseSpec ? candidatePlots(stored, stages, baseSpec, overrides) : stored;
+  return stages.map((s, i) => ({ ...s, levenspiel: plots[i] }));
 }
