@@ -61,19 +61,73 @@ export function brentRoot(f: (x: number) => number, a0: number, b0: number, tol 
   return b;
 }
 
-/** Every root of f on [a, b] found by a scan of n sub-intervals and Brent's method in each sign change. */
+/**
+ * Every root of f on [a, b] found by a scan of n sub-intervals and Brent's method in each sign change.
+ * Two roots within one sub-interval leave no sign change (an adiabatic stirred tank's middle and ignited
+ * states at a small volume lie that close): above the first root found by a sign change, where samples
+ * of one sign have an interior local minimum of |f|, |f| is minimised between the neighbouring samples,
+ * and a minimum across zero gives both roots. Below that first root nothing more is sought, so the
+ * lowest root stays the first sign change (the robustness rating's lean scan, outlet-rating.ts, relies
+ * on that).
+ */
 export function allRoots(f: (x: number) => number, a: number, b: number, n: number): number[] {
   const roots: number[] = [];
-  let x0 = a;
-  let f0 = f(a);
-  if (f0 === 0) roots.push(a);
-  for (let i = 1; i <= n; i++) {
-    const x1 = a + ((b - a) * i) / n;
-    const f1 = f(x1);
-    if (f1 === 0) roots.push(x1);
-    else if (f0 !== 0 && Number.isFinite(f0) && Number.isFinite(f1) && f0 * f1 < 0) roots.push(brentRoot(f, x0, x1));
-    x0 = x1;
-    f0 = f1;
+  const xs = new Float64Array(n + 1);
+  const fs = new Float64Array(n + 1);
+  for (let i = 0; i <= n; i++) {
+    xs[i] = i === 0 ? a : a + ((b - a) * i) / n;
+    fs[i] = f(xs[i]);
   }
-  return roots;
+  if (fs[0] === 0) roots.push(a);
+  for (let i = 1; i <= n; i++) {
+    const f0 = fs[i - 1];
+    const f1 = fs[i];
+    if (f1 === 0) roots.push(xs[i]);
+    else if (f0 !== 0 && Number.isFinite(f0) && Number.isFinite(f1) && f0 * f1 < 0) roots.push(brentRoot(f, xs[i - 1], xs[i]));
+  }
+  if (roots.length === 0) return roots;
+  const lowest = Math.min(...roots);
+  for (let i = 1; i < n; i++) {
+    if (xs[i - 1] < lowest) continue;
+    const [fl, fm, fr] = [fs[i - 1], fs[i], fs[i + 1]];
+    if (!(Number.isFinite(fl) && Number.isFinite(fm) && Number.isFinite(fr))) continue;
+    const sign = Math.sign(fm);
+    if (sign === 0 || Math.sign(fl) !== sign || Math.sign(fr) !== sign) continue;
+    if (!(Math.abs(fm) <= Math.abs(fl) && Math.abs(fm) <= Math.abs(fr))) continue;
+    const g = (x: number) => sign * f(x);
+    const xm = goldenMinimum(g, xs[i - 1], xs[i + 1]);
+    if (!(g(xm) < 0)) continue;
+    roots.push(brentRoot(f, xs[i - 1], xm), brentRoot(f, xm, xs[i + 1]));
+  }
+  return roots.sort((p, q) => p - q);
+}
+
+/** The minimum of g on [lo, hi] by golden-section search to round-off of the interval (g unimodal there). */
+function goldenMinimum(g: (x: number) => number, lo: number, hi: number): number {
+  const r = (Math.sqrt(5) - 1) / 2;
+  let a = lo;
+  let b = hi;
+  let c = b - r * (b - a);
+  let d = a + r * (b - a);
+  let gc = g(c);
+  let gd = g(d);
+  for (let k = 0; k < 200 && b - a > 4 * Number.EPSILON * Math.max(Math.abs(a), Math.abs(b), 1e-300); k++) {
+    // Stop early once the minimum is below zero: two roots are then bracketed.
+    if (gc < 0) return c;
+    if (gd < 0) return d;
+    if (gc <= gd) {
+      b = d;
+      d = c;
+      gd = gc;
+      c = b - r * (b - a);
+      gc = g(c);
+    } else {
+      a = c;
+      c = d;
+      gc = gd;
+      d = a + r * (b - a);
+      gd = g(d);
+    }
+  }
+  return gc <= gd ? c : d;
 }

@@ -94,7 +94,9 @@ describe("properties over random inputs (fast-check)", () => {
         const states = rated.stages[0].steadyStates.map((s) => s.conversionOut);
         expect(Math.min(...states.map((s) => Math.abs(s - x)))).toBeLessThan(1e-8);
       }),
-      { numRuns: 25 },
+      // The example: a target whose tank is so small that its middle and ignited states lie within one
+      // step of the rating's scan (found by a random run; both were missed before).
+      { numRuns: 25, examples: [[0.893253537325709]] },
     );
   });
 });
