@@ -112,7 +112,8 @@ export const candidateQuerySchema = z.strictObject({
   stages: z.coerce.number().int().min(1).max(8).optional(),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(500).default(50),
-  include: z.enum(["levenspiel"]).optional(),
+  /** "levenspiel": each stage's plot points; "thumbnails": the same thinned for the ranked table's small charts. */
+  include: z.enum(["levenspiel", "thumbnails"]).optional(),
 });
 export type CandidateQuery = z.infer<typeof candidateQuerySchema>;
 

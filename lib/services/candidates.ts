@@ -10,6 +10,7 @@ import type { CandidateQuery } from "@/lib/schemas/sweeps";
 import type { NetworkScenarioReference, ScenarioReference, StoredNetworkStage, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
 import { candidatePlots } from "@/lib/sweeps/stage-plots";
+import { thumbnailPlot } from "@/lib/charts/thumbnail-plots";
 
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
 const reusedCount = sql<number>`coalesce((${candidates.inventoryPlan}->>'reusedCount')::int, 0)`;
@@ -75,7 +76,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
       reference: scenarios.reference,
       network: sql<boolean>`${sweeps.baseSpec} ? 'reactions'`,
       // Only when plot points are asked for: they are recomputed from the stages and the scenario's chemistry.
-      baseSpec: q.include === "levenspiel" ? sweeps.baseSpec : sql<null>`null`,
+      baseSpec: q.include ? sweeps.baseSpec : sql<null>`null`,
     })
     .from(scenarios)
     .innerJoin(sweeps, eq(sweeps.id, scenarios.sweepId))
@@ -94,7 +95,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   const order = [sql`${candidates.feasible} desc`, ...SORT_COLUMNS[q.sort].map((c) => sql`${direction(c)} nulls last`), asc(candidates.rank)];
   const columns = {
     ...summaryColumns,
-    ...(q.include === "levenspiel" ? { levenspiel: candidates.levenspiel } : {}),
+    ...(q.include ? { levenspiel: candidates.levenspiel } : {}),
     // The filtered total rides along with the page instead of a second query.
     filteredTotal: sql<number>`count(*) over ()`.mapWith(Number),
   };
@@ -106,8 +107,9 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
   const items = rows.map(({ filteredTotal: _t, ...c }) => {
     const typed = c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>;
-    if (q.include !== "levenspiel" || scenario.network || !scenario.baseSpec) return typed;
-    return { ...typed, levenspiel: candidatePlots(typed.levenspiel, typed.stages, scenario.baseSpec, scenario.overrides) };
+    if (!q.include || scenario.network || !scenario.baseSpec) return typed;
+    const plots = candidatePlots(typed.levenspiel, typed.stages, scenario.baseSpec, scenario.overrides);
+    return { ...typed, levenspiel: q.include === "thumbnails" ? plots.map(thumbnailPlot) : plots };
   });
   return {
     kind: scenario.network ? ("network" as const) : ("single" as const),

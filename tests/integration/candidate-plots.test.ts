@@ -69,6 +69,24 @@ describe("plot points are recomputed, not stored", () => {
     }
   });
 
+  it("gives the ranked table's thumbnails at most 9 points a stage, from the same curve, its ends kept", async () => {
+    const q = (include: string) => candidateQuerySchema.parse({ include, pageSize: "50" });
+    const full = await listCandidates(t.db, actors.engineer, sweepId, 0, q("levenspiel"));
+    const small = await listCandidates(t.db, actors.engineer, sweepId, 0, q("thumbnails"));
+    for (const [i, item] of small.items.entries()) {
+      const whole = full.items[i].levenspiel!;
+      item.levenspiel!.forEach((plot, s) => {
+        expect(plot.curve.length).toBeLessThanOrEqual(9);
+        expect(plot.curve[0]).toEqual(whole[s].curve[0]);
+        expect(plot.curve.at(-1)).toEqual(whole[s].curve.at(-1));
+        for (const point of plot.curve) expect(whole[s].curve).toContainEqual(point);
+        // The outline keeps its base corners, so the shaded volume starts and ends on the axis.
+        expect(plot.area[0]).toEqual(whole[s].area[0]);
+        expect(plot.area.at(-1)).toEqual(whole[s].area.at(-1));
+      });
+    }
+  });
+
   it("keeps plot points that an older sweep stored, and recomputes them for compare and for a pin", async () => {
     const [first] = (await listCandidates(t.db, actors.engineer, sweepId, 0, candidateQuerySchema.parse({ pageSize: "50" }))).items.filter((c) => c.feasible);
     const [fresh] = await compareCandidates(t.db, actors.engineer, [first.id]);

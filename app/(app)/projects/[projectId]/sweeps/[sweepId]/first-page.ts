@@ -15,34 +15,6 @@ import { isNetworkSweep } from "@/components/sweeps/network-sweep";
 import { candidateQuery, candidatesKey, chartsRideAlong, parseViewState, type FirstPage } from "@/components/sweeps/view-query";
 
 const ACTIVE = new Set(["queued", "running"]);
-/** Points per stage a 112-pixel thumbnail needs: the stored 25 add nothing visible at that size. */
-const THUMBNAIL_POINTS = 9;
-
-type Point = [number, number];
-/** `points` cut to at most `max`, evenly, always keeping the first and the last (the stage's ends). */
-function thin(points: Point[], max: number): Point[] {
-  if (points.length <= max) return points;
-  const step = (points.length - 1) / (max - 1);
-  return Array.from({ length: max }, (_, i) => points[Math.round(i * step)]);
-}
-
-/** A stage outline (its base corners around the top edge) with the top edge thinned and both base corners kept. */
-function thinOutline(area: Point[]): Point[] {
-  if (area.length <= THUMBNAIL_POINTS + 2) return area;
-  return [area[0], ...thin(area.slice(1, -1), THUMBNAIL_POINTS), area[area.length - 1]];
-}
-
-/**
- * The first page's thumbnails drawn from compact plot data: each stage's curve and outline thinned,
- * which keeps the page's HTML (the rows are in it twice, drawn and as data) small. The candidate
- * page and every later table page read the stored points in full.
- */
-function compactPlots(page: CandidatePage): CandidatePage {
-  return {
-    ...page,
-    items: page.items.map((c) => (c.levenspiel ? { ...c, levenspiel: c.levenspiel.map((p) => ({ ...p, curve: thin(p.curve as Point[], THUMBNAIL_POINTS), area: thinOutline(p.area as Point[]) })) } : c)),
-  };
-}
 const asJson = <T>(value: T): Jsonify<T> => JSON.parse(JSON.stringify(value)) as Jsonify<T>;
 
 /**
@@ -63,6 +35,6 @@ export async function loadFirstPage(db: Database, actor: Actor, sweepId: string,
   return {
     sweep: shown,
     ...(scenarios ? { scenarios: asJson(scenarios) as ScenarioRow[] } : {}),
-    ...(page ? { candidates: { key: candidatesKey(sweepId, view, network), page: compactPlots(asJson(page) as CandidatePage) } } : {}),
+    ...(page ? { candidates: { key: candidatesKey(sweepId, view, network), page: asJson(page) as CandidatePage } } : {}),
   };
 }
