@@ -72,7 +72,7 @@ export const ENDPOINTS: Endpoint[] = [
   { method: "post", path: "/api/sweeps/{sweepId}/cancel", summary: "Cancel a queued or running sweep" },
   { method: "post", path: "/api/sweeps/{sweepId}/rerun", summary: "Run the same sweep again as a new sweep", status: 201 },
   { method: "get", path: "/api/sweeps/{sweepId}/scenarios", summary: "Scenarios of a sweep with their status and best objective" },
-  { method: "get", path: "/api/sweeps/{sweepId}/scenarios/{index}/candidates", summary: "Ranked candidates of one scenario, sorted, filtered and paged", query: candidateQuerySchema },
+  { method: "get", path: "/api/sweeps/{sweepId}/scenarios/{index}/candidates", summary: "Ranked candidates of one scenario, sorted, filtered and paged; once the sweep has ended each answer carries an ETag, and a repeat sending it in If-None-Match gets 304 Not Modified", query: candidateQuerySchema },
   { method: "get", path: "/api/candidates/compare", summary: "Two to four candidates side by side", query: compareQuerySchema },
   { method: "get", path: "/api/candidates/{candidateId}", summary: "One candidate with its stages, plot data, scenario and sweep; of several reactions also its chemistry, concentration profiles and paths" },
   { method: "post", path: "/api/candidates/{candidateId}/pin", summary: "Pin a candidate to its project for review", body: pinCreateSchema, status: 201 },
