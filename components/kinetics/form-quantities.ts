@@ -13,3 +13,18 @@ export interface FormIssue {
 }
 
 export const q = (value: string | number, unit: string): QuantityInput => ({ value: String(value), unit });
+
+/** A number typed in a field: undefined when blank ("Required" when it must be given) or not a number ("Enter a number"). */
+export function readTypedNumber(text: string | undefined, required: boolean, problem: (message: string) => void): number | undefined {
+  const t = (text ?? "").trim();
+  if (t === "") {
+    if (required) problem("Required");
+    return undefined;
+  }
+  const n = Number(t);
+  if (!Number.isFinite(n)) {
+    problem("Enter a number");
+    return undefined;
+  }
+  return n;
+}

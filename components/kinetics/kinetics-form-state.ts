@@ -7,7 +7,7 @@ import { kineticsModelCreateSchema, kineticsSpecSchema, type KineticsSpec } from
 import { fromSI, rateConstantFromSI, rateConstantToSI, toSI, type UnitKind } from "@/lib/units/display";
 import { RATE_CONSTANT_UNIT_SEPARATOR, splitRateConstantUnit } from "@/lib/units/typed-units";
 import { asNumber, show, storedQuantities } from "./stored-quantities";
-import { q, quantityInput, type FormIssue, type QuantityInput } from "./form-quantities";
+import { q, quantityInput, readTypedNumber, type FormIssue, type QuantityInput } from "./form-quantities";
 
 const rateConstantInput = z.object({ value: z.string(), conc: z.string(), time: z.string() });
 const row = z.object({ name: z.string(), value: z.string() });
@@ -100,17 +100,7 @@ class Builder {
   }
   /** A number typed in a field; blank gives undefined unless required. */
   num(text: string, path: string, required = true): number | undefined {
-    const t = text.trim();
-    if (t === "") {
-      if (required) this.issue(path, "Required");
-      return undefined;
-    }
-    const n = Number(t);
-    if (!Number.isFinite(n)) {
-      this.issue(path, "Enter a number");
-      return undefined;
-    }
-    return n;
+    return readTypedNumber(text, required, (message) => this.issue(path, message));
   }
   quantity(kind: UnitKind, input: QuantityInput, path: string, required = true): number | undefined {
     const n = this.num(input.value, `${path}.value`, required);
