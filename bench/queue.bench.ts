@@ -1,6 +1,7 @@
 /**
  * `npm run bench:queue`: the sweep queue end to end on a throwaway PostgreSQL cluster.
- *   1. a 200-scenario sweep of 62 sequences each, submit → last result stored, with 1 and 2 worker processes;
+ *   1. a 200-scenario sweep of 62 sequences each, submit → last result stored, with 1 and 2 worker processes,
+ *      and the largest sweep (2,000 scenarios) with 2;
  *   2. queue latency, submit (commit) → first job started, with idle workers;
  *   3. the candidates endpoint of the production server under 50 concurrent connections (autocannon), a
  *      finished sweep's and a running sweep's, served by one `next start` process and by the clustered
@@ -85,6 +86,21 @@ async function main(serverUrl: string, children: ChildProcess[]) {
       `  ${n} worker${n > 1 ? "s" : " "}  200 scenarios × 62 sequences: ${seconds.toFixed(2)} s (${status}, ${count} candidates, ${(count / seconds).toFixed(0)} candidates/s); ` +
         `submit → first job started: median ${latencies[2].toFixed(0)} ms, max ${latencies[4].toFixed(0)} ms`,
     );
+    if (n === 2 && !process.env.BENCH_WEB_ONLY) {
+      // The largest sweep a user can submit: 2,000 scenarios (200 flows × 10 targets) of 62 sequences.
+      const t1 = performance.now();
+      const large = await submit([
+        { field: "feed.flowA", from: 0.01, to: 0.05, steps: 200 },
+        { field: "target.conversion", from: 0.8, to: 0.95, steps: 10 },
+      ]);
+      const largeStatus = await waitDone(large.id);
+      const largeSeconds = (performance.now() - t1) / 1000;
+      const sized = (await pool.query("select count(*)::int n, sum(pg_column_size(c.*))::bigint bytes from candidates c where sweep_id = $1", [large.id])).rows[0];
+      rows.push(
+        `  2 workers  2,000 scenarios × 62 sequences (the largest sweep): ${largeSeconds.toFixed(1)} s (${largeStatus}, ${sized.n} candidates, ${(sized.n / largeSeconds).toFixed(0)} candidates/s; ` +
+          `its rows' own data ${(Number(sized.bytes) / 1e6).toFixed(1)} MB)`,
+      );
+    }
     await stopAll(ws);
     children.length = 0;
   }

@@ -1,8 +1,16 @@
-import { boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, customType, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users } from "./identity";
 import { teams } from "./teams";
 import { projects } from "./projects";
 import { kineticsVersions } from "./kinetics";
+import { decodeStages, encodeStages } from "../stage-codec";
+
+/** A candidate's stages, kept as a few bytes (db/stage-codec.ts) and read back as the same list. */
+const storedStages = customType<{ data: Record<string, unknown>[]; driverData: Buffer }>({
+  dataType: () => "bytea",
+  toDriver: (stages) => encodeStages(stages),
+  fromDriver: (bytes) => decodeStages(bytes),
+});
 
 /* Optimisation sweeps, their operating scenarios and the ranked candidate trains of each. */
 
@@ -90,14 +98,15 @@ export const candidates = pgTable(
     onBound: jsonb("on_bound").$type<string[] | null>(),
     /** Which inventory vessel equips which stage, and what is bought, when reuse was asked for. */
     inventoryPlan: jsonb("inventory_plan").$type<Record<string, unknown> | null>(),
-    /** Stages without their plot data. */
-    stages: jsonb("stages").$type<Record<string, unknown>[]>().notNull(),
+    /** Stages without their plot data, kept compact (db/stage-codec.ts). */
+    stages: storedStages("stages").notNull(),
     /** Levenspiel plot data per stage (curve and area), read only when a chart is drawn. */
     levenspiel: jsonb("levenspiel").$type<unknown[]>().notNull(),
   },
   (t) => [
-    uniqueIndex("candidates_scenario_sequence_unique").on(t.sweepId, t.scenarioId, t.sequenceKey),
-    index("candidates_scenario_rank_idx").on(t.scenarioId, t.rank),
+    // One index serves both the ranked reads and a retried job's writes (ranks are 1..n in a scenario,
+    // so a repeated row conflicts and is skipped).
+    uniqueIndex("candidates_scenario_rank_unique").on(t.scenarioId, t.rank),
   ],
 );
 
