@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
-import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { type Database, withTransaction } from "@/db/client";
-import { candidates, scenarios, sweeps, type Sweep } from "@/db/schema";
+import { scenarios, sweeps, type Sweep } from "@/db/schema";
 import { designTrains, EngineError, type DesignSpec } from "@/lib/engine";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { AppError, labelled, notFound } from "@/lib/errors";
@@ -295,8 +295,6 @@ export const scenarioIdOf = async (db: Database, sweepId: string, index: number)
   const [row] = await db.select({ id: scenarios.id }).from(scenarios).where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, index)));
   return row?.id ?? null;
 };
-export const candidateCountOf = (db: Database, sweepId: string) =>
-  db.select({ n: sql<number>`count(*)::int` }).from(candidates).where(eq(candidates.sweepId, sweepId)).then((r) => r[0].n);
 
 /**
  * The units the engineer typed the sweep's kinetics in (empty when the model kept none), for
