@@ -23,18 +23,28 @@ import { NetworkCandidateView } from "./network-candidate-view";
 import type { NetworkCandidateDetail } from "./network-types";
 import { networkObjectiveOf } from "@/components/sweeps/network-sweep";
 
-export function CandidateView({ candidateId, canPin, typedUnits }: { candidateId: string; canPin: boolean; typedUnits?: Partial<Record<UnitKind, string>> }) {
+/** What the server read for the page's first paint: the candidate and, when it is the same, its sweep. */
+export interface CandidateInitial {
+  candidate: CandidateAnswer;
+  sweep?: SweepView;
+}
+
+export function CandidateView({ candidateId, canPin, typedUnits, initial }: { candidateId: string; canPin: boolean; typedUnits?: Partial<Record<UnitKind, string>>; initial?: CandidateInitial }) {
   const params = useSearchParams();
   const back = params.get("back");
+  // Seeded with the server's read under the key the browser uses: the page shows the candidate
+  // with its first paint, and a later visit within the stale time reads the same cache.
   const q = useQuery({
     queryKey: ["candidate", candidateId],
     queryFn: () => fetchJson<{ candidate: CandidateAnswer }>(`/api/candidates/${candidateId}`).then((r) => r.candidate),
+    initialData: initial?.candidate.id === candidateId ? initial.candidate : undefined,
   });
   const sweepId = q.data?.sweep.id;
   const sweepQ = useQuery({
     queryKey: ["sweep", sweepId],
     queryFn: () => fetchJson<{ sweep: SweepView }>(`/api/sweeps/${sweepId}`).then((r) => r.sweep),
     enabled: !!sweepId,
+    initialData: initial?.sweep && initial.sweep.id === sweepId ? initial.sweep : undefined,
   });
   const [unit, setUnit] = useUrlUnit(q.data?.totalVolume ?? null);
 

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { sweeps, type SweepStatus } from "@/db/schema";
+import { scenarios, sweeps, type SweepStatus } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
@@ -18,7 +18,13 @@ import { listCandidates } from "./candidates";
  *   - a request naming the tag in If-None-Match gets 304 with no body.
  * The access check runs before any of it on every request (the caller's actor, read fresh, must be
  * of the sweep's team and may read sweeps), so a tag or a cached body never reaches anyone else.
- * A running sweep's scenario is read from the database each time and marked no-store.
+ * A running sweep's scenario that is already stored (succeeded or failed) is final too, and is served
+ * the same way: the worker moves a scenario out of "pending" exactly once, in the transaction that
+ * writes its candidates (costing and robustness figures included, computed before the insert), only
+ * while the sweep is active, and nothing updates a scenario or its candidates afterwards; cancelling
+ * leaves stored scenarios as they are and a re-run is a new sweep. Its answer carries nothing about
+ * the sweep's progress (only the scenario's own status, reference and rows), so it is immutable.
+ * A running sweep's scenario not yet stored is read from the database each time and marked no-store.
  * The actor is deliberately not cached: it is one query (session row or token, with membership),
  * and reading it fresh keeps a sign-out, a removal or a revoked token effective at once in every
  * web process. With the answers kept, a repeat costs that one query and no other.
@@ -26,7 +32,10 @@ import { listCandidates } from "./candidates";
 
 /** Bumped whenever the answer's shape changes, so a browser's copy from an older build is not reused. */
 const FORMAT = "c1";
-/** A final answer is immutable; a day is long enough to matter and short enough to bound a format change. */
+/**
+ * A final answer (a finished sweep's, or a stored scenario's of a running sweep) is immutable; a day
+ * is long enough to matter and short enough to bound a format change.
+ */
 export const FINAL_CACHE_CONTROL = "private, max-age=86400, immutable";
 export const RUNNING_CACHE_CONTROL = "no-store";
 
@@ -68,6 +77,29 @@ async function sweepState(db: Database, sweepId: string): Promise<SweepState | n
   return row;
 }
 
+/**
+ * Scenarios of running sweeps seen stored, with the time they were computed. Once stored a scenario
+ * never changes, so the entry never goes stale; only the bound evicts (oldest first).
+ */
+const storedScenarios = new Map<string, Date>();
+const MAX_STORED_SCENARIOS = 50_000;
+
+/**
+ * When the scenario was stored, or null while it is pending (or does not exist). Read before the
+ * page, never alongside it: the page's own read then starts after the commit that stored the rows,
+ * so it cannot miss them, and an answer is only ever kept when it was read after that commit.
+ */
+async function storedAt(db: Database, sweepId: string, index: number): Promise<Date | null> {
+  const key = `${sweepId}/${index}`;
+  const known = storedScenarios.get(key);
+  if (known) return known;
+  const [row] = await db.select({ status: scenarios.status, computedAt: scenarios.computedAt }).from(scenarios).where(and(eq(scenarios.sweepId, sweepId), eq(scenarios.index, index)));
+  if (!row || row.status === "pending" || !row.computedAt) return null;
+  if (storedScenarios.size >= MAX_STORED_SCENARIOS) storedScenarios.delete(storedScenarios.keys().next().value!);
+  storedScenarios.set(key, row.computedAt);
+  return row.computedAt;
+}
+
 /** Least recently used answers of final scenarios, bounded by their total size. */
 class AnswerCache {
   private readonly entries = new Map<string, string>();
@@ -104,8 +136,16 @@ function normalisedQuery(q: CandidateQuery): string {
 }
 
 function etagOf(sweepId: string, index: number, state: SweepState, q: CandidateQuery): string {
-  const basis = [FORMAT, sweepId, index, state.status, state.finishedAt?.toISOString() ?? "", normalisedQuery(q)].join("\n");
-  return `"${FORMAT}-${createHash("sha256").update(basis).digest("base64url").slice(0, 32)}"`;
+  return tagOf([FORMAT, sweepId, index, state.status, state.finishedAt?.toISOString() ?? "", normalisedQuery(q)]);
+}
+
+/** A stored scenario of a running sweep: its tag names the scenario's own computation, not the sweep's state. */
+function storedEtagOf(sweepId: string, index: number, computedAt: Date, q: CandidateQuery): string {
+  return tagOf([FORMAT, sweepId, index, "stored", computedAt.toISOString(), normalisedQuery(q)]);
+}
+
+function tagOf(basis: (string | number)[]): string {
+  return `"${FORMAT}-${createHash("sha256").update(basis.join("\n")).digest("base64url").slice(0, 32)}"`;
 }
 
 /**
@@ -132,10 +172,13 @@ export async function readCandidates(db: Database, actor: Actor, sweepId: string
   const state = await sweepState(db, sweepId);
   // Another team's sweep is "no such scenario", as listCandidates says it, before any tag is compared.
   if (!state || state.teamId !== actor.teamId) throw notFound("scenario");
-  if (!FINAL.has(state.status)) {
-    return { status: 200, body: JSON.stringify(await listCandidates(db, actor, sweepId, index, q)), etag: null, cacheControl: RUNNING_CACHE_CONTROL };
+  let etag: string;
+  if (FINAL.has(state.status)) etag = etagOf(sweepId, index, state, q);
+  else {
+    const stored = await storedAt(db, sweepId, index);
+    if (!stored) return { status: 200, body: JSON.stringify(await listCandidates(db, actor, sweepId, index, q)), etag: null, cacheControl: RUNNING_CACHE_CONTROL };
+    etag = storedEtagOf(sweepId, index, stored, q);
   }
-  const etag = etagOf(sweepId, index, state, q);
   if (matchesTag(ifNoneMatch, etag)) return { status: 304, etag, cacheControl: FINAL_CACHE_CONTROL };
   let body = answers.get(etag);
   if (body === undefined) {

@@ -109,30 +109,63 @@ describe("a finished sweep's candidates", () => {
 });
 
 describe("a running sweep's candidates", () => {
-  it("are never stored and show new rows as each scenario's results arrive", async () => {
+  it("keep a stored scenario's answer with a tag and 304, and read a pending one afresh until its rows arrive", async () => {
     const sweepId = (await submit([0.02, 0.03, 0.04])).id;
     const before = await read(actors.engineer, sweepId, 1);
     expect(before).toMatchObject({ status: 200, etag: null, cacheControl: RUNNING_CACHE_CONTROL });
     expect(bodyOf(before)).toMatchObject({ total: 0, scenario: { status: "pending" } });
+    // A pending scenario is read afresh every time: nothing is kept, a tag is never answered with 304.
+    expect(await read(actors.engineer, sweepId, 1, query(), '"anything"')).toMatchObject({ status: 200, etag: null, cacheControl: RUNNING_CACHE_CONTROL });
 
     // Scenarios 0 and 1 arrive; the sweep is still running (scenario 2 is pending).
     expect(await runSweepChunk(t.db, { sweepId, from: 0, to: 2 })).toMatchObject({ written: 2 });
     const after = await read(actors.engineer, sweepId, 1);
-    expect(after).toMatchObject({ status: 200, etag: null, cacheControl: RUNNING_CACHE_CONTROL });
+    // The pending answer was not kept: the rows show as soon as they are stored.
+    expect(after.status).toBe(200);
     expect(bodyOf(after).scenario.status).toBe("succeeded");
     expect(bodyOf(after).total).toBeGreaterThan(0);
-    // A tag is never answered with 304 while the sweep runs.
-    expect((await read(actors.engineer, sweepId, 1, query(), '"anything"')).status).toBe(200);
+    // A stored scenario never changes again, so its answer is kept like a finished sweep's.
+    expect(after.etag).toMatch(/^"[^"]+"$/);
+    expect(after.cacheControl).toBe(FINAL_CACHE_CONTROL);
+    expect(await read(actors.engineer, sweepId, 1, query(), after.etag)).toEqual({ status: 304, etag: after.etag, cacheControl: FINAL_CACHE_CONTROL });
+    // Another question about the same scenario has its own tag.
+    const sorted = await read(actors.engineer, sweepId, 1, query({ sort: "totalVolume", dir: "desc" }));
+    expect(sorted.etag).not.toBeNull();
+    expect(sorted.etag).not.toBe(after.etag);
 
-    // Once the last scenario arrives the sweep is finished, and its answers become cacheable as soon
+    // Scenario 2 is still pending: read afresh, and its rows show once the worker stores them.
+    const pending = await read(actors.engineer, sweepId, 2);
+    expect(pending).toMatchObject({ status: 200, etag: null, cacheControl: RUNNING_CACHE_CONTROL });
+    expect(bodyOf(pending)).toMatchObject({ total: 0, scenario: { status: "pending" } });
+
+    // Once the last scenario arrives the sweep is finished, and every answer becomes cacheable as soon
     // as the process looks at the sweep's state again (it trusts "running" for a second at most).
     expect(await runSweepChunk(t.db, { sweepId, from: 2, to: 3 })).toMatchObject({ finished: "succeeded" });
-    expect((await read(actors.engineer, sweepId, 2)).status).toBe(200);
-    expect(bodyOf(await read(actors.engineer, sweepId, 2)).scenario.status).toBe("succeeded");
-    await expect.poll(async () => (await read(actors.engineer, sweepId, 1)).etag, { timeout: 10_000 }).not.toBeNull();
+    const last = await read(actors.engineer, sweepId, 2);
+    expect(last.status).toBe(200);
+    expect(bodyOf(last).scenario.status).toBe("succeeded");
+    expect(bodyOf(last).total).toBeGreaterThan(0);
+    await expect.poll(async () => (await read(actors.engineer, sweepId, 0)).cacheControl, { timeout: 10_000 }).toBe(FINAL_CACHE_CONTROL);
     const finished = await read(actors.engineer, sweepId, 1);
     expect(finished.cacheControl).toBe(FINAL_CACHE_CONTROL);
+    // The answer kept while the sweep ran is the one the finished sweep gives.
     expect(bodyOf(finished)).toEqual(bodyOf(after));
+  });
+
+  it("keep a stored scenario's answer as strictly as a finished one: another team and a viewer are refused, tag or not", async () => {
+    const sweepId = (await submit([0.02, 0.03])).id;
+    expect(await runSweepChunk(t.db, { sweepId, from: 0, to: 1 })).toMatchObject({ written: 1 });
+    const own = await read(actors.engineer, sweepId, 0);
+    expect(own.etag).not.toBeNull();
+    const other = await refusal(read(actors.otherTeam, sweepId, 0, query(), own.etag));
+    expect(other.status).toBe(404);
+    expect(other.message).toMatch(/scenario/);
+    // The same answer as for a scenario that does not exist, and as for another team's pending one.
+    expect((await refusal(read(actors.otherTeam, sweepId, 1))).status).toBe(404);
+    expect((await refusal(read(actors.viewer, sweepId, 0, query(), own.etag))).status).toBe(403);
+    expect((await read(actors.manager, sweepId, 0, query(), own.etag)).status).toBe(304);
+    // A scenario number past the sweep's end is no such scenario, not a kept answer.
+    expect((await refusal(read(actors.engineer, sweepId, 9, query(), own.etag))).status).toBe(404);
   });
 
   it("of a cancelled sweep are final: the scenarios that never ran stay empty and may be kept", async () => {

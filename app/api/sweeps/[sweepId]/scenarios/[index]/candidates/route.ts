@@ -5,8 +5,9 @@ import { readCandidates } from "@/lib/services/candidate-reads";
 
 /**
  * Ranked candidates of one scenario: ?sort=&dir=&feasible=&contains=&stages=&page=&pageSize=&include=levenspiel
- * A finished sweep's answer carries a strong ETag and may be kept by the browser; a repeat naming the
- * tag gets 304 (after the access check). A running sweep's answer is never stored.
+ * A finished sweep's answer, and a running sweep's for a scenario already stored, carries a strong ETag
+ * and may be kept by the browser; a repeat naming the tag gets 304 (after the access check). A running
+ * sweep's answer for a scenario not yet stored is never kept.
  */
 export const GET = scenarioRoute(async ({ req, actor, db, sweepId, index }) => {
   const q = readQuery(req, candidateQuerySchema);

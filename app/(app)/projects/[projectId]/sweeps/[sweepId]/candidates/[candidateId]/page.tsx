@@ -1,5 +1,4 @@
 import { notFound } from "next/navigation";
-import { Suspense } from "react";
 import { CandidateView } from "@/components/candidates/candidate-view";
 import { TypedUnitsProvider } from "@/components/layout/display-units-context";
 import { getDb } from "@/db/client";
@@ -7,6 +6,7 @@ import { sweepTypedUnits } from "@/lib/services/sweeps";
 import { requirePageActor } from "@/lib/auth/session";
 import { can } from "@/lib/authz/policy";
 import { uuidSchema } from "@/lib/schemas/ids";
+import { loadCandidateFirstPaint } from "./first-paint";
 
 export const dynamic = "force-dynamic";
 
@@ -14,13 +14,15 @@ export default async function CandidatePage({ params }: { params: Promise<{ proj
   const { sweepId, candidateId } = await params;
   const actor = await requirePageActor();
   if (!uuidSchema.safeParse(candidateId).success || !uuidSchema.safeParse(sweepId).success) notFound();
-  // The candidate's numbers may be shown in the units its kinetics was typed in.
-  const units = await sweepTypedUnits(getDb(), actor, sweepId).catch(() => ({}));
+  const db = getDb();
+  // The typed units and the candidate with its sweep are read at once: the title, chart and stages
+  // come with the page. The candidate's numbers may be shown in the units its kinetics was typed in.
+  const [units, initial] = await Promise.all([sweepTypedUnits(db, actor, sweepId).catch(() => ({})), loadCandidateFirstPaint(db, actor, sweepId, candidateId)]);
+  // No Suspense boundary of its own (the page is rendered per request, so the search params need
+  // none): the content then arrives in one reveal with the page, as on the sweep page.
   return (
-    <Suspense>
-      <TypedUnitsProvider units={units}>
-        <CandidateView candidateId={candidateId} canPin={can(actor, "pin.create")} typedUnits={units} />
-      </TypedUnitsProvider>
-    </Suspense>
+    <TypedUnitsProvider units={units}>
+      <CandidateView candidateId={candidateId} canPin={can(actor, "pin.create")} typedUnits={units} initial={initial ?? undefined} />
+    </TypedUnitsProvider>
   );
 }
