@@ -1,3 +1,4 @@
+import { kronrod15 } from "./quadrature";
 import { brentRoot } from "./root-finding";
 import type { SizingBasis } from "./sizing-basis";
 import { inletShiftIntegral, levenspielHeight, pathVolume, temperatureFeasible } from "./stages";
@@ -70,8 +71,9 @@ const memo = new WeakMap<SizingBasis, Map<string, RecycleDesign>>();
  *
  * With u = X_1 the tube's inlet conversion, V(u) = (b - a) m(u), m(u) the mean of h = FA0/(-rA) over
  * [u, b], and m'(u) = (m(u) - h(u))/(b - u): the optimum satisfies h(u) = m(u), the height at the tube's
- * inlet equals its mean over the tube (Levenspiel, ch. 6). m is sampled at 17 inlet conversions from a to
- * the bound (a backward running sum of 16 integrals); around the best sample the sign change of
+ * inlet equals its mean over the tube (Levenspiel, ch. 6). When h sampled at those 17 points and b never
+ * falls, the answer is R = 0; when it never rises, the largest R (see the comment in searchRecycle). Else m
+ * is sampled at 17 inlet conversions from a to the bound (a backward running sum of 16 fixed-rule integrals); around the best sample the sign change of
  * g(u) = h(u)(b - u) - FA0 integral(u..b) is solved by Brent's method (golden-section search on m when the
  * bracket holds no clean sign change). A minimum of m between samples narrower than a sample spacing can
  * be missed; the sampling only chooses the basin.
@@ -103,34 +105,52 @@ function searchRecycle(basis: SizingBasis, first: boolean, a: number, b: number)
   const tail = (u: number): number => pathVolume(basis, first, a, u, b);
   const us: number[] = [];
   for (let k = 0; k <= SCAN; k++) us.push(k === SCAN ? uMax : a + ((uMax - a) * k) / SCAN);
+  // Heights first (no integrals): where they never fall from a to b the mean over [u, b] is least at u = a
+  // (no recycle: the plain tube); where they never rise it is least at the largest R. Most rate laws are
+  // one or the other over a stage, and both cost one integral. Only a curve with a minimum needs the scan.
+  const heights = us.map(h);
+  heights.push(h(b));
+  let rising = true;
+  let falling = true;
+  for (let k = 1; k < heights.length; k++) {
+    if (heights[k] < heights[k - 1]) rising = false;
+    if (heights[k] > heights[k - 1]) falling = false;
+  }
+  if (rising) return { ratio: 0, volume: recycleVolume(basis, first, a, b, 0) };
+  if (falling) return { ratio: RECYCLE_RATIO_MAX, volume: recycleVolume(basis, first, a, b, RECYCLE_RATIO_MAX) };
+  // The scan only chooses the basin, so each interval gets one fixed 15-point rule (the path integral from
+  // the top is exact); the solve below integrates adaptively, over short intervals only.
   const means = new Array<number>(SCAN + 1).fill(Infinity);
   let sum = tail(uMax);
   means[SCAN] = sum / (b - uMax);
   // A zero rate at the stage's inlet (autocatalysis from a pure feed) makes R = 0 impossible: the first
   // interval's integral diverges, so it is not summed.
-  const startFinite = Number.isFinite(h(a));
+  const startFinite = Number.isFinite(heights[0]);
   for (let k = SCAN - 1; k >= 0; k--) {
     if (k === 0 && !startFinite) break;
-    sum += pathVolume(basis, first, a, us[k], us[k + 1]);
+    sum += kronrod15(h, us[k], us[k + 1]);
     means[k] = sum / (b - us[k]);
   }
   let best = 0;
   for (let k = 1; k <= SCAN; k++) if (means[k] < means[best]) best = k;
   if (!Number.isFinite(means[best])) return infeasible;
-  const g = (u: number): number => h(u) * (b - u) - tail(u);
+  // Within the bracket [lo, hi] the tail is the exact integral from hi plus a short one from u to hi.
+  const lo = best > 0 ? us[best - 1] : us[0];
+  const hi = best < SCAN ? us[best + 1] : us[SCAN];
+  const fromHi = tail(hi);
+  const tailIn = (u: number): number => pathVolume(basis, first, a, u, hi) + fromHi;
+  const g = (u: number): number => h(u) * (b - u) - tailIn(u);
   const gBest = g(us[best]);
   let u = us[best];
-  if (gBest > 0 && best < SCAN) u = localMinimum(g, (v) => tail(v) / (b - v), us[best], us[best + 1], gBest);
-  else if (gBest < 0 && best > 0) u = localMinimum(g, (v) => tail(v) / (b - v), us[best - 1], us[best], undefined, gBest);
+  if (gBest > 0 && best < SCAN) u = localMinimum(g, (v) => tailIn(v) / (b - v), us[best], hi, gBest);
+  else if (gBest < 0 && best > 0) u = localMinimum(g, (v) => tailIn(v) / (b - v), lo, us[best], undefined, gBest);
   // R from u; u at a (R = 0) or at the bound are the ends of the range.
   const ratio = u <= a ? 0 : Math.min(RECYCLE_RATIO_MAX, (u - a) / (b - u));
   const volume = recycleVolume(basis, first, a, b, ratio);
   // The sampled optimum is never given up for a worse refined one (a safeguard only).
-  const sampled = length * means[best];
-  if (!(volume <= sampled * (1 + 1e-12))) {
-    const r = best === 0 ? 0 : Math.min(RECYCLE_RATIO_MAX, (us[best] - a) / (b - us[best]));
-    return { ratio: r, volume: recycleVolume(basis, first, a, b, r) };
-  }
+  const sampledRatio = best === 0 ? 0 : Math.min(RECYCLE_RATIO_MAX, (us[best] - a) / (b - us[best]));
+  const sampled = length * (tailIn(us[best]) / (b - us[best]));
+  if (!(volume <= sampled * (1 + 1e-12))) return { ratio: sampledRatio, volume: recycleVolume(basis, first, a, b, sampledRatio) };
   return { ratio, volume };
 }
 
