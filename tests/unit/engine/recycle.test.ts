@@ -173,6 +173,43 @@ describe("tube with recycle", () => {
     expect(() => designTrains(autocatalytic({ theta: 0, target: 0.9, candidates: [["CSTR"]] }))).toThrow(expect.objectContaining({ path: "reaction.rate" }));
   });
 
+  it("adiabatic reversible with interstage cooling: the inlet-height condition on each stage's own path, and the grid's resolution", () => {
+    // tests/fixtures/specs/adiabatic-reversible-cooling.json: A <=> R, k = 0.004 1/s (60 kJ/mol), k_r = 4e-5 1/s
+    // (120 kJ/mol) at 330 K, rise 100 K, each later stage reset to 330 K, limit 420 K.
+    const spec: DesignSpec = {
+      feed: { flowA: 0.5, concA: 1200, temperature: 330, ratios: { R: 0 } },
+      reaction: {
+        stoichiometry: { A: -1, R: 1 },
+        rate: { law: "power", k: 0.004, orders: { A: 1 }, activationEnergy: 60000, reverse: { k: 0.00004, orders: { R: 1 }, activationEnergy: 120000 }, referenceTemperature: 330 },
+        thermal: { mode: "adiabatic", adiabaticRise: 100, interstageTemperature: 330, maxTemperature: 420 },
+      },
+      target: { conversion: 0.9 },
+      train: { maxStages: 3, types: ["CSTR", "PFR", "PFR-recycle"] },
+    };
+    const r = designTrains(spec);
+    const gas = 8.314462618;
+    const arrhenius = (k: number, e: number, t: number) => k * Math.exp((-e / gas) * (1 / t - 1 / 330));
+    let checked = 0;
+    for (const c of r.candidates) {
+      c.stages.forEach((st, i) => {
+        const R = st.recycleRatio;
+        if (st.type !== "PFR-recycle" || R === undefined || R <= 0 || R >= 1000 || st.conversionOut - st.conversionIn < 1e-6) return;
+        const a = st.conversionIn;
+        // the stage's own adiabatic line: from the feed's 330 K for the first stage, from the reset 330 K after
+        const temperature = (x: number) => 330 + 100 * (x - (i === 0 ? 0 : a));
+        const h = (x: number) => 0.5 / (1200 * (arrhenius(0.004, 60000, temperature(x)) * (1 - x) - arrhenius(0.00004, 120000, temperature(x)) * x));
+        const x1 = a + (R / (R + 1)) * (st.conversionOut - a);
+        // Levenspiel, ch. 6: at the optimal recycle ratio the inlet height equals the mean height over the tube
+        expect(rel(h(x1), simpson(h, x1, st.conversionOut) / (st.conversionOut - x1))).toBeLessThan(1e-7);
+        checked++;
+      });
+    }
+    expect(checked).toBeGreaterThan(5);
+    // every feasible train against a run on a 1024-point grid (the refinement, not the grid, sets the answer)
+    const fine = new Map(designTrains(spec, { gridPoints: 1024 }).candidates.map((c) => [c.sequence.join(" "), c]));
+    for (const c of r.candidates) if (c.feasible) expect(rel(c.totalVolume as number, fine.get(c.sequence.join(" "))!.totalVolume as number)).toBeLessThan(1e-9);
+  });
+
   it("property: the chosen recycle ratio is never worse than any fixed ratio of a grid", () => {
     const grid = [0, 0.05, 0.2, 0.5, 1, 2, 5, 20];
     fc.assert(
