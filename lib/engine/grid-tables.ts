@@ -1,6 +1,6 @@
 import { stageObjective, type CostModel } from "./cost";
 import { sharedPath, type SizingBasis } from "./sizing-basis";
-import { recycleInletConversion, RECYCLE_RATIO_MAX } from "./recycle";
+import { recycleInletConversion } from "./recycle";
 import { levenspielHeight, temperatureFeasible } from "./stages";
 import type { TrainStageType } from "./types";
 
@@ -151,7 +151,7 @@ function fillRecycle(basis: SizingBasis, recycle: RecycleGrid, x: Float64Array, 
     else for (let i = 0; i < m; i++) fillRecycleChosen(later, i * m, x, pathFrom(basis, false, x, i), i, cm);
     return { first, later };
   }
-  const ratio = Math.min(recycle.ratio, RECYCLE_RATIO_MAX * 1e3);
+  const ratio = recycle.ratio;
   fillRecycleFixed(basis, true, first, 0, x, 0, feedPath, ratio, cm);
   for (let i = 0; i < m; i++) fillRecycleFixed(basis, false, later, i * m, x, i, shared ? feedPath : pathFrom(basis, false, x, i), ratio, cm);
   return { first, later };

@@ -1,8 +1,13 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, expectTypeOf, it } from "vitest";
 import type { TrainStageType } from "@/lib/engine";
-import { keyOfWrittenSequence, sequenceFromKey, sequenceKey } from "@/lib/stage-types";
+import { keyOfWrittenSequence, sequenceFromKey, sequenceKey, TRAIN_STAGE_TYPES } from "@/lib/stage-types";
 
 describe("sequence keys", () => {
+  it("the run-time list of a one-reaction train's stage types is the engine's TrainStageType", () => {
+    expectTypeOf<(typeof TRAIN_STAGE_TYPES)[number]>().toEqualTypeOf<TrainStageType>();
+    expect(new Set(TRAIN_STAGE_TYPES).size).toBe(TRAIN_STAGE_TYPES.length);
+  });
+
   it("keys of CSTR and PFR trains are as stored before the tube with recycle", () => {
     expect(sequenceKey(["CSTR", "PFR", "PFR"])).toBe("CSTR-PFR-PFR");
     expect(sequenceFromKey("CSTR-PFR-PFR")).toEqual(["CSTR", "PFR", "PFR"]);
