@@ -195,6 +195,9 @@ function rank(evaluated: Evaluated[], basis: SizingBasis, target: number, cm: Co
 const SIZED_CAUTION =
   "With standard sizes every vessel is used full, so a train may pass the target (see conversionReached); each CSTR is taken at its lowest steady state from the feed side, the conservative choice when it has several.";
 
+const RECYCLE_CAUTION =
+  "A tube with recycle is taken with its recycle mixed perfectly into the feed at the tube's inlet and plug flow in the tube; the recycle pump and line, their cost and their hold-up are not included.";
+
 function finite(v: number): number | null {
   return Number.isFinite(v) ? v : null;
 }
@@ -273,6 +276,6 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
     ...(eq !== null ? { equilibriumConversion: eq } : {}),
     feedVolumetricFlow: basis.v0,
     objective: cm.kind,
-    cautions: cm.sizes && !spec.train.equalVolume ? [...CAUTIONS, SIZED_CAUTION] : [...CAUTIONS],
+    cautions: [...CAUTIONS, ...(cm.sizes && !spec.train.equalVolume ? [SIZED_CAUTION] : []), ...(withRecycle ? [RECYCLE_CAUTION] : [])],
   };
 }

@@ -94,6 +94,7 @@ describe("tube with recycle", () => {
     // stirred tank closed form k tau C_A0 = X/((1 - X) X) = 1/(1 - X) = 10 (Levenspiel, ch. 5)
     expect(rel(k * r.candidates.find((cand) => cand.sequence[0] === "CSTR")!.stages[0].residenceTime * ca0, 10)).toBeLessThan(1e-10);
     expect(r.candidates[0].sequence).toEqual(["PFR-recycle"]);
+    expect(r.cautions.some((c) => c.includes("tube with recycle"))).toBe(true);
   });
 
   it("a recycle ratio of 0 gives the plain tube and a very large one the stirred tank", () => {
