@@ -1,9 +1,41 @@
 /**
- * The two ideal stage types as a run-time list, for zod enums, selects and loops over both.
- * The type itself is the engine's (StageType); this module has no dependencies so screens,
- * schemas and the seed can all take the list from here instead of spelling it again.
+ * The stage types as run-time lists, for zod enums, selects and loops, and the one way a sequence of
+ * types is written as a key (the database's sequence_key, filters, links).
+ * The types themselves are the engine's (StageType, TrainStageType); this module has no dependencies so
+ * screens, schemas and the seed can all take the lists from here instead of spelling them again.
  */
-import type { StageType } from "@/lib/engine";
+import type { StageType, TrainStageType } from "@/lib/engine";
 
 /** In the order screens list them. tests/unit/sweeps/shared-lists.test.ts checks it covers StageType. */
 export const STAGE_TYPES = ["CSTR", "PFR"] as const satisfies readonly StageType[];
+
+/** Every stage type of a one-reaction train: the ideal two and the tube with recycle. */
+export const TRAIN_STAGE_TYPES = ["CSTR", "PFR", "PFR-recycle"] as const satisfies readonly TrainStageType[];
+
+/**
+ * A sequence key joins the types with "-" ("CSTR-PFR"); keys stored before the tube with recycle existed
+ * keep their meaning. "PFR-recycle" itself holds a "-", so in a key it is written "PFRrecycle": a key
+ * then splits back unambiguously, and a filter for the run "CSTR-PFR" (matched as "-CSTR-PFR-" inside
+ * "-" + key + "-") never matches a CSTR followed by a tube with recycle.
+ */
+const KEY_TOKEN: Readonly<Record<TrainStageType, string>> = { CSTR: "CSTR", PFR: "PFR", "PFR-recycle": "PFRrecycle" };
+const TYPE_OF_TOKEN: ReadonlyMap<string, TrainStageType> = new Map(TRAIN_STAGE_TYPES.map((t) => [KEY_TOKEN[t], t]));
+
+/** The key of a sequence of stage types, e.g. "CSTR-PFR" or "CSTR-PFRrecycle". */
+export function sequenceKey(sequence: readonly TrainStageType[]): string {
+  return sequence.map((t) => KEY_TOKEN[t]).join("-");
+}
+
+/**
+ * The sequence a key stands for. A token that is no stage type is kept as it is (a network's stored keys
+ * hold only CSTR and PFR, which read back as themselves).
+ */
+export function sequenceFromKey(key: string): TrainStageType[] {
+  if (key === "") return [];
+  return key.split("-").map((token) => TYPE_OF_TOKEN.get(token) ?? (token as TrainStageType));
+}
+
+/** A run of types as a person writes it ("CSTR-PFR-recycle") in key form ("CSTR-PFRrecycle"), for filters. */
+export function keyOfWrittenSequence(written: string): string {
+  return written.replaceAll("PFR-recycle", KEY_TOKEN["PFR-recycle"]);
+}

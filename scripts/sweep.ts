@@ -21,8 +21,29 @@ function fail(error: string, path: string): ErrorLine {
   return { error, path };
 }
 
-function schemaError(issues: readonly { path: readonly PropertyKey[]; message: string }[]): ErrorLine {
-  const issue = issues[0];
+interface SchemaIssue {
+  path: readonly PropertyKey[];
+  message: string;
+  code?: string;
+  errors?: readonly (readonly SchemaIssue[])[];
+}
+
+/**
+ * Inside a union of object forms (the train's three forms) the form that failed on the fewest fields, when
+ * one clearly did and on a named field, is the one the file meant: its issue names the field ("train.recycleRatio:
+ * Recycle ratio: ...") instead of "train: Invalid input". Other unions (a number or a quantity string) stay as they are.
+ */
+function closestIssue(issue: SchemaIssue): SchemaIssue {
+  if (issue.code !== "invalid_union" || !issue.errors || issue.errors.length < 2) return issue;
+  const sorted = [...issue.errors].sort((p, q) => p.length - q.length);
+  const [best, next] = sorted;
+  if (best.length === 0 || best.length >= next.length || best[0].path.length === 0) return issue;
+  const inner = closestIssue(best[0]);
+  return { ...inner, path: [...issue.path, ...inner.path] };
+}
+
+function schemaError(issues: readonly SchemaIssue[]): ErrorLine {
+  const issue = closestIssue(issues[0]);
   const path = issue.path.map(String).join(".");
   return fail(path ? `${path}: ${issue.message}` : issue.message, path);
 }

@@ -1,7 +1,8 @@
-import { purchase, type CostModel, type Purchase } from "./cost";
+import { purchase, vesselType, type CostModel, type Purchase } from "./cost";
 import type { SizingBasis } from "./sizing-basis";
 import type { ChainObjective } from "./refine";
-import { stageVolume, stageVolumeGradient, type StagePlace } from "./stages";
+import { stageVolume, stageVolumeGradient } from "./stage-volume";
+import type { StagePlace } from "./stages";
 
 /** Total volume as a chain objective. */
 export function volumeObjective(basis: SizingBasis, places: readonly StagePlace[]): ChainObjective {
@@ -28,7 +29,7 @@ export function costObjective(
   places: readonly StagePlace[],
   pieces: readonly Purchase[],
 ): ChainObjective {
-  const vessel = (k: number) => cm.vessels[places[k].type];
+  const vessel = (k: number) => cm.vessels[vesselType(places[k].type)];
   return {
     stages: places.length,
     value: (k, a, b) => {

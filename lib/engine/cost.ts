@@ -1,5 +1,5 @@
 import { ensure } from "./errors";
-import type { CostObjectiveSpec, ObjectiveSpec, StageType, VesselCostSpec } from "./types";
+import type { CostObjectiveSpec, ObjectiveSpec, StageType, TrainStageType, VesselCostSpec } from "./types";
 import { DIM, toSI } from "./units";
 
 /** Resolved objective: volume, or vessel cost with optional sizes and a largest vessel. */
@@ -35,8 +35,17 @@ function resolveVessel(spec: VesselCostSpec | undefined, type: StageType, used: 
   return spec;
 }
 
+/**
+ * The vessel a stage type is bought as: a tube with recycle is a tube (its recycle pump and line are not
+ * costed).
+ */
+export function vesselType(type: TrainStageType): StageType {
+  return type === "PFR-recycle" ? "PFR" : type;
+}
+
 /** Resolves the objective; `used` are the stage types the train may contain. */
-export function resolveCostModel(objective: ObjectiveSpec | undefined, used: readonly StageType[]): CostModel {
+export function resolveCostModel(objective: ObjectiveSpec | undefined, usedTypes: readonly TrainStageType[]): CostModel {
+  const used = usedTypes.map(vesselType);
   if (!objective || objective.minimise === "volume") {
     return { kind: "volume", vessels: { CSTR: NONE, PFR: NONE }, sizes: null, maxVessel: Infinity };
   }
@@ -64,7 +73,7 @@ export function resolveCostModel(objective: ObjectiveSpec | undefined, used: rea
 }
 
 /** The fewest identical vessels that hold `volume`, each rounded up to a standard size, and their cost. */
-export function purchase(cm: CostModel, type: StageType, volume: number): Purchase {
+export function purchase(cm: CostModel, type: TrainStageType, volume: number): Purchase {
   const count = volume <= cm.maxVessel * (1 + 1e-12) ? 1 : Math.ceil(volume / cm.maxVessel - 1e-12);
   const each = volume / count;
   let sizeEach = each;
@@ -73,12 +82,12 @@ export function purchase(cm: CostModel, type: StageType, volume: number): Purcha
     sizeIndex = cm.sizes.findIndex((s) => each <= s * (1 + 1e-12));
     sizeEach = cm.sizes[sizeIndex];
   }
-  const { a, b, n } = cm.vessels[type];
+  const { a, b, n } = cm.vessels[vesselType(type)];
   return { count, sizeEach, cost: count * (a + b * Math.pow(sizeEach, n)), sizeIndex };
 }
 
 /** Objective value of one stage of a given volume (volume itself, or its purchase cost). */
-export function stageObjective(cm: CostModel, type: StageType, volume: number): number {
+export function stageObjective(cm: CostModel, type: TrainStageType, volume: number): number {
   if (!Number.isFinite(volume)) return Infinity;
   return cm.kind === "volume" ? volume : purchase(cm, type, volume).cost;
 }

@@ -3,7 +3,7 @@ import { purchase, resolveCostModel, stageObjective, type CostModel } from "./co
 import { CAUTIONS } from "./cautions";
 import { optimiseOnGrid } from "./dynamic-programme";
 import { equalVolumeBoundaries } from "./equal-volume";
-import { EngineError } from "./errors";
+import { EngineError, ensure } from "./errors";
 import { checkTarget, equilibriumConversion } from "./feasibility";
 import { checkRateMagnitude, checkVolumeMagnitude } from "./magnitude";
 import { buildGridTables } from "./grid-tables";
@@ -14,8 +14,9 @@ import { refineChain } from "./refine";
 import { resolveSizingBasis } from "./resolve-sizing-basis";
 import { enumerateSequences } from "./sequences";
 import { fullVesselConversions, optimiseStandardSizes, type SizedDesign } from "./standard-sizes";
-import { cstrVolume, pfrVolume, stageVolume, type StagePlace } from "./stages";
-import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType } from "./types";
+import { stageRecycleRatio, stageVolume } from "./stage-volume";
+import { cstrVolume, pfrVolume, type StagePlace } from "./stages";
+import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType, TrainStageType } from "./types";
 
 /** Options of the design search. */
 export interface DesignOptions {
@@ -24,15 +25,15 @@ export interface DesignOptions {
 }
 
 interface Evaluated {
-  readonly sequence: StageType[];
+  readonly sequence: TrainStageType[];
   readonly boundaries: number[] | null;
   readonly objective: number;
   readonly totalVolume: number;
   readonly stages: StageResult[];
 }
 
-function placesOf(sequence: readonly StageType[]): StagePlace[] {
-  return sequence.map((type, k) => ({ type, first: k === 0 }));
+function placesOf(sequence: readonly TrainStageType[], recycleRatio: number | null = null): StagePlace[] {
+  return sequence.map((type, k) => (type === "PFR-recycle" ? { type, first: k === 0, recycleRatio } : { type, first: k === 0 }));
 }
 
 function totalObjective(basis: SizingBasis, cm: CostModel, places: readonly StagePlace[], x: readonly number[]): number {
@@ -71,6 +72,7 @@ function stageResults(basis: SizingBasis, cm: CostModel, places: readonly StageP
     const b = x[k + 1];
     const volume = stageVolume(basis, p, a, b);
     const bought = purchase(cm, p.type, volume);
+    const ratio = p.type === "PFR-recycle" ? stageRecycleRatio(basis, p, a, b) : undefined;
     return {
       type: p.type,
       conversionIn: a,
@@ -81,13 +83,15 @@ function stageResults(basis: SizingBasis, cm: CostModel, places: readonly StageP
       residenceTime: volume / basis.v0,
       vessels: { count: bought.count, sizeEach: bought.sizeEach },
       cost: cm.kind === "cost" ? bought.cost : null,
-      levenspiel: stagePlot(basis, p.type, p.first, a, b),
+      levenspiel: stagePlot(basis, p.type, p.first, a, b, ratio),
+      ...(ratio !== undefined ? { recycleRatio: ratio } : {}),
     };
   });
 }
 
 /** A train bought with standard sizes: every vessel full, conversions by rating (the last may pass the target). */
 function evaluateSized(basis: SizingBasis, sequence: StageType[], design: SizedDesign | null): Evaluated {
+  // Standard sizes are refused for trains with a tube with recycle (designTrains), so these are CSTR and PFR.
   if (!design) return evaluate(basis, VOLUME_ONLY, sequence, null);
   const capacities = design.pieces.map((p) => p.capacity);
   const x = fullVesselConversions(basis, sequence, capacities);
@@ -114,9 +118,9 @@ function evaluateSized(basis: SizingBasis, sequence: StageType[], design: SizedD
 
 const VOLUME_ONLY: CostModel = { kind: "volume", vessels: { CSTR: { a: 0, b: 1, n: 1 }, PFR: { a: 0, b: 1, n: 1 } }, sizes: null, maxVessel: Infinity };
 
-function evaluate(basis: SizingBasis, cm: CostModel, sequence: StageType[], x: number[] | null): Evaluated {
+function evaluate(basis: SizingBasis, cm: CostModel, sequence: TrainStageType[], x: number[] | null, recycleRatio: number | null = null): Evaluated {
   if (!x) return { sequence, boundaries: null, objective: Infinity, totalVolume: Infinity, stages: [] };
-  const places = placesOf(sequence);
+  const places = placesOf(sequence, recycleRatio);
   const stages = stageResults(basis, cm, places, x);
   const totalVolume = stages.reduce((s, st) => s + st.volume, 0);
   const objective = cm.kind === "volume" ? totalVolume : stages.reduce((s, st) => s + (st.cost ?? 0), 0);
@@ -191,8 +195,31 @@ function rank(evaluated: Evaluated[], basis: SizingBasis, target: number, cm: Co
 const SIZED_CAUTION =
   "With standard sizes every vessel is used full, so a train may pass the target (see conversionReached); each CSTR is taken at its lowest steady state from the feed side, the conservative choice when it has several.";
 
+const RECYCLE_CAUTION =
+  "A tube with recycle is taken with its recycle mixed perfectly into the feed at the tube's inlet and plug flow in the tube; the recycle pump and line, their cost and their hold-up are not included.";
+
 function finite(v: number): number | null {
   return Number.isFinite(v) ? v : null;
+}
+
+/**
+ * The user's recycle ratio for every tube with recycle, or null when the design chooses it per stage.
+ * Refuses what the tube with recycle does not support yet: equal volumes and standard sizes (both rate
+ * full vessels, which would need the recycle ratio chosen for a given volume).
+ */
+function fixedRecycleRatio(spec: DesignSpec, withRecycle: boolean): number | null {
+  const train = spec.train;
+  const given = "recycleRatio" in train ? train.recycleRatio : undefined;
+  if (given !== undefined) ensure(Number.isFinite(given) && given >= 0, "the recycle ratio must be a number >= 0", "train.recycleRatio");
+  if (withRecycle) {
+    ensure(!train.equalVolume, "equal volumes are not available for trains with a tube with recycle; list them without it", "train.equalVolume");
+    ensure(
+      !(spec.objective?.minimise === "cost" && spec.objective.standardSizes),
+      "standard sizes are not available for trains with a tube with recycle; leave the tube with recycle out or drop the standard sizes",
+      "objective.standardSizes",
+    );
+  }
+  return given ?? null;
 }
 
 /**
@@ -204,31 +231,36 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   const { basis, rateRange } = resolveSizingBasis(spec.feed, spec.reaction);
   const target = spec.target.conversion;
   const ratePath = spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate";
-  checkTarget(basis, target, rateRange, ratePath);
-  checkRateMagnitude(basis, target, ratePath);
   const sequences = enumerateSequences(spec.train);
+  const withRecycle = sequences.some((s) => s.includes("PFR-recycle"));
+  const recycleRatio = fixedRecycleRatio(spec, withRecycle);
+  // A tube with recycle mixes product into its inlet, so a rate of zero at the feed itself (autocatalysis
+  // from a feed without product) does not stop it; every other stage type still needs a positive rate.
+  checkTarget(basis, target, rateRange, ratePath, withRecycle);
+  checkRateMagnitude(basis, target, ratePath);
   const cm = resolveCostModel(spec.objective, [...new Set(sequences.flat())]);
   let evaluated: Evaluated[];
   if (spec.train.equalVolume) {
     evaluated = sequences.map((s) => evaluate(basis, cm, s, equalVolumeBoundaries(basis, placesOf(s), target)));
   } else if (cm.sizes) {
     // Standard sizes: an exact search over the purchase choices (not limited by a grid).
-    const designs = optimiseStandardSizes(basis, cm, target, sequences);
-    evaluated = sequences.map((s, i) => evaluateSized(basis, s, designs[i]));
+    const ideal = sequences as StageType[][];
+    const designs = optimiseStandardSizes(basis, cm, target, ideal);
+    evaluated = ideal.map((s, i) => evaluateSized(basis, s, designs[i]));
   } else {
-    const tables = buildGridTables(basis, cm, target, options.gridPoints ?? 128);
+    const tables = buildGridTables(basis, cm, target, options.gridPoints ?? 128, { used: withRecycle, ratio: recycleRatio });
     const grid = optimiseOnGrid(tables, sequences);
     const memo: RefineMemo = new Map();
     evaluated = sequences.map((s, i) => {
       const g = grid[i];
       if (!Number.isFinite(g.value)) return evaluate(basis, cm, s, null);
-      const places = placesOf(s);
+      const places = placesOf(s, recycleRatio);
       const start = g.boundaries.map((j) => tables.x[j]);
       const refined = refine(basis, cm, places, start, memo);
       // The refined design is kept unless it is clearly worse than the grid design (a safeguard only).
       const before = totalObjective(basis, cm, places, start);
       const better = totalObjective(basis, cm, places, refined) <= before * (1 + 1e-9) ? refined : start;
-      return evaluate(basis, cm, s, better);
+      return evaluate(basis, cm, s, better, recycleRatio);
     });
   }
   const candidates = rank(evaluated, basis, target, cm);
@@ -244,6 +276,6 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
     ...(eq !== null ? { equilibriumConversion: eq } : {}),
     feedVolumetricFlow: basis.v0,
     objective: cm.kind,
-    cautions: cm.sizes && !spec.train.equalVolume ? [...CAUTIONS, SIZED_CAUTION] : [...CAUTIONS],
+    cautions: [...CAUTIONS, ...(cm.sizes && !spec.train.equalVolume ? [SIZED_CAUTION] : []), ...(withRecycle ? [RECYCLE_CAUTION] : [])],
   };
 }

@@ -1,5 +1,5 @@
 import type { GridTables } from "./grid-tables";
-import type { StageType } from "./types";
+import type { TrainStageType } from "./types";
 
 /** Best grid design of one sequence: objective and the grid index of every stage boundary (0 .. m-1). */
 export interface GridDesign {
@@ -8,15 +8,15 @@ export interface GridDesign {
 }
 
 interface TrieNode {
-  readonly type: StageType;
+  readonly type: TrainStageType;
   readonly parent: TrieNode | null;
-  readonly children: Map<StageType, TrieNode>;
+  readonly children: Map<TrainStageType, TrieNode>;
   best: Float64Array;
   from: Int32Array;
 }
 
-function buildTrie(sequences: readonly (readonly StageType[])[]): { roots: Map<StageType, TrieNode>; leaves: TrieNode[] } {
-  const roots = new Map<StageType, TrieNode>();
+function buildTrie(sequences: readonly (readonly TrainStageType[])[]): { roots: Map<TrainStageType, TrieNode>; leaves: TrieNode[] } {
+  const roots = new Map<TrainStageType, TrieNode>();
   const leaves = sequences.map((seq) => {
     let level = roots;
     let node: TrieNode | null = null;
@@ -73,7 +73,7 @@ function visit(node: TrieNode, tables: GridTables): void {
  * Globally optimal grid designs of many sequences at once. Sequences sharing a prefix share its work:
  * the trie of prefixes is walked once, each node costing one min-plus pass over the grid tables.
  */
-export function optimiseOnGrid(tables: GridTables, sequences: readonly (readonly StageType[])[]): GridDesign[] {
+export function optimiseOnGrid(tables: GridTables, sequences: readonly (readonly TrainStageType[])[]): GridDesign[] {
   const { roots, leaves } = buildTrie(sequences);
   for (const root of roots.values()) visit(root, tables);
   return leaves.map((leaf) => {

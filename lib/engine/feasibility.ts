@@ -59,7 +59,7 @@ function rateProblem(basis: SizingBasis, x: number, target: number, reset: boole
  * and a positive rate up to the target (or the equilibrium conversion when the rate has a reverse term).
  * @throws EngineError with the path of the field at fault.
  */
-export function checkTarget(basis: SizingBasis, target: number, rateRange: readonly [number, number], ratePath: string): void {
+export function checkTarget(basis: SizingBasis, target: number, rateRange: readonly [number, number], ratePath: string, feedMayBeIdle = false): void {
   const T = "target.conversion";
   ensure(Number.isFinite(target) && target > 0 && target < 1, "the target conversion must be within (0, 1)", T);
   ensure(
@@ -81,7 +81,10 @@ export function checkTarget(basis: SizingBasis, target: number, rateRange: reado
     ensure(tOut > 0, `the adiabatic path falls to ${fmt(tOut)} K before the target`, "reaction.thermal.adiabaticRise");
   }
   const f = feedPathRate(basis);
-  const bad = firstNonPositive(f, 0, shared ? target : Math.min(target, 1e-9));
+  // feedMayBeIdle: a rate of exactly zero at the feed itself is allowed (a stage that mixes product in
+  // can start there); just past the feed it must be positive.
+  const from = feedMayBeIdle && f(0) === 0 ? 1e-9 * target : 0;
+  const bad = firstNonPositive(f, from, shared ? target : Math.min(target, 1e-9));
   if (bad !== null) throw rateProblem(basis, bad, target, !shared, ratePath);
   if (!shared && basis.reversible) {
     const x = equilibriumConversion(basis);

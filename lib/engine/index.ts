@@ -20,5 +20,6 @@ export { toSI, DIM } from "./units";
 export { normaliseKinetics, normaliseRatingSpec } from "./normalise-spec";
 export { rateTrainOutlet } from "./outlet-rating";
 export { EMPTY_STAGE_STEP } from "./design";
+export { RECYCLE_RATIO_MAX } from "./recycle";
 export { MAX_RATED_VESSEL, VOLUME_LIMITS } from "./magnitude";
 export { CAUTIONS, MODEL_ASSUMPTIONS, thermalWarnings } from "./cautions";

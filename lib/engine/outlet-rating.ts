@@ -3,6 +3,8 @@ import { stageTemperature, type SizingBasis } from "./sizing-basis";
 import { integrate } from "./quadrature";
 import { resolveSizingBasis } from "./resolve-sizing-basis";
 import { brentRoot } from "./root-finding";
+import { recycleSteadyStates } from "./rating";
+import { stageRatio } from "./rate-train";
 import { levenspielHeight, temperatureFeasible } from "./stages";
 import type { RatingSpec, ReactionSpec } from "./types";
 
@@ -189,6 +191,11 @@ export function rateTrainOutlet(spec: RatingSpec): number {
   spec.stages.forEach((s, k) => {
     const volume = typeof s.volume === "number" ? s.volume : Number.NaN;
     ensure(Number.isFinite(volume) && volume >= 0, "a stage volume must be a number >= 0 (normalise the spec first)", `stages.${k}.volume`);
+    if (s.type === "PFR-recycle") {
+      // No lean path for the tube with recycle yet: the full rating's lowest steady state.
+      a = recycleSteadyStates(basis, k === 0, a, volume, stageRatio(s, k) as number)[0].conversionOut;
+      return;
+    }
     a = s.type === "CSTR" ? leanCstrOutlet(basis, k === 0, a, volume, monotone) : leanPfrOutlet(basis, k === 0, a, volume, monotone);
   });
   return a;

@@ -1,7 +1,8 @@
 import { stageTemperature, type SizingBasis } from "./sizing-basis";
 import { allRoots, brentRoot } from "./root-finding";
+import { recycleVolume } from "./recycle";
 import { levenspielHeight, pfrVolume, temperatureFeasible } from "./stages";
-import type { StageType, SteadyState } from "./types";
+import type { SteadyState, TrainStageType } from "./types";
 
 /** Highest conversion a stage from a can approach: where the rate stops being positive or T leaves its limits. */
 export function reachLimit(basis: SizingBasis, first: boolean, a: number): number {
@@ -73,8 +74,31 @@ export function cstrSteadyStates(basis: SizingBasis, first: boolean, a: number, 
   return xs.map((x) => ({ conversionOut: x, temperatureOut: stageTemperature(basis, first, a, x) }));
 }
 
-/** Outlet of a stage by volume; for several CSTR steady states the lowest (reached from a cold start). */
-export function stageOutlet(basis: SizingBasis, type: StageType, first: boolean, a: number, volume: number): number {
+/**
+ * Tube with recycle rating: every outlet b with V(a, b; R) = V, V = (R + 1) FA0 integral from X_1 to b of
+ * dX/(-rA). With recycle the volume needed need not rise with b (dV/db = (R + 1) h(b) - R h(X_1) can be
+ * negative when the rate rises with conversion), so like a stirred tank it may have several steady states:
+ * found by the same scan of brackets (200 isothermal, 2000 adiabatic) and Brent's method. With none, the
+ * stage reaches its limit.
+ */
+export function recycleSteadyStates(basis: SizingBasis, first: boolean, a: number, volume: number, ratio: number): SteadyState[] {
+  if (volume <= 0) return [{ conversionOut: a, temperatureOut: stageTemperature(basis, first, a, a) }];
+  const hi = reachLimit(basis, first, a);
+  const f = (x: number): number => {
+    const v = recycleVolume(basis, first, a, x, ratio);
+    return (Number.isFinite(v) ? v : Number.MAX_VALUE) - volume;
+  };
+  const roots = allRoots(f, a, hi, basis.rise === 0 ? 200 : 2000).filter((x) => x > a);
+  const xs = roots.length > 0 ? roots : [hi];
+  return xs.map((x) => ({ conversionOut: x, temperatureOut: stageTemperature(basis, first, a, x) }));
+}
+
+/**
+ * Outlet of a stage by volume; for several steady states the lowest (reached from a cold start).
+ * `recycleRatio` is a tube with recycle's R.
+ */
+export function stageOutlet(basis: SizingBasis, type: TrainStageType, first: boolean, a: number, volume: number, recycleRatio = 0): number {
+  if (type === "PFR-recycle") return recycleSteadyStates(basis, first, a, volume, recycleRatio)[0].conversionOut;
   return type === "PFR" ? pfrOutlet(basis, first, a, volume) : cstrSteadyStates(basis, first, a, volume)[0].conversionOut;
 }
 

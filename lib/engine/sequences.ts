@@ -1,12 +1,12 @@
 import { ensure } from "./errors";
-import type { StageType, TrainSpec } from "./types";
+import type { StageType, TrainSpec, TrainStageType } from "./types";
 
 /** Longest train the engine searches. */
 export const MAX_STAGES = 8;
 
-function allSequences(maxStages: number, types: readonly StageType[]): StageType[][] {
-  const out: StageType[][] = [];
-  let level: StageType[][] = [[]];
+function allSequences(maxStages: number, types: readonly TrainStageType[]): TrainStageType[][] {
+  const out: TrainStageType[][] = [];
+  let level: TrainStageType[][] = [[]];
   for (let n = 1; n <= maxStages; n++) {
     level = level.flatMap((s) => types.map((t) => [...s, t]));
     out.push(...level);
@@ -28,18 +28,18 @@ function orderings(counts: ReadonlyMap<StageType, number>): StageType[][] {
 }
 
 /** Every sequence of stage types a train spec asks for, without duplicates, in a stable order. */
-export function enumerateSequences(train: TrainSpec): StageType[][] {
+export function enumerateSequences(train: TrainSpec): TrainStageType[][] {
   if ("maxStages" in train) {
     const n = train.maxStages;
     ensure(Number.isInteger(n) && n >= 1 && n <= MAX_STAGES, `maxStages must be an integer within 1..${MAX_STAGES}`, "train.maxStages");
-    const types: StageType[] = [...new Set<StageType>(train.types ?? ["CSTR", "PFR"])];
+    const types: TrainStageType[] = [...new Set<TrainStageType>(train.types ?? ["CSTR", "PFR"])];
     ensure(types.length > 0, "give at least one stage type", "train.types");
     return allSequences(n, types);
   }
   if ("candidates" in train) {
     ensure(train.candidates.length > 0, "give at least one candidate sequence", "train.candidates");
     const seen = new Set<string>();
-    const out: StageType[][] = [];
+    const out: TrainStageType[][] = [];
     train.candidates.forEach((s, i) => {
       ensure(s.length >= 1 && s.length <= MAX_STAGES, `a candidate has 1..${MAX_STAGES} stages`, `train.candidates.${i}`);
       const key = s.join(",");

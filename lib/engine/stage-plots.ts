@@ -1,6 +1,6 @@
 import { stagePlot } from "./levenspiel";
 import { resolveSizingBasis } from "./resolve-sizing-basis";
-import type { FeedSpec, ReactionSpec, StagePlot, StageType } from "./types";
+import type { FeedSpec, ReactionSpec, StagePlot, TrainStageType } from "./types";
 
 /**
  * The Levenspiel plot data of a designed train's stages, recomputed from the stages' types and
@@ -10,9 +10,9 @@ import type { FeedSpec, ReactionSpec, StagePlot, StageType } from "./types";
  */
 export function stagePlots(
   chemistry: { feed: FeedSpec; reaction: ReactionSpec },
-  stages: readonly { type: StageType; conversionIn: number; conversionOut: number }[],
+  stages: readonly { type: TrainStageType; conversionIn: number; conversionOut: number; recycleRatio?: number }[],
 ): StagePlot[] {
   if (stages.length === 0) return [];
   const { basis } = resolveSizingBasis(chemistry.feed, chemistry.reaction);
-  return stages.map((s, k) => stagePlot(basis, s.type, k === 0, s.conversionIn, s.conversionOut));
+  return stages.map((s, k) => stagePlot(basis, s.type, k === 0, s.conversionIn, s.conversionOut, s.recycleRatio));
 }

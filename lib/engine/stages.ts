@@ -1,11 +1,13 @@
 import { inletTemperature, sharedPath, stageTemperature, type SizingBasis } from "./sizing-basis";
 import { integrate, kronrod15 } from "./quadrature";
-import type { StageType } from "./types";
+import type { TrainStageType } from "./types";
 
 /** Where a stage sits: the first stage starts from the feed temperature; later ones may be reset. */
 export interface StagePlace {
-  readonly type: StageType;
+  readonly type: TrainStageType;
   readonly first: boolean;
+  /** A tube with recycle: its recycle ratio when the user fixed it; absent or null when it is chosen. */
+  readonly recycleRatio?: number | null;
 }
 
 /** Whether a stage from a to b keeps within the temperature limit and above 0 K. */
@@ -54,20 +56,31 @@ function feedPathIntegral(basis: SizingBasis, x: number): number {
   return x === i * CELL ? cells[i] : cells[i] + integrate(height, i * CELL, x).value;
 }
 
+/**
+ * FA0 * integral of dX/(-rA) from lo to hi along the temperature path of a stage that starts at a (the
+ * path a tube with recycle follows from its mixed inlet lo >= a), m3; no feasibility check.
+ */
+export function pathVolume(basis: SizingBasis, first: boolean, a: number, lo: number, hi: number, relTol = 1e-12): number {
+  if (hi === lo) return 0;
+  const onFeedPath = first || sharedPath(basis);
+  return onFeedPath && hi - lo > 2 * CELL
+    ? feedPathIntegral(basis, hi) - feedPathIntegral(basis, lo)
+    : integrate((x) => levenspielHeight(basis, first, a, x), lo, hi, relTol).value;
+}
+
 /** PFR design equation V = FA0 * integral of dX/(-rA) from a to b, m3; Infinity when infeasible. */
 export function pfrVolume(basis: SizingBasis, first: boolean, a: number, b: number, relTol = 1e-12): number {
   if (b === a) return 0;
   if (!temperatureFeasible(basis, first, a, b)) return Infinity;
-  const onFeedPath = first || sharedPath(basis);
-  const v =
-    onFeedPath && b - a > 2 * CELL
-      ? feedPathIntegral(basis, b) - feedPathIntegral(basis, a)
-      : integrate((x) => levenspielHeight(basis, first, a, x), a, b, relTol).value;
+  // No rate at the inlet (autocatalysis from a feed without product, allowed when a tube with recycle is
+  // among the candidates): a plain tube never starts.
+  if (!Number.isFinite(levenspielHeight(basis, first, a, a))) return Infinity;
+  const v = pathVolume(basis, first, a, a, b, relTol);
   return Number.isFinite(v) && v >= 0 ? v : Infinity;
 }
 
-/** Volume of a stage of either type, m3. */
-export function stageVolume(basis: SizingBasis, place: StagePlace, a: number, b: number): number {
+/** Volume of a CSTR or a PFR, m3 (stage-volume.ts adds the tube with recycle). */
+export function idealStageVolume(basis: SizingBasis, place: StagePlace, a: number, b: number): number {
   return place.type === "CSTR" ? cstrVolume(basis, place.first, a, b) : pfrVolume(basis, place.first, a, b);
 }
 
@@ -88,10 +101,26 @@ function inletSensitivity(basis: SizingBasis, first: boolean): number {
 }
 
 /**
+ * FA0 * integral from lo to b of d/da [1/(-rA)] along the path of a stage that starts at a: how moving the
+ * inlet conversion a shifts the heights through the inlet temperature (zero on a shared path).
+ */
+export function inletShiftIntegral(basis: SizingBasis, first: boolean, a: number, lo: number, b: number, precise = true): number {
+  const theta = inletSensitivity(basis, first);
+  if (theta === 0 || !(b > lo)) return 0;
+  const integrand = (x: number): number => {
+    const t = stageTemperature(basis, first, a, x);
+    const r = basis.rate(x, t);
+    return -(theta * rateDerivatives(basis, x, t).rt) / (r * r);
+  };
+  // The Hessian differences gradients; a fixed rule keeps them smooth in (a, b) and costs less.
+  return basis.fa0 * (precise ? integrate(integrand, lo, b, 1e-10).value : kronrod15(integrand, lo, b));
+}
+
+/**
  * Partial derivatives of a stage's volume with respect to its inlet (a) and outlet (b) conversions,
  * from the differentiated design equations (Leibniz rule for the PFR integral).
  */
-export function stageVolumeGradient(basis: SizingBasis, place: StagePlace, a: number, b: number, precise = true): [number, number] {
+export function idealStageVolumeGradient(basis: SizingBasis, place: StagePlace, a: number, b: number, precise = true): [number, number] {
   const { first } = place;
   const theta = inletSensitivity(basis, first);
   const fa0 = basis.fa0;
@@ -103,15 +132,6 @@ export function stageVolumeGradient(basis: SizingBasis, place: StagePlace, a: nu
     return [fa0 * (-1 / r - (l * theta * rt) / (r * r)), fa0 * (1 / r - (l * (rx + basis.rise * rt)) / (r * r))];
   }
   const db = levenspielHeight(basis, first, a, b);
-  let da = -levenspielHeight(basis, first, a, a);
-  if (theta !== 0 && b > a) {
-    const integrand = (x: number): number => {
-      const t = stageTemperature(basis, first, a, x);
-      const r = basis.rate(x, t);
-      return (theta * rateDerivatives(basis, x, t).rt) / (r * r);
-    };
-    // The Hessian differences gradients; a fixed rule keeps them smooth in (a, b) and costs less.
-    da -= fa0 * (precise ? integrate(integrand, a, b, 1e-10).value : kronrod15(integrand, a, b));
-  }
+  const da = -levenspielHeight(basis, first, a, a) + inletShiftIntegral(basis, first, a, a, b, precise);
   return [da, db];
 }

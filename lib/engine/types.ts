@@ -14,6 +14,13 @@ export type Quantity = number | string;
 /** The two ideal stage types. */
 export type StageType = "CSTR" | "PFR";
 
+/**
+ * A stage of a one-reaction train: one of the two ideal stages, or a tube with part of its outlet
+ * recycled to its inlet ("PFR-recycle", the trade's "tube with recycle"). Reaction networks use the two
+ * ideal types only.
+ */
+export type TrainStageType = StageType | "PFR-recycle";
+
 /** Feed to the first stage. */
 export interface FeedSpec {
   /** Molar feed rate of the key reactant A, FA0, in mol/s. */
@@ -134,17 +141,27 @@ export interface TrainRangeSpec {
   /** Longest sequence, 1..8. */
   maxStages: number;
   /** Stage types allowed. @default ["CSTR", "PFR"] */
-  types?: StageType[];
+  types?: TrainStageType[];
   /** All stages of a sequence have the same volume. @default false */
   equalVolume?: boolean;
+  /**
+   * Recycle ratio R (recycled flow over the flow leaving the stage, >= 0) of every tube with recycle.
+   * @default chosen per stage with the conversions, for the least objective
+   */
+  recycleRatio?: number;
 }
 
 /** Exactly the listed sequences. */
 export interface TrainCandidatesSpec {
   /** Sequences of stage types, each 1..8 long. */
-  candidates: StageType[][];
+  candidates: TrainStageType[][];
   /** All stages of a sequence have the same volume. @default false */
   equalVolume?: boolean;
+  /**
+   * Recycle ratio R (recycled flow over the flow leaving the stage, >= 0) of every tube with recycle.
+   * @default chosen per stage with the conversions, for the least objective
+   */
+  recycleRatio?: number;
 }
 
 /** Every distinct ordering of a multiset of stages, e.g. { CSTR: 2, PFR: 1 }. */
@@ -211,13 +228,32 @@ export type PlotPoint = [number, number];
 export interface StagePlot {
   /** FA0/(-rA) against X along the stage's own temperature path (at most 33 points). */
   curve: PlotPoint[];
-  /** Closed outline of the stage's volume: the rectangle of a CSTR, the area under the curve of a PFR. */
+  /**
+   * Closed outline of the stage's volume: the rectangle of a CSTR, the area under the curve of a PFR; for
+   * a tube with recycle the rectangle over [X_in, X_out] whose height is the mean of FA0/(-rA) over the
+   * tube, [X_1, X_out] (its area is the volume).
+   */
   area: PlotPoint[];
+  /** A tube with recycle only: where its tube starts and the area under the curve it integrates. */
+  recycle?: RecyclePlot;
+}
+
+/**
+ * The other half of a tube with recycle's Levenspiel geometry: the area under the curve from the tube's
+ * inlet conversion X_1 to X_out. Stretched by (R + 1) it equals the stage's rectangle.
+ */
+export interface RecyclePlot {
+  /** Recycle ratio R. */
+  recycleRatio: number;
+  /** Conversion at the tube's inlet, after the recycle is mixed in: X_1 = (X_in + R X_out)/(R + 1). */
+  inletConversion: number;
+  /** Closed outline of the area under the curve from X_1 to X_out. */
+  underCurve: PlotPoint[];
 }
 
 /** One designed stage. */
 export interface StageResult {
-  type: StageType;
+  type: TrainStageType;
   /** Conversion of A at the inlet. */
   conversionIn: number;
   /** Conversion of A at the outlet. */
@@ -236,13 +272,15 @@ export interface StageResult {
   cost: number | null;
   /** Levenspiel plot data. */
   levenspiel: StagePlot;
+  /** Recycle ratio R of a tube with recycle (recycled flow over the flow leaving the stage); absent for other types. */
+  recycleRatio?: number;
 }
 
 /** One ranked sequence. */
 export interface CandidateResult {
   /** 1 = best. */
   rank: number;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   /** Whether the sequence reaches the target within the limits. */
   feasible: boolean;
   /** Total reaction volume, m3; null when infeasible. */
@@ -287,9 +325,11 @@ export interface DesignResult {
 
 /** A stage given by volume, for rating. */
 export interface RatingStageSpec {
-  type: StageType;
+  type: TrainStageType;
   /** Reaction volume, m3. */
   volume: Quantity;
+  /** Recycle ratio R (>= 0) of a tube with recycle; required for that type, not allowed for others. */
+  recycleRatio?: number;
 }
 
 /** A rating request: given volumes, find outlet conversions. */
@@ -308,8 +348,10 @@ export interface SteadyState {
 
 /** One rated stage. */
 export interface RatedStage {
-  type: StageType;
+  type: TrainStageType;
   volume: number;
+  /** Recycle ratio R of a tube with recycle; absent for other types. */
+  recycleRatio?: number;
   conversionIn: number;
   temperatureIn: number;
   /** Every steady state found (a PFR has one; an adiabatic CSTR may have up to three or more). */

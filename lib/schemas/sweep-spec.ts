@@ -2,11 +2,11 @@ import { z } from "zod";
 import type { DesignSpec, RatingSpec } from "../engine/types";
 import { dimensionless } from "./dimensionless";
 import { keyText, multilineText, text } from "./text";
-import { STAGE_TYPES } from "@/lib/stage-types";
+import { TRAIN_STAGE_TYPES } from "@/lib/stage-types";
 
 /** A number in SI units or a string with a unit ("2 mol/L"). */
 export const quantity = z.union([z.number(), text().min(1).max(100, "Use at most 100 characters")]);
-const stageType = z.enum(STAGE_TYPES);
+const stageType = z.enum(TRAIN_STAGE_TYPES);
 const numberMap = z.record(keyText().max(40, "Use at most 40 characters"), dimensionless("Each value"));
 const ratioMap = z.record(keyText().max(40, "Use at most 40 characters"), dimensionless("Feed ratio to A"));
 
@@ -54,10 +54,11 @@ const reaction = z.strictObject({
 });
 
 const equalVolume = z.boolean().optional();
+const recycleRatio = dimensionless("Recycle ratio").optional();
 
 const train = z.union([
-  z.strictObject({ maxStages: z.number(), types: z.array(stageType).optional(), equalVolume }),
-  z.strictObject({ candidates: z.array(z.array(stageType)), equalVolume }),
+  z.strictObject({ maxStages: z.number(), types: z.array(stageType).optional(), equalVolume, recycleRatio }),
+  z.strictObject({ candidates: z.array(z.array(stageType)), equalVolume, recycleRatio }),
   z.strictObject({ multiset: z.strictObject({ CSTR: z.number().optional(), PFR: z.number().optional() }), equalVolume }),
 ]);
 
@@ -86,7 +87,7 @@ export const designSpecSchema = z.strictObject({
 export const ratingSpecSchema = z.strictObject({
   feed,
   reaction,
-  stages: z.array(z.strictObject({ type: stageType, volume: quantity })),
+  stages: z.array(z.strictObject({ type: stageType, volume: quantity, recycleRatio })),
 }) satisfies z.ZodType<RatingSpec>;
 
 type Same<A, B> = (<T>() => T extends A ? 1 : 2) extends <T>() => T extends B ? 1 : 2 ? true : false;

@@ -5,6 +5,7 @@ import { candidates, scenarios, sweeps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
 import type { StagePlot, StageType } from "@/lib/engine";
+import { keyOfWrittenSequence, sequenceFromKey } from "@/lib/stage-types";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
 import type { NetworkScenarioReference, ScenarioReference, StoredNetworkStage, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
@@ -87,7 +88,7 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   if (q.feasible) filters.push(eq(candidates.feasible, q.feasible === "true"));
   if (q.stages) filters.push(eq(candidates.stageCount, q.stages));
   // Whole stage names only: "PFR" must not match inside another name, so compare on "-"-bounded keys.
-  if (q.contains) filters.push(like(sql`'-' || ${candidates.sequenceKey} || '-'`, `%-${q.contains}-%`));
+  if (q.contains) filters.push(like(sql`'-' || ${candidates.sequenceKey} || '-'`, `%-${keyOfWrittenSequence(q.contains)}-%`));
   const where = and(...filters);
 
   const direction = q.dir === "desc" ? desc : asc;
@@ -117,7 +118,9 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
     page: q.page,
     pageSize: q.pageSize,
     total,
-    items: items.map((c) => ({ ...c, sequence: c.sequenceKey.split("-") as StageType[], emptyStages: emptyStageCount(c.stages) })),
+    // The key codec reads a tube with recycle ("PFRrecycle" in a key) back whole; the screens type sequences
+    // as CSTR/PFR until they learn the tube with recycle (later work), hence the cast.
+    items: items.map((c) => ({ ...c, sequence: sequenceFromKey(c.sequenceKey) as StageType[], emptyStages: emptyStageCount(c.stages) })),
   };
 }
 
@@ -152,7 +155,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
       id: c.id,
       sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
       rank: c.rank,
-      sequence: c.sequenceKey.split("-") as StageType[],
+      sequence: sequenceFromKey(c.sequenceKey) as StageType[], // see listCandidates: a cast until the screens know the tube with recycle
       feasible: c.feasible,
       totalVolume: c.totalVolume,
       totalCost: c.totalCost,

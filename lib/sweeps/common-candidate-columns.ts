@@ -1,3 +1,6 @@
+import type { TrainStageType } from "@/lib/engine";
+import { sequenceKey } from "@/lib/stage-types";
+
 /**
  * The candidate columns both kinds of sweep fill the same way (one reaction and several): where the
  * row belongs, the train as a key, its rank and stage count, and its volume beside the single tube's.
@@ -11,7 +14,7 @@ export function commonCandidateColumns(
   return {
     sweepId,
     scenarioId,
-    sequenceKey: c.sequence.join("-"),
+    sequenceKey: sequenceKey(c.sequence as readonly TrainStageType[]),
     rank: c.rank,
     stageCount: c.sequence.length,
     feasible: c.feasible,

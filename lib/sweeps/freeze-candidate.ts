@@ -2,6 +2,7 @@ import type { Candidate, Scenario, Sweep } from "@/db/schema";
 import type { StagePlot, StageType } from "@/lib/engine";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import { isNetworkSpec } from "@/lib/schemas/network-spec";
+import { sequenceFromKey } from "@/lib/stage-types";
 import { candidatePlots } from "./stage-plots";
 import type { NetworkScenarioReference, PinnedCandidate, PinnedNetworkCandidate, ScenarioReference, StoredNetworkStage, StoredStage } from "./stored-json";
 
@@ -11,7 +12,9 @@ export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
   if (sweep.baseSpec && isNetworkSpec(sweep.baseSpec)) return freezeNetworkCandidate(c, scenario, sweep);
   return {
     rank: c.rank,
-    sequence: c.sequenceKey.split("-") as StageType[],
+    // The key codec reads a tube with recycle back whole; pinned trains are typed CSTR/PFR until the
+    // screens learn the tube with recycle (later work), hence the cast.
+    sequence: sequenceFromKey(c.sequenceKey) as StageType[],
     feasible: c.feasible,
     totalVolume: c.totalVolume,
     totalCost: c.totalCost,
@@ -36,7 +39,7 @@ function freezeNetworkCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
   return {
     kind: "network",
     rank: c.rank,
-    sequence: c.sequenceKey.split("-") as StageType[],
+    sequence: sequenceFromKey(c.sequenceKey) as StageType[], // a network's stages are CSTR and PFR only
     feasible: c.feasible,
     totalVolume: c.totalVolume,
     totalResidenceTime: c.feasible ? stages.reduce((sum, s) => sum + s.residenceTime, 0) : null,

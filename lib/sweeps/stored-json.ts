@@ -9,7 +9,11 @@ import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { SweepCosting } from "@/lib/schemas/costs";
 
 /** A stage as stored with a candidate (its plot data is kept apart, in `levenspiel`). */
-export type StoredStage = Omit<StageResult, "levenspiel">;
+/**
+ * A stage as stored. Its type is narrowed to CSTR/PFR for the screens until they learn the tube with recycle
+ * (later work); a stored tube with recycle keeps "PFR-recycle" and its recycleRatio at run time.
+ */
+export type StoredStage = Omit<StageResult, "levenspiel" | "type"> & { type: StageType };
 
 /** A scenario's single-stage references as the worker stores them (run-chunk.ts); older rows lack the last two. */
 export interface ScenarioReference extends ReferenceResult {

@@ -97,6 +97,38 @@ describe("sweep command line", { timeout: 60000 }, () => {
     expect(none.lines[0].error).toMatch(/^no design or rating file given; usage: npm run --silent sweep -- \[--plot\] FILE\.json/);
   });
 
+  it("takes the tube with recycle and train.recycleRatio, and prints each such stage's recycleRatio", () => {
+    const dir = mkdtempSync(join(tmpdir(), "sweep-recycle-"));
+    const base = {
+      feed: { flowA: 1, concA: 1, ratios: { R: 0 } },
+      reaction: { stoichiometry: { A: -1, R: 1 }, rate: { law: "power", k: 1, orders: { A: 1, R: 1 } } },
+      target: { conversion: 0.9 },
+    };
+    const chosen = join(dir, "chosen.json");
+    writeFileSync(chosen, JSON.stringify({ ...base, train: { maxStages: 2, types: ["CSTR", "PFR", "PFR-recycle"] } }));
+    const fixed = join(dir, "fixed.json");
+    writeFileSync(fixed, JSON.stringify({ ...base, train: { candidates: [["PFR-recycle"]], recycleRatio: "2" } }));
+    const rating = join(dir, "rating.json");
+    writeFileSync(rating, JSON.stringify({ ...base, target: undefined, stages: [{ type: "PFR-recycle", volume: 4.5597785603, recycleRatio: 0.4299449860 }] }));
+    const wrong = join(dir, "wrong.json");
+    writeFileSync(wrong, JSON.stringify({ ...base, train: { candidates: [["PFR-recycle"]], recycleRatio: "a lot" } }));
+    const { code, lines } = sweep("--plot", chosen, fixed, rating, wrong);
+    expect(code).toBe(1);
+    expect(lines[0].candidates).toHaveLength(3 + 9);
+    const single = lines[0].candidates.find((c: { sequence: string[] }) => c.sequence.join() === "PFR-recycle");
+    // independent bisection and Simpson in tests/unit/engine/recycle.test.ts: R = 0.429945, k tau C_A0 = 4.55978
+    expect(single.stages[0].recycleRatio).toBeCloseTo(0.429945, 5);
+    expect(single.stages[0].residenceTime).toBeCloseTo(4.55978, 4);
+    expect(single.stages[0].levenspiel.recycle.inletConversion).toBeCloseTo((0.429945 * 0.9) / 1.429945, 5);
+    for (const c of lines[0].candidates) for (const st of c.stages) expect("recycleRatio" in st).toBe(st.type === "PFR-recycle");
+    // fixed R = 2 from pure A: (R + 1) ln[X (1 - X1)/((1 - X) X1)], X1 = 0.6 (Levenspiel, ch. 6, integrated)
+    expect(lines[1].candidates[0].stages[0].recycleRatio).toBe(2);
+    expect(lines[1].candidates[0].totalVolume).toBeCloseTo(3 * Math.log((0.9 * 0.4) / (0.1 * 0.6)), 9);
+    expect(lines[2].stages[0].recycleRatio).toBeCloseTo(0.429945, 6);
+    expect(lines[2].conversionOut).toBeCloseTo(0.9, 8);
+    expect(lines[3]).toEqual({ error: expect.stringContaining("Recycle ratio"), path: "train.recycleRatio" });
+  });
+
   it("reports schema errors with the JSON path", () => {
     const dir = mkdtempSync(join(tmpdir(), "sweep-"));
     const bad = join(dir, "bad.json");

@@ -24,6 +24,6 @@ describe("engine boundaries", () => {
   });
 
   it("index.ts exports exactly the public API", () => {
-    expect(Object.keys(engine).sort()).toEqual(["CAUTIONS", "DIM", "EMPTY_STAGE_STEP", "EngineError", "GAS_CONSTANT", "MAX_RATED_VESSEL", "MAX_STAGES", "MODEL_ASSUMPTIONS", "VOLUME_LIMITS", "designNetwork", "designTrains", "networkPaths", "networkTrainProfiles", "normaliseKinetics", "normaliseRatingSpec", "rateNetworkTrain", "rateTrain", "rateTrainOutlet", "stagePlots", "thermalWarnings", "toSI"]);
+    expect(Object.keys(engine).sort()).toEqual(["CAUTIONS", "DIM", "EMPTY_STAGE_STEP", "EngineError", "GAS_CONSTANT", "MAX_RATED_VESSEL", "MAX_STAGES", "MODEL_ASSUMPTIONS", "RECYCLE_RATIO_MAX", "VOLUME_LIMITS", "designNetwork", "designTrains", "networkPaths", "networkTrainProfiles", "normaliseKinetics", "normaliseRatingSpec", "rateNetworkTrain", "rateTrain", "rateTrainOutlet", "stagePlots", "thermalWarnings", "toSI"]);
   });
 });

@@ -1,0 +1,25 @@
+import { optimalRecycle, recycleVolume, recycleVolumeGradient } from "./recycle";
+import type { SizingBasis } from "./sizing-basis";
+import { idealStageVolume, idealStageVolumeGradient, type StagePlace } from "./stages";
+
+/** Recycle ratio of a tube with recycle from a to b: the user's when fixed, else the one of least volume. */
+export function stageRecycleRatio(basis: SizingBasis, place: StagePlace, a: number, b: number): number {
+  if (place.recycleRatio !== undefined && place.recycleRatio !== null) return place.recycleRatio;
+  return optimalRecycle(basis, place.first, a, b).ratio;
+}
+
+/** Volume of a stage of any type, m3; Infinity when infeasible. */
+export function stageVolume(basis: SizingBasis, place: StagePlace, a: number, b: number): number {
+  if (place.type !== "PFR-recycle") return idealStageVolume(basis, place, a, b);
+  if (place.recycleRatio !== undefined && place.recycleRatio !== null) return recycleVolume(basis, place.first, a, b, place.recycleRatio);
+  return optimalRecycle(basis, place.first, a, b).volume;
+}
+
+/**
+ * Partial derivatives of a stage's volume with respect to its inlet (a) and outlet (b) conversions; for a
+ * tube with a chosen recycle ratio, those of the optimised volume (see recycleVolumeGradient).
+ */
+export function stageVolumeGradient(basis: SizingBasis, place: StagePlace, a: number, b: number, precise = true): [number, number] {
+  if (place.type !== "PFR-recycle") return idealStageVolumeGradient(basis, place, a, b, precise);
+  return recycleVolumeGradient(basis, place.first, a, b, stageRecycleRatio(basis, place, a, b), precise);
+}
