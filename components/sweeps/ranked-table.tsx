@@ -1,6 +1,7 @@
 "use client";
 
 import Link from "next/link";
+import { useRouter } from "next/navigation";
 import { createContext, memo, useContext, useMemo } from "react";
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures, useTable, type SortingState } from "@tanstack/react-table";
 import { LevenspielThumbnail } from "@/components/charts/levenspiel-thumbnail";
@@ -92,12 +93,18 @@ function SelectBox({ c }: { c: CandidateRow }) {
   );
 }
 
-/** A row's sequence, linked to its candidate page. */
+/**
+ * A row's sequence, linked to its candidate page. The link's route is fetched ahead when the reader
+ * points at it or tabs to it, not as it scrolls into view: every sort or page change brings 25 new
+ * links, and fetching them all ahead competed with the request for the rows themselves.
+ */
 function SequenceCell({ c }: { c: CandidateRow }) {
   const { candidateHref } = useContext(RowContext);
+  const router = useRouter();
+  const href = candidateHref(c.id);
   return (
     <>
-      <Link href={candidateHref(c.id)} className="rounded hover:underline" data-testid="candidate-link">
+      <Link href={href} prefetch={false} onMouseEnter={() => router.prefetch(href)} onFocus={() => router.prefetch(href)} className="rounded hover:underline" data-testid="candidate-link">
         <StageBadges sequence={c.sequence} />
       </Link>
       {c.emptyStages ? (
