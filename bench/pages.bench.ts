@@ -250,6 +250,15 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     await listCandidates(db, actor, sweep.id, (i * 29 + 7) % 160, { sort: "sequence", dir: "asc", page: 1, pageSize: 25, include: "thumbnails" });
     serverRead.push(performance.now() - t);
   }
+  // The same over HTTP from this process (the session check, the route and the transfer; no browser).
+  const overHttp: number[] = [];
+  let answerBytes = 0;
+  for (let i = 0; i < RUNS; i++) {
+    const t = performance.now();
+    const res = await api.get(`/api/sweeps/${sweep.id}/scenarios/${(i * 31 + 11) % 160}/candidates?sort=sequence&dir=asc&page=1&pageSize=25&include=thumbnails`);
+    answerBytes = (await res.body()).length;
+    overHttp.push(performance.now() - t);
+  }
   const html = await (await api.get(sweepUrl)).body();
   // BENCH_SAVE_HTML=file keeps the page's HTML, to see what its size is made of.
   if (process.env.BENCH_SAVE_HTML) writeFileSync(process.env.BENCH_SAVE_HTML, html);
@@ -266,6 +275,7 @@ async function main(serverUrl: string, children: ChildProcess[]) {
   console.log(`  next page → new rows:                    ${fmt(nextPage)}   (goal 300 ms)`);
   console.log(`    of which (in the page's clock): ${partsLine(pageParts)}`);
   console.log(`  one table page with thumbnails read by the service in process (no HTTP): ${fmt(serverRead)}`);
+  console.log(`  the same page over HTTP from this process (session check, route, transfer): ${fmt(overHttp)}; ${(answerBytes / 1024).toFixed(0)} KB`);
   console.log(`  sweep page HTML (first page and its thumbnails' plot data inside): ${(html.length / 1024).toFixed(0)} KB`);
   console.log(`  load average (1, 5, 15 min): before ${load0.map((x) => x.toFixed(2)).join(", ")}; after ${load1.map((x) => x.toFixed(2)).join(", ")}; ${os.cpus().length} cores`);
 
