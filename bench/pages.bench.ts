@@ -71,6 +71,8 @@ interface ChangeParts {
   longTasks: number;
   /** Other requests the page made between the click and the rows (route prefetches of the new rows' links, …). */
   others: number;
+  /** With no request after the click: when the rows read ahead (asked before the click) had arrived, ms after the click (negative: before it). */
+  readAheadEnd: number | null;
 }
 
 /**
@@ -106,16 +108,18 @@ async function rowsChanged(page: Page, act: () => Promise<void>, parts?: ChangeP
   const split = (await page.evaluate((rowsAt) => {
     const w = window as unknown as { benchClick?: number; benchLong?: number };
     const click = w.benchClick ?? rowsAt;
-    const asked = (performance.getEntriesByType("resource") as PerformanceResourceTiming[]).filter((e) => e.name.includes("/candidates?") && e.startTime >= click).at(-1);
+    const asked = (performance.getEntriesByType("resource") as PerformanceResourceTiming[]).filter((e) => e.name.includes("/candidates?") && e.startTime >= click && e.startTime <= rowsAt).at(-1);
+    const before = (performance.getEntriesByType("resource") as PerformanceResourceTiming[]).filter((e) => e.name.includes("/candidates?") && e.startTime < click).at(-1);
     const others = performance.getEntriesByType("resource").filter((e) => !e.name.includes("/candidates?") && e.startTime >= click && e.startTime <= rowsAt).length;
-    return { click, asked: asked ? [asked.startTime, asked.responseEnd] : null, longTasks: w.benchLong ?? 0, others };
-  }, at)) as { click: number; asked: [number, number] | null; longTasks: number; others: number };
+    return { click, asked: asked ? [asked.startTime, asked.responseEnd] : null, longTasks: w.benchLong ?? 0, others, readAheadEnd: !asked && before ? before.responseEnd - click : null };
+  }, at)) as { click: number; asked: [number, number] | null; longTasks: number; others: number; readAheadEnd: number | null };
   parts?.push({
     requestSent: split.asked ? split.asked[0] - split.click : null,
     answered: split.asked ? split.asked[1] - split.asked[0] : null,
     drawn: at - (split.asked ? split.asked[1] : split.click),
     longTasks: split.longTasks,
     others: split.others,
+    readAheadEnd: split.readAheadEnd,
   });
   return elapsed;
 }
@@ -123,10 +127,11 @@ async function rowsChanged(page: Page, act: () => Promise<void>, parts?: ChangeP
 /** The parts of several changes as medians, for the printout. */
 function partsLine(parts: ChangeParts[]): string {
   const asked = parts.filter((p) => p.answered !== null);
+  const ahead = parts.filter((p) => p.readAheadEnd !== null).map((p) => p.readAheadEnd!);
   const m = (xs: number[]) => (xs.length ? median(xs).toFixed(0) : "—");
   return (
     `click → request sent ${m(asked.map((p) => p.requestSent!))} ms; request → last byte ${m(asked.map((p) => p.answered!))} ms; ` +
-    `→ rows painted ${m(parts.map((p) => p.drawn))} ms; long tasks ${m(parts.map((p) => p.longTasks))} ms; other requests meanwhile ${m(parts.map((p) => p.others))} (medians; ${parts.length - asked.length} of ${parts.length} needed no request)`
+    `→ rows painted ${m(parts.map((p) => p.drawn))} ms; long tasks ${m(parts.map((p) => p.longTasks))} ms; other requests meanwhile ${m(parts.map((p) => p.others))} (medians; ${parts.length - asked.length} of ${parts.length} needed no request${ahead.length ? `; the rows read ahead arrived ${m(ahead)} ms after the click (negative: before)` : ""})`
   );
 }
 
