@@ -237,6 +237,9 @@ export function SweepView({
                 <Link
                   href={`/compare?ids=${selected.join(",")}${urlView.unit ? `&unit=${urlView.unit}` : ""}`}
                   aria-disabled={selected.length < 2}
+                  // Not fetched ahead while it cannot be followed: Next.js fetches a link in view
+                  // again on every change of the page's URL, so each sort asked for it once more.
+                  prefetch={selected.length < 2 ? false : undefined}
                   onClick={(e) => selected.length < 2 && e.preventDefault()}
                   className={`btn-primary ${selected.length < 2 ? "pointer-events-none opacity-50" : ""}`}
                   data-testid="compare-selected"
