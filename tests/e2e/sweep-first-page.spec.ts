@@ -83,9 +83,12 @@ test("no refetch of the first page on opening; a sort keeps the old rows until t
   await expect.poll(() => held.seen.length).toBeGreaterThan(0);
   await expect(rows).toHaveCount(25);
   await expect(page.getByTestId("candidate-row").first().getByRole("checkbox")).toHaveAccessibleName(`Select rank ${byRank.items[0].rank} (${byRank.items[0].sequence.join("-")}) to compare`);
-  const sorted = page.waitForResponse((r) => r.url().includes("sort=totalVolume") && r.status() === 200);
+  const sorted = page.waitForResponse((r) => r.url().includes("sort=totalVolume") && new URL(r.url()).searchParams.get("page") === "1" && r.status() === 200);
+  // Once the sorted rows are shown, their next page is read ahead too: waited for, so that it is not caught by the hold below.
+  const sortedAhead = page.waitForResponse((r) => r.url().includes("sort=totalVolume") && new URL(r.url()).searchParams.get("page") === "2" && r.status() === 200);
   held.release();
   await sorted;
+  await sortedAhead;
   await page.unroute(`**/api/sweeps/${sweepId}/scenarios/0/candidates?*`);
   // Opening asked for no first page of its own (a refetch on mount would): only the next page, read ahead.
   expect(candidateCalls.slice(0, opening).every((u) => new URL(u).searchParams.get("page") === "2" && u.includes("sort=rank"))).toBe(true);
