@@ -59,21 +59,80 @@ async function paintedAt(page: Page, selector: string): Promise<number> {
   return (await handle.jsonValue()) as number;
 }
 
-/** Milliseconds from now until the first ranked row reads differently from `before` and nothing is loading. */
-async function rowsChanged(page: Page, act: () => Promise<void>): Promise<number> {
+/** Where a sort's or a page change's wait went, in the page's own clock (ms from the click). */
+interface ChangeParts {
+  /** The click's event → the candidates request sent (0 when no request was needed). */
+  requestSent: number | null;
+  /** The request sent → its answer's last byte (the server and the transfer). */
+  answered: number | null;
+  /** The last byte (or the click, when nothing was asked) → the new rows painted (parse, render, paint). */
+  drawn: number;
+  /** Main-thread tasks over 50 ms between the click and the rows, summed. */
+  longTasks: number;
+  /** Other requests the page made between the click and the rows (route prefetches of the new rows' links, …). */
+  others: number;
+  /** With no request after the click: when the rows read ahead (asked before the click) had arrived, ms after the click (negative: before it). */
+  readAheadEnd: number | null;
+}
+
+/**
+ * Milliseconds from now until the first ranked row reads differently from `before` and nothing is
+ * loading; and, read in the page, where that time went (`parts`).
+ */
+async function rowsChanged(page: Page, act: () => Promise<void>, parts?: ChangeParts[]): Promise<number> {
   const before = await page.getByTestId("candidate-row").first().getByRole("checkbox").getAttribute("aria-label");
+  await page.evaluate(() => {
+    const w = window as unknown as { benchClick?: number; benchLong?: number; benchObserver?: PerformanceObserver };
+    w.benchClick = undefined;
+    w.benchLong = 0;
+    document.addEventListener("click", (e) => (w.benchClick = e.timeStamp), { capture: true, once: true });
+    w.benchObserver?.disconnect();
+    w.benchObserver = new PerformanceObserver((list) => {
+      for (const e of list.getEntries()) if (w.benchClick !== undefined && e.startTime >= w.benchClick) w.benchLong! += e.duration;
+    });
+    w.benchObserver.observe({ type: "longtask" });
+  });
   const t0 = performance.now();
   await act();
-  await page.waitForFunction(
+  const shown = await page.waitForFunction(
     (old) => {
       const box = document.querySelector('[data-testid="candidate-row"] input[type="checkbox"]');
       const busy = document.querySelector('[aria-busy="true"]');
-      return !!box && box.getAttribute("aria-label") !== old && !busy;
+      return !!box && box.getAttribute("aria-label") !== old && !busy ? performance.now() : null;
     },
     before,
     { polling: "raf", timeout: 120_000 },
   );
-  return performance.now() - t0;
+  const elapsed = performance.now() - t0;
+  const at = (await shown.jsonValue()) as number;
+  const split = (await page.evaluate((rowsAt) => {
+    const w = window as unknown as { benchClick?: number; benchLong?: number };
+    const click = w.benchClick ?? rowsAt;
+    const asked = (performance.getEntriesByType("resource") as PerformanceResourceTiming[]).filter((e) => e.name.includes("/candidates?") && e.startTime >= click && e.startTime <= rowsAt).at(-1);
+    const before = (performance.getEntriesByType("resource") as PerformanceResourceTiming[]).filter((e) => e.name.includes("/candidates?") && e.startTime < click).at(-1);
+    const others = performance.getEntriesByType("resource").filter((e) => !e.name.includes("/candidates?") && e.startTime >= click && e.startTime <= rowsAt).length;
+    return { click, asked: asked ? [asked.startTime, asked.responseEnd] : null, longTasks: w.benchLong ?? 0, others, readAheadEnd: !asked && before ? before.responseEnd - click : null };
+  }, at)) as { click: number; asked: [number, number] | null; longTasks: number; others: number; readAheadEnd: number | null };
+  parts?.push({
+    requestSent: split.asked ? split.asked[0] - split.click : null,
+    answered: split.asked ? split.asked[1] - split.asked[0] : null,
+    drawn: at - (split.asked ? split.asked[1] : split.click),
+    longTasks: split.longTasks,
+    others: split.others,
+    readAheadEnd: split.readAheadEnd,
+  });
+  return elapsed;
+}
+
+/** The parts of several changes as medians, for the printout. */
+function partsLine(parts: ChangeParts[]): string {
+  const asked = parts.filter((p) => p.answered !== null);
+  const ahead = parts.filter((p) => p.readAheadEnd !== null).map((p) => p.readAheadEnd!);
+  const m = (xs: number[]) => (xs.length ? median(xs).toFixed(0) : "—");
+  return (
+    `click → request sent ${m(asked.map((p) => p.requestSent!))} ms; request → last byte ${m(asked.map((p) => p.answered!))} ms; ` +
+    `→ rows painted ${m(parts.map((p) => p.drawn))} ms; long tasks ${m(parts.map((p) => p.longTasks))} ms; other requests meanwhile ${m(parts.map((p) => p.others))} (medians; ${parts.length - asked.length} of ${parts.length} needed no request${ahead.length ? `; the rows read ahead arrived ${m(ahead)} ms after the click (negative: before)` : ""})`
+  );
 }
 
 async function main(serverUrl: string, children: ChildProcess[]) {
@@ -137,6 +196,8 @@ async function main(serverUrl: string, children: ChildProcess[]) {
   const candidate: number[] = [];
   const sort: number[] = [];
   const nextPage: number[] = [];
+  const sortParts: ChangeParts[] = [];
+  const pageParts: ChangeParts[] = [];
   for (let i = 0; i < RUNS; i++) {
     // A new scenario each run, so no run reads a page the server or the browser already holds.
     const page = await context.newPage();
@@ -160,8 +221,22 @@ async function main(serverUrl: string, children: ChildProcess[]) {
         }, undefined, { polling: "raf", timeout: 120_000 })
       ).jsonValue()) as number,
     );
-    sort.push(await rowsChanged(page, () => page.getByTestId("sort-sequence").click()));
-    nextPage.push(await rowsChanged(page, () => page.getByRole("button", { name: "Next →" }).click()));
+    // BENCH_PROFILE=prefix keeps the first run's sort and page change as Chromium CPU profiles
+    // (prefix.sort.cpuprofile, prefix.page.cpuprofile), to see where the browser's time goes.
+    const profiled = async (name: string, change: () => Promise<number>) => {
+      if (!process.env.BENCH_PROFILE || i > 0) return change();
+      const cdp = await page.context().newCDPSession(page);
+      await cdp.send("Profiler.enable");
+      await cdp.send("Profiler.setSamplingInterval", { interval: 200 });
+      await cdp.send("Profiler.start");
+      const ms = await change();
+      const { profile } = await cdp.send("Profiler.stop");
+      writeFileSync(`${process.env.BENCH_PROFILE}.${name}.cpuprofile`, JSON.stringify(profile));
+      await cdp.detach();
+      return ms;
+    };
+    sort.push(await profiled("sort", () => rowsChanged(page, () => page.getByTestId("sort-sequence").click(), sortParts)));
+    nextPage.push(await profiled("page", () => rowsChanged(page, () => page.getByRole("button", { name: "Next →" }).click(), pageParts)));
     await page.close();
 
     const cand = await context.newPage();
@@ -171,6 +246,24 @@ async function main(serverUrl: string, children: ChildProcess[]) {
     await cand.close();
   }
   const load1 = os.loadavg();
+  // The server's own share of a sort: the ranked page with its thumbnails read in this process, as
+  // the endpoint reads it uncached (a new scenario each time, sorted by sequence).
+  const { listCandidates } = await import("../lib/services/candidates");
+  const serverRead: number[] = [];
+  for (let i = 0; i < RUNS; i++) {
+    const t = performance.now();
+    await listCandidates(db, actor, sweep.id, (i * 29 + 7) % 160, { sort: "sequence", dir: "asc", page: 1, pageSize: 25, include: "thumbnails" });
+    serverRead.push(performance.now() - t);
+  }
+  // The same over HTTP from this process (the session check, the route and the transfer; no browser).
+  const overHttp: number[] = [];
+  let answerBytes = 0;
+  for (let i = 0; i < RUNS; i++) {
+    const t = performance.now();
+    const res = await api.get(`/api/sweeps/${sweep.id}/scenarios/${(i * 31 + 11) % 160}/candidates?sort=sequence&dir=asc&page=1&pageSize=25&include=thumbnails`);
+    answerBytes = (await res.body()).length;
+    overHttp.push(performance.now() - t);
+  }
   const html = await (await api.get(sweepUrl)).body();
   // BENCH_SAVE_HTML=file keeps the page's HTML, to see what its size is made of.
   if (process.env.BENCH_SAVE_HTML) writeFileSync(process.env.BENCH_SAVE_HTML, html);
@@ -183,7 +276,11 @@ async function main(serverUrl: string, children: ChildProcess[]) {
   console.log(`  sweep page → answering clicks:           ${fmt(interactive)}`);
   console.log(`  candidate page → title and chart:        ${fmt(candidate)}   (goal 600 ms)`);
   console.log(`  sort by sequence → new rows:             ${fmt(sort)}   (goal 300 ms)`);
+  console.log(`    of which (in the page's clock): ${partsLine(sortParts)}`);
   console.log(`  next page → new rows:                    ${fmt(nextPage)}   (goal 300 ms)`);
+  console.log(`    of which (in the page's clock): ${partsLine(pageParts)}`);
+  console.log(`  one table page with thumbnails read by the service in process (no HTTP): ${fmt(serverRead)}`);
+  console.log(`  the same page over HTTP from this process (session check, route, transfer): ${fmt(overHttp)}; ${(answerBytes / 1024).toFixed(0)} KB`);
   console.log(`  sweep page HTML (first page and its thumbnails' plot data inside): ${(html.length / 1024).toFixed(0)} KB`);
   console.log(`  load average (1, 5, 15 min): before ${load0.map((x) => x.toFixed(2)).join(", ")}; after ${load1.map((x) => x.toFixed(2)).join(", ")}; ${os.cpus().length} cores`);
 

@@ -1,10 +1,10 @@
 "use client";
 
 import Link from "next/link";
-import { memo, useMemo } from "react";
+import { useRouter } from "next/navigation";
+import { createContext, memo, useContext, useMemo } from "react";
 import { columnVisibilityFeature, createColumnHelper, rowSortingFeature, tableFeatures, useTable, type SortingState } from "@tanstack/react-table";
-import { LevenspielChart } from "@/components/charts/levenspiel-chart";
-import { chartInputs } from "@/components/charts/candidate-chart-data";
+import { LevenspielThumbnail } from "@/components/charts/levenspiel-thumbnail";
 import { formatVolume, fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { costColumns, COST_COLUMN_TITLES } from "./cost-columns";
 import { StageBadges } from "./stage-badges";
@@ -60,20 +60,67 @@ export const COLUMN_TITLES: Record<OptionalColumn, string> = {
   ...NETWORK_COLUMN_TITLES,
 };
 
-type ThumbnailProps = { stages: CandidateRow["stages"]; levenspiel: NonNullable<CandidateRow["levenspiel"]>; target?: number; yMax?: number; unit: VolumeUnit };
+/**
+ * What the cells read that changes with the page around them: the compare selection, the candidate
+ * links (they carry the view back) and the thumbnails' shared scale. Read through a context, not
+ * closed over by the column definitions: a column whose cell function changes is a new component to
+ * React, so every cell of the table would be thrown away and built again (charts included) on each
+ * sort, page change or ticked box. With these out, the columns change only with the unit and kind.
+ */
+interface RowContext {
+  selected: string[];
+  onToggle: (id: string) => void;
+  candidateHref: (id: string) => string;
+  yMax?: number;
+  target?: number;
+  unit: VolumeUnit;
+}
+const RowContext = createContext<RowContext>({ selected: [], onToggle: () => {}, candidateHref: () => "#", unit: "m3" });
+
+/** A row's compare box. */
+function SelectBox({ c }: { c: CandidateRow }) {
+  const { selected, onToggle } = useContext(RowContext);
+  const checked = selected.includes(c.id);
+  return (
+    <input
+      type="checkbox"
+      className="size-4 accent-accent-600"
+      aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
+      checked={checked}
+      disabled={!checked && (selected.length >= 4 || !c.feasible)}
+      onChange={() => onToggle(c.id)}
+    />
+  );
+}
 
 /**
- * One row's Levenspiel thumbnail, drawn from the plot data the row came with (no request of its own).
- * Memoised on the row's own arrays: ticking a compare box rebuilds the columns, and must not redraw
- * every chart on the page before the box shows its tick.
+ * A row's sequence, linked to its candidate page. The link's route is fetched ahead when the reader
+ * points at it or tabs to it, not as it scrolls into view: every sort or page change brings 25 new
+ * links, and fetching them all ahead competed with the request for the rows themselves.
  */
-const Thumbnail = memo(function Thumbnail({ stages, levenspiel, target, yMax, unit }: ThumbnailProps) {
-  const input = useMemo(() => chartInputs(stages, levenspiel), [stages, levenspiel]);
+function SequenceCell({ c }: { c: CandidateRow }) {
+  const { candidateHref } = useContext(RowContext);
+  const router = useRouter();
+  const href = candidateHref(c.id);
   return (
-    <div className="w-28" data-testid="thumbnail">
-      <LevenspielChart {...input} compact target={target} yMax={yMax} volumeUnit={unit} />
-    </div>
+    <>
+      <Link href={href} prefetch={false} onMouseEnter={() => router.prefetch(href)} onFocus={() => router.prefetch(href)} className="rounded hover:underline" data-testid="candidate-link">
+        <StageBadges sequence={c.sequence} />
+      </Link>
+      {c.emptyStages ? (
+        <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
+          {c.emptyStages === 1 ? "1 empty stage" : `${c.emptyStages} empty stages`}
+        </span>
+      ) : null}
+    </>
   );
+}
+
+/** One row's Levenspiel thumbnail, drawn from the plot data the row came with (no request of its own). */
+const ThumbnailCell = memo(function ThumbnailCell({ c }: { c: CandidateRow }) {
+  const { yMax, target, unit } = useContext(RowContext);
+  if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
+  return <LevenspielThumbnail stages={c.stages} levenspiel={c.levenspiel} target={target} yMax={yMax} unit={unit} />;
 });
 
 interface Props {
@@ -101,36 +148,12 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         id: "select",
         enableSorting: false,
         header: () => <span className="sr-only">Select to compare</span>,
-        cell: ({ row }) => {
-          const c = row.original;
-          const checked = selected.includes(c.id);
-          return (
-            <input
-              type="checkbox"
-              className="size-4 accent-accent-600"
-              aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
-              checked={checked}
-              disabled={!checked && (selected.length >= 4 || !c.feasible)}
-              onChange={() => onToggle(c.id)}
-            />
-          );
-        },
+        cell: ({ row }) => <SelectBox c={row.original} />,
       }),
       helper.accessor("rank", { header: "Rank", cell: (i) => <span className="num">{i.getValue()}</span> }),
       helper.accessor("sequence", {
         header: isNetwork ? "Train" : "Sequence",
-        cell: (i) => (
-          <>
-            <Link href={candidateHref(i.row.original.id)} className="rounded hover:underline" data-testid="candidate-link">
-              <StageBadges sequence={i.getValue()} />
-            </Link>
-            {i.row.original.emptyStages ? (
-              <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
-                {i.row.original.emptyStages === 1 ? "1 empty stage" : `${i.row.original.emptyStages} empty stages`}
-              </span>
-            ) : null}
-          </>
-        ),
+        cell: (i) => <SequenceCell c={i.row.original} />,
       }),
     ];
     if (isNetwork) return helper.columns([...lead, ...networkColumns({ product: networkProduct ?? null, unit, timeUnit: networkTime ?? "s" }), feasibility]);
@@ -140,11 +163,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         id: "chart",
         header: "Chart",
         enableSorting: false,
-        cell: ({ row }) => {
-          const c = row.original;
-          if (!c.feasible || !c.levenspiel) return <span className="text-ink-faint">—</span>;
-          return <Thumbnail stages={c.stages} levenspiel={c.levenspiel} target={target} yMax={yMax} unit={unit} />;
-        },
+        cell: ({ row }) => <ThumbnailCell c={row.original} />,
       }),
       helper.accessor("totalVolume", {
         header: `Total volume, ${VOLUME_LABEL[unit]}`,
@@ -172,7 +191,8 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
       }),
       feasibility,
       ]);
-  }, [unit, selected, onToggle, candidateHref, yMax, target, isNetwork, networkProduct, networkTime]);
+  }, [unit, isNetwork, networkProduct, networkTime]);
+  const rowContext = useMemo(() => ({ selected, onToggle, candidateHref, yMax, target, unit }), [selected, onToggle, candidateHref, yMax, target, unit]);
 
   const sorting: SortingState = useMemo(() => {
     const col = Object.entries(SORT_OF).find(([, k]) => k === view.sort)?.[0] ?? "rank";
@@ -194,6 +214,7 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
   });
 
   return (
+    <RowContext.Provider value={rowContext}>
     <div id="ranked-trains" className="overflow-x-auto" tabIndex={0} role="region" aria-label="Ranked trains table">
       <table className="table-dense" data-testid="ranked-table">
         <caption className="sr-only">Ranked candidate trains of the scenario; use the column buttons to sort.</caption>
@@ -240,5 +261,6 @@ export function RankedTable({ rows, view, onSort, selected, onToggle, candidateH
         </tbody>
       </table>
     </div>
+    </RowContext.Provider>
   );
 }

@@ -1,7 +1,7 @@
 "use client";
 
 import { labelFor } from "@/lib/schemas/field-labels";
-import { useRef, useState, type KeyboardEvent } from "react";
+import { memo, useRef, useState, type KeyboardEvent } from "react";
 import { formatVolume, type VolumeUnit } from "@/lib/charts/volume-units";
 import { fromSI, isUnit, SI_UNIT, unitLabel, type UnitKind } from "@/lib/units/display";
 import { gridFieldAt } from "@/components/sweep-builder/builder-form-state";
@@ -50,7 +50,8 @@ export function formatObjective(v: number | null, objective: RankedBy, unit: Vol
   return objective === "cost" ? `cost ${formatNumber(v, 4, TABLE_NUMBERS)}` : formatVolume(v, unit);
 }
 
-export function ScenarioPicker({
+/** Memoised: a sort or a page change of the table below must not rebuild every scenario's line. */
+export const ScenarioPicker = memo(function ScenarioPicker({
   scenarios,
   value,
   onChange,
@@ -77,7 +78,7 @@ export function ScenarioPicker({
       </select>
     </div>
   );
-}
+});
 
 /** The two fields a grid varies, when it varies exactly two. */
 export function twoVariedFields(scenarios: ScenarioRow[]): [string, string] | null {
@@ -150,8 +151,9 @@ export function nextCell(key: string, ctrl: boolean, [r, c]: [number, number], r
  * text and a shade (darker = larger); each cell opens its scenario.
  * The grid is one tab stop (ARIA grid, roving tabindex): a hundred cells as separate stops put the
  * ranked table a hundred key presses away. Arrows, Home and End move; Enter or Space opens.
+ * Memoised: a sort or a page change of the table below must not rebuild the map.
  */
-export function ObjectiveHeatMap({
+export const ObjectiveHeatMap = memo(function ObjectiveHeatMap({
   scenarios,
   fields,
   selected,
@@ -274,4 +276,4 @@ export function ObjectiveHeatMap({
       </div>
     </section>
   );
-}
+});

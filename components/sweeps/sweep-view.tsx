@@ -10,8 +10,7 @@ import { Cautions } from "@/components/cautions/cautions";
 import { thermalWarnings } from "@/lib/engine";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { fetchJson } from "@/lib/client/fetch-json";
-import { sharedYMax } from "@/lib/charts/levenspiel-geometry";
-import { chartInputs } from "@/components/charts/candidate-chart-data";
+import { thumbnailYMax } from "@/lib/charts/thumbnail-plots";
 import { ErrorPanel, LoadingPanel, refusalText } from "./loading-and-error-panels";
 import { ResultsToolbar } from "./results-toolbar";
 import { RankedTable } from "./ranked-table";
@@ -24,6 +23,7 @@ import { isNetworkSweep, networkConstraintsOf, networkObjectiveOf } from "./netw
 import { objectiveLabel, percent } from "@/components/candidates/network-results-data";
 import { useNetworkUnits } from "@/components/candidates/network-units";
 import type { RankedBy } from "./scenario-picker";
+import type { SortKey } from "@/lib/sweeps/sort-keys";
 
 const ACTIVE = new Set(["queued", "running"]);
 
@@ -89,15 +89,45 @@ export function SweepView({
   // scenario is fetched. A finished scenario's ranking never changes, so a page read once stays fresh
   // (the end of a run invalidates them explicitly above).
   const seeded = initial?.candidates && JSON.stringify(initial.candidates.key) === JSON.stringify(candidatesKeyNow) ? initial.candidates.page : undefined;
+  const readPage = useCallback((key: ReturnType<typeof candidatesKey>) => () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${key[2]}/candidates?${key[3]}`), [sweepId]);
   const candidatesQ = useQuery({
     queryKey: candidatesKeyNow,
-    queryFn: () => fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${urlView.scenario}/candidates?${candidatesKeyNow[3]}`),
+    queryFn: readPage(candidatesKeyNow),
     enabled: !sweep || hasResults,
     initialData: seeded,
     staleTime: finished ? Infinity : 0,
     // The rows on screen stay while the next sort or page loads: no flash of an empty table.
     placeholderData: keepPreviousData,
   });
+
+  const rowsShown = !!candidatesQ.data && !candidatesQ.isPlaceholderData;
+  const lastPage = candidatesQ.data ? Math.max(1, Math.ceil(candidatesQ.data.total / urlView.pageSize)) : 1;
+  // A finished sweep's next page is read while the reader looks at this one, so "Next →" shows it at
+  // once (its ranking never changes, so what is read stays right). Left to an idle moment: the page's
+  // own first paint and clicks come first.
+  useEffect(() => {
+    if (!finished || !rowsShown || urlView.page >= lastPage) return;
+    const key = candidatesKey(sweepId, { ...urlView, page: urlView.page + 1 }, network);
+    const run = () => void qc.prefetchQuery({ queryKey: key, queryFn: readPage(key), staleTime: Infinity });
+    if (typeof window.requestIdleCallback !== "function") return run();
+    const idle = window.requestIdleCallback(run, { timeout: 500 });
+    return () => window.cancelIdleCallback(idle);
+  }, [finished, rowsShown, lastPage, urlView, sweepId, network, qc, readPage]);
+
+  // A sort, filter, page or scenario change asks for its rows at the click, before the page redraws
+  // for the new view (the query would otherwise start only once that redraw is committed).
+  const changeView = useCallback(
+    (patch: Parameters<typeof setView>[0]) => {
+      const next = setView(patch);
+      if (finished) {
+        const key = candidatesKey(sweepId, next, network);
+        void qc.prefetchQuery({ queryKey: key, queryFn: readPage(key), staleTime: Infinity });
+      }
+    },
+    [setView, finished, sweepId, network, qc, readPage],
+  );
+  const selectScenario = useCallback((scenario: number) => changeView({ scenario }), [changeView]);
+  const sortBy = useCallback((sort: SortKey, dir: "asc" | "desc") => changeView({ sort, dir }), [changeView]);
 
   const cancel = useMutation({
     mutationFn: () => fetchJson<{ sweep: Sweep }>(`/api/sweeps/${sweepId}/cancel`, { method: "POST" }),
@@ -126,10 +156,9 @@ export function SweepView({
   const rows = candidatesQ.data?.items;
   const singleSpec = sweep?.kind === "single" ? sweep.spec : undefined;
   const target = singleSpec?.target?.conversion;
-  const yMax = useMemo(() => {
-    const charts = (rows ?? []).filter((r) => !network && r.feasible && r.levenspiel?.length).map((r) => ({ ...chartInputs(r.stages, r.levenspiel), target }));
-    return charts.length ? sharedYMax(charts) : undefined;
-  }, [rows, target, network]);
+  const yMax = useMemo(() => (network || !rows ? undefined : thumbnailYMax(rows, target)), [rows, target, network]);
+  const scenarios = useMemo(() => scenariosQ.data ?? [], [scenariosQ.data]);
+  const grid2 = useMemo(() => twoVariedFields(scenarios), [scenarios]);
 
   if (sweepQ.isPending) return <LoadingPanel label="Loading the sweep…" />;
   if (sweepQ.isError || !sweep) return <ErrorPanel error={sweepQ.error} what="this sweep" />;
@@ -138,8 +167,6 @@ export function SweepView({
   const objective: RankedBy = networkObjective ? ("maximise" in networkObjective ? networkObjective.maximise : "volume") : (singleSpec?.objective?.minimise ?? "volume");
   const product = networkObjective?.product ?? null;
   const limits = networkConstraintsOf(sweep);
-  const scenarios = scenariosQ.data ?? [];
-  const grid2 = twoVariedFields(scenarios);
   // When the target is a grid variable the base value is not what was run: show the grid's range.
   const swept = scenarios.map((sc) => sc.overrides["target.conversion"]).filter((x): x is number => typeof x === "number");
   const targetText = swept.length ? `${Math.min(...swept)}–${Math.max(...swept)} (varied)` : (target ?? "—");
@@ -201,7 +228,7 @@ export function SweepView({
         <>
           {scenariosQ.isError ? <ErrorPanel error={scenariosQ.error} what="the scenarios" /> : null}
           {grid2 && scenarios.length > 1 ? (
-            <ObjectiveHeatMap scenarios={scenarios} fields={grid2} selected={view.scenario} onSelect={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} typedUnits={typedUnits} />
+            <ObjectiveHeatMap scenarios={scenarios} fields={grid2} selected={view.scenario} onSelect={selectScenario} objective={objective} unit={view.unit} typedUnits={typedUnits} />
           ) : null}
           <section className="card" aria-labelledby="ranked-title">
             <div className="space-y-3 border-b border-line p-4">
@@ -210,6 +237,9 @@ export function SweepView({
                 <Link
                   href={`/compare?ids=${selected.join(",")}${urlView.unit ? `&unit=${urlView.unit}` : ""}`}
                   aria-disabled={selected.length < 2}
+                  // Not fetched ahead while it cannot be followed: Next.js fetches a link in view
+                  // again on every change of the page's URL, so each sort asked for it once more.
+                  prefetch={selected.length < 2 ? false : undefined}
                   onClick={(e) => selected.length < 2 && e.preventDefault()}
                   className={`btn-primary ${selected.length < 2 ? "pointer-events-none opacity-50" : ""}`}
                   data-testid="compare-selected"
@@ -218,9 +248,9 @@ export function SweepView({
                 </Link>
               </div>
               {scenarios.length > 1 ? (
-                <ScenarioPicker scenarios={scenarios} value={view.scenario} onChange={(scenario) => setView({ scenario })} objective={objective} unit={view.unit} />
+                <ScenarioPicker scenarios={scenarios} value={view.scenario} onChange={selectScenario} objective={objective} unit={view.unit} />
               ) : null}
-              <ResultsToolbar sweepId={sweepId} view={view} setView={setView} {...(network ? { columns: NETWORK_COLUMNS } : {})} />
+              <ResultsToolbar sweepId={sweepId} view={view} setView={changeView} {...(network ? { columns: NETWORK_COLUMNS } : {})} />
             </div>
             {candidatesQ.isPending ? (
               <LoadingPanel label="Loading the ranked trains…" bare />
@@ -229,7 +259,7 @@ export function SweepView({
             ) : page && page.items.length === 0 ? (
               <p className="p-6 text-center text-ink-soft" data-testid="table-empty">
                 No train matches these filters.{" "}
-                <button type="button" className="text-accent-700 underline" onClick={() => setView({ feasible: false, contains: "", stages: null })}>
+                <button type="button" className="text-accent-700 underline" onClick={() => changeView({ feasible: false, contains: "", stages: null })}>
                   Clear the filters
                 </button>
               </p>
@@ -238,7 +268,7 @@ export function SweepView({
                 <RankedTable
                   rows={rows}
                   view={view}
-                  onSort={(sort, dir) => setView({ sort, dir })}
+                  onSort={sortBy}
                   selected={selected}
                   onToggle={toggle}
                   candidateHref={candidateHref}
@@ -254,13 +284,13 @@ export function SweepView({
                   {(page.page - 1) * view.pageSize + 1}–{Math.min(page.total, page.page * view.pageSize)} of {page.total} trains
                 </span>
                 <span className="flex items-center gap-2">
-                  <button type="button" className="btn-quiet" disabled={view.page <= 1} onClick={() => setView({ page: view.page - 1 })}>
+                  <button type="button" className="btn-quiet" disabled={view.page <= 1} onClick={() => changeView({ page: view.page - 1 })}>
                     ← Previous
                   </button>
                   <span className="num">
                     Page {view.page} of {pages}
                   </span>
-                  <button type="button" className="btn-quiet" disabled={view.page >= pages} onClick={() => setView({ page: view.page + 1 })}>
+                  <button type="button" className="btn-quiet" disabled={view.page >= pages} onClick={() => changeView({ page: view.page + 1 })}>
                     Next →
                   </button>
                 </span>

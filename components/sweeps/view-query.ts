@@ -54,6 +54,11 @@ export function parseViewState(q: URLSearchParams): SweepViewState {
   };
 }
 
+/** The state after a change: any change but paging itself starts again at page 1. */
+export function applyViewPatch(state: SweepViewState, patch: Partial<SweepViewState>): SweepViewState {
+  return { ...state, ...("page" in patch ? {} : { page: 1 }), ...patch };
+}
+
 /** The query string of a state, leaving out defaults so links stay short. */
 export function serialiseViewState(s: SweepViewState): string {
   const q = new URLSearchParams();

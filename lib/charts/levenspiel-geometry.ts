@@ -121,20 +121,23 @@ export function smoothCurve(curve: Point[]): (x: number) => number {
 const PFR_TOP_POINTS = 200;
 
 /** The top of a PFR over [a, b]: the stage's own outline when given, else the curve, sampled densely. */
-function pfrTop(stage: ChartStage, curve: Point[]): Point[] {
+function pfrTop(stage: ChartStage, curve: Point[], points: number): Point[] {
   const a = stage.conversionIn;
   const b = stage.conversionOut;
   const own = stage.area?.filter(([, y]) => y > 0) ?? [];
   const f = smoothCurve(own.length >= 2 ? own : curve);
   if (!(b > a)) return [[a, f(a)]];
-  return Array.from({ length: PFR_TOP_POINTS + 1 }, (_, i) => {
-    const x = a + ((b - a) * i) / PFR_TOP_POINTS;
+  return Array.from({ length: points + 1 }, (_, i) => {
+    const x = a + ((b - a) * i) / points;
     return [x, f(x)] as Point;
   });
 }
 
-/** The polygon of one stage, with heights scaled so that its area is exactly the stage volume. */
-export function stagePolygon(stage: ChartStage, curve: Point[], index = 0): StagePolygon {
+/**
+ * The polygon of one stage, with heights scaled so that its area is exactly the stage volume.
+ * `topPoints`: samples of a PFR's top (a thumbnail a hundred pixels wide needs far fewer).
+ */
+export function stagePolygon(stage: ChartStage, curve: Point[], index = 0, topPoints = PFR_TOP_POINTS): StagePolygon {
   const a = stage.conversionIn;
   const b = stage.conversionOut;
   const span = b - a;
@@ -147,7 +150,7 @@ export function stagePolygon(stage: ChartStage, curve: Point[], index = 0): Stag
     const h = span > 0 ? stage.volume / span : (ownH ?? interpolate(curve, b));
     top = [[a, h], [b, h]];
   } else {
-    const raw = pfrTop(stage, curve);
+    const raw = pfrTop(stage, curve, topPoints);
     const rawArea = shoelace([[a, 0], [b, 0], ...[...raw].reverse()]);
     heightScale = rawArea > 0 ? stage.volume / rawArea : 1;
     top = raw.map(([x, y]) => [x, y * heightScale]);
@@ -168,10 +171,10 @@ export function stagePolygon(stage: ChartStage, curve: Point[], index = 0): Stag
 }
 
 /** Everything the chart draws, in m3, with the axis extents. */
-export function chartGeometry(input: { curve: Point[]; stages: ChartStage[]; target?: number; equilibrium?: number | null; yMax?: number }): ChartGeometry {
+export function chartGeometry(input: { curve: Point[]; stages: ChartStage[]; target?: number; equilibrium?: number | null; yMax?: number; topPoints?: number }): ChartGeometry {
   const stageCurve = input.stages.flatMap((s) => (s.area ?? []).filter(([, y]) => y > 0));
   const curve = sortCurve(input.curve.length ? input.curve : stageCurve);
-  const stages = input.stages.map((s, i) => stagePolygon(s, curve, i));
+  const stages = input.stages.map((s, i) => stagePolygon(s, curve, i, input.topPoints));
   const lastOut = Math.max(0, ...input.stages.map((s) => s.conversionOut));
   const xEnd = Math.max(lastOut, input.target ?? 0, curve.length ? curve[curve.length - 1][0] : 0);
   // Leave a little room right of the last stage; an equilibrium limit just beyond it is shown too.
@@ -203,6 +206,6 @@ export function ticks(max: number, count = 5): number[] {
 }
 
 /** Largest height any of several candidates' charts reaches, m3: one shared scale for side-by-side charts. */
-export function sharedYMax(charts: { curve: Point[]; stages: ChartStage[]; target?: number }[]): number {
+export function sharedYMax(charts: { curve: Point[]; stages: ChartStage[]; target?: number; topPoints?: number }[]): number {
   return Math.max(...charts.map((c) => chartGeometry({ ...c }).yMax), 0) || 1;
 }

@@ -1,4 +1,5 @@
 import type { StagePlot } from "@/lib/engine";
+import { sharedYMax, type ChartStageBasis } from "./levenspiel-geometry";
 
 /** Points per stage a 112-pixel thumbnail needs: the full 25 add nothing visible at that size. */
 export const THUMBNAIL_POINTS = 9;
@@ -20,4 +21,25 @@ export function thumbnailPlot(plot: StagePlot): StagePlot {
   const area = plot.area as Point[];
   const outline = area.length <= THUMBNAIL_POINTS + 2 ? [...area] : [area[0], ...thin(area.slice(1, -1), THUMBNAIL_POINTS), area[area.length - 1]];
   return { curve: thin(plot.curve as Point[], THUMBNAIL_POINTS), area: outline };
+}
+
+/**
+ * Samples of a PFR's top in a thumbnail (the full chart takes 200): a stage is at most about a
+ * hundred pixels wide there, so 24 chords of at most a few pixels each follow the curve as closely
+ * as the eye can tell.
+ */
+export const THUMBNAIL_TOP_POINTS = 24;
+
+/** The height every thumbnail of a table page is drawn to, m3: the tallest of them, so that they compare at a glance. */
+export function thumbnailYMax(rows: readonly { feasible: boolean; stages: ChartStageBasis[]; levenspiel?: StagePlot[] | null }[], target?: number): number | undefined {
+  const charts = rows
+    .filter((r) => r.feasible && r.levenspiel?.length)
+    .map((r) => ({
+      // As the thumbnail draws it (components/charts/candidate-chart-data.ts): the stages' curves joined, each stage its own outline.
+      curve: r.levenspiel!.flatMap((p) => p.curve as Point[]),
+      stages: r.stages.map((s, i) => ({ type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: r.levenspiel![i]?.area as Point[] | undefined })),
+      target,
+      topPoints: THUMBNAIL_TOP_POINTS,
+    }));
+  return charts.length ? sharedYMax(charts) : undefined;
 }

@@ -10,7 +10,7 @@ import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
 import type { NetworkScenarioReference, ScenarioReference, StoredNetworkStage, StoredStage, WithShapes } from "@/lib/sweeps/stored-json";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
-import { candidatePlots } from "@/lib/sweeps/stage-plots";
+import { candidatePlots, scenarioPlotter } from "@/lib/sweeps/stage-plots";
 import { thumbnailPlot } from "@/lib/charts/thumbnail-plots";
 
 /** Vessels a candidate reuses from the inventory (0 without a plan). */
@@ -106,10 +106,11 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
   ]);
   if (!scenario) throw notFound("scenario");
   const total = rows[0]?.filteredTotal ?? (q.page > 1 ? await countWhere(db, where) : 0);
+  const plotsOf = q.include && !scenario.network && scenario.baseSpec ? scenarioPlotter(scenario.baseSpec, scenario.overrides) : null;
   const items = rows.map(({ filteredTotal: _t, ...c }) => {
     const typed = c as WithShapes<typeof c, { stages: StoredStage[]; levenspiel?: StagePlot[] }>;
-    if (!q.include || scenario.network || !scenario.baseSpec) return typed;
-    const plots = candidatePlots(typed.levenspiel, typed.stages, scenario.baseSpec, scenario.overrides);
+    if (!plotsOf) return typed;
+    const plots = plotsOf(typed.levenspiel, typed.stages);
     return { ...typed, levenspiel: q.include === "thumbnails" ? plots.map(thumbnailPlot) : plots };
   });
   return {

@@ -10,8 +10,20 @@ import type { StoredStage } from "./stored-json";
  * 2.5 kB a candidate.
  */
 export function candidatePlots(stored: unknown, stages: readonly StoredStage[], baseSpec: Record<string, unknown>, overrides: Record<string, number>): StagePlot[] {
-  if (Array.isArray(stored) && stored.length === stages.length && stored.length > 0) return stored as StagePlot[];
-  return stagePlots(scenarioDesignSpec(baseSpec, overrides), stages);
+  return scenarioPlotter(baseSpec, overrides)(stored, stages);
+}
+
+/**
+ * `candidatePlots` for many candidates of one scenario (a table page): the scenario's spec is
+ * resolved once, when the first candidate needs its points recomputed, not once a candidate.
+ */
+export function scenarioPlotter(baseSpec: Record<string, unknown>, overrides: Record<string, number>): (stored: unknown, stages: readonly StoredStage[]) => StagePlot[] {
+  let spec: DesignSpec | undefined;
+  return (stored, stages) => {
+    if (Array.isArray(stored) && stored.length === stages.length && stored.length > 0) return stored as StagePlot[];
+    spec ??= scenarioDesignSpec(baseSpec, overrides);
+    return stagePlots(spec, stages);
+  };
 }
 
 /** The spec a one-reaction scenario was designed with: the sweep's spec (without its costing) with the scenario's values. */

@@ -72,6 +72,9 @@ test("no refetch of the first page on opening; a sort keeps the old rows until t
   await expect(rows).toHaveCount(25);
   await expect(rows.first().getByTestId("thumbnail")).toBeVisible();
   expect(pageErrors.filter((e) => /418|hydrat/i.test(e))).toEqual([]);
+  // The page shown came with the HTML; the next one is read ahead, once the page is idle.
+  await expect.poll(() => candidateCalls.some((u) => new URL(u).searchParams.get("page") === "2")).toBe(true);
+  const opening = candidateCalls.length;
 
   // Sort by volume with the answer held: the 25 rows stay on screen meanwhile.
   const held = holder();
@@ -80,13 +83,16 @@ test("no refetch of the first page on opening; a sort keeps the old rows until t
   await expect.poll(() => held.seen.length).toBeGreaterThan(0);
   await expect(rows).toHaveCount(25);
   await expect(page.getByTestId("candidate-row").first().getByRole("checkbox")).toHaveAccessibleName(`Select rank ${byRank.items[0].rank} (${byRank.items[0].sequence.join("-")}) to compare`);
-  const sorted = page.waitForResponse((r) => r.url().includes("sort=totalVolume") && r.status() === 200);
+  const sorted = page.waitForResponse((r) => r.url().includes("sort=totalVolume") && new URL(r.url()).searchParams.get("page") === "1" && r.status() === 200);
+  // Once the sorted rows are shown, their next page is read ahead too: waited for, so that it is not caught by the hold below.
+  const sortedAhead = page.waitForResponse((r) => r.url().includes("sort=totalVolume") && new URL(r.url()).searchParams.get("page") === "2" && r.status() === 200);
   held.release();
   await sorted;
+  await sortedAhead;
   await page.unroute(`**/api/sweeps/${sweepId}/scenarios/0/candidates?*`);
-  // Opening made no candidates request of its own: the only one is the sort's (a refetch on mount would come first).
-  expect(candidateCalls.every((u) => u.includes("sort=totalVolume"))).toBe(true);
-  expect(candidateCalls.length).toBeGreaterThan(0);
+  // Opening asked for no first page of its own (a refetch on mount would): only the next page, read ahead.
+  expect(candidateCalls.slice(0, opening).every((u) => new URL(u).searchParams.get("page") === "2" && u.includes("sort=rank"))).toBe(true);
+  expect(candidateCalls.slice(opening).some((u) => u.includes("sort=totalVolume"))).toBe(true);
   await expect(page.getByRole("columnheader", { name: /Total volume/ })).toHaveAttribute("aria-sort", "ascending");
 
   // Every request of the page held: ticking a compare box needs none, so it shows at once.
@@ -96,6 +102,27 @@ test("no refetch of the first page on opening; a sort keeps the old rows until t
   await box.check();
   await expect(box).toBeChecked();
   await expect(page.getByTestId("compare-selected")).toHaveText("Compare selected (1)");
+  all.release();
+  await page.unroute("**/api/**");
+  await page.close();
+});
+
+test("the next page was read ahead: Next → shows it with every request of the page held", async () => {
+  const page2 = (await (await engineer.get(`/api/sweeps/${sweepId}/scenarios/0/candidates?sort=rank&dir=asc&page=2&pageSize=25`)).json()) as CandidatePage;
+  const page = await browserCtx.newPage();
+  const readAhead = page.waitForResponse((r) => r.url().includes(`/api/sweeps/${sweepId}/scenarios/0/candidates?`) && new URL(r.url()).searchParams.get("page") === "2" && r.status() === 200);
+  await page.goto(`/projects/${projectId}/sweeps/${sweepId}`);
+  await appReady(page);
+  await readAhead;
+  const all = holder();
+  await page.route("**/api/**", all.handler);
+  await page.getByRole("button", { name: "Next →" }).click();
+  const rows = page.getByTestId("candidate-row");
+  await expect(rows).toHaveCount(page2.items.length);
+  await expect(rows.first().getByRole("checkbox")).toHaveAccessibleName(`Select rank ${page2.items[0].rank} (${page2.items[0].sequence.join("-")}) to compare`);
+  await expect(page.getByTestId("page-info")).toHaveText("26–30 of 30 trains");
+  // Shown from what was read ahead: no request for page 2 was made (and held) after the click.
+  expect(all.seen.filter((r) => r.request().url().includes("/candidates?") && new URL(r.request().url()).searchParams.get("page") === "2")).toEqual([]);
   all.release();
   await page.unroute("**/api/**");
   await page.close();
