@@ -16,6 +16,7 @@ import { deflateRawSync, inflateRawSync } from "node:zlib";
  *            then per stage: [type] [volume] [conversionOut] [conversionIn unless CHAINED]
  *            [temperatureIn temperatureOut unless ONE_TEMPERATURE] [residenceTime unless TAU_FROM_FLOW]
  *            [count sizeEach unless ONE_VESSEL_EACH] [cost (NaN for none) unless NO_COST]
+ *            [recycleRatio, a tube with recycle only]
  */
 
 const FORM_JSON = 0;
@@ -28,7 +29,9 @@ const TAU_FROM_FLOW = 4;
 const ONE_VESSEL_EACH = 8;
 const NO_COST = 16;
 
-const TYPES = ["CSTR", "PFR"] as const;
+/** Stage types by their code; a tube with recycle (code 2) also keeps its recycle ratio. */
+const TYPES = ["CSTR", "PFR", "PFR-recycle"] as const;
+const RECYCLE = 2;
 const STAGE_KEYS = ["type", "conversionIn", "conversionOut", "temperatureIn", "temperatureOut", "volume", "residenceTime", "vessels", "cost"];
 /** JSON shorter than this is not worth deflating. */
 const DEFLATE_FROM = 160;
@@ -46,6 +49,7 @@ interface CompactStage {
   count: number;
   sizeEach: number;
   cost: number | null;
+  recycleRatio: number | null;
 }
 
 /** The stored bytes of a stage list. */
@@ -86,10 +90,11 @@ function compactStages(stages: readonly Stage[]): CompactStage[] | null {
   const out: CompactStage[] = [];
   for (const s of stages) {
     if (typeof s !== "object" || s === null || Array.isArray(s)) return null;
-    const keys = Object.keys(s);
-    if (keys.length !== STAGE_KEYS.length || !STAGE_KEYS.every((k) => k in s)) return null;
     const type = TYPES.indexOf(s.type as (typeof TYPES)[number]);
     if (type < 0) return null;
+    const recycle = type === RECYCLE;
+    if (Object.keys(s).length !== STAGE_KEYS.length + (recycle ? 1 : 0) || !STAGE_KEYS.every((k) => k in s)) return null;
+    if (recycle && !isFinite(s.recycleRatio)) return null;
     const nums = [s.conversionIn, s.conversionOut, s.temperatureIn, s.temperatureOut, s.volume, s.residenceTime];
     if (!nums.every(isFinite)) return null;
     const v = s.vessels as Record<string, unknown> | null;
@@ -107,6 +112,7 @@ function compactStages(stages: readonly Stage[]): CompactStage[] | null {
       count: v.count as number,
       sizeEach: plain(v.sizeEach as number),
       cost: s.cost === null ? null : plain(s.cost as number),
+      recycleRatio: recycle ? plain(s.recycleRatio as number) : null,
     });
   }
   return out;
@@ -131,7 +137,8 @@ function writeCompact(stages: CompactStage[]): Buffer {
   const flags = (chained ? CHAINED : 0) | (oneTemperature ? ONE_TEMPERATURE : 0) | (v0 !== null ? TAU_FROM_FLOW : 0) | (oneVesselEach ? ONE_VESSEL_EACH : 0) | (noCost ? NO_COST : 0);
 
   const perStage = 17 + (chained ? 0 : 8) + (oneTemperature ? 0 : 16) + (v0 !== null ? 0 : 8) + (oneVesselEach ? 0 : 12) + (noCost ? 0 : 8);
-  const buf = Buffer.alloc(3 + (oneTemperature ? 8 : 0) + (v0 !== null ? 8 : 0) + perStage * stages.length);
+  const recycles = stages.filter((s) => s.type === RECYCLE).length;
+  const buf = Buffer.alloc(3 + (oneTemperature ? 8 : 0) + (v0 !== null ? 8 : 0) + perStage * stages.length + 8 * recycles);
   buf[0] = FORM_COMPACT;
   buf[1] = stages.length;
   buf[2] = flags;
@@ -158,6 +165,7 @@ function writeCompact(stages: CompactStage[]): Buffer {
       f64(s.sizeEach);
     }
     if (!noCost) f64(s.cost ?? NaN);
+    if (s.type === RECYCLE) f64(s.recycleRatio as number);
   }
   return buf;
 }
@@ -191,7 +199,9 @@ function readCompact(buf: Buffer): Stage[] {
       vessels = { count, sizeEach: f64() };
     }
     const c = flags & NO_COST ? NaN : f64();
-    stages.push({ type, conversionIn, conversionOut, temperatureIn, temperatureOut, volume, residenceTime, vessels, cost: Number.isNaN(c) ? null : c });
+    const stage: Stage = { type, conversionIn, conversionOut, temperatureIn, temperatureOut, volume, residenceTime, vessels, cost: Number.isNaN(c) ? null : c };
+    if (type === "PFR-recycle") stage.recycleRatio = f64();
+    stages.push(stage);
     previousOut = conversionOut;
   }
   if (at !== buf.length) throw new Error("stored stages: length does not match");

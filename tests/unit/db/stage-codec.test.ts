@@ -40,6 +40,20 @@ describe("stored stages", () => {
     expect(encodeStages(five.stages).length).toBe(3 + 16 + 5 * 17);
   });
 
+  it("keep a tube with recycle compact, with its recycle ratio", () => {
+    const spec = oneReaction.find((s) => s.name === "expression-autocatalytic.json")!.spec as unknown as DesignSpec;
+    const result = designTrains({ ...spec, train: { maxStages: 2, types: ["CSTR", "PFR", "PFR-recycle"] } } as DesignSpec);
+    const rows = candidateRows("s", "c", result).filter((r) => r.stages.some((st) => st.type === "PFR-recycle"));
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) {
+      const bytes = encodeStages(row.stages);
+      expect(bytes[0]).toBe(1);
+      const back = decodeStages(bytes);
+      expect(back).toEqual(viaJson(row.stages));
+      for (const st of back.filter((x) => x.type === "PFR-recycle")) expect(typeof st.recycleRatio).toBe("number");
+    }
+  });
+
   it("keep several reactions' stages as deflated JSON that reads back the same", () => {
     const spec = specs.find((s) => s.name === "network-three-reactions.json")!.spec as unknown as NetworkDesignSpec;
     const rows = networkCandidateRows("sweep", "scenario", designNetwork({ ...spec, train: { maxStages: 2, types: ["CSTR", "PFR"] } }));
@@ -65,7 +79,7 @@ describe("stored stages", () => {
   // Any number the engine can produce, and shapes it does not produce, come back as JSON would give them.
   const num = fc.oneof(fc.double({ noNaN: true, noDefaultInfinity: true }), fc.integer(), fc.constant(0), fc.constant(-0));
   const stage = fc.record({
-    type: fc.constantFrom("CSTR", "PFR"),
+    type: fc.constantFrom("CSTR", "PFR", "PFR-recycle"),
     conversionIn: num,
     conversionOut: num,
     temperatureIn: num,
@@ -74,7 +88,7 @@ describe("stored stages", () => {
     residenceTime: num,
     vessels: fc.record({ count: fc.oneof(fc.nat(), fc.constant(1)), sizeEach: num }),
     cost: fc.option(num, { nil: null }),
-  });
+  }).chain((st) => (st.type === "PFR-recycle" ? fc.option(num, { nil: undefined }).map((r) => (r === undefined ? st : { ...st, recycleRatio: r })) : fc.constant(st)));
   /** Trains as the engine shapes them: chained conversions, one temperature, tau = V / v0, one vessel each. */
   const designed = fc.tuple(fc.array(fc.tuple(fc.constantFrom("CSTR", "PFR"), fc.double({ min: 1e-9, max: 1e6, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })), { minLength: 1, maxLength: 8 }), fc.double({ min: 1e-9, max: 1e3, noNaN: true }), fc.double({ min: 200, max: 900, noNaN: true })).map(([parts, v0, t]) => {
     let x = 0;
