@@ -15,8 +15,11 @@ export interface LineSeries {
   /** What the legend and the reader say, e.g. "Single tube", "Stage 2 CSTR", "B". */
   label: string;
   points: { x: number; y: number }[];
-  /** Colour and dash: a stage's own style (0-based index), or a neutral reference line. */
-  tone: { stage: number } | "reference" | "muted";
+  /**
+   * Colour and dash: a stage's own style (0-based index), a neutral reference line, a limit (the highest
+   * temperature allowed) or the equilibrium line. A point that is not a number breaks the line there.
+   */
+  tone: { stage: number } | "reference" | "muted" | "limit" | "equilibrium";
   /** Draw each point as a dot as well (or only, with `line: false`). */
   markers?: boolean;
   line?: boolean;
@@ -43,6 +46,8 @@ const DASHES = ["", "6 3", "2 3", "8 3 2 3", "1 2"];
 function colourOf(tone: LineSeries["tone"]): { stroke: string; dash: string; width: number } {
   if (tone === "reference") return { stroke: "#1c2430", dash: "4 3", width: 1.5 };
   if (tone === "muted") return { stroke: "#8a94a3", dash: "2 3", width: 1.25 };
+  if (tone === "limit") return { stroke: "#991b1b", dash: "3 3", width: 1.25 };
+  if (tone === "equilibrium") return { stroke: "#b45309", dash: "", width: 1.5 };
   return { stroke: stageStyle(tone.stage).stroke, dash: DASHES[tone.stage % DASHES.length]!, width: 2 };
 }
 
@@ -67,11 +72,19 @@ export function LineChart({ series, xLabel, yLabel, summary, height = 300, testI
   const xTicks = axisTicks(xs[0], xs[1]);
   const yTicks = axisTicks(ys[0], ys[1], 4);
   const inside = (p: { x: number; y: number }) => Number.isFinite(p.x) && Number.isFinite(p.y);
-  const pathOf = (pts: { x: number; y: number }[]) =>
-    pts
-      .filter(inside)
-      .map((p, i) => `${i ? "L" : "M"}${sx(p.x).toFixed(2)},${sy(p.y).toFixed(2)}`)
-      .join("");
+  const pathOf = (pts: { x: number; y: number }[]) => {
+    let d = "";
+    let pen = false;
+    for (const p of pts) {
+      if (!inside(p)) {
+        pen = false;
+        continue;
+      }
+      d += `${pen ? "L" : "M"}${sx(p.x).toFixed(2)},${sy(p.y).toFixed(2)}`;
+      pen = true;
+    }
+    return d;
+  };
 
   return (
     <figure className="m-0" data-testid={testId}>
