@@ -1,21 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { designTrains, type StageResult } from "../../../lib/engine/index";
-import { chartGeometry, shoelace, stagePolygon, type Point } from "../../../lib/charts/levenspiel-geometry";
+import { chartGeometry, shoelace, stagePolygon } from "../../../lib/charts/levenspiel-geometry";
 import { fromCubicMetres } from "../../../lib/charts/volume-units";
+import { rel, FA0, CA0, K, height, cstrVolume, pfrVolume, sampled } from "./first-order-closed-forms";
 
-const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 const TOL = 1e-6;
-
-// First order, liquid: -rA = k CA0 (1 - X).
-const FA0 = 0.05; // mol/s
-const CA0 = 1500; // mol/m3
-const K = 0.002; // 1/s
-const height = (x: number) => FA0 / (K * CA0 * (1 - x));
-// closed form, common practice: CSTR V = FA0 (Xout - Xin) / (k CA0 (1 - Xout))
-const cstrVolume = (a: number, b: number) => (FA0 * (b - a)) / (K * CA0 * (1 - b));
-// closed form, common practice: PFR V = (FA0 / (k CA0)) ln((1 - Xin) / (1 - Xout))
-const pfrVolume = (a: number, b: number) => (FA0 / (K * CA0)) * Math.log((1 - a) / (1 - b));
-const sampled = (a: number, b: number, n = 25): Point[] => Array.from({ length: n }, (_, i) => a + ((b - a) * i) / (n - 1)).map((x) => [x, height(x)]);
 
 describe("Levenspiel chart geometry, first order by closed form", () => {
   const curve = sampled(0, 0.95, 200);
