@@ -39,3 +39,21 @@ export function sequenceFromKey(key: string): TrainStageType[] {
 export function keyOfWrittenSequence(written: string): string {
   return written.replaceAll("PFR-recycle", KEY_TOKEN["PFR-recycle"]);
 }
+
+/**
+ * What a stage type is called on screen, in the report and in exports: the trade's words. The short
+ * label goes in badges and narrow columns; the name where there is room (selects, stage tables).
+ * One name per type everywhere: a tube with part of its outlet recycled is "Tube with recycle", badged "PFR+R".
+ */
+export const STAGE_TYPE_NAME: Readonly<Record<TrainStageType, string>> = { CSTR: "CSTR", PFR: "PFR", "PFR-recycle": "Tube with recycle" };
+export const STAGE_TYPE_SHORT: Readonly<Record<TrainStageType, string>> = { CSTR: "CSTR", PFR: "PFR", "PFR-recycle": "PFR+R" };
+
+/** The name of a stored type, or the stored word itself for one the screens do not know. */
+export const stageTypeName = (type: string): string => STAGE_TYPE_NAME[type as TrainStageType] ?? type;
+export const stageTypeShort = (type: string): string => STAGE_TYPE_SHORT[type as TrainStageType] ?? type;
+
+/**
+ * A run of stage types as a filter takes it: types joined by "-", a tube with recycle written "PFR-recycle"
+ * (as in sweep files) or "PFRrecycle" (as in keys), e.g. "CSTR-PFR-recycle".
+ */
+export const WRITTEN_SEQUENCE = /^(CSTR|PFR-recycle|PFRrecycle|PFR)(-(CSTR|PFR-recycle|PFRrecycle|PFR))*$/;

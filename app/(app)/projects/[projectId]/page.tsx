@@ -15,7 +15,7 @@ import { listPins } from "@/lib/services/pins";
 import { listSweeps } from "@/lib/services/sweeps";
 import { loadProjectPage } from "./project-data";
 import { formatDateTime } from "@/lib/format/dates";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
 
 export const dynamic = "force-dynamic";
 
@@ -35,7 +35,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const datasets = can(actor, "dataset.read") ? await listDatasets(db, actor, project.id) : null;
   const { names, versions } = await pinLabels(db, actor, pins);
   const pinRows: PinRow[] = pins.map((p) => {
-    const c = p.candidate as { sequence?: StageType[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
+    const c = p.candidate as { sequence?: TrainStageType[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
     const v = versions[p.kineticsVersionId];
     return {
       id: p.id,
