@@ -57,3 +57,18 @@ export const stageTypeShort = (type: string): string => STAGE_TYPE_SHORT[type as
  * (as in sweep files) or "PFRrecycle" (as in keys), e.g. "CSTR-PFR-recycle".
  */
 export const WRITTEN_SEQUENCE = /^(CSTR|PFR-recycle|PFRrecycle|PFR)(-(CSTR|PFR-recycle|PFRrecycle|PFR))*$/;
+
+/**
+ * The caution a result with a tube with recycle carries, in the engine's words (lib/engine/design.ts adds it to
+ * a design's cautions but does not export it; tests/unit/sweeps/recycle-caution.test.ts checks this copy against
+ * the engine's output so the two cannot drift). Screens, the report, its PDF and the exports show it beside the
+ * general cautions whenever a train shown holds a tube with recycle.
+ */
+export const RECYCLE_CAUTION =
+  "A tube with recycle is taken with its recycle mixed perfectly into the feed at the tube's inlet and plug flow in the tube; the recycle pump and line, their cost and their hold-up are not included.";
+
+/** The cautions the stage types of the trains shown add to the general ones: the tube with recycle's, or none. */
+export function stageTypeCautions(types: Iterable<string>): string[] {
+  for (const t of types) if (t === "PFR-recycle") return [RECYCLE_CAUTION];
+  return [];
+}

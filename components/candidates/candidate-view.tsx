@@ -22,6 +22,7 @@ import type { UnitKind } from "@/lib/units/display";
 import { NetworkCandidateView } from "./network-candidate-view";
 import type { NetworkCandidateDetail } from "./network-types";
 import { networkObjectiveOf } from "@/components/sweeps/network-sweep";
+import { stageTypeCautions } from "@/lib/stage-types";
 
 /** What the server read for the page's first paint: the candidate and, when it is the same, its sweep. */
 export interface CandidateInitial {
@@ -112,7 +113,7 @@ export function CandidateView({ candidateId, canPin, typedUnits, initial }: { ca
         <StageTable stages={c.stages} unit={unit} caption={`Stages of rank ${c.rank}`} />
       </section>
       <VesselPlan plan={c.inventoryPlan} installedCost={c.installedCost} unit={unit} />
-      <Cautions warnings={warnings} />
+      <Cautions warnings={warnings} more={stageTypeCautions(c.sequence)} />
     </div>
   );
 }

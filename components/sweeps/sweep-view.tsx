@@ -25,6 +25,7 @@ import { useNetworkUnits } from "@/components/candidates/network-units";
 import type { RankedBy } from "./scenario-picker";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
 import { trainsWithRecycle } from "./sweep-train-types";
+import { stageTypeCautions } from "@/lib/stage-types";
 
 const ACTIVE = new Set(["queued", "running"]);
 
@@ -300,7 +301,7 @@ export function SweepView({
           </section>
         </>
       )}
-      <Cautions warnings={warnings} compact />
+      <Cautions warnings={warnings} compact more={trainsWithRecycle(singleSpec) ? stageTypeCautions(["PFR-recycle"]) : []} />
     </div>
   );
 }

@@ -9,6 +9,9 @@ import { createKineticsModel } from "@/lib/services/kinetics";
 import { pinCandidate } from "@/lib/services/pins";
 import { runSweepChunk } from "@/lib/services/sweep-chunks";
 import { createSweep } from "@/lib/services/sweeps";
+import { rateFixedTrain } from "@/lib/services/rating";
+import { rateRequestSchema } from "@/lib/schemas/costs";
+import { RECYCLE_CAUTION } from "@/lib/stage-types";
 import { scenarioDesignSpec } from "@/lib/sweeps/stage-plots";
 import type { TestDatabase } from "../helpers/test-db";
 import { demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
@@ -124,5 +127,23 @@ describe("a sweep with the tube with recycle", () => {
     }
     const body = sweepCreateSchema.parse({ kineticsVersionId, target: { conversion: 0.9 }, train: { candidates: [["PFR-recycle", "CSTR"]], equalVolume: true } });
     await expect(createSweep(t.db, actors.engineer, await projectIdNamed(t.db, ESTER_PROJECT), body)).rejects.toMatchObject({ code: "bad_request", fields: { "train.equalVolume": expect.any(Array) } });
+  });
+
+  it("rates a designed train with a tube with recycle back to its target, with the recycle's caution", async () => {
+    const best = (await page(fixed, 0)).items.find((c) => c.sequence.join(" ") === "CSTR PFR-recycle")!;
+    const projectId = await projectIdNamed(t.db, ESTER_PROJECT);
+    const stages = best.stages.map((s) => ({ type: s.type, volume: s.volume, ...(s.recycleRatio !== undefined ? { recycleRatio: s.recycleRatio } : {}) }));
+    const rating = await rateFixedTrain(t.db, actors.engineer, projectId, rateRequestSchema.parse({ kineticsVersionId, stages, target: 0.9 }));
+    // A design rated at its own volumes reaches its own target (common practice: rating inverts sizing).
+    expect(Math.abs(rating.conversionOut - 0.9)).toBeLessThan(1e-6);
+    expect(rating.stages[1]!.recycleRatio).toBe(0.5);
+    expect(rating.cautions).toContain(RECYCLE_CAUTION);
+    for (const [stage, field] of [[{ type: "PFR-recycle", volume: 2 }, "stages.0.recycleRatio"], [{ type: "PFR", volume: 2, recycleRatio: 1 }, "stages.0.recycleRatio"], [{ type: "PFR-recycle", volume: 2, recycleRatio: -1 }, "stages.0.recycleRatio"]] as const) {
+      const parsed = rateRequestSchema.safeParse({ kineticsVersionId, stages: [stage], target: 0.9 });
+      expect(parsed.success).toBe(false);
+      const err = validationError(parsed.error!);
+      expect(Object.keys(err.fields!)).toEqual([field]);
+      expect(err.message).toMatch(/^Stage 1 recycle ratio: /);
+    }
   });
 });
