@@ -12,6 +12,12 @@ import { createSweep } from "@/lib/services/sweeps";
 import { rateFixedTrain } from "@/lib/services/rating";
 import { rateRequestSchema } from "@/lib/schemas/costs";
 import { RECYCLE_CAUTION } from "@/lib/stage-types";
+import { PDFParse } from "pdf-parse";
+import Papa from "papaparse";
+import { getDesignReport } from "@/lib/services/design-reports";
+import { exportCandidates } from "@/lib/services/candidate-export";
+import { candidateCautions, candidateRowsForExport, candidatesCsv, stageTableCsv } from "@/lib/reports/exports";
+import { renderReportPdf } from "@/lib/reports/report-pdf";
 import { scenarioDesignSpec } from "@/lib/sweeps/stage-plots";
 import type { TestDatabase } from "../helpers/test-db";
 import { demoActors, ESTER_PROJECT, projectIdNamed, seededTestDatabase } from "./helpers/demo-team";
@@ -27,6 +33,7 @@ let actors: Awaited<ReturnType<typeof demoActors>>;
 let kineticsVersionId: string;
 let chosen: string;
 let fixed: string;
+let pinId: string;
 
 async function run(body: unknown, scenarios: number): Promise<string> {
   const sweep = await createSweep(t.db, actors.engineer, await projectIdNamed(t.db, ESTER_PROJECT), sweepCreateSchema.parse(body));
@@ -108,6 +115,7 @@ describe("a sweep with the tube with recycle", () => {
     expect(compared.kind).toBe("single");
     expect(compared.sequence).toEqual(["CSTR", "PFR-recycle"]);
     const pin = await pinCandidate(t.db, actors.engineer, best.id, { note: "tube with recycle" });
+    pinId = pin.id;
     const pinned = pin.candidate as { sequence: string[]; stages: { recycleRatio?: number; levenspiel: StagePlot }[] };
     expect(pinned.sequence).toEqual(["CSTR", "PFR-recycle"]);
     expect(pinned.stages[1].recycleRatio).toBe(0.5);
@@ -145,5 +153,37 @@ describe("a sweep with the tube with recycle", () => {
       expect(Object.keys(err.fields!)).toEqual([field]);
       expect(err.message).toMatch(/^Stage 1 recycle ratio: /);
     }
+  });
+
+  it("carries the recycle ratio and the recycle's caution in the design report, its PDF and CSV, and the ranked list's exports", async () => {
+    const r = await getDesignReport(t.db, actors.manager, pinId);
+    expect(r.train.label).toBe("CSTR → Tube with recycle");
+    expect(r.stages.map((s) => s.recycleRatio)).toEqual([null, 0.5]);
+    expect(r.cautions.general.at(-1)).toBe(RECYCLE_CAUTION);
+    expect(r.chart.stages[1]!.recycle?.recycleRatio).toBe(0.5);
+    const csv = Papa.parse<string[]>(stageTableCsv(r).split("\n").slice(2).join("\n")).data;
+    expect(csv[0]!.slice(0, 3)).toEqual(["stage", "type", "recycle ratio (-)"]);
+    expect(csv[2]!.slice(0, 3)).toEqual(["2", "PFR-recycle", "0.5"]);
+    expect(stageTableCsv(r).split("\n")[1]).toContain("the recycle pump and line");
+    const parser = new PDFParse({ data: new Uint8Array(await renderReportPdf(r)) });
+    try {
+      const text = (await parser.getText()).text.replace(/\s+/g, " ");
+      expect(text).toContain("Recycle ratio");
+      expect(text).toContain("Tube with recycle");
+      expect(text).toContain("the recycle pump and line, their cost and their hold-up are not included");
+    } finally {
+      await parser.destroy();
+    }
+
+    const data = await exportCandidates(t.db, actors.engineer, fixed, 0, { sort: "rank", dir: "asc" });
+    const list = candidatesCsv(fixed, data).split("\n");
+    expect(list[1]).toContain("the recycle pump and line");
+    const table = Papa.parse<string[]>(list.slice(2).join("\n")).data;
+    const column = table[0]!.indexOf("stage recycle ratios (-)");
+    expect(column).toBeGreaterThan(0);
+    const row = table.find((cells) => cells[1] === "CSTR-PFR-recycle")!;
+    expect(row[column]).toBe(" | 0.5");
+    expect(candidateRowsForExport(data).find((c) => c.sequence === "CSTR-PFR-recycle")!.stageRecycleRatios).toEqual([null, 0.5]);
+    expect(candidateCautions(data)).toContain(RECYCLE_CAUTION);
   });
 });
