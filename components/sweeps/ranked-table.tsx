@@ -118,13 +118,16 @@ function SequenceCell({ c }: { c: CandidateRow }) {
   );
 }
 
-/** "R = 0.43" after a train's badges, one ratio per tube with recycle in stage order; nothing without one. */
+/**
+ * "R = 0.43" after a train's badges, one ratio per tube with recycle in stage order ("R = 1000; 0"); nothing
+ * without one. No thousands commas: a comma would read as the separator between two ratios.
+ */
 function RecycleRatios({ stages }: { stages: readonly { type: string; recycleRatio?: number }[] }) {
-  const ratios = stages.filter((s) => s.type === "PFR-recycle").map((s) => formatNumber(s.recycleRatio ?? null, 3, TABLE_NUMBERS));
+  const ratios = stages.filter((s) => s.type === "PFR-recycle").map((s) => formatNumber(s.recycleRatio ?? null, 3));
   if (!ratios.length) return null;
   return (
     <span className="ml-2 whitespace-nowrap text-xs text-ink-soft num" data-testid="recycle-ratios" title="Recycle ratio of each tube with recycle: recycled flow over the flow leaving the stage">
-      R = {ratios.join(", ")}
+      R = {ratios.join("; ")}
     </span>
   );
 }

@@ -36,7 +36,7 @@ test.beforeAll(async ({ browser }) => {
 });
 test.afterAll(() => closeAll(browserCtx, engineer));
 
-/** "R = 0.43" as the table writes a ratio: three significant digits. */
+/** "R = 0.43" as the table writes a ratio: three significant digits, no thousands commas. */
 const shownRatio = (r: number) => String(Number(r.toPrecision(3)));
 
 test("a sweep with the tube with recycle: its recycle ratio on the ranked table and on the candidate page", async () => {
@@ -72,7 +72,7 @@ test("a sweep with the tube with recycle: its recycle ratio on the ranked table 
   expect(res.status()).toBe(200);
   const items = ((await res.json()) as { items: Row[] }).items;
   expect(items.length).toBe(6);
-  const expected = items.map((c) => `R = ${c.stages.filter((s) => s.type === "PFR-recycle").map((s) => shownRatio(s.recycleRatio!)).join(", ")}`);
+  const expected = items.map((c) => `R = ${c.stages.filter((s) => s.type === "PFR-recycle").map((s) => shownRatio(s.recycleRatio!)).join("; ")}`);
   await expect(page.getByTestId("recycle-ratios")).toHaveText(expected);
   await expect(page.getByTestId("candidate-row").first().getByRole("img", { name: /Tube with recycle/ }).first()).toBeVisible();
   await page.screenshot({ path: `${SCREENS}/recycle-ranked-table.png`, fullPage: true });
