@@ -126,7 +126,7 @@ function RecycleRatios({ stages }: { stages: readonly { type: string; recycleRat
   const ratios = stages.filter((s) => s.type === "PFR-recycle").map((s) => formatNumber(s.recycleRatio ?? null, 3));
   if (!ratios.length) return null;
   return (
-    <span className="ml-2 whitespace-nowrap text-xs text-ink-soft num" data-testid="recycle-ratios" title="Recycle ratio of each tube with recycle: recycled flow over the flow leaving the stage">
+    <span className="block whitespace-nowrap text-xs text-ink-soft num" data-testid="recycle-ratios" title="Recycle ratio of each tube with recycle: recycled flow over the flow leaving the stage">
       R = {ratios.join("; ")}
     </span>
   );

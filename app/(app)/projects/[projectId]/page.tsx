@@ -2,6 +2,7 @@ import Link from "next/link";
 import { ProjectCostLinks } from "@/components/costs/project-cost-links";
 import { AuditList, type AuditRow } from "@/components/audit/audit-list";
 import { Cautions } from "@/components/cautions/cautions";
+import { stageTypeCautions } from "@/lib/stage-types";
 import { DatasetsPanel, type DatasetRow } from "@/components/datasets/datasets-panel";
 import { PinsPanel, type PinRow } from "@/components/pins/pins-panel";
 import { SweepsList, type SweepRow } from "@/components/sweeps/sweeps-list";
@@ -125,7 +126,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       {datasets ? <DatasetsPanel projectId={project.id} datasets={wire<DatasetRow[]>(datasets)} canUpload={can(actor, "dataset.create")} /> : null}
 
       <PinsPanel pins={pinRows} viewerOnly={actor.role === "viewer"} />
-      {pinRows.length ? <Cautions /> : null}
+      {pinRows.length ? <Cautions more={stageTypeCautions(pinRows.flatMap((p) => p.sequence))} /> : null}
 
       {audit ? (
         <section className="card overflow-hidden" aria-labelledby="audit-title">
