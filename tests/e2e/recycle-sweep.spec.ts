@@ -24,12 +24,14 @@ let engineer: APIRequestContext;
 let browserCtx: BrowserContext;
 let projectId: string;
 let versionId: string;
+let modelName: string;
 
 test.beforeAll(async ({ browser }) => {
   mkdirSync(SCREENS, { recursive: true });
   engineer = await signedInContext("engineer");
   projectId = await firstProjectId(engineer);
-  const res = await engineer.post(`/api/projects/${projectId}/kinetics`, { data: { name: `Autocatalytic ${Date.now()}`, spec: AUTOCATALYTIC, note: "invented" } });
+  modelName = `Autocatalytic ${Date.now()}`;
+  const res = await engineer.post(`/api/projects/${projectId}/kinetics`, { data: { name: modelName, spec: AUTOCATALYTIC, note: "invented" } });
   expect(res.status(), await res.text()).toBe(201);
   versionId = ((await res.json()) as { version: { id: string } }).version.id;
   browserCtx = await browserAs(browser, engineer);
@@ -103,4 +105,33 @@ test("the API refuses a bad recycle ratio with a 400 naming the field", async ()
     expect(Object.keys(body.error.fields)).toEqual(["train.recycleRatio"]);
     expect(body.error.message).toMatch(/^Recycle ratio: /);
   }
+});
+
+test("rate a fixed train with a tube with recycle: its ratio as an input, named when missing, shown with the result", async () => {
+  const page = await openPage(browserCtx, `/projects/${projectId}/rate`);
+  await page.getByLabel("Kinetics version").selectOption({ label: `${modelName} · v1` });
+  await page.getByLabel("Target conversion").fill("0.9");
+  const first = page.getByTestId("rate-stage").first();
+  await first.getByLabel("Type").selectOption({ label: "Tube with recycle" });
+  await first.getByLabel("Volume").fill("180");
+  await first.getByLabel("Unit").selectOption("L");
+  // Without its ratio the server names the field; nothing is rated.
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  await expect(first.getByRole("alert")).toContainText("Give the recycle ratio");
+  await expect(page.getByTestId("rating-result")).toHaveCount(0);
+
+  await first.getByLabel("Recycle ratio R").fill("0.4");
+  await page.getByRole("button", { name: "Rate the train" }).click();
+  const api = await engineer.post(`/api/projects/${projectId}/rate`, { data: { kineticsVersionId: versionId, stages: [{ type: "PFR-recycle", volume: 0.18, recycleRatio: 0.4 }], target: 0.9 } });
+  expect(api.status()).toBe(200);
+  const conversion = ((await api.json()) as { rating: { conversionOut: number } }).rating.conversionOut;
+  const stages = page.getByTestId("rating-stages");
+  await expect(stages.getByRole("columnheader", { name: "Recycle ratio R" })).toBeVisible();
+  await expect(stages.getByRole("row").nth(1)).toContainText("Tube with recycle");
+  await expect(stages.getByRole("row").nth(1).getByRole("cell").nth(2)).toHaveText("0.4");
+  await expect(page.getByTestId("rating-conversion")).toContainText(String(Number(conversion.toPrecision(5))));
+  await expect(page.getByTestId("cautions")).toContainText("the recycle pump and line");
+  await expectNoSeriousA11yViolations(page);
+  await page.screenshot({ path: `${SCREENS}/recycle-rating.png`, fullPage: true });
+  await page.close();
 });
