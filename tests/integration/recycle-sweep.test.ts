@@ -161,6 +161,7 @@ describe("a sweep with the tube with recycle", () => {
     expect(r.stages.map((s) => s.recycleRatio)).toEqual([null, 0.5]);
     expect(r.cautions.general.at(-1)).toBe(RECYCLE_CAUTION);
     expect(r.chart.stages[1]!.recycle?.recycleRatio).toBe(0.5);
+    expect(r.objective).toContainEqual({ label: "Recycle ratio", value: "0.5, fixed for every tube with recycle" });
     const csv = Papa.parse<string[]>(stageTableCsv(r).split("\n").slice(2).join("\n")).data;
     expect(csv[0]!.slice(0, 3)).toEqual(["stage", "type", "recycle ratio (-)"]);
     expect(csv[2]!.slice(0, 3)).toEqual(["2", "PFR-recycle", "0.5"]);
