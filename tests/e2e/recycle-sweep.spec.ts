@@ -1,6 +1,6 @@
 import { mkdirSync } from "node:fs";
 import { expect, test, type APIRequestContext, type BrowserContext } from "@playwright/test";
-import { openPage, signedInContext } from "./fixtures";
+import { appReady, openPage, signedInContext } from "./fixtures";
 import { firstProjectId, waitForSweep } from "./sweep-fixtures";
 import { expectNoSeriousA11yViolations } from "./helpers/accessibility";
 import { browserAs, closeAll } from "./helpers/sign-in";
@@ -92,6 +92,18 @@ test("a sweep with the tube with recycle: its recycle ratio on the ranked table 
   await expect(page.getByTestId("chart-stage-1")).toHaveAttribute("data-stage-type", "PFR-recycle");
   await expect(page.getByTestId("cautions")).toContainText("the recycle pump and line");
   await page.screenshot({ path: `${SCREENS}/recycle-candidate.png`, fullPage: true });
+
+  // Two trains with a tube with recycle side by side: both charts draw its area under the curve.
+  const two = items.filter((c) => c.feasible && c.sequence.length === 2).slice(0, 2);
+  await page.goto(`/compare?ids=${two.map((c) => c.id).join(",")}`);
+  await appReady(page);
+  await expect(page.getByTestId("compare-card")).toHaveCount(2);
+  for (const [i, c] of two.entries()) {
+    const k = c.sequence.indexOf("PFR-recycle") + 1;
+    await expect(page.getByTestId("compare-card").nth(i).getByTestId(`chart-under-curve-${k}`)).toBeVisible();
+    await expect(page.getByTestId("compare-card").nth(i).getByTestId("stage-table").getByRole("columnheader", { name: "Recycle ratio R" })).toBeVisible();
+  }
+  await expect(page.getByTestId("cautions")).toContainText("the recycle pump and line");
   await page.close();
 });
 

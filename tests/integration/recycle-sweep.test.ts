@@ -6,7 +6,7 @@ import { validationError } from "@/lib/errors";
 import { candidateQuerySchema, kineticsModelCreateSchema, sweepCreateSchema } from "@/lib/schemas/sweeps";
 import { compareCandidates, listCandidates } from "@/lib/services/candidates";
 import { createKineticsModel } from "@/lib/services/kinetics";
-import { pinCandidate } from "@/lib/services/pins";
+import { pinCandidate, reviewPin } from "@/lib/services/pins";
 import { runSweepChunk } from "@/lib/services/sweep-chunks";
 import { createSweep } from "@/lib/services/sweeps";
 import { rateFixedTrain } from "@/lib/services/rating";
@@ -122,6 +122,8 @@ describe("a sweep with the tube with recycle", () => {
     expect(pinned.stages[1].levenspiel.recycle?.recycleRatio).toBe(0.5);
     const stored = await t.db.select({ id: candidates.id }).from(candidates).where(eq(candidates.id, best.id));
     expect(stored.length).toBe(1);
+    const approved = await reviewPin(t.db, actors.manager, pin.id, { decision: "approve", comment: "recycle pump to be sized separately" });
+    expect(approved.state).toBe("approved");
   });
 
   it("refuses a bad recycle ratio naming the field, and a same-volume train with one", async () => {
