@@ -58,11 +58,25 @@ export interface ErrorBody {
 /** Paths stay as keys (clients match them to inputs); each message is in words, without the path. */
 export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
   const fields: FieldErrors = {};
-  for (const issue of error.issues) {
+  for (const issue of error.issues.map(closestUnionIssue)) {
     const key = issue.path.length ? issue.path.map(String).join(".") : "(body)";
     (fields[key] ??= []).push(issueInWords(issue));
   }
   return fields;
+}
+
+/**
+ * Inside a union of object forms (a train's three forms) the form that failed on the fewest fields, when one
+ * clearly did and on a named field, is the one the body meant: its issue names that field ("train.recycleRatio")
+ * instead of "train: not one of the accepted forms". Other unions (a number or a quantity string) stay as they
+ * are. The command line reads its issues by the same rule (scripts/sweep.ts).
+ */
+function closestUnionIssue(issue: z.core.$ZodIssue): z.core.$ZodIssue {
+  if (issue.code !== "invalid_union" || !issue.errors || issue.errors.length < 2) return issue;
+  const [best, next] = [...issue.errors].sort((p, q) => p.length - q.length);
+  if (best.length === 0 || best.length >= next.length || best[0].path.length === 0) return issue;
+  const inner = closestUnionIssue(best[0]);
+  return { ...inner, path: [...issue.path, ...inner.path] };
 }
 
 /** "Label: message", unless the message already starts with its label (some schemas name it). */

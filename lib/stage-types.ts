@@ -39,3 +39,36 @@ export function sequenceFromKey(key: string): TrainStageType[] {
 export function keyOfWrittenSequence(written: string): string {
   return written.replaceAll("PFR-recycle", KEY_TOKEN["PFR-recycle"]);
 }
+
+/**
+ * What a stage type is called on screen, in the report and in exports: the trade's words. The short
+ * label goes in badges and narrow columns; the name where there is room (selects, stage tables).
+ * One name per type everywhere: a tube with part of its outlet recycled is "Tube with recycle", badged "PFR+R".
+ */
+export const STAGE_TYPE_NAME: Readonly<Record<TrainStageType, string>> = { CSTR: "CSTR", PFR: "PFR", "PFR-recycle": "Tube with recycle" };
+export const STAGE_TYPE_SHORT: Readonly<Record<TrainStageType, string>> = { CSTR: "CSTR", PFR: "PFR", "PFR-recycle": "PFR+R" };
+
+/** The name of a stored type, or the stored word itself for one the screens do not know. */
+export const stageTypeName = (type: string): string => STAGE_TYPE_NAME[type as TrainStageType] ?? type;
+export const stageTypeShort = (type: string): string => STAGE_TYPE_SHORT[type as TrainStageType] ?? type;
+
+/**
+ * A run of stage types as a filter takes it: types joined by "-", a tube with recycle written "PFR-recycle"
+ * (as in sweep files) or "PFRrecycle" (as in keys), e.g. "CSTR-PFR-recycle".
+ */
+export const WRITTEN_SEQUENCE = /^(CSTR|PFR-recycle|PFRrecycle|PFR)(-(CSTR|PFR-recycle|PFRrecycle|PFR))*$/;
+
+/**
+ * The caution a result with a tube with recycle carries, in the engine's words (lib/engine/design.ts adds it to
+ * a design's cautions but does not export it; tests/unit/sweeps/recycle-caution.test.ts checks this copy against
+ * the engine's output so the two cannot drift). Screens, the report, its PDF and the exports show it beside the
+ * general cautions whenever a train shown holds a tube with recycle.
+ */
+export const RECYCLE_CAUTION =
+  "A tube with recycle is taken with its recycle mixed perfectly into the feed at the tube's inlet and plug flow in the tube; the recycle pump and line, their cost and their hold-up are not included.";
+
+/** The cautions the stage types of the trains shown add to the general ones: the tube with recycle's, or none. */
+export function stageTypeCautions(types: Iterable<string>): string[] {
+  for (const t of types) if (t === "PFR-recycle") return [RECYCLE_CAUTION];
+  return [];
+}

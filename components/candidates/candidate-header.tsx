@@ -4,12 +4,12 @@ import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 import { UnitSelect } from "@/components/sweeps/unit-select";
 import type { VolumeUnit } from "@/lib/charts/volume-units";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
 
 /** What the header of a candidate reads; both kinds of candidate carry it. */
 export interface CandidateHeading {
   rank: number;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   sweep: { id: string; projectId: string; name: string };
   scenario: { index: number; overrides: Record<string, number> };
 }

@@ -22,6 +22,7 @@ import type { UnitKind } from "@/lib/units/display";
 import { NetworkCandidateView } from "./network-candidate-view";
 import type { NetworkCandidateDetail } from "./network-types";
 import { networkObjectiveOf } from "@/components/sweeps/network-sweep";
+import { stageTypeCautions } from "@/lib/stage-types";
 
 /** What the server read for the page's first paint: the candidate and, when it is the same, its sweep. */
 export interface CandidateInitial {
@@ -87,7 +88,12 @@ export function CandidateView({ candidateId, canPin, typedUnits, initial }: { ca
         <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
           <section className="card p-4" aria-labelledby="chart-title">
             <h2 id="chart-title">Levenspiel area chart</h2>
-            <p className="mb-2 text-xs text-ink-soft">Each CSTR is the rectangle at its outlet height; each PFR the area under the curve. Areas are the stage volumes.</p>
+            <p className="mb-2 text-xs text-ink-soft">
+              Each CSTR is the rectangle at its outlet height; each PFR the area under the curve. Areas are the stage volumes.
+              {c.sequence.includes("PFR-recycle")
+                ? " A tube with recycle is the rectangle at the mean height over its tube; the area under the curve from its tube's inlet X₁ (ticked on the axis, outlined dashed) times R + 1 is the same volume."
+                : null}
+            </p>
             <LevenspielChart {...chartInputs(c.stages, c.levenspiel)} target={target} equilibrium={ref?.equilibriumConversion ?? null} volumeUnit={unit} height={340} />
             {empty.length ? <p className="mt-1 text-xs text-ink-soft">Stage {empty.join(", ")} has zero volume at this optimum and draws no area.</p> : null}
           </section>
@@ -112,7 +118,7 @@ export function CandidateView({ candidateId, canPin, typedUnits, initial }: { ca
         <StageTable stages={c.stages} unit={unit} caption={`Stages of rank ${c.rank}`} />
       </section>
       <VesselPlan plan={c.inventoryPlan} installedCost={c.installedCost} unit={unit} />
-      <Cautions warnings={warnings} />
+      <Cautions warnings={warnings} more={stageTypeCautions(c.sequence)} />
     </div>
   );
 }

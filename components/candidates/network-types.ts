@@ -4,7 +4,7 @@
  * a change on either side fails to compile there. The compare items lack the candidate's own extras
  * (product, species, profiles, paths), which is why those are optional here. Types only.
  */
-import type { NetworkObjective, NetworkPaths, NetworkReferenceDesign, NetworkStageResult, NetworkTrainProfiles, StageType } from "@/lib/engine";
+import type { NetworkObjective, NetworkPaths, NetworkReferenceDesign, NetworkStageResult, NetworkTrainProfiles, TrainStageType } from "@/lib/engine";
 
 /** The engine's views as the candidate answer carries them (computed on request, never stored). */
 export type { NetworkPaths, PathPoint, TrainProfileStage } from "@/lib/engine";
@@ -32,7 +32,7 @@ export interface NetworkRowFields {
 export interface NetworkRow extends NetworkRowFields {
   id: string;
   rank: number;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   feasible: boolean;
   totalVolume: number | null;
   reason: string | null;
@@ -44,7 +44,7 @@ export interface NetworkCandidateDetail extends NetworkRowFields {
   kind: "network";
   id: string;
   rank: number;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   feasible: boolean;
   totalVolume: number | null;
   stageCount: number;

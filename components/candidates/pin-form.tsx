@@ -7,6 +7,7 @@ import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 import { fetchJson } from "@/lib/client/fetch-json";
 import { refusalText } from "@/components/sweeps/loading-and-error-panels";
 import type { PinView } from "@/lib/services/views";
+import { stageTypeName } from "@/lib/stage-types";
 
 type ProjectPin = PinView;
 
@@ -53,7 +54,7 @@ export function PinForm({ candidateId, projectId, feasible, canPin }: { candidat
     );
   }
 
-  const currentTrain = current?.candidate.sequence?.join(" → ") ?? "";
+  const currentTrain = current?.candidate.sequence?.map(stageTypeName).join(" → ") ?? "";
   return (
     <form
       className="space-y-2"

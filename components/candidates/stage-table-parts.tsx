@@ -1,6 +1,7 @@
 import { StageSwatch } from "@/components/charts/stage-patterns";
 import { StageGlyph } from "@/components/sweeps/stage-badges";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
+import { stageTypeName } from "@/lib/stage-types";
 
 /**
  * The scrolling, captioned frame of a candidate's stage table: a keyboard user can scroll it and a
@@ -18,14 +19,14 @@ export function StageTableFrame({ caption, testId, children }: { caption: string
 }
 
 /** A stage's first cell: its colour in the charts, its number and its type. */
-export function StageLabelCell({ index, type }: { index: number; type: StageType }) {
+export function StageLabelCell({ index, type }: { index: number; type: TrainStageType }) {
   return (
     <td>
       <span className="inline-flex items-center gap-1.5 whitespace-nowrap">
         <StageSwatch index={index} />
         <span className="num">{index + 1}</span>
         <StageGlyph type={type} />
-        {type}
+        {stageTypeName(type)}
       </span>
     </td>
   );

@@ -6,6 +6,7 @@ import { axisTicks } from "@/components/charts/axis-ticks";
 import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import { stageTypeName } from "@/lib/stage-types";
 
 /** Temperature against conversion through the train (adiabatic stages are straight lines in X). */
 export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
@@ -14,7 +15,7 @@ export function TemperatureProfile({ stages }: { stages: StoredStage[] }) {
   const t = (k: number) => fromSI("temperature", k, tUnit);
   const tLabel = unitLabel("temperature", tUnit);
   const data = stages.map((s, i) => ({
-    id: `Stage ${i + 1} ${s.type}`,
+    id: `Stage ${i + 1} ${stageTypeName(s.type)}`,
     data: [
       { x: s.conversionIn, y: t(s.temperatureIn) },
       { x: s.conversionOut, y: t(s.temperatureOut) },

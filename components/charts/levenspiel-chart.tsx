@@ -8,6 +8,7 @@ import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/vol
 import { stageStyle } from "@/lib/charts/stage-styles";
 import { StagePattern } from "./stage-patterns";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import { stageTypeName, stageTypeShort } from "@/lib/stage-types";
 
 export interface LevenspielChartProps {
   curve: [number, number][];
@@ -27,7 +28,8 @@ const COMPACT_MARGIN = { top: 2, right: 2, bottom: 2, left: 2 };
 
 /**
  * Levenspiel area chart: FA0/(-rA) against conversion, each CSTR a filled rectangle, each PFR a
- * filled area under the curve, each stage in its own colour and pattern and labelled with its
+ * filled area under the curve, each tube with recycle its rectangle at the mean height with the area
+ * under the curve over its tube (from X_1, ticked on the axis) drawn dashed over it, each stage in its own colour and pattern and labelled with its
  * volume. Inputs in m3; `volumeUnit` is the unit shown. `compact` draws a thumbnail without axes.
  */
 export function LevenspielChart({ curve, stages, target, equilibrium, height, compact = false, yMax, volumeUnit = "m3", alternatives = false }: LevenspielChartProps) {
@@ -47,10 +49,10 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
 
   const summary = stages.length
     ? `Levenspiel chart, ${stages.length} stage${stages.length === 1 ? "" : "s"}: ` +
-      geo.stages.map((s) => `${alternatives ? `single ${s.type}` : `stage ${s.index + 1} ${s.type}`} from X ${formatNumber(s.conversionIn, 3, TABLE_NUMBERS)} to ${formatNumber(s.conversionOut, 3, TABLE_NUMBERS)}, ${show(s.volume)} ${unit}`).join("; ")
+      geo.stages.map((s) => `${alternatives ? `single ${stageTypeName(s.type)}` : `stage ${s.index + 1} ${stageTypeName(s.type)}`} from X ${formatNumber(s.conversionIn, 3, TABLE_NUMBERS)} to ${formatNumber(s.conversionOut, 3, TABLE_NUMBERS)}, ${show(s.volume)} ${unit}${recycleWords(s.underCurve)}`).join("; ")
     : "Levenspiel curve, no stages";
   // Numbering alternatives "1 CSTR", "2 PFR" would read as a two-stage train.
-  const stageName = (s: { index: number; type: string }) => (alternatives ? `Single ${s.type}` : `${s.index + 1} ${s.type}`);
+  const stageName = (s: { index: number; type: string }) => (alternatives ? `Single ${stageTypeShort(s.type)}` : `${s.index + 1} ${stageTypeShort(s.type)}`);
 
   if (compact) {
     return (
@@ -65,6 +67,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
           {geo.stages.map((s) => (
             <path key={s.index} d={path(s.polygon) + "Z"} fill={`url(#${uid}-p${s.index})`} stroke={stageStyle(s.index).stroke} strokeWidth={1} />
           ))}
+          {geo.stages.map((s) => (s.underCurve ? <path key={`u${s.index}`} d={path(s.underCurve.polygon) + "Z"} fill={stageStyle(s.index).stroke} fillOpacity={0.2} stroke={stageStyle(s.index).stroke} strokeWidth={1} strokeDasharray="3 2" /> : null))}
           {geo.curve.length > 1 ? <path d={path(geo.curve)} fill="none" stroke="#1c2430" strokeWidth={1} /> : null}
         </svg>
       </div>
@@ -95,7 +98,7 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
     cursor === null
       ? ""
       : `X ${formatNumber(cursor, 3, TABLE_NUMBERS)}, FA0/(−rA) ${show(cursorY ?? 0)} ${unit}` +
-        (cursorStage ? `, stage ${cursorStage.index + 1} ${cursorStage.type}, ${show(cursorStage.volume)} ${unit}` : "");
+        (cursorStage ? `, stage ${cursorStage.index + 1} ${stageTypeName(cursorStage.type)}, ${show(cursorStage.volume)} ${unit}${recycleWords(cursorStage.underCurve)}` : "");
 
   return (
     <figure className="m-0">
@@ -151,6 +154,13 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
               return (
                 <g key={s.index} data-testid={`chart-stage-${s.index + 1}`} data-stage-type={s.type}>
                   <path d={path(s.polygon) + "Z"} fill={`url(#${uid}-p${s.index})`} stroke={style.stroke} strokeWidth={1.5} />
+                  {s.underCurve ? (
+                    // The tube's own area under the curve, from its mixed inlet X_1: (R + 1) times it is the rectangle.
+                    <g data-testid={`chart-under-curve-${s.index + 1}`}>
+                      <path d={path(s.underCurve.polygon) + "Z"} fill={style.stroke} fillOpacity={0.2} stroke={style.stroke} strokeWidth={1.25} strokeDasharray="5 3" />
+                      <line x1={sx(s.underCurve.inletConversion)} x2={sx(s.underCurve.inletConversion)} y1={m.top + innerH} y2={m.top + innerH + 6} stroke={style.stroke} strokeWidth={1.5} />
+                    </g>
+                  ) : null}
                 </g>
               );
             })}
@@ -217,6 +227,11 @@ export function LevenspielChart({ curve, stages, target, equilibrium, height, co
       </figcaption>
     </figure>
   );
+}
+
+/** ", R = 0.43, tube from X 0.61" for a tube with recycle; nothing for other stages. */
+function recycleWords(u: { recycleRatio: number; inletConversion: number } | undefined): string {
+  return u ? `, recycle ratio R = ${formatNumber(u.recycleRatio, 3, TABLE_NUMBERS)}, tube inlet X ${formatNumber(u.inletConversion, 3, TABLE_NUMBERS)}` : "";
 }
 
 /** A vertical line across the plot with its label (target, equilibrium). */

@@ -4,6 +4,7 @@ import { THUMBNAIL_TOP_POINTS } from "@/lib/charts/thumbnail-plots";
 import { stageStyle } from "@/lib/charts/stage-styles";
 import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/volume-units";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import { stageTypeName } from "@/lib/stage-types";
 import type { StagePlot } from "@/lib/engine";
 import { chartInputs } from "./candidate-chart-data";
 import { StagePattern } from "./stage-patterns";
@@ -41,9 +42,13 @@ export const LevenspielThumbnail = memo(function LevenspielThumbnail({ stages, l
     const show = (m3: number) => formatNumber(fromCubicMetres(m3, unit), 3, TABLE_NUMBERS);
     const label = geo.stages.length
       ? `Levenspiel chart, ${geo.stages.length} stage${geo.stages.length === 1 ? "" : "s"}: ` +
-        geo.stages.map((s) => `stage ${s.index + 1} ${s.type} from X ${formatNumber(s.conversionIn, 3, TABLE_NUMBERS)} to ${formatNumber(s.conversionOut, 3, TABLE_NUMBERS)}, ${show(s.volume)} ${VOLUME_LABEL[unit]}`).join("; ")
+        geo.stages.map((s) => `stage ${s.index + 1} ${stageTypeName(s.type)}${s.underCurve ? ` (recycle ratio R = ${formatNumber(s.underCurve.recycleRatio, 3, TABLE_NUMBERS)})` : ""} from X ${formatNumber(s.conversionIn, 3, TABLE_NUMBERS)} to ${formatNumber(s.conversionOut, 3, TABLE_NUMBERS)}, ${show(s.volume)} ${VOLUME_LABEL[unit]}`).join("; ")
       : "Levenspiel curve, no stages";
-    return { label, areas: geo.stages.map((s) => ({ index: s.index, d: path(s.polygon) + "Z" })), curve: geo.curve.length > 1 ? path(geo.curve) : null };
+    return {
+      label,
+      areas: geo.stages.map((s) => ({ index: s.index, d: path(s.polygon) + "Z", under: s.underCurve ? path(s.underCurve.polygon) + "Z" : null })),
+      curve: geo.curve.length > 1 ? path(geo.curve) : null,
+    };
   }, [stages, levenspiel, target, yMax, unit]);
   return (
     <div className="w-28" data-testid="thumbnail">
@@ -57,6 +62,7 @@ export const LevenspielThumbnail = memo(function LevenspielThumbnail({ stages, l
         {drawing.areas.map((a) => (
           <path key={a.index} d={a.d} fill={`url(#${uid}-p${a.index})`} stroke={stageStyle(a.index).stroke} strokeWidth={1} />
         ))}
+        {drawing.areas.map((a) => (a.under ? <path key={`u${a.index}`} d={a.under} fill={stageStyle(a.index).stroke} fillOpacity={0.2} stroke={stageStyle(a.index).stroke} strokeWidth={0.75} strokeDasharray="2 1.5" /> : null))}
         {drawing.curve ? <path d={drawing.curve} fill="none" stroke="#1c2430" strokeWidth={1} /> : null}
       </svg>
     </div>

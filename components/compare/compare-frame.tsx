@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { UnitSelect } from "@/components/sweeps/unit-select";
 import type { VolumeUnit } from "@/lib/charts/volume-units";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
 import { describeOverrides } from "@/components/sweeps/scenario-picker";
 import { StageBadges } from "@/components/sweeps/stage-badges";
 
@@ -66,7 +66,7 @@ export function DifferencesTable({ list, children }: { list: Compared[]; childre
 }
 
 /** The head of one train's card: its letter, rank and stages, and the sweep and scenario it came from. */
-export function CompareCardHeading({ c, index, unit }: { c: Compared & { sequence: StageType[]; scenario: { index: number; overrides: Record<string, number> } }; index: number; unit: VolumeUnit }) {
+export function CompareCardHeading({ c, index, unit }: { c: Compared & { sequence: TrainStageType[]; scenario: { index: number; overrides: Record<string, number> } }; index: number; unit: VolumeUnit }) {
   return (
     <div className="border-b border-line px-3 py-2">
       <h2 id={`cmp-${c.id}`} className="flex flex-wrap items-center gap-2">

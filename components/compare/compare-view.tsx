@@ -5,6 +5,7 @@ import { useMemo } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { StageTable } from "@/components/candidates/stage-table";
 import { Cautions } from "@/components/cautions/cautions";
+import { stageTypeCautions } from "@/lib/stage-types";
 import { LevenspielChart } from "@/components/charts/levenspiel-chart";
 import { chartInputs } from "@/components/charts/candidate-chart-data";
 import { StageBadges } from "@/components/sweeps/stage-badges";
@@ -99,7 +100,7 @@ export function CompareView() {
           </section>
         ))}
       </div>
-      <Cautions compact />
+      <Cautions compact more={stageTypeCautions(list.flatMap((c) => c.sequence))} />
     </div>
   );
 }

@@ -12,7 +12,7 @@ import { reviewSchema } from "@/lib/schemas/sweeps";
 import { formatDateTime } from "@/lib/format/dates";
 import { PinSize } from "./pin-size";
 import type { PinnedDesign } from "@/db/schema";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
 
 export interface PinRow {
   id: string;
@@ -25,7 +25,7 @@ export interface PinRow {
   reviewedAt: string | null;
   kinetics: { label: string; href: string | null };
   sweep: { id: string; name: string } | null;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   totalVolume: number | null;
   totalCost: number | null;
   stageTemperatures: number[];

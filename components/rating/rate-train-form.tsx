@@ -8,13 +8,22 @@ import { UnitOptions } from "@/components/ui/unit-options";
 import { ApiError, fetchJson } from "@/lib/client/fetch-json";
 import { toSI, type UnitKind } from "@/lib/units/display";
 import { RatingResultView } from "./rating-result";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
+import { STAGE_TYPE_NAME, TRAIN_STAGE_TYPES } from "@/lib/stage-types";
 import type { InventoryList, RatingAnswer } from "@/lib/services/views";
 
-type StageRow = { key: number; source: "new" | "inventory"; type: StageType; volume: string; unit: string; vesselId: string };
+/** `recycleRatio`: the recycle ratio typed for a tube with recycle (sent for that type only). */
+type StageRow = { key: number; source: "new" | "inventory"; type: TrainStageType; volume: string; unit: string; vesselId: string; recycleRatio: string };
 
 let next = 1;
-const newRow = (type: StageType = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "" });
+const newRow = (type: TrainStageType = "CSTR"): StageRow => ({ key: next++, source: "new", type, volume: "", unit: "m3", vesselId: "", recycleRatio: "" });
+
+/** The recycle ratio as sent: a number when it reads as one, else the text as typed (the server names what is wrong), nothing when blank. */
+function recycleRatioOf(r: StageRow): { recycleRatio?: number | string } {
+  if (r.type !== "PFR-recycle" || r.recycleRatio.trim() === "") return {};
+  const n = Number(r.recycleRatio);
+  return { recycleRatio: Number.isFinite(n) ? n : r.recycleRatio };
+}
 
 /**
  * Largest vessel the engine rates, m3 (its MAX_RATED_VESSEL; components may not import engine values).
@@ -41,7 +50,7 @@ export function RateTrainForm({ projectId, versions }: { projectId: string; vers
     const stages = rows.map((r) => {
       if (r.source === "inventory") return { inventoryVesselId: r.vesselId };
       const n = Number(r.volume);
-      return { type: r.type, volume: r.volume.trim() !== "" && Number.isFinite(n) ? toSI("volume", n, r.unit) : r.volume };
+      return { type: r.type, volume: r.volume.trim() !== "" && Number.isFinite(n) ? toSI("volume", n, r.unit) : r.volume, ...recycleRatioOf(r) };
     });
     const tooLarge = stages.flatMap((s, i) => ("volume" in s && typeof s.volume === "number" && s.volume > MAX_VESSEL_M3 ? [i] : []));
     if (tooLarge.length) {
@@ -117,10 +126,21 @@ export function RateTrainForm({ projectId, versions }: { projectId: string; vers
                       Type
                     </label>
                     <select id={`r-type-${r.key}`} className="input w-auto" value={r.type} onChange={(e) => update(r.key, { type: e.target.value as StageRow["type"] })}>
-                      <option value="CSTR">CSTR</option>
-                      <option value="PFR">PFR</option>
+                      {TRAIN_STAGE_TYPES.map((t) => (
+                        <option key={t} value={t}>
+                          {STAGE_TYPE_NAME[t]}
+                        </option>
+                      ))}
                     </select>
                   </div>
+                  {r.type === "PFR-recycle" ? (
+                    <div>
+                      <label htmlFor={`r-recycle-${r.key}`} className="field-label">
+                        Recycle ratio R
+                      </label>
+                      <input id={`r-recycle-${r.key}`} className="input num w-24" inputMode="decimal" value={r.recycleRatio} onChange={(e) => update(r.key, { recycleRatio: e.target.value })} aria-invalid={!!errors[`stages.${i}.recycleRatio`]} />
+                    </div>
+                  ) : null}
                   <div>
                     <label htmlFor={`r-volume-${r.key}`} className="field-label">
                       Volume
@@ -154,7 +174,7 @@ export function RateTrainForm({ projectId, versions }: { projectId: string; vers
               <button type="button" className="btn-quiet" onClick={() => setRows((rs) => rs.filter((x) => x.key !== r.key))} disabled={rows.length === 1} aria-label={`Remove stage ${i + 1}`}>
                 Remove
               </button>
-              <div className="w-full">{err(`stages.${i}.volume`) ?? err(`stages.${i}.inventoryVesselId`) ?? err(`stages.${i}`)}</div>
+              <div className="w-full">{err(`stages.${i}.volume`) ?? err(`stages.${i}.recycleRatio`) ?? err(`stages.${i}.inventoryVesselId`) ?? err(`stages.${i}`)}</div>
             </div>
           ))}
           {err("stages")}

@@ -5,10 +5,12 @@ import { useDisplayUnits } from "@/components/layout/display-units-context";
 import { formatQuantity, fromSI, toSI, unitLabel, type UnitKind } from "@/lib/units/display";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
 import type { RatingAnswer } from "@/lib/services/views";
+import { stageTypeCautions, stageTypeName } from "@/lib/stage-types";
 
 /** What a fixed train reaches, stage by stage, and the largest feed that still meets the target. */
 export function RatingResultView({ result: r, typedUnits }: { result: RatingAnswer; typedUnits?: Partial<Record<UnitKind, string>> }) {
   const multiple = r.stages.filter((s) => s.multiple);
+  const anyRecycle = r.stages.some((s) => s.type === "PFR-recycle");
   // The engine answers in SI; the screen speaks the user's display-unit choice ("as typed" by default).
   const u = useDisplayUnits(Math.max(0, ...r.stages.map((s) => s.volume)) || null, typedUnits);
   const t = (k: number) => formatNumber(fromSI("temperature", k, u.temperature), 5, TABLE_NUMBERS);
@@ -50,6 +52,7 @@ export function RatingResultView({ result: r, typedUnits }: { result: RatingAnsw
               <tr>
                 <th scope="col">Stage</th>
                 <th scope="col">Volume, {unitLabel("volume", u.volume)}</th>
+                {anyRecycle ? <th scope="col">Recycle ratio R</th> : null}
                 <th scope="col">X in → out</th>
                 <th scope="col">T in → out, {unitLabel("temperature", u.temperature)}</th>
                 <th scope="col">Steady states</th>
@@ -59,10 +62,11 @@ export function RatingResultView({ result: r, typedUnits }: { result: RatingAnsw
               {r.stages.map((s, i) => (
                 <tr key={i}>
                   <td className="whitespace-nowrap">
-                    <span className="num">{i + 1}</span> {s.type}
+                    <span className="num">{i + 1}</span> {stageTypeName(s.type)}
                     {s.tag ? <span className="text-ink-soft"> ({s.tag})</span> : null}
                   </td>
                   <td className="num">{formatNumber(fromSI("volume", s.volume, u.volume), 4, TABLE_NUMBERS)}</td>
+                  {anyRecycle ? <td className="num">{s.type === "PFR-recycle" ? formatNumber(s.recycleRatio ?? null, 4, TABLE_NUMBERS) : "—"}</td> : null}
                   <td className="num whitespace-nowrap">
                     {formatNumber(s.conversionIn, 4, TABLE_NUMBERS)} → {formatNumber(s.conversionOut, 4, TABLE_NUMBERS)}
                   </td>
@@ -76,7 +80,7 @@ export function RatingResultView({ result: r, typedUnits }: { result: RatingAnsw
           </table>
         </div>
       </section>
-      <Cautions warnings={multiple.length ? [r.cautions[0]] : []} />
+      <Cautions warnings={multiple.length ? [r.cautions[0]] : []} more={stageTypeCautions(r.stages.map((s) => s.type))} />
     </div>
   );
 }

@@ -8,7 +8,8 @@ import type { StoredStage } from "@/lib/sweeps/stored-json";
 import type { DesignReport } from "@/lib/reports/design-report";
 import type { DisplayPreference } from "@/lib/units/display-preference";
 import { inputLines } from "@/lib/reports/input-lines";
-import { fmtConversion, fmtMoney, fmtVolume, reportUnits, stageColumns } from "@/lib/reports/report-format";
+import { fmtConversion, fmtMoney, fmtVolume, hasRecycle, reportUnits, stageColumns } from "@/lib/reports/report-format";
+import { stageTypeCautions } from "@/lib/stage-types";
 import { formatDateTime } from "@/lib/format/dates";
 import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
 
@@ -19,7 +20,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
   const cs = r.costs.settings;
   const currency = cs.recorded ? cs.currency : null;
   const units = reportUnits(r, preference);
-  const STAGE_COLUMNS = stageColumns(units);
+  const STAGE_COLUMNS = stageColumns(units, hasRecycle(r.stages));
   return (
     <article id="design-report" className="space-y-4" data-testid="design-report">
       <header className="space-y-1">
@@ -36,7 +37,7 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
         />
       </header>
 
-      <Cautions warnings={r.cautions.warnings} />
+      <Cautions warnings={r.cautions.warnings} more={stageTypeCautions(r.train.sequence)} />
 
       {r.network ? (
         <NetworkReportView network={r.network} trainLabel={r.train.label} units={units} />

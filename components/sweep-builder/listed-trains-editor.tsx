@@ -2,12 +2,13 @@
 
 import { useFieldArray, useFormContext, useWatch } from "react-hook-form";
 import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
+import { sequenceKey, STAGE_TYPE_NAME, STAGE_TYPES } from "@/lib/stage-types";
 import { parseSequence } from "./builder-form-state";
 
 /**
- * The listed trains of a sweep, composed stage by stage: add a CSTR or a PFR, take the last stage
- * back, delete a train. Both sweep forms compose trains this way; each names a train in its own
+ * The listed trains of a sweep, composed stage by stage: add a stage of one of the offered `types`
+ * (CSTR and PFR unless told), take the last stage back, delete a train. Both sweep forms compose trains this way; each names a train in its own
  * word (`noun`), caps its length (`maxStages`) and draws the stages (`badges`).
  */
 export function ListedTrainsEditor({
@@ -15,11 +16,13 @@ export function ListedTrainsEditor({
   noun,
   maxStages,
   badges,
+  types = STAGE_TYPES,
 }: {
   prefix: string;
   noun: "sequence" | "train";
   maxStages: number;
-  badges: (seq: StageType[]) => React.ReactNode;
+  badges: (seq: TrainStageType[]) => React.ReactNode;
+  types?: readonly TrainStageType[];
 }) {
   const { control, formState, setValue } = useFormContext<{ candidates: { seq: string }[] }>();
   const rows = useWatch({ control, name: "candidates" });
@@ -30,19 +33,19 @@ export function ListedTrainsEditor({
     <div className="space-y-2" data-testid="sequence-editor">
       {candidates.fields.map((f, i) => {
         const seq = parseSequence(rows?.[i]?.seq ?? "");
-        const set = (next: string[]) => setValue(`candidates.${i}.seq`, next.join("-"), { shouldValidate: true });
+        // Kept as its sequence key, so a tube with recycle ("PFR-recycle") reads back as one stage.
+        const set = (next: TrainStageType[]) => setValue(`candidates.${i}.seq`, sequenceKey(next), { shouldValidate: true });
         return (
           <div key={f.id} className="rounded border border-line p-2">
             <div className="flex flex-wrap items-center gap-1.5" aria-label={`${Noun} ${i + 1}`} role="group">
               <span className="mr-1 text-xs text-ink-soft">#{i + 1}</span>
               {seq.length ? badges(seq) : <span className="text-xs text-ink-soft">empty</span>}
               <span className="ml-auto flex gap-1">
-                <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "CSTR"])} disabled={seq.length >= maxStages} aria-label={`Add a CSTR to ${noun} ${i + 1}`}>
-                  + CSTR
-                </button>
-                <button type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, "PFR"])} disabled={seq.length >= maxStages} aria-label={`Add a PFR to ${noun} ${i + 1}`}>
-                  + PFR
-                </button>
+                {types.map((t) => (
+                  <button key={t} type="button" className="btn-quiet py-0.5" onClick={() => set([...seq, t])} disabled={seq.length >= maxStages} aria-label={`Add a ${STAGE_TYPE_NAME[t].replace(/^Tube/, "tube")} to ${noun} ${i + 1}`}>
+                    + {STAGE_TYPE_NAME[t]}
+                  </button>
+                ))}
                 <button type="button" className="btn-quiet py-0.5" onClick={() => set(seq.slice(0, -1))} disabled={!seq.length} aria-label={`Remove the last stage of ${noun} ${i + 1}`}>
                   ⌫
                 </button>

@@ -164,7 +164,8 @@ export function networkBuilderToRequest(v: NetworkBuilderValues, version: Networ
     if (!types.length) issues.push({ path: "useCSTR", message: "Allow at least one stage type" });
     if (ok) train = { maxStages: n, types: [...types] };
   } else {
-    const candidates = v.candidates.map((c) => parseSequence(c.seq));
+    // A network's trains are of stirred tanks and tubes only (its editor offers no tube with recycle).
+    const candidates = v.candidates.map((c) => parseSequence(c.seq).filter((t): t is StageType => t !== "PFR-recycle"));
     const seen = new Map<string, number>();
     candidates.forEach((c, i) => {
       if (!c.length) issues.push({ path: `candidates.${i}.seq`, message: "Add at least one stage" });

@@ -9,7 +9,9 @@ import { ErrorText, messageAt } from "@/components/kinetics/quantity-field";
 import { SWEEP_OPTION_OFF, SweepRobustnessOption, sweepOptionValue } from "@/components/robustness/sweep-option";
 import { ChoiceCards } from "@/components/forms/choice-cards";
 import type { UnitKind } from "@/lib/units/display";
-import { STAGE_TYPES } from "@/lib/stage-types";
+import { STAGE_TYPE_NAME, STAGE_TYPE_SHORT, STAGE_TYPES, TRAIN_STAGE_TYPES } from "@/lib/stage-types";
+import type { TrainStageType } from "@/lib/engine";
+import { RecycleRatioField } from "./recycle-ratio-field";
 import { CostBasisOptions } from "./cost-basis-options";
 import { DecimalField } from "./decimal-field";
 import { SweepHead } from "./sweep-head";
@@ -31,11 +33,11 @@ const schema = builderValuesSchema.transform((v, ctx) => {
   return body ?? z.NEVER;
 });
 
-function StageBadge({ type }: { type: string }) {
+function StageBadge({ type }: { type: TrainStageType }) {
   return (
-    <span className={`badge ${type === "CSTR" ? "border-accent-600 bg-accent-50 text-accent-800" : "border-ink-soft bg-white text-ink"}`}>
-      {type === "CSTR" ? "▣ " : "▭ "}
-      {type}
+    <span className={`badge ${type === "CSTR" ? "border-accent-600 bg-accent-50 text-accent-800" : "border-ink-soft bg-white text-ink"}`} title={STAGE_TYPE_NAME[type]}>
+      {type === "CSTR" ? "▣ " : type === "PFR" ? "▭ " : "↻ "}
+      {STAGE_TYPE_SHORT[type]}
     </span>
   );
 }
@@ -109,14 +111,18 @@ export function SweepBuilder({
                     <label className="flex items-center gap-1.5">
                       <input type="checkbox" {...register("usePFR")} /> PFR
                     </label>
+                    <label className="flex items-center gap-1.5">
+                      <input type="checkbox" {...register("usePFRrecycle")} /> {STAGE_TYPE_NAME["PFR-recycle"]}
+                    </label>
                   </div>
                   <ErrorText id="s-useCSTR" message={err("useCSTR")} />
                 </fieldset>
               </div>
             ) : null}
             {v.trainMode === "candidates" ? (
-              <ListedTrainsEditor prefix="s" noun="sequence" maxStages={8} badges={(seq) => seq.map((t, j) => <StageBadge key={j} type={t} />)} />
+              <ListedTrainsEditor prefix="s" noun="sequence" maxStages={8} types={TRAIN_STAGE_TYPES} badges={(seq) => seq.map((t, j) => <StageBadge key={j} type={t} />)} />
             ) : null}
+            {(v.trainMode === "range" && v.usePFRrecycle) || (v.trainMode === "candidates" && v.candidates?.some((c) => c.seq?.includes("PFRrecycle"))) ? <RecycleRatioField mode={v.recycleMode ?? "optimised"} /> : null}
             {v.trainMode === "multiset" ? (
               <div className="flex flex-wrap gap-4">
                 {num("multisetCSTR", "CSTRs")}
@@ -126,6 +132,7 @@ export function SweepBuilder({
             <label className="flex items-center gap-2 text-sm">
               <input type="checkbox" {...register("equalVolume")} /> All stages of a train the same volume
             </label>
+            <ErrorText id="s-equalVolume" message={err("equalVolume")} />
             <ErrorText id="s-trainMode" message={err("trainMode")} />
           </fieldset>
 

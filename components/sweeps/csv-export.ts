@@ -4,6 +4,7 @@ import { fromCubicMetres, VOLUME_LABEL, type VolumeUnit } from "@/lib/charts/vol
 import { describeOverrides } from "./scenario-picker";
 import type { CandidatePage } from "@/lib/services/views";
 import { candidateQuery, type SweepViewState } from "./view-state";
+import { RECYCLE_CAUTION } from "@/lib/stage-types";
 
 const EXPORT_PAGE = 500;
 
@@ -29,10 +30,13 @@ export async function exportCandidatesCsv(
   const shown = opts.shownUnit && opts.shownUnit !== "m3" ? opts.shownUnit : null;
   const u = shown ? VOLUME_LABEL[shown] : "";
   let overrides = "";
+  let anyRecycle = false;
   for (let page = 1; ; page++) {
     const res = await fetchJson<CandidatePage>(`/api/sweeps/${sweepId}/scenarios/${view.scenario}/candidates?${candidateQuery(view, { page, pageSize: EXPORT_PAGE })}`);
     overrides = describeOverrides(res.scenario.overrides);
     for (const c of res.items) {
+      const recycle = c.sequence.includes("PFR-recycle");
+      anyRecycle ||= recycle;
       rows.push({
         rank: c.rank,
         sequence: c.sequence.join("-"),
@@ -49,6 +53,8 @@ export async function exportCandidatesCsv(
         "stage volumes (m³)": c.stages.map((s) => csvNumber(s.volume)).join(" | "),
         ...(shown ? { [`stage volumes (${u})`]: c.stages.map((s) => csvNumber(fromCubicMetres(s.volume, shown))).join(" | ") } : {}),
         "stage outlet conversions": c.stages.map((s) => csvNumber(s.conversionOut)).join(" | "),
+        // Blank for a stage that is not a tube with recycle; the column is dropped below when no train has one.
+        "stage recycle ratios": c.stages.map((s) => (s.type === "PFR-recycle" ? csvNumber((s as { recycleRatio?: number }).recycleRatio) : "")).join(" | "),
         reason: c.reason ?? "",
       });
     }
@@ -57,7 +63,9 @@ export async function exportCandidatesCsv(
   }
   // papaparse loads only when someone exports, not with the page.
   const { unparse } = await import("papaparse");
-  const preface = `# scenario ${view.scenario + 1}: ${commentText(overrides)}; preliminary sizing from ideal-reactor models, check under local codes; numbers to ${CSV_DIGITS} significant digits\n`;
+  if (!anyRecycle) for (const r of rows) delete r["stage recycle ratios"];
+  const recycleCaution = anyRecycle ? `; ${RECYCLE_CAUTION}` : "";
+  const preface = `# scenario ${view.scenario + 1}: ${commentText(overrides)}; preliminary sizing from ideal-reactor models, check under local codes${commentText(recycleCaution)}; numbers to ${CSV_DIGITS} significant digits\n`;
   return preface + unparse(rows, SAFE_UNPARSE);
 }
 

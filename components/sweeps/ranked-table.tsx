@@ -13,6 +13,7 @@ import type { CandidateRow } from "@/lib/services/views";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
 import type { OptionalColumn, SweepViewState } from "./view-state";
 import { formatNumber, TABLE_NUMBERS } from "@/lib/format/numbers";
+import { stageTypeShort } from "@/lib/stage-types";
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature });
 const helper = createColumnHelper<typeof features, CandidateRow>();
@@ -85,7 +86,7 @@ function SelectBox({ c }: { c: CandidateRow }) {
     <input
       type="checkbox"
       className="size-4 accent-accent-600"
-      aria-label={`Select rank ${c.rank} (${c.sequence.join("-")}) to compare`}
+      aria-label={`Select rank ${c.rank} (${c.sequence.map(stageTypeShort).join("-")}) to compare`}
       checked={checked}
       disabled={!checked && (selected.length >= 4 || !c.feasible)}
       onChange={() => onToggle(c.id)}
@@ -107,12 +108,27 @@ function SequenceCell({ c }: { c: CandidateRow }) {
       <Link href={href} prefetch={false} onMouseEnter={() => router.prefetch(href)} onFocus={() => router.prefetch(href)} className="rounded hover:underline" data-testid="candidate-link">
         <StageBadges sequence={c.sequence} />
       </Link>
+      <RecycleRatios stages={c.stages} />
       {c.emptyStages ? (
         <span className="ml-2 text-xs text-ink-soft" data-testid="empty-stages" title="A stage with no conversion in it: the train is a shorter one plus a vessel that does nothing, so it ranks after every train without one.">
           {c.emptyStages === 1 ? "1 empty stage" : `${c.emptyStages} empty stages`}
         </span>
       ) : null}
     </>
+  );
+}
+
+/**
+ * "R = 0.43" after a train's badges, one ratio per tube with recycle in stage order ("R = 1000; 0"); nothing
+ * without one. No thousands commas: a comma would read as the separator between two ratios.
+ */
+function RecycleRatios({ stages }: { stages: readonly { type: string; recycleRatio?: number }[] }) {
+  const ratios = stages.filter((s) => s.type === "PFR-recycle").map((s) => formatNumber(s.recycleRatio ?? null, 3));
+  if (!ratios.length) return null;
+  return (
+    <span className="block whitespace-nowrap text-xs text-ink-soft num" data-testid="recycle-ratios" title="Recycle ratio of each tube with recycle: recycled flow over the flow leaving the stage">
+      R = {ratios.join("; ")}
+    </span>
   );
 }
 

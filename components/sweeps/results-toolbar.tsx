@@ -5,9 +5,14 @@ import { COLUMN_TITLES } from "./ranked-table";
 import { UnitSelect } from "./unit-select";
 import { candidateExportHref } from "@/components/reports/export-links";
 import { downloadText, exportCandidatesCsv } from "./csv-export";
+import { keyOfWrittenSequence, sequenceFromKey, stageTypeShort } from "@/lib/stage-types";
 import { PAGE_SIZES, SINGLE_COLUMNS, type OptionalColumn, type SweepViewState } from "./view-state";
 
 const CONTAINS = ["", "CSTR", "PFR", "CSTR-PFR", "PFR-CSTR", "CSTR-CSTR", "PFR-PFR"];
+/** Runs with a tube with recycle, offered when the sweep's trains can hold one (written as the sweep file writes types). */
+const CONTAINS_RECYCLE = ["PFR-recycle", "CSTR-PFR-recycle", "PFR-recycle-CSTR", "PFR-recycle-PFR"];
+/** "CSTR-PFR-recycle" → "CSTR › PFR+R", the badges' short labels. */
+const containsLabel = (c: string) => (c ? sequenceFromKey(keyOfWrittenSequence(c)).map(stageTypeShort).join(" › ") : "any");
 
 /** Filters, units, columns, page size and CSV export of the ranked table; all kept in the URL. */
 export function ResultsToolbar({
@@ -15,12 +20,15 @@ export function ResultsToolbar({
   view,
   setView,
   columns = SINGLE_COLUMNS,
+  withRecycle = false,
 }: {
   sweepId: string;
   view: SweepViewState;
   setView: (p: Partial<SweepViewState>) => void;
   /** The optional columns this sweep's table has. */
   columns?: readonly OptionalColumn[];
+  /** Whether a train of this sweep can hold a tube with recycle (its filter then offers runs with one). */
+  withRecycle?: boolean;
 }) {
   const [exporting, setExporting] = useState<string | null>(null);
   const [exportError, setExportError] = useState<string | null>(null);
@@ -53,9 +61,9 @@ export function ResultsToolbar({
           Contains the sequence
         </label>
         <select id="f-contains" className="input w-36" value={view.contains} onChange={(e) => setView({ contains: e.target.value })}>
-          {CONTAINS.map((c) => (
+          {(withRecycle ? [...CONTAINS, ...CONTAINS_RECYCLE] : CONTAINS).map((c) => (
             <option key={c} value={c}>
-              {c ? c.replace(/-/g, " › ") : "any"}
+              {containsLabel(c)}
             </option>
           ))}
         </select>

@@ -24,6 +24,8 @@ import { objectiveLabel, percent } from "@/components/candidates/network-results
 import { useNetworkUnits } from "@/components/candidates/network-units";
 import type { RankedBy } from "./scenario-picker";
 import type { SortKey } from "@/lib/sweeps/sort-keys";
+import { trainsWithRecycle } from "./sweep-train-types";
+import { stageTypeCautions } from "@/lib/stage-types";
 
 const ACTIVE = new Set(["queued", "running"]);
 
@@ -250,7 +252,7 @@ export function SweepView({
               {scenarios.length > 1 ? (
                 <ScenarioPicker scenarios={scenarios} value={view.scenario} onChange={selectScenario} objective={objective} unit={view.unit} />
               ) : null}
-              <ResultsToolbar sweepId={sweepId} view={view} setView={changeView} {...(network ? { columns: NETWORK_COLUMNS } : {})} />
+              <ResultsToolbar sweepId={sweepId} view={view} setView={changeView} withRecycle={trainsWithRecycle(singleSpec)} {...(network ? { columns: NETWORK_COLUMNS } : {})} />
             </div>
             {candidatesQ.isPending ? (
               <LoadingPanel label="Loading the ranked trains…" bare />
@@ -299,7 +301,7 @@ export function SweepView({
           </section>
         </>
       )}
-      <Cautions warnings={warnings} compact />
+      <Cautions warnings={warnings} compact more={trainsWithRecycle(singleSpec) ? stageTypeCautions(["PFR-recycle"]) : []} />
     </div>
   );
 }

@@ -5,6 +5,7 @@
  */
 import { isVolumeUnit, type VolumeUnit } from "@/lib/charts/volume-units";
 import { SORT_KEYS, type SortKey } from "@/lib/sweeps/sort-keys";
+import { WRITTEN_SEQUENCE } from "@/lib/stage-types";
 import type { CandidatePage, ScenarioRow, SweepView } from "@/lib/services/views";
 
 export const PAGE_SIZES = [25, 50, 100] as const;
@@ -45,7 +46,7 @@ export function parseViewState(q: URLSearchParams): SweepViewState {
     sort: (SORT_KEYS as readonly string[]).includes(sort ?? "") ? (sort as SortKey) : "rank",
     dir: q.get("dir") === "desc" ? "desc" : "asc",
     feasible: q.get("feasible") === "1",
-    contains: /^(CSTR|PFR)(-(CSTR|PFR))*$/.test(contains) ? contains : "",
+    contains: WRITTEN_SEQUENCE.test(contains) ? contains : "",
     stages: stages >= 1 && stages <= 8 ? stages : null,
     page: intOr(q.get("page"), 1, 1),
     pageSize: (PAGE_SIZES as readonly number[]).includes(size) ? size : 25,

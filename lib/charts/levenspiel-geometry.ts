@@ -1,7 +1,9 @@
 /**
  * Geometry of a Levenspiel area chart: FA0/(-rA) against conversion X, each CSTR the rectangle of
  * height FA0/(-rA) at its outlet over its conversion span, each PFR the area under the curve over
- * its span. Pure: numbers in m3 in, polygons in m3 out; the chart scales them to the display unit.
+ * its span, each tube with recycle the rectangle over its span at the mean height of the curve over
+ * its tube (from the mixed inlet X_1 to the outlet), drawn with that area under the curve.
+ * Pure: numbers in m3 in, polygons in m3 out; the chart scales them to the display unit.
  */
 import type { PlotPoint, StageResult } from "@/lib/engine";
 
@@ -10,9 +12,30 @@ export type Point = PlotPoint;
 /** What the chart needs of a designed stage (volume in m3). */
 export type ChartStageBasis = Pick<StageResult, "type" | "conversionIn" | "conversionOut" | "volume">;
 
+/** A tube with recycle's plot data as the engine gives it (StagePlot.recycle). */
+export interface ChartRecycle {
+  recycleRatio: number;
+  /** X_1, the conversion at the tube's inlet after the recycle is mixed in. */
+  inletConversion: number;
+  /** The engine's outline of the area under the curve from X_1 to the outlet (optional). */
+  underCurve?: Point[];
+}
+
 export interface ChartStage extends ChartStageBasis {
   /** The engine's outline of the stage (optional); a PFR's top then follows its own temperature path. */
   area?: Point[];
+  /** A tube with recycle only. */
+  recycle?: ChartRecycle;
+}
+
+/** A tube with recycle's area under the curve over its tube, [X_1, X_out]: (R + 1) times it is the stage volume. */
+export interface UnderCurve {
+  recycleRatio: number;
+  inletConversion: number;
+  /** Closed outline, counter-clockwise from (X_1, 0). */
+  polygon: Point[];
+  /** Shoelace area of the outline, m3: the stage volume / (R + 1). */
+  area: number;
 }
 
 export interface StagePolygon extends ChartStageBasis {
@@ -28,6 +51,8 @@ export interface StagePolygon extends ChartStageBasis {
   heightScale: number;
   /** Height of the top at the outlet, m3 (a CSTR's rectangle height). */
   outletHeight: number;
+  /** A tube with recycle only: the area under the curve its tube integrates. */
+  underCurve?: UnderCurve;
 }
 
 export interface ChartGeometry {
@@ -120,11 +145,13 @@ export function smoothCurve(curve: Point[]): (x: number) => number {
 /** Points of a PFR's top per stage: enough for the outline to follow the curve closely. */
 const PFR_TOP_POINTS = 200;
 
-/** The top of a PFR over [a, b]: the stage's own outline when given, else the curve, sampled densely. */
-function pfrTop(stage: ChartStage, curve: Point[], points: number): Point[] {
-  const a = stage.conversionIn;
+/**
+ * The top of a PFR over [a, b]: the stage's own outline when given, else the curve, sampled densely.
+ * `own` overrides the stage's outline (a tube with recycle's area under the curve).
+ */
+function pfrTop(stage: ChartStage, curve: Point[], points: number, a = stage.conversionIn, ownOutline: Point[] | undefined = stage.area): Point[] {
   const b = stage.conversionOut;
-  const own = stage.area?.filter(([, y]) => y > 0) ?? [];
+  const own = ownOutline?.filter(([, y]) => y > 0) ?? [];
   const f = smoothCurve(own.length >= 2 ? own : curve);
   if (!(b > a)) return [[a, f(a)]];
   return Array.from({ length: points + 1 }, (_, i) => {
@@ -143,7 +170,15 @@ export function stagePolygon(stage: ChartStage, curve: Point[], index = 0, topPo
   const span = b - a;
   let top: Point[];
   let heightScale = 1;
-  if (stage.type === "CSTR") {
+  let underCurve: UnderCurve | undefined;
+  if (stage.type === "PFR-recycle") {
+    // Design equation of the tube with recycle (Levenspiel, ch. 6): V = (X_out - X_in) × the mean of FA0/(-rA)
+    // over [X_1, X_out], so the rectangle over the stage's span at that mean height has the volume as its area,
+    // and the area under the curve over [X_1, X_out] is V / (R + 1).
+    const h = span > 0 ? stage.volume / span : interpolate(curve, b);
+    top = [[a, h], [b, h]];
+    if (stage.recycle) underCurve = recycleUnderCurve(stage, stage.recycle, curve, topPoints);
+  } else if (stage.type === "CSTR") {
     // The rectangle's height is FA0/(-rA) at the outlet; its area over the span is the volume.
     // A stage of zero span (the optimum may leave a stage empty) keeps the curve's height, with zero area.
     const ownH = stage.area?.find(([, y]) => y > 0)?.[1];
@@ -167,7 +202,23 @@ export function stagePolygon(stage: ChartStage, curve: Point[], index = 0, topPo
     area: shoelace(polygon),
     heightScale,
     outletHeight: top[top.length - 1][1],
+    ...(underCurve ? { underCurve } : {}),
   };
+}
+
+/**
+ * The area under the curve over a tube with recycle's tube, [X_1, X_out], its heights scaled (as a PFR's are)
+ * so that its area is the stage volume / (R + 1) exactly.
+ */
+function recycleUnderCurve(stage: ChartStage, recycle: ChartRecycle, curve: Point[], topPoints: number): UnderCurve {
+  const x1 = recycle.inletConversion;
+  const b = stage.conversionOut;
+  const raw = pfrTop(stage, curve, topPoints, x1, recycle.underCurve);
+  const rawArea = shoelace([[x1, 0], [b, 0], ...[...raw].reverse()]);
+  const wanted = stage.volume / (recycle.recycleRatio + 1);
+  const scale = rawArea > 0 ? wanted / rawArea : 1;
+  const polygon: Point[] = [[x1, 0], [b, 0], ...raw.map(([x, y]) => [x, y * scale] as Point).reverse()];
+  return { recycleRatio: recycle.recycleRatio, inletConversion: x1, polygon, area: shoelace(polygon) };
 }
 
 /** Everything the chart draws, in m3, with the axis extents. */
@@ -181,7 +232,7 @@ export function chartGeometry(input: { curve: Point[]; stages: ChartStage[]; tar
   let xMax = Math.min(1, xEnd * 1.05 || 1);
   if (input.equilibrium && input.equilibrium > xEnd && input.equilibrium < 1) xMax = Math.min(1, Math.max(xMax, input.equilibrium * 1.02));
   const visible = curve.filter(([x]) => x <= xMax);
-  const heights = [...visible.map(([, y]) => y), ...stages.flatMap((s) => s.polygon.map(([, y]) => y))];
+  const heights = [...visible.map(([, y]) => y), ...stages.flatMap((s) => [...s.polygon, ...(s.underCurve?.polygon ?? [])].map(([, y]) => y))];
   const yMax = input.yMax && input.yMax > 0 ? input.yMax : niceCeil(Math.max(0, ...heights.filter(Number.isFinite)) * 1.05 || 1);
   return { stages, curve: visible, xMax, yMax };
 }

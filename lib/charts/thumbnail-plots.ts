@@ -20,7 +20,14 @@ function thin(points: readonly Point[], max: number): Point[] {
 export function thumbnailPlot(plot: StagePlot): StagePlot {
   const area = plot.area as Point[];
   const outline = area.length <= THUMBNAIL_POINTS + 2 ? [...area] : [area[0], ...thin(area.slice(1, -1), THUMBNAIL_POINTS), area[area.length - 1]];
-  return { curve: thin(plot.curve as Point[], THUMBNAIL_POINTS), area: outline };
+  const out: StagePlot = { curve: thin(plot.curve as Point[], THUMBNAIL_POINTS), area: outline };
+  // A tube with recycle keeps its ratio, its tube's inlet and its area under the curve, thinned the same way.
+  if (plot.recycle) {
+    const under = plot.recycle.underCurve as Point[];
+    const thinned = under.length <= THUMBNAIL_POINTS + 2 ? [...under] : [under[0], ...thin(under.slice(1, -1), THUMBNAIL_POINTS), under[under.length - 1]];
+    out.recycle = { ...plot.recycle, underCurve: thinned };
+  }
+  return out;
 }
 
 /**
@@ -37,7 +44,10 @@ export function thumbnailYMax(rows: readonly { feasible: boolean; stages: ChartS
     .map((r) => ({
       // As the thumbnail draws it (components/charts/candidate-chart-data.ts): the stages' curves joined, each stage its own outline.
       curve: r.levenspiel!.flatMap((p) => p.curve as Point[]),
-      stages: r.stages.map((s, i) => ({ type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: r.levenspiel![i]?.area as Point[] | undefined })),
+      stages: r.stages.map((s, i) => {
+        const recycle = r.levenspiel![i]?.recycle;
+        return { type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: r.levenspiel![i]?.area as Point[] | undefined, ...(recycle ? { recycle } : {}) };
+      }),
       target,
       topPoints: THUMBNAIL_TOP_POINTS,
     }));

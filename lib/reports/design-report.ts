@@ -10,7 +10,8 @@ import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
 import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display-preference";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
+import { stageTypeCautions, stageTypeName, TRAIN_STAGE_TYPES } from "@/lib/stage-types";
 import { isPinnedNetworkCandidate, type NetworkCurves, type NetworkReport } from "./network-report";
 import { networkDesignReport } from "./network-design-report";
 import { costsSection, kineticsLabel, originSection, pinSection, robustnessSection, sourceSection } from "./report-sections";
@@ -24,7 +25,9 @@ export { STATE_LABEL } from "./design-report-states";
 
 export interface ReportStage {
   index: number;
-  type: StageType;
+  type: TrainStageType;
+  /** A tube with recycle's recycle ratio (recycled flow over the flow leaving the stage); null for other stages. */
+  recycleRatio: number | null;
   conversionIn: number;
   conversionOut: number;
   /** K */
@@ -92,7 +95,7 @@ export interface DesignReport {
       };
   target: { conversion: number | null; conversionReached: number | null };
   objective: WordLine[];
-  train: { sequence: StageType[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
+  train: { sequence: TrainStageType[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
   stages: ReportStage[];
   equilibriumConversion: number | null;
   references: { singleCSTR: number | null; singlePFR: number | null; feedVolumetricFlow: number | null };
@@ -172,7 +175,8 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
     const vessels = obj(s.vessels);
     return {
       index: i + 1,
-      type: s.type === "PFR" ? "PFR" : "CSTR",
+      type: TRAIN_STAGE_TYPES.includes(s.type as TrainStageType) ? (s.type as TrainStageType) : "CSTR",
+      recycleRatio: s.type === "PFR-recycle" ? num(s.recycleRatio) : null,
       conversionIn: num(s.conversionIn) ?? 0,
       conversionOut: num(s.conversionOut) ?? 0,
       temperatureIn: num(s.temperatureIn) ?? NaN,
@@ -184,7 +188,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
       cost: num(s.cost),
     };
   });
-  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as StageType[];
+  const sequence = (Array.isArray(c.sequence) ? c.sequence : stages.map((s) => s.type)) as TrainStageType[];
   const plots = rawStages.map((s) => obj(s.levenspiel));
   const curve = plots.flatMap((p) => (Array.isArray(p.curve) ? (p.curve as Point[]) : []));
   const rate = describeRate(reaction.rate);
@@ -214,7 +218,7 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
     source: sourceSection(input),
     target: { conversion: target, conversionReached: num(c.conversionReached) ?? (stages.length ? stages[stages.length - 1].conversionOut : null) },
     objective: describeObjective(spec),
-    train: { sequence, label: sequence.join(" → "), totalVolume: num(c.totalVolume), totalCost: num(c.totalCost), ratioToPfr: num(c.ratioToPfr) },
+    train: { sequence, label: sequence.map(stageTypeName).join(" → "), totalVolume: num(c.totalVolume), totalCost: num(c.totalCost), ratioToPfr: num(c.ratioToPfr) },
     stages,
     equilibriumConversion: equilibrium,
     references: { singleCSTR: num(reference.singleCSTR), singlePFR: num(reference.singlePFR), feedVolumetricFlow: num(reference.feedVolumetricFlow) },
@@ -224,13 +228,27 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
     assumptions: { note: pin.note, model: [...MODEL_ASSUMPTIONS], spec },
     chart: {
       curve,
-      stages: stages.map((s, i) => ({ type: s.type, conversionIn: s.conversionIn, conversionOut: s.conversionOut, volume: s.volume, area: Array.isArray(plots[i].area) ? (plots[i].area as Point[]) : undefined })),
+      stages: stages.map((s, i) => {
+        const recycle = obj(plots[i].recycle);
+        const x1 = num(recycle.inletConversion);
+        return {
+          type: s.type,
+          conversionIn: s.conversionIn,
+          conversionOut: s.conversionOut,
+          volume: s.volume,
+          area: Array.isArray(plots[i].area) ? (plots[i].area as Point[]) : undefined,
+          // A tube with recycle's tube: from its mixed inlet, with the area under the curve the chart draws.
+          ...(s.type === "PFR-recycle" && s.recycleRatio !== null && x1 !== null
+            ? { recycle: { recycleRatio: s.recycleRatio, inletConversion: x1, underCurve: Array.isArray(recycle.underCurve) ? (recycle.underCurve as Point[]) : undefined } }
+            : {}),
+        };
+      }),
       target,
       equilibrium,
     },
     cautions: {
       warnings: thermalWarnings({ thermal: adiabatic ? (thermal as { mode: string }) : null, stageTemperatures: stages.map((s) => s.temperatureOut).filter(Number.isFinite) }),
-      general: [...CAUTIONS],
+      general: [...CAUTIONS, ...stageTypeCautions(sequence)],
     },
   };
 }

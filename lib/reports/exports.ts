@@ -5,12 +5,13 @@
 import Papa from "papaparse";
 import { commentText, SAFE_UNPARSE } from "@/lib/client/csv-safety";
 import { CAUTIONS } from "@/lib/engine";
+import { stageTypeCautions } from "@/lib/stage-types";
 import type { exportCandidates } from "@/lib/services/candidate-export";
 import { scenarioCandidatesCsv } from "./scenario-candidates-csv";
 import type { DesignReport } from "./design-report";
 import { compositionCsvHeaders } from "./network-format";
 import type { NetworkReport } from "./network-report";
-import { STAGE_COLUMNS, VESSEL_SIZE_COLUMN } from "./report-format";
+import { hasRecycle, stageColumns, STAGE_COLUMNS, VESSEL_SIZE_COLUMN } from "./report-format";
 
 /** A leading "# " line carrying user text, safe to open in a spreadsheet (see commentText). */
 const commentLine = (text: string) => `# ${commentText(text)}`;
@@ -23,15 +24,18 @@ const cell = (v: unknown) => (v === null || v === undefined || (typeof v === "nu
 /** The stage table of a pinned design (for several reactions, its composition table). */
 export function stageTableCsv(report: DesignReport): string {
   if (report.network) return compositionCsv(report, report.network);
+  const columns = hasRecycle(report.stages) ? stageColumns(undefined, true) : STAGE_COLUMNS;
   const rows = report.stages.map((s) => {
     const row: Record<string, unknown> = {};
-    for (const c of STAGE_COLUMNS) row[c.csv] = cell(c.raw(s));
+    for (const c of columns) row[c.csv] = cell(c.raw(s));
     row[VESSEL_SIZE_COLUMN.csv] = cell(VESSEL_SIZE_COLUMN.raw(s));
     return row;
   });
-  const fields = [...STAGE_COLUMNS.map((c) => c.csv), VESSEL_SIZE_COLUMN.csv];
+  const fields = [...columns.map((c) => c.csv), VESSEL_SIZE_COLUMN.csv];
   const title = commentLine(`${report.project.name}: ${report.train.label}, pinned design ${report.pin.id} (${report.pin.state})`);
-  return `${title}\n${PREFACE}\n${Papa.unparse({ fields, data: rows.map((r) => fields.map((f) => r[f])) }, SAFE_UNPARSE)}\n`;
+  // The report's general cautions: the product's, and a tube with recycle's when the train has one.
+  const preface = commentLine(report.cautions.general.join(" "));
+  return `${title}\n${preface}\n${Papa.unparse({ fields, data: rows.map((r) => fields.map((f) => r[f])) }, SAFE_UNPARSE)}\n`;
 }
 
 /**
@@ -75,7 +79,16 @@ export const CANDIDATE_UNITS = {
   ratioToPfr: "-",
   stageVolumes: "m3",
   stageConversionsOut: "-",
+  stageRecycleRatios: "-",
 } as const;
+
+/** Each stage's recycle ratio, null for a stage that is not a tube with recycle. */
+const recycleRatios = (stages: readonly { type: string; recycleRatio?: number }[]) => stages.map((s) => (s.type === "PFR-recycle" ? (s.recycleRatio ?? null) : null));
+
+/** The cautions of a list of trains: the product's, and a tube with recycle's when one of them has one. */
+export function candidateCautions(data: Export): string[] {
+  return [...CAUTIONS, ...stageTypeCautions(data.items.flatMap((c) => c.sequence))];
+}
 
 export function candidateRowsForExport(data: Export) {
   return data.items.map((c) => ({
@@ -91,13 +104,31 @@ export function candidateRowsForExport(data: Export) {
     ratioToPfr: c.ratioToPfr,
     stageVolumes: c.stages.map((s) => Number(s.volume)),
     stageConversionsOut: c.stages.map((s) => Number(s.conversionOut)),
+    stageRecycleRatios: recycleRatios(c.stages),
     reason: c.reason,
   }));
 }
 
 /** Every candidate of a scenario; one row each. */
 export function candidatesCsv(sweepId: string, data: Export): string {
-  const fields = ["rank", "sequence", "stage count", "feasible", "total volume (m3)", "total cost (currency of the cost basis)", "installed cost (currency of the cost basis)", "reused idle vessels", "probability of meeting the target (-)", "ratio to single PFR (-)", "stage volumes (m3)", "stage outlet conversions (-)", "reason"];
+  // The recycle ratios' column only when a train of the list has a tube with recycle (blank for its other stages).
+  const recycle = data.items.some((c) => c.sequence.includes("PFR-recycle"));
+  const fields = [
+    "rank",
+    "sequence",
+    "stage count",
+    "feasible",
+    "total volume (m3)",
+    "total cost (currency of the cost basis)",
+    "installed cost (currency of the cost basis)",
+    "reused idle vessels",
+    "probability of meeting the target (-)",
+    "ratio to single PFR (-)",
+    "stage volumes (m3)",
+    "stage outlet conversions (-)",
+    ...(recycle ? ["stage recycle ratios (-)"] : []),
+    "reason",
+  ];
   const rows = candidateRowsForExport(data).map((c) => [
     c.rank,
     c.sequence,
@@ -111,7 +142,8 @@ export function candidatesCsv(sweepId: string, data: Export): string {
     cell(c.ratioToPfr),
     c.stageVolumes.join(" | "),
     c.stageConversionsOut.join(" | "),
+    ...(recycle ? [c.stageRecycleRatios.map((r) => (r === null ? "" : r)).join(" | ")] : []),
     c.reason ?? "",
   ]);
-  return scenarioCandidatesCsv(sweepId, data, fields, rows);
+  return scenarioCandidatesCsv(sweepId, data, fields, rows, candidateCautions(data));
 }

@@ -7,7 +7,7 @@
 import { fromSI, SI_UNIT, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
 import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
-import { STAGE_TYPES } from "@/lib/stage-types";
+import { STAGE_TYPES, stageTypeName } from "@/lib/stage-types";
 
 export interface WordLine {
   label: string;
@@ -141,10 +141,12 @@ export function describeObjective(spec: unknown): WordLine[] {
   const o = obj(s.objective);
   const train = obj(s.train);
   const lines: WordLine[] = [{ label: "Objective", value: o.minimise === "cost" ? "least vessel cost" : "least total volume" }];
-  if (typeof train.maxStages === "number") lines.push({ label: "Trains searched", value: `up to ${train.maxStages} stages of ${(Array.isArray(train.types) ? train.types : STAGE_TYPES).join(", ")}` });
+  if (typeof train.maxStages === "number") lines.push({ label: "Trains searched", value: `up to ${train.maxStages} stages of ${(Array.isArray(train.types) ? train.types : STAGE_TYPES).map(stageTypeName).join(", ")}` });
   if (Array.isArray(train.candidates)) lines.push({ label: "Trains searched", value: `${train.candidates.length} listed sequences` });
   if (train.multiset) lines.push({ label: "Trains searched", value: `orderings of ${Object.entries(obj(train.multiset)).map(([k, n]) => `${n} × ${k}`).join(" + ")}` });
   if (train.equalVolume) lines.push({ label: "Stage volumes", value: "all equal" });
+  if (train.recycleRatio !== undefined) lines.push({ label: "Recycle ratio", value: `${train.recycleRatio}, fixed for every tube with recycle` });
+  else if (JSON.stringify(train.types ?? train.candidates ?? []).includes("PFR-recycle")) lines.push({ label: "Recycle ratio", value: "chosen for the least volume, for each tube with recycle" });
   if (Array.isArray(o.standardSizes)) lines.push({ label: "Standard sizes", value: o.standardSizes.map((v) => quantity(v, "m³")).join(", ") });
   if (o.maxVesselVolume !== undefined) lines.push({ label: "Largest single vessel", value: quantity(o.maxVesselVolume, "m³") });
   return lines;

@@ -6,6 +6,7 @@ import type { DesignReport, ReportStage } from "./design-report";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import { resolveDisplayUnits, type DisplayPreference, type DisplayUnits } from "@/lib/units/display-preference";
 import { formatNumber, RECORD_NUMBERS } from "@/lib/format/numbers";
+import { stageTypeName } from "@/lib/stage-types";
 
 /** Volume and temperature in the reader's units; without `units`, m³ and K as stored. */
 export const fmtVolume = (m3: number | null | undefined, units?: Pick<DisplayUnits, "volume">) =>
@@ -41,10 +42,26 @@ export interface StageColumn {
   numeric: boolean;
 }
 
-/** The stage table, in order; `units` changes what is shown, never the CSV's SI columns. */
-export const stageColumns = (units?: DisplayUnits): StageColumn[] => [
+/** A tube with recycle's recycle ratio; the column is there only when the train has one. */
+const RECYCLE_COLUMN: StageColumn = {
+  heading: "Recycle ratio",
+  csv: "recycle ratio (-)",
+  raw: (s) => s.recycleRatio,
+  shown: (s) => (s.recycleRatio === null ? "—" : formatNumber(s.recycleRatio, 4, RECORD_NUMBERS)),
+  numeric: true,
+};
+
+/** Whether a report's stages need the recycle ratio column. */
+export const hasRecycle = (stages: readonly Pick<ReportStage, "type">[]) => stages.some((s) => s.type === "PFR-recycle");
+
+/**
+ * The stage table, in order; `units` changes what is shown, never the CSV's SI columns. `recycle` adds the
+ * recycle ratio after the type (trains with a tube with recycle). The CSV keeps the type as a sweep file writes it.
+ */
+export const stageColumns = (units?: DisplayUnits, recycle = false): StageColumn[] => [
   { heading: "Stage", csv: "stage", raw: (s) => s.index, shown: (s) => String(s.index), numeric: true },
-  { heading: "Type", csv: "type", raw: (s) => s.type, shown: (s) => s.type, numeric: false },
+  { heading: "Type", csv: "type", raw: (s) => s.type, shown: (s) => stageTypeName(s.type), numeric: false },
+  ...(recycle ? [RECYCLE_COLUMN] : []),
   { heading: "X in", csv: "conversion in (-)", raw: (s) => s.conversionIn, shown: (s) => fmtConversion(s.conversionIn), numeric: true },
   { heading: "X out", csv: "conversion out (-)", raw: (s) => s.conversionOut, shown: (s) => fmtConversion(s.conversionOut), numeric: true },
   { heading: "T in", csv: "temperature in (K)", raw: (s) => s.temperatureIn, shown: (s) => fmtKelvin(s.temperatureIn, units), numeric: true },

@@ -13,7 +13,8 @@ import { networkBody } from "./network-report-pdf";
 import { robustnessLines } from "./robustness-lines";
 import { axes, ensureSpace, FOOTER, heading, INK, MARGIN, pairs, paragraph, SOFT, stagesTable, table, width, type Doc } from "./pdf-parts";
 import { inputLines } from "./input-lines";
-import { fmtConversion, fmtKelvin, fmtMoney, fmtVolume, stageColumns } from "./report-format";
+import { fmtConversion, fmtKelvin, fmtMoney, fmtVolume, hasRecycle, stageColumns } from "./report-format";
+import { stageTypeShort } from "@/lib/stage-types";
 import { fromSI, unitLabel } from "@/lib/units/display";
 import type { DisplayUnits } from "@/lib/units/display-preference";
 import { formatDateTime } from "@/lib/format/dates";
@@ -118,7 +119,10 @@ function polygonPath(doc: Doc, pts: Point[], sx: (x: number) => number, sy: (y: 
 
 function levenspiel(doc: Doc, r: DesignReport) {
   heading(doc, "Levenspiel plot");
-  paragraph(doc, "FA0/(−rA) against conversion X. Each CSTR is the rectangle at its outlet height, each PFR the area under the curve over its span; each area is the stage volume.", { colour: SOFT, size: 8.5 });
+  const recycleNote = r.chart.stages.some((s) => s.type === "PFR-recycle")
+    ? " Each tube with recycle is the rectangle over its span at the mean height over its tube; the area under the curve from the tube's inlet X1 (outlined dashed) times R + 1 is the same volume."
+    : "";
+  paragraph(doc, `FA0/(−rA) against conversion X. Each CSTR is the rectangle at its outlet height, each PFR the area under the curve over its span; each area is the stage volume.${recycleNote}`, { colour: SOFT, size: 8.5 });
   const geo = chartGeometry({ curve: r.chart.curve, stages: r.chart.stages, target: r.chart.target ?? undefined, equilibrium: r.chart.equilibrium });
   const h = 230;
   ensureSpace(doc, h + 50);
@@ -141,6 +145,12 @@ function levenspiel(doc: Doc, r: DesignReport) {
     doc.restore();
     polygonPath(doc, s.polygon, sx, sy);
     doc.lineWidth(1).strokeColor(style.stroke).strokeOpacity(1).stroke();
+    if (s.underCurve) {
+      polygonPath(doc, s.underCurve.polygon, sx, sy);
+      doc.fillColor(style.stroke).fillOpacity(0.2).fill().fillOpacity(1);
+      polygonPath(doc, s.underCurve.polygon, sx, sy);
+      doc.dash(3, { space: 2 }).lineWidth(1).strokeColor(style.stroke).stroke().undash();
+    }
   }
   if (geo.curve.length > 1) {
     geo.curve.forEach(([x, y], i) => (i ? doc.lineTo(sx(x), sy(y)) : doc.moveTo(sx(x), sy(y))));
@@ -158,9 +168,10 @@ function levenspiel(doc: Doc, r: DesignReport) {
     const cx = sx((s.conversionIn + s.conversionOut) / 2);
     const tops = s.polygon.map(([, y]) => y).filter((y) => y > 0);
     const top = Math.max(box.y + 4, sy(Math.max(...tops, 0)) - 24 - (s.index % 2) * 4);
-    const label = `${s.index + 1} ${s.type}\n${fmtVolume(s.volume)}`;
+    const name = `${s.index + 1} ${stageTypeShort(s.type)}${s.underCurve ? `, R = ${formatNumber(s.underCurve.recycleRatio, 3, RECORD_NUMBERS)}` : ""}`;
+    const label = `${name}\n${fmtVolume(s.volume)}`;
     doc.font("bold").fontSize(7.5);
-    const w = Math.max(doc.widthOfString(`${s.index + 1} ${s.type}`), doc.widthOfString(fmtVolume(s.volume))) + 6;
+    const w = Math.max(doc.widthOfString(name), doc.widthOfString(fmtVolume(s.volume))) + 6;
     doc.rect(cx - w / 2, top - 1, w, 21).fillOpacity(0.85).fill("#ffffff").fillOpacity(1);
     doc.fillColor(INK).text(label, cx - w / 2, top, { width: w, align: "center", lineGap: -1 });
   }
@@ -169,7 +180,8 @@ function levenspiel(doc: Doc, r: DesignReport) {
 }
 
 function stageTable(doc: Doc, r: DesignReport, units?: DisplayUnits) {
-  stagesTable(doc, stageColumns(units), r.stages, [36, 36, 40, 40, 46, 46, 56, 70, 76, 44]);
+  if (hasRecycle(r.stages)) stagesTable(doc, stageColumns(units, true), r.stages, [30, 56, 40, 36, 36, 42, 42, 50, 62, 60, 40]);
+  else stagesTable(doc, stageColumns(units), r.stages, [36, 36, 40, 40, 46, 46, 56, 70, 76, 44]);
 }
 
 function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {

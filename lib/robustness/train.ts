@@ -4,13 +4,16 @@ import { labelFor } from "@/lib/schemas/field-labels";
 import { ROBUSTNESS_FIELD_LABELS, ROBUSTNESS_FIELDS, type RobustnessField, type RobustnessRunResult, type UncertainInput } from "@/lib/schemas/robustness";
 import { rateUnderUncertainty } from "./monte-carlo";
 
-/** A fixed train: a scenario's resolved design spec and the stage types and volumes (m3) of one candidate. */
+/** A fixed train: a scenario's resolved design spec and the stage types and volumes (m3) of one candidate (and each tube with recycle's ratio). */
 export function trainSpec(spec: DesignSpec | Record<string, unknown>, stages: readonly Record<string, unknown>[]): RatingSpec {
   const s = spec as DesignSpec;
   return {
     feed: s.feed,
     reaction: s.reaction,
-    stages: stages.map((st) => ({ type: st.type as StageType, volume: st.volume as number })),
+    // A tube with recycle is rated at the recycle ratio it was designed with.
+    stages: stages.map((st) =>
+      st.type === "PFR-recycle" ? { type: "PFR-recycle" as const, volume: st.volume as number, recycleRatio: st.recycleRatio as number } : { type: st.type as StageType, volume: st.volume as number },
+    ),
   };
 }
 

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { uuidSchema } from "./ids";
 import { text } from "./text";
-import { STAGE_TYPES } from "@/lib/stage-types";
+import { TRAIN_STAGE_TYPES } from "@/lib/stage-types";
 
 const finite = z.number({ error: "Must be a number" }).finite("Must be finite");
 const source = text().trim().min(1, "Say where the number comes from, or write \"from memory\"").max(300, "Use at most 300 characters");
@@ -55,7 +55,17 @@ export const rateRequestSchema = z.strictObject({
     .array(
       z.union(
         [
-          z.strictObject({ type: z.enum(STAGE_TYPES, { error: "Choose CSTR or PFR" }), volume: volumeQuantity }),
+          z
+            .strictObject({
+              type: z.enum(TRAIN_STAGE_TYPES, { error: "Choose CSTR, PFR or tube with recycle" }),
+              volume: volumeQuantity,
+              /** A tube with recycle's recycle ratio R (recycled flow over the flow leaving it); given for that type only. */
+              recycleRatio: finite.min(0, "Give 0 or more, e.g. 0.5 (0 is a plain tube)").optional(),
+            })
+            .superRefine((s, ctx) => {
+              if (s.type === "PFR-recycle" && s.recycleRatio === undefined) ctx.addIssue({ code: "custom", path: ["recycleRatio"], message: "Give the recycle ratio of the tube with recycle, e.g. 0.5" });
+              if (s.type !== "PFR-recycle" && s.recycleRatio !== undefined) ctx.addIssue({ code: "custom", path: ["recycleRatio"], message: "Only a tube with recycle has a recycle ratio" });
+            }),
           z.strictObject({ inventoryVesselId: uuidSchema }),
         ],
         { error: "Give a type and volume, or an inventory vessel" },

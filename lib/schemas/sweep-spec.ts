@@ -54,7 +54,10 @@ const reaction = z.strictObject({
 });
 
 const equalVolume = z.boolean().optional();
-const recycleRatio = dimensionless("Recycle ratio").optional();
+// A ratio below zero has no meaning (R is recycled over leaving flow): refused here, naming the field, before the engine sees it.
+const recycleRatio = dimensionless("Recycle ratio")
+  .refine((r) => r >= 0, { message: "give 0 or more, e.g. 0.5 (0 is a plain tube)" })
+  .optional();
 
 const train = z.union([
   z.strictObject({ maxStages: z.number(), types: z.array(stageType).optional(), equalVolume, recycleRatio }),

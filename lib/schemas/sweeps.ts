@@ -5,6 +5,7 @@ import { sweepCostingSchema } from "./costs";
 import { sweepRobustnessSchema } from "./robustness";
 import { multilineText, text } from "./text";
 import { SORT_KEYS } from "@/lib/sweeps/sort-keys";
+import { WRITTEN_SEQUENCE } from "@/lib/stage-types";
 import { shownUnitsSchema } from "./shown-units";
 import { isNetworkSpec, networkKineticsSpecSchema, networkParts, type NetworkKineticsSpec } from "./network-spec";
 
@@ -107,7 +108,7 @@ export const candidateQuerySchema = z.strictObject({
   feasible: z.enum(["true", "false"]).optional(),
   contains: text()
     .max(100, "Use at most 100 characters")
-    .regex(/^(CSTR|PFR)(-(CSTR|PFR))*$/, "Give stage types joined by '-', e.g. CSTR-PFR")
+    .regex(WRITTEN_SEQUENCE, "Give stage types joined by '-', e.g. CSTR-PFR or CSTR-PFR-recycle")
     .optional(),
   stages: z.coerce.number().int().min(1).max(8).optional(),
   page: z.coerce.number().int().min(1).default(1),

@@ -4,7 +4,7 @@ import type { Database } from "@/db/client";
 import { candidates, scenarios, sweeps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { notFound } from "@/lib/errors";
-import type { StagePlot, StageType } from "@/lib/engine";
+import type { StagePlot } from "@/lib/engine";
 import { keyOfWrittenSequence, sequenceFromKey } from "@/lib/stage-types";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { CandidateQuery } from "@/lib/schemas/sweeps";
@@ -119,9 +119,8 @@ export async function listCandidates(db: Database, actor: Actor, sweepId: string
     page: q.page,
     pageSize: q.pageSize,
     total,
-    // The key codec reads a tube with recycle ("PFRrecycle" in a key) back whole; the screens type sequences
-    // as CSTR/PFR until they learn the tube with recycle (later work), hence the cast.
-    items: items.map((c) => ({ ...c, sequence: sequenceFromKey(c.sequenceKey) as StageType[], emptyStages: emptyStageCount(c.stages) })),
+    // The key codec reads a tube with recycle ("PFRrecycle" in a key) back whole.
+    items: items.map((c) => ({ ...c, sequence: sequenceFromKey(c.sequenceKey), emptyStages: emptyStageCount(c.stages) })),
   };
 }
 
@@ -156,7 +155,7 @@ export async function compareCandidates(db: Database, actor: Actor, ids: string[
       id: c.id,
       sweep: { id: sweep.id, name: sweep.name, projectId: sweep.projectId },
       rank: c.rank,
-      sequence: sequenceFromKey(c.sequenceKey) as StageType[], // see listCandidates: a cast until the screens know the tube with recycle
+      sequence: sequenceFromKey(c.sequenceKey),
       feasible: c.feasible,
       totalVolume: c.totalVolume,
       totalCost: c.totalCost,

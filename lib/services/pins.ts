@@ -10,6 +10,7 @@ import type { PinnedCandidate, PinnedNetworkCandidate, WithShapes } from "@/lib/
 import { applyOverrides } from "@/lib/sweeps/grid";
 import { recordAudit } from "./audit";
 import { requireTeamProject } from "./kinetics";
+import { stageTypeName } from "@/lib/stage-types";
 
 async function mailQuietly(to: string[], subject: string, text: string) {
   for (const address of to) {
@@ -71,8 +72,8 @@ export async function pinCandidate(db: Database, actor: Actor, candidateId: stri
     .where(and(eq(memberships.teamId, actor.teamId), eq(memberships.role, "manager")));
   await mailQuietly(
     managers.map((m) => m.email),
-    `Design pinned for review: ${frozen.sequence.join(" → ")}`,
-    `${actor.name ?? actor.email} pinned a ${frozen.sequence.join(" → ")} train (total ${c.totalVolume?.toPrecision(4)} m3) for review.\n\nNote: ${input.note || "—"}\n\nReview it: ${appLink(`/projects/${sweep.projectId}`)}`,
+    `Design pinned for review: ${frozen.sequence.map(stageTypeName).join(" → ")}`,
+    `${actor.name ?? actor.email} pinned a ${frozen.sequence.map(stageTypeName).join(" → ")} train (total ${c.totalVolume?.toPrecision(4)} m3) for review.\n\nNote: ${input.note || "—"}\n\nReview it: ${appLink(`/projects/${sweep.projectId}`)}`,
   );
   return pin;
 }
@@ -113,7 +114,7 @@ export async function reviewPin(db: Database, actor: Actor, pinId: string, input
   });
   const [pinner] = await db.select({ email: users.email }).from(users).where(eq(users.id, current.pinnedBy));
   if (pinner) {
-    await mailQuietly([pinner.email], `Design ${state}: ${(current.candidate.sequence as string[]).join(" → ")}`, `${actor.name ?? actor.email} ${state} your pinned design.\n\nComment: ${input.comment}\n\n${appLink(`/projects/${current.projectId}`)}`);
+    await mailQuietly([pinner.email], `Design ${state}: ${(current.candidate.sequence as string[]).map(stageTypeName).join(" → ")}`, `${actor.name ?? actor.email} ${state} your pinned design.\n\nComment: ${input.comment}\n\n${appLink(`/projects/${current.projectId}`)}`);
   }
   return updated;
 }

@@ -3,6 +3,7 @@ import type { Database } from "@/db/client";
 import { inventoryVessels } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
 import { EngineError, rateTrain, type RatingSpec, type StageType } from "@/lib/engine";
+import { stageTypeCautions } from "@/lib/stage-types";
 import { AppError } from "@/lib/errors";
 import { largestFeed } from "@/lib/rating/largest-feed";
 import type { RateRequest } from "@/lib/schemas/costs";
@@ -27,19 +28,23 @@ export async function rateFixedTrain(db: Database, actor: Actor, projectId: stri
     : [];
   const byId = new Map(vessels.map((v) => [v.id, v]));
   const stages = input.stages.map((s, i) => {
-    if (!("inventoryVesselId" in s)) return { type: s.type as StageType, volume: s.volume, tag: null as string | null };
+    if (!("inventoryVesselId" in s)) return { type: s.type, volume: s.volume, recycleRatio: s.recycleRatio, tag: null as string | null };
     const v = byId.get(s.inventoryVesselId);
     if (!v) throw new AppError("bad_request", "No such vessel in the team's inventory", { fields: { [`stages.${i}.inventoryVesselId`]: ["No such vessel in the inventory"] } });
-    return { type: v.type as StageType, volume: v.volume as number | string, tag: v.tag };
+    return { type: v.type as StageType, volume: v.volume as number | string, recycleRatio: undefined, tag: v.tag };
   });
   const chemistry = kv.version.spec as unknown as KineticsSpec;
-  const spec: RatingSpec = { feed: chemistry.feed, reaction: chemistry.reaction, stages: stages.map(({ type, volume }) => ({ type, volume })) };
+  const spec: RatingSpec = { feed: chemistry.feed, reaction: chemistry.reaction, stages: stages.map(({ type, volume, recycleRatio }) => ({ type, volume, ...(recycleRatio !== undefined ? { recycleRatio } : {}) })) };
   try {
     const rating = rateTrain(spec);
     const feed = largestFeed(spec, input.target);
-    const cautions = [...rating.cautions];
-    if (rating.stages.some((s) => s.multiple)) {
-      cautions.unshift("A stirred tank of this train has more than one steady state; the figures follow the lowest one (a cold start). Start-up and control decide which one the plant runs at.");
+    // The engine's rating carries the general cautions; a tube with recycle adds its own (pump and line not included).
+    const cautions = [...rating.cautions, ...stageTypeCautions(stages.map((s) => s.type))];
+    const several = rating.stages.filter((s) => s.multiple);
+    if (several.length) {
+      // A tube with recycle, like a stirred tank, can have several steady states (adiabatic, with back-mixing through the recycle).
+      const which = several.every((s) => s.type === "CSTR") ? "A stirred tank" : several.every((s) => s.type === "PFR-recycle") ? "A tube with recycle" : "A stage";
+      cautions.unshift(`${which} of this train has more than one steady state; the figures follow the lowest one (a cold start). Start-up and control decide which one the plant runs at.`);
     }
     return {
       kineticsVersion: { id: kv.version.id, version: kv.version.version, modelName: kv.model.name },

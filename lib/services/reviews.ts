@@ -2,14 +2,14 @@ import { and, asc, eq, ne } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { pinnedDesigns, projects, sweeps, users } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz/policy";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
 
 export interface ReviewItem {
   pinId: string;
   projectId: string;
   projectName: string;
   sweepName: string | null;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   totalVolume: number | null;
   totalCost: number | null;
   note: string;
@@ -42,7 +42,7 @@ export async function listReviewInbox(db: Database, actor: Actor): Promise<Revie
     .where(and(eq(pinnedDesigns.teamId, actor.teamId), eq(pinnedDesigns.state, "proposed"), ne(pinnedDesigns.pinnedBy, actor.userId)))
     .orderBy(asc(pinnedDesigns.pinnedAt));
   return rows.map((r) => {
-    const c = r.candidate as { sequence?: StageType[]; totalVolume?: number | null; totalCost?: number | null };
+    const c = r.candidate as { sequence?: TrainStageType[]; totalVolume?: number | null; totalCost?: number | null };
     return {
       pinId: r.pinId,
       projectId: r.projectId,

@@ -12,9 +12,8 @@ export function freezeCandidate(c: Candidate, scenario: Pick<Scenario, "index" |
   if (sweep.baseSpec && isNetworkSpec(sweep.baseSpec)) return freezeNetworkCandidate(c, scenario, sweep);
   return {
     rank: c.rank,
-    // The key codec reads a tube with recycle back whole; pinned trains are typed CSTR/PFR until the
-    // screens learn the tube with recycle (later work), hence the cast.
-    sequence: sequenceFromKey(c.sequenceKey) as StageType[],
+    // The key codec reads a tube with recycle back whole.
+    sequence: sequenceFromKey(c.sequenceKey),
     feasible: c.feasible,
     totalVolume: c.totalVolume,
     totalCost: c.totalCost,

@@ -4,16 +4,12 @@
  * return, and the screens' views derived from it (lib/services/views.ts), say what is really there.
  * Types only.
  */
-import type { DesignSpec, NetworkDesignSpec, NetworkObjective, NetworkReferenceDesign, NetworkStageResult, ReferenceResult, StageResult, StageType } from "@/lib/engine";
+import type { DesignSpec, NetworkDesignSpec, NetworkObjective, NetworkReferenceDesign, NetworkStageResult, ReferenceResult, StageResult, StageType, TrainStageType } from "@/lib/engine";
 import type { TrainPlan } from "@/lib/costs/train-plan";
 import type { SweepCosting } from "@/lib/schemas/costs";
 
-/** A stage as stored with a candidate (its plot data is kept apart, in `levenspiel`). */
-/**
- * A stage as stored. Its type is narrowed to CSTR/PFR for the screens until they learn the tube with recycle
- * (later work); a stored tube with recycle keeps "PFR-recycle" and its recycleRatio at run time.
- */
-export type StoredStage = Omit<StageResult, "levenspiel" | "type"> & { type: StageType };
+/** A stage as stored with a candidate (its plot data is kept apart, in `levenspiel`); a tube with recycle keeps its recycleRatio. */
+export type StoredStage = Omit<StageResult, "levenspiel">;
 
 /** A scenario's single-stage references as the worker stores them (run-chunk.ts); older rows lack the last two. */
 export interface ScenarioReference extends ReferenceResult {
@@ -32,7 +28,7 @@ export type StoredSweepSpec = DesignSpec & { costing?: SweepCosting };
 // A type, not an interface: drizzle stores it in a Record<string, unknown> column.
 export type PinnedCandidate = {
   rank: number;
-  sequence: StageType[];
+  sequence: TrainStageType[];
   feasible: boolean;
   totalVolume: number | null;
   totalCost: number | null;

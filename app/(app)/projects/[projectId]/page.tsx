@@ -2,6 +2,7 @@ import Link from "next/link";
 import { ProjectCostLinks } from "@/components/costs/project-cost-links";
 import { AuditList, type AuditRow } from "@/components/audit/audit-list";
 import { Cautions } from "@/components/cautions/cautions";
+import { stageTypeCautions } from "@/lib/stage-types";
 import { DatasetsPanel, type DatasetRow } from "@/components/datasets/datasets-panel";
 import { PinsPanel, type PinRow } from "@/components/pins/pins-panel";
 import { SweepsList, type SweepRow } from "@/components/sweeps/sweeps-list";
@@ -15,7 +16,7 @@ import { listPins } from "@/lib/services/pins";
 import { listSweeps } from "@/lib/services/sweeps";
 import { loadProjectPage } from "./project-data";
 import { formatDateTime } from "@/lib/format/dates";
-import type { StageType } from "@/lib/engine";
+import type { TrainStageType } from "@/lib/engine";
 
 export const dynamic = "force-dynamic";
 
@@ -35,7 +36,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const datasets = can(actor, "dataset.read") ? await listDatasets(db, actor, project.id) : null;
   const { names, versions } = await pinLabels(db, actor, pins);
   const pinRows: PinRow[] = pins.map((p) => {
-    const c = p.candidate as { sequence?: StageType[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
+    const c = p.candidate as { sequence?: TrainStageType[]; totalVolume?: number | null; totalCost?: number | null; stages?: { temperatureOut?: number }[]; sweep?: { id: string; name: string } };
     const v = versions[p.kineticsVersionId];
     return {
       id: p.id,
@@ -125,7 +126,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       {datasets ? <DatasetsPanel projectId={project.id} datasets={wire<DatasetRow[]>(datasets)} canUpload={can(actor, "dataset.create")} /> : null}
 
       <PinsPanel pins={pinRows} viewerOnly={actor.role === "viewer"} />
-      {pinRows.length ? <Cautions /> : null}
+      {pinRows.length ? <Cautions more={stageTypeCautions(pinRows.flatMap((p) => p.sequence))} /> : null}
 
       {audit ? (
         <section className="card overflow-hidden" aria-labelledby="audit-title">

@@ -1,6 +1,6 @@
 import { readQuery } from "@/lib/http";
 import { scenarioRoute } from "@/lib/http/signed-in-route";
-import { CANDIDATE_UNITS, candidateRowsForExport, candidatesCsv } from "@/lib/reports/exports";
+import { CANDIDATE_UNITS, candidateCautions, candidateRowsForExport, candidatesCsv } from "@/lib/reports/exports";
 import { isNetworkExport, NETWORK_CANDIDATE_UNITS, networkCandidateRowsForExport, networkCandidatesCsv } from "@/lib/reports/network-candidate-export";
 import { candidateExportQuerySchema } from "@/lib/schemas/report-exports";
 import { exportCandidates } from "@/lib/services/candidate-export";
@@ -21,6 +21,6 @@ export const GET = scenarioRoute(async ({ req, actor, db, sweepId, index }) => {
   }
   const body = network
     ? { sweepId, kind: "network", scenario: data.scenario, total: data.total, units: NETWORK_CANDIDATE_UNITS, candidates: networkCandidateRowsForExport(data) }
-    : { sweepId, kind: "single", scenario: data.scenario, total: data.total, units: CANDIDATE_UNITS, candidates: candidateRowsForExport(data) };
+    : { sweepId, kind: "single", scenario: data.scenario, total: data.total, units: CANDIDATE_UNITS, cautions: candidateCautions(data), candidates: candidateRowsForExport(data) };
   return new Response(JSON.stringify(body), { headers: { ...headers, "Content-Type": "application/json; charset=utf-8" } });
 });
