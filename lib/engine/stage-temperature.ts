@@ -63,7 +63,7 @@ export function volumeAtTemperature(basis: SizingBasis, place: StagePlace, a: nu
  * mixed inlet X_1 for a tube with recycle, times R + 1 at its best R: the envelope theorem), or at the outlet
  * for a stirred tank. dr/dT by central differences (relative step 1e-5).
  */
-export function temperatureSlope(basis: SizingBasis, place: StagePlace, a: number, b: number, temperature: number, precise = true): number {
+export function temperatureSlope(basis: SizingBasis, place: StagePlace, a: number, b: number, temperature: number, panels = 1): number {
   if (b <= a) return 0;
   const at = stageBasisAt(basis, temperature);
   const slope = (x: number): number => {
@@ -83,14 +83,18 @@ export function temperatureSlope(basis: SizingBasis, place: StagePlace, a: numbe
   // A fixed composite rule, not an adaptive one: the integrand carries the differencing's noise (about
   // 1e-10 relative), which would drive an adaptive rule to its panel limit; and a fixed rule is smooth in
   // (a, b, T), which keeps the best temperature a smooth function of the conversions for the Newton steps.
-  return scale * basis.fa0 * compositeKronrod(slope, lo, b, precise ? SLOPE_PANELS : 1);
+  return scale * basis.fa0 * compositeKronrod(slope, lo, b, panels);
 }
 
 /** Panels of the 15-point Gauss–Kronrod rule for the gradient of a stage at its best temperature. */
 const GRADIENT_PANELS = 4;
 
-/** Panels of the 15-point Gauss–Kronrod rule for dV/dT in the search for the best temperature. */
-const SLOPE_PANELS = 1;
+/**
+ * Panels of the 15-point Gauss–Kronrod rule for dV/dT where the best temperature is reported: the search
+ * solves with one panel (cheap, and smooth in T, so Brent's method converges fast) and then takes two
+ * secant steps with this many, which removes the one panel's bias (seen up to 1e-9 of the volume).
+ */
+const POLISH_PANELS = 16;
 
 const memo = new WeakMap<SizingBasis, Map<string, StageTemperatureDesign>>();
 
@@ -152,7 +156,7 @@ function searchTemperature(basis: SizingBasis, place: StagePlace, a: number, b: 
   const sl = slope(left);
   const sr = slope(right);
   let t: number;
-  if (Number.isFinite(sl) && Number.isFinite(sr) && sl < 0 && sr > 0) t = brentRoot(slope, left, right, 1e-13 * right);
+  if (Number.isFinite(sl) && Number.isFinite(sr) && sl < 0 && sr > 0) t = polish(basis, place, a, b, brentRoot(slope, left, right, 1e-13 * right), left, right);
   else t = brentMinimum(volume, left, right, 1e-10).x;
   const v = volume(t);
   const sampled = volume(ts[best]);
@@ -185,7 +189,7 @@ export function bestStageGradient(
   // Its integrals by a fixed rule on GRADIENT_PANELS panels (see Precision), or one panel for the Hessian.
   const g = gradientAtTemperature(basis, place, a, b, d.temperature, precise ? GRADIENT_PANELS : false);
   if (!d.capped || basis.rise === 0) return g;
-  const vt = temperatureSlope(basis, place, a, b, d.temperature, precise);
+  const vt = temperatureSlope(basis, place, a, b, d.temperature, precise ? GRADIENT_PANELS : 1);
   return [g[0] + vt * basis.rise, g[1] - vt * basis.rise];
 }
 
@@ -238,7 +242,7 @@ export function bestStageHessian(
   const span = d.capped ? dt : 2 * dt;
   const xa = (gp[0] - gm[0]) / span;
   const xb = (gp[1] - gm[1]) / span;
-  const stt = (temperatureSlope(basis, place, a, b, t + dt, false) - temperatureSlope(basis, place, a, b, t - dt, false)) / (2 * dt);
+  const stt = (temperatureSlope(basis, place, a, b, t + dt) - temperatureSlope(basis, place, a, b, t - dt)) / (2 * dt);
   if (interior) {
     if (!(stt > 0)) return [haa, hab, hbb];
     return [haa - (xa * xa) / stt, hab - (xa * xb) / stt, hbb - (xb * xb) / stt];
@@ -257,6 +261,25 @@ export function stageFrame(basis: SizingBasis, place: StagePlace, a: number, b: 
   const d = bestStageTemperature(basis, place, a, b);
   const t = Number.isFinite(d.temperature) ? d.temperature : (inletBounds(basis, place.first, a, b)?.lo ?? chosenRange(basis, place.first)?.[0] ?? basis.t0);
   return { basis: stageBasisAt(basis, t), first: false, chosen: true };
+}
+
+/** Two secant steps on dV/dT = 0 with the many-panel rule from t, kept within [lo, hi]. */
+function polish(basis: SizingBasis, place: StagePlace, a: number, b: number, t: number, lo: number, hi: number): number {
+  const f = (u: number): number => temperatureSlope(basis, place, a, b, u, POLISH_PANELS);
+  let t0 = t;
+  let f0 = f(t0);
+  let t1 = Math.min(hi, Math.max(lo, t0 + (t0 < hi ? 1e-3 : -1e-3)));
+  let f1 = f(t1);
+  for (let i = 0; i < 2; i++) {
+    if (!(Number.isFinite(f0) && Number.isFinite(f1)) || f1 === f0) break;
+    const t2 = Math.min(hi, Math.max(lo, t1 - (f1 * (t1 - t0)) / (f1 - f0)));
+    t0 = t1;
+    f0 = f1;
+    t1 = t2;
+    if (Math.abs(t1 - t0) <= 1e-13 * t1) break;
+    f1 = f(t1);
+  }
+  return t1;
 }
 
 /**
