@@ -24,17 +24,17 @@ export function volumeObjective(basis: SizingBasis, places: readonly StagePlace[
  */
 function chosenTemperatureObjective(basis: SizingBasis, places: readonly StagePlace[]): ChainObjective {
   const hints = places.map(() => NaN);
-  const memo = new Map<string, StageTemperatureDesign>();
+  // The refinement asks a stage's value, gradient and Hessian at one point in turn: the last answer per stage is kept.
+  const last = places.map(() => ({ a: NaN, b: NaN, d: null as StageTemperatureDesign | null }));
   const chosen = places.map((p) => chosenRange(basis, p.first) !== null);
   const design = (k: number, a: number, b: number): StageTemperatureDesign => {
-    const key = `${k}:${a}:${b}`;
-    let d = memo.get(key);
-    if (!d) {
-      d = nearbyStageTemperature(basis, places[k], a, b, hints[k]) ?? bestStageTemperature(basis, places[k], a, b);
-      if (Number.isFinite(d.temperature)) hints[k] = d.temperature;
-      if (memo.size > 20_000) memo.clear();
-      memo.set(key, d);
-    }
+    const l = last[k];
+    if (l.d && l.a === a && l.b === b) return l.d;
+    const d = nearbyStageTemperature(basis, places[k], a, b, hints[k]) ?? bestStageTemperature(basis, places[k], a, b);
+    if (Number.isFinite(d.temperature)) hints[k] = d.temperature;
+    l.a = a;
+    l.b = b;
+    l.d = d;
     return d;
   };
   return {

@@ -8,7 +8,7 @@ import { stageBasisAt } from "./stage-temperature";
  * over the conversions and the refinement's start; the refinement takes each stage at its exact best
  * temperature (stage-temperature.ts).
  */
-export const GRID_TEMPERATURES = 17;
+export const GRID_TEMPERATURES = 25;
 
 function temperatures(range: TemperatureBounds): number[] {
   const [lo, hi] = range;

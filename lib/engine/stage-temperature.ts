@@ -31,8 +31,15 @@ export interface StageTemperatureDesign {
  * its path its own.
  */
 export function stageBasisAt(basis: SizingBasis, temperature: number): SizingBasis {
-  return { ...basis, t0: temperature, interstage: temperature, choice: undefined, ownPath: true };
+  // A stage's volume, slope and gradient are asked at one temperature in turn: the last basis is kept.
+  const last = lastAt.get(basis);
+  if (last && last.t0 === temperature) return last;
+  const at = { ...basis, t0: temperature, interstage: temperature, choice: undefined, ownPath: true };
+  lastAt.set(basis, at);
+  return at;
 }
+
+const lastAt = new WeakMap<SizingBasis, SizingBasis>();
 
 /**
  * Inlet temperatures a stage from a to b may have: the range given, below the cap that keeps the stage
