@@ -16,9 +16,9 @@ import { enumerateSequences } from "./sequences";
 import { fullVesselConversions, optimiseStandardSizes, type SizedDesign } from "./standard-sizes";
 import { stageRecycleRatio, stageVolume } from "./stage-volume";
 import { stageFrame } from "./stage-temperature";
-import { bestTemperaturePath, pathTemperatures, reversibleExothermic } from "./best-temperature-path";
+import { bestPathReference, checkChosenTemperatures, TEMPERATURE_CAUTION } from "./design-temperatures";
 import { cstrVolume, pfrVolume, type StagePlace } from "./stages";
-import type { BestTemperaturePath, CandidateResult, DesignResult, DesignSpec, StageResult, StageType, TrainStageType } from "./types";
+import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType, TrainStageType } from "./types";
 
 /** Options of the design search. */
 export interface DesignOptions {
@@ -230,24 +230,6 @@ function fixedRecycleRatio(spec: DesignSpec, withRecycle: boolean): number | nul
   return given ?? null;
 }
 
-/** Refuses what chosen stage temperatures do not support yet: both rate full vessels at given temperatures. */
-function checkChosenTemperatures(spec: DesignSpec, basis: SizingBasis): void {
-  if (!basis.choice) return;
-  ensure(!spec.train.equalVolume, "equal volumes are not available with stage temperatures to choose; give the temperatures as single values", "train.equalVolume");
-  ensure(
-    !(spec.objective?.minimise === "cost" && spec.objective.standardSizes),
-    "standard sizes are not available with stage temperatures to choose; give the temperatures as single values or drop the standard sizes",
-    "objective.standardSizes",
-  );
-}
-
-/** The best temperature path for a reversible exothermic power law, when the train has a highest temperature. */
-function bestPathReference(spec: DesignSpec, basis: SizingBasis, target: number): BestTemperaturePath | null {
-  if (!basis.reversible || !reversibleExothermic(spec.reaction)) return null;
-  const range = pathTemperatures(basis);
-  return range ? bestTemperaturePath(basis, target, range.lowest, range.highest) : null;
-}
-
 /**
  * Designs every requested train: for each sequence of stage types the intermediate conversions that
  * minimise total volume or vessel cost, found globally on a conversion grid and refined by Newton's method.
@@ -311,6 +293,6 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
     ...(eq !== null ? { equilibriumConversion: eq } : {}),
     feedVolumetricFlow: basis.v0,
     objective: cm.kind,
-    cautions: [...CAUTIONS, ...(cm.sizes && !spec.train.equalVolume ? [SIZED_CAUTION] : []), ...(withRecycle ? [RECYCLE_CAUTION] : [])],
+    cautions: [...CAUTIONS, ...(cm.sizes && !spec.train.equalVolume ? [SIZED_CAUTION] : []), ...(withRecycle ? [RECYCLE_CAUTION] : []), ...(basis.choice ? [TEMPERATURE_CAUTION] : [])],
   };
 }

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { designTrains, EngineError, GAS_CONSTANT, rateTrain, type DesignSpec, type ThermalSpec, type TrainStageType } from "../../../lib/engine/index";
+import { designTrains, EngineError, GAS_CONSTANT, rateTrain, stagePlots, type DesignSpec, type ThermalSpec, type TrainStageType } from "../../../lib/engine/index";
 import { rel } from "./helpers";
 
 /*
@@ -201,6 +201,20 @@ describe("stage temperatures as decision variables", () => {
     expect(single.candidates[0].stages.map((s) => s.temperatureIn)).toEqual([330, 350, 350]);
     expect(single.candidates[0].stages[0].temperatureChosen).toBeUndefined();
     expect(single.candidates[0].stages[1].temperatureChosen).toBe(true);
+  });
+
+  it("reports each chosen stage on its own temperature path, and its plot is redrawn from the stored stage", () => {
+    const s = spec(adiabaticFree, [["CSTR", "PFR", "PFR"]]);
+    const c = designTrains(s).candidates[0];
+    for (const st of c.stages) {
+      // Adiabatic line within a stage (common practice): T_out = T_in + rise (X_out - X_in).
+      expect(Math.abs(st.temperatureOut - (st.temperatureIn + 100 * (st.conversionOut - st.conversionIn)))).toBeLessThan(1e-9);
+      // The CSTR's plot height at its outlet is FA0/(-rA) at the outlet temperature (closed form above).
+      if (st.type === "CSTR") expect(rel(st.volume, ((st.conversionOut - st.conversionIn) * FA0) / rate(st.conversionOut, st.temperatureOut))).toBeLessThan(1e-12);
+    }
+    const redrawn = stagePlots({ feed: s.feed, reaction: s.reaction }, c.stages);
+    expect(redrawn).toEqual(c.stages.map((st) => st.levenspiel));
+    expect(designTrains(s).cautions.some((w) => w.includes("exchangers and their duty are not sized"))).toBe(true);
   });
 
   it("refuses what it cannot do, naming the field", () => {
