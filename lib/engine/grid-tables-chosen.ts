@@ -18,10 +18,14 @@ function temperatures(range: TemperatureBounds): number[] {
 
 type Kind = "CSTR" | "PFR" | "PFR-recycle";
 
-/** One row of every table (a stage from x_i) on one temperature path. */
-function rowOnPath(basis: SizingBasis, first: boolean, x: Float64Array, i: number, path: Path, cm: CostModel, recycle: RecycleGrid): Record<Kind, Float64Array> {
-  const m = x.length;
-  const row = { CSTR: new Float64Array(m), PFR: new Float64Array(m), "PFR-recycle": new Float64Array(m) };
+type Row = Record<Kind, Float64Array>;
+
+function newRow(m: number): Row {
+  return { CSTR: new Float64Array(m), PFR: new Float64Array(m), "PFR-recycle": new Float64Array(m) };
+}
+
+/** One row of every table (a stage from x_i) on one temperature path, written into `row`. */
+function rowOnPath(row: Row, basis: SizingBasis, first: boolean, x: Float64Array, i: number, path: Path, cm: CostModel, recycle: RecycleGrid): Row {
   fillRow(row, 0, x, i, path, 0, cm);
   if (recycle.used) {
     if (recycle.ratio === null) fillRecycleChosen(row["PFR-recycle"], 0, x, path, i, cm);
@@ -34,17 +38,22 @@ function rowOnPath(basis: SizingBasis, first: boolean, x: Float64Array, i: numbe
  * Row i of the tables: the least objective over the inlet temperatures tried when the stage's inlet is
  * chosen (a path per temperature), else on the stage's given path.
  */
-function bestRow(basis: SizingBasis, first: boolean, range: TemperatureBounds | null, x: Float64Array, i: number, cm: CostModel, recycle: RecycleGrid): Record<Kind, Float64Array> {
-  if (!range) return rowOnPath(basis, first, x, i, pathFrom(basis, first, x, i), cm, recycle);
-  let best: Record<Kind, Float64Array> | null = null;
+function bestRow(basis: SizingBasis, first: boolean, range: TemperatureBounds | null, x: Float64Array, i: number, cm: CostModel, recycle: RecycleGrid): Row {
+  const m = x.length;
+  if (!range) return rowOnPath(newRow(m), basis, first, x, i, pathFrom(basis, first, x, i), cm, recycle);
+  const best = newRow(m);
+  const scratch = newRow(m);
+  let firstTemperature = true;
   for (const t of temperatures(range)) {
     const at = stageBasisAt(basis, t);
-    const row = rowOnPath(at, false, x, i, pathFrom(at, false, x, i), cm, recycle);
-    if (!best) best = row;
-    else for (const k of Object.keys(row) as Kind[]) for (let j = 0; j < x.length; j++) if (row[k][j] < best[k][j]) best[k][j] = row[k][j];
+    const row = rowOnPath(firstTemperature ? best : scratch, at, false, x, i, pathFrom(at, false, x, i), cm, recycle);
+    if (!firstTemperature) for (const k of KINDS) for (let j = i; j < m; j++) if (row[k][j] < best[k][j]) best[k][j] = row[k][j];
+    firstTemperature = false;
   }
-  return best as Record<Kind, Float64Array>;
+  return best;
 }
+
+const KINDS: readonly Kind[] = ["CSTR", "PFR", "PFR-recycle"];
 
 /**
  * Grid tables when stage inlet temperatures are chosen: each entry is the least over GRID_TEMPERATURES
