@@ -1,6 +1,8 @@
 import { purchase, vesselType, type CostModel, type Purchase } from "./cost";
 import { chosenRange, type SizingBasis } from "./sizing-basis";
-import { bestStageGradient, bestStageHessian, bestStageTemperature, nearbyStageTemperature, type StageTemperatureDesign } from "./stage-temperature";
+import type { StageTemperatureDesign } from "./stage-temperature";
+import { bestStageGradient, bestStageHessian } from "./stage-temperature-derivatives";
+import { bestStageTemperature, nearbyStageTemperature } from "./stage-temperature-search";
 import type { ChainObjective } from "./refine";
 import { stageVolume, stageVolumeGradient } from "./stage-volume";
 import type { StagePlace } from "./stages";

@@ -15,7 +15,7 @@ import { resolveSizingBasis } from "./resolve-sizing-basis";
 import { enumerateSequences } from "./sequences";
 import { fullVesselConversions, optimiseStandardSizes, type SizedDesign } from "./standard-sizes";
 import { stageRecycleRatio, stageVolume } from "./stage-volume";
-import { stageFrame } from "./stage-temperature";
+import { stageFrame } from "./stage-temperature-search";
 import { bestPathReference, checkChosenTemperatures, TEMPERATURE_CAUTION } from "./design-temperatures";
 import { cstrVolume, pfrVolume, type StagePlace } from "./stages";
 import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType, TrainStageType } from "./types";

@@ -1,6 +1,8 @@
 import { optimalRecycle, recycleVolume, recycleVolumeGradient } from "./recycle";
 import { chosenRange, type SizingBasis } from "./sizing-basis";
-import { bestStageGradient, bestStageTemperature, stageBasisAt } from "./stage-temperature";
+import { stageBasisAt } from "./stage-temperature";
+import { bestStageGradient } from "./stage-temperature-derivatives";
+import { bestStageTemperature } from "./stage-temperature-search";
 import { idealStageVolume, idealStageVolumeGradient, type StagePlace } from "./stages";
 
 /** Recycle ratio of a tube with recycle from a to b: the user's when fixed, else the one of least volume. */
