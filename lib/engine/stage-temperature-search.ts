@@ -2,14 +2,7 @@ import { brentMinimum } from "./minimise-1d";
 import { brentRoot } from "./root-finding";
 import { chosenRange, type SizingBasis } from "./sizing-basis";
 import type { StagePlace } from "./stages";
-import { inletBounds, stageBasisAt, TEMPERATURE_SCAN, temperatureSlope, volumeAtTemperature, type StageTemperatureDesign } from "./stage-temperature";
-
-/**
- * Panels of the 15-point Gauss–Kronrod rule for dV/dT where the best temperature is reported: the search
- * solves with one panel (cheap, and smooth in T, so Brent's method converges fast) and then takes two
- * secant steps with this many, which removes the one panel's bias (seen up to 1e-9 of the volume).
- */
-const POLISH_PANELS = 16;
+import { inletBounds, slopeBreakpoints, stageBasisAt, TEMPERATURE_SCAN, temperatureSlope, volumeAtTemperature, type StageTemperatureDesign } from "./stage-temperature";
 
 const memo = new WeakMap<SizingBasis, Map<string, StageTemperatureDesign>>();
 
@@ -61,7 +54,8 @@ function searchTemperature(basis: SizingBasis, place: StagePlace, a: number, b: 
     if (vs[i] < vs[best] || !Number.isFinite(vs[best])) best = i;
   }
   if (!Number.isFinite(vs[best])) return { temperature: NaN, volume: Infinity, capped: false };
-  const slope = (t: number): number => temperatureSlope(basis, place, a, b, t);
+  const breaks = slopeBreakpoints(basis, place, a, b, ts[best]);
+  const slope = (t: number): number => temperatureSlope(basis, place, a, b, t, breaks);
   const done = (t: number, v: number): StageTemperatureDesign => ({ temperature: t, volume: v, capped: Number.isFinite(v) && onCap(t) });
   // An end whose slope points out of the range is a constrained minimum (the rate rising across the range).
   if (best === n - 1 && slope(hi) <= 0) return done(hi, volume(hi));
@@ -71,7 +65,7 @@ function searchTemperature(basis: SizingBasis, place: StagePlace, a: number, b: 
   const sl = slope(left);
   const sr = slope(right);
   let t: number;
-  if (Number.isFinite(sl) && Number.isFinite(sr) && sl < 0 && sr > 0) t = polish(basis, place, a, b, brentRoot(slope, left, right, 1e-13 * right), left, right);
+  if (Number.isFinite(sl) && Number.isFinite(sr) && sl < 0 && sr > 0) t = brentRoot(slope, left, right, 1e-13 * right);
   else t = brentMinimum(volume, left, right, 1e-10).x;
   const v = volume(t);
   const sampled = volume(ts[best]);
@@ -89,25 +83,6 @@ export function stageFrame(basis: SizingBasis, place: StagePlace, a: number, b: 
   return { basis: stageBasisAt(basis, t), first: false, chosen: true };
 }
 
-/** Two secant steps on dV/dT = 0 with the many-panel rule from t, kept within [lo, hi]. */
-function polish(basis: SizingBasis, place: StagePlace, a: number, b: number, t: number, lo: number, hi: number): number {
-  const f = (u: number): number => temperatureSlope(basis, place, a, b, u, POLISH_PANELS);
-  let t0 = t;
-  let f0 = f(t0);
-  let t1 = Math.min(hi, Math.max(lo, t0 + (t0 < hi ? 1e-3 : -1e-3)));
-  let f1 = f(t1);
-  for (let i = 0; i < 2; i++) {
-    if (!(Number.isFinite(f0) && Number.isFinite(f1)) || f1 === f0) break;
-    const t2 = Math.min(hi, Math.max(lo, t1 - (f1 * (t1 - t0)) / (f1 - f0)));
-    t0 = t1;
-    f0 = f1;
-    t1 = t2;
-    if (Math.abs(t1 - t0) <= 1e-13 * t1) break;
-    f1 = f(t1);
-  }
-  return t1;
-}
-
 /**
  * The best inlet temperature near a known one (the same stage's at nearby conversions, in the refinement):
  * the root of dV/dT by the secant method from `hint`, or an end of the range where the slope points out of
@@ -120,7 +95,8 @@ export function nearbyStageTemperature(basis: SizingBasis, place: StagePlace, a:
   if (!bounds || !(bounds.hi > bounds.lo) || b <= a || !Number.isFinite(hint)) return null;
   const { lo, hi, cap } = bounds;
   const clamp = (t: number): number => Math.min(hi, Math.max(lo, t));
-  const slope = (t: number): number => temperatureSlope(basis, place, a, b, t);
+  const breaks = slopeBreakpoints(basis, place, a, b, clamp(hint));
+  const slope = (t: number): number => temperatureSlope(basis, place, a, b, t, breaks);
   const finish = (t: number): StageTemperatureDesign | null => {
     const v = volumeAtTemperature(basis, place, a, b, t);
     return Number.isFinite(v) ? { temperature: t, volume: v, capped: t === hi && hi === cap } : null;
