@@ -103,12 +103,12 @@ export function temperatureSlope(basis: SizingBasis, place: StagePlace, a: numbe
 }
 
 /**
- * Panels for temperatureSlope that take its integral at temperature T to `relTol` (QUADPACK's error
+ * Panels for temperatureSlope that take its integral at temperature T to `relTol` (1e-7; QUADPACK's error
  * estimate; the panel of largest error bisected, at most 24 panels): found once per stage and then kept
  * while its best temperature is solved, so the slope is accurate where the integrand is steep (a stage ending
  * near its equilibrium, where one panel was seen to move the best temperature by 0.01 K) and still smooth in T.
  */
-export function slopeBreakpoints(basis: SizingBasis, place: StagePlace, a: number, b: number, temperature: number, relTol = 1e-8): number[] {
+export function slopeBreakpoints(basis: SizingBasis, place: StagePlace, a: number, b: number, temperature: number, relTol = 1e-7): number[] {
   if (b <= a || place.type === "CSTR") return [0, 1];
   const { f, lo } = slopeIntegrand(basis, place, a, b, temperature);
   const span = b - lo;
