@@ -15,6 +15,8 @@ import { resolveSizingBasis } from "./resolve-sizing-basis";
 import { enumerateSequences } from "./sequences";
 import { fullVesselConversions, optimiseStandardSizes, type SizedDesign } from "./standard-sizes";
 import { stageRecycleRatio, stageVolume } from "./stage-volume";
+import { stageFrame } from "./stage-temperature-search";
+import { bestPathReference, checkChosenTemperatures, TEMPERATURE_CAUTION } from "./design-temperatures";
 import { cstrVolume, pfrVolume, type StagePlace } from "./stages";
 import type { CandidateResult, DesignResult, DesignSpec, StageResult, StageType, TrainStageType } from "./types";
 
@@ -73,18 +75,21 @@ function stageResults(basis: SizingBasis, cm: CostModel, places: readonly StageP
     const volume = stageVolume(basis, p, a, b);
     const bought = purchase(cm, p.type, volume);
     const ratio = p.type === "PFR-recycle" ? stageRecycleRatio(basis, p, a, b) : undefined;
+    // A stage whose inlet temperature is chosen is reported at its best temperature.
+    const frame = stageFrame(basis, p, a, b);
     return {
       type: p.type,
       conversionIn: a,
       conversionOut: b,
-      temperatureIn: stageTemperature(basis, p.first, a, a),
-      temperatureOut: stageTemperature(basis, p.first, a, b),
+      temperatureIn: stageTemperature(frame.basis, frame.first, a, a),
+      temperatureOut: stageTemperature(frame.basis, frame.first, a, b),
       volume,
       residenceTime: volume / basis.v0,
       vessels: { count: bought.count, sizeEach: bought.sizeEach },
       cost: cm.kind === "cost" ? bought.cost : null,
-      levenspiel: stagePlot(basis, p.type, p.first, a, b, ratio),
+      levenspiel: stagePlot(frame.basis, p.type, frame.first, a, b, ratio),
       ...(ratio !== undefined ? { recycleRatio: ratio } : {}),
+      ...(frame.chosen ? { temperatureChosen: true } : {}),
     };
   });
 }
@@ -129,6 +134,9 @@ function evaluate(basis: SizingBasis, cm: CostModel, sequence: TrainStageType[],
 
 function infeasibleReason(basis: SizingBasis, n: number, target: number): string {
   const what = n === 1 ? "a single stage" : `${n} stages`;
+  if (basis.choice) {
+    return `${what} cannot reach conversion ${target} at any temperatures of the ranges given${basis.reversible ? " (each stage stops at its own equilibrium)" : ""}${Number.isFinite(basis.maxTemperature) ? ` within the maximum temperature ${basis.maxTemperature} K` : ""}`;
+  }
   if (Number.isFinite(basis.maxTemperature)) {
     return `${what} cannot reach conversion ${target} without exceeding the maximum temperature ${basis.maxTemperature} K`;
   }
@@ -234,6 +242,7 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   const sequences = enumerateSequences(spec.train);
   const withRecycle = sequences.some((s) => s.includes("PFR-recycle"));
   const recycleRatio = fixedRecycleRatio(spec, withRecycle);
+  checkChosenTemperatures(spec, basis);
   // A tube with recycle mixes product into its inlet, so a rate of zero at the feed itself (autocatalysis
   // from a feed without product) does not stop it; every other stage type still needs a positive rate.
   checkTarget(basis, target, rateRange, ratePath, withRecycle);
@@ -263,7 +272,10 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
       return evaluate(basis, cm, s, better, recycleRatio);
     });
   }
-  const candidates = rank(evaluated, basis, target, cm);
+  const path = bestPathReference(spec, basis, target);
+  const candidates = rank(evaluated, basis, target, cm).map((c) =>
+    path ? { ...c, volumeOverBestPath: c.totalVolume !== null ? c.totalVolume / path.volume : null } : c,
+  );
   if (!candidates.some((c) => c.feasible)) {
     throw new EngineError("infeasible", `no sequence can reach the target conversion ${target}: ${candidates[0].reason}`, "target.conversion");
   }
@@ -272,10 +284,15 @@ export function designTrains(spec: DesignSpec, options: DesignOptions = {}): Des
   const eq = equilibriumConversion(basis);
   return {
     candidates,
-    reference: { singleCSTR: finite(cstrVolume(basis, true, 0, target)), singlePFR: finite(pfrVolume(basis, true, 0, target)) },
+    reference: {
+      // With a chosen first-stage temperature the single stages are taken at their best temperature.
+      singleCSTR: finite(basis.choice ? stageVolume(basis, { type: "CSTR", first: true }, 0, target) : cstrVolume(basis, true, 0, target)),
+      singlePFR: finite(basis.choice ? stageVolume(basis, { type: "PFR", first: true }, 0, target) : pfrVolume(basis, true, 0, target)),
+      bestTemperaturePath: path,
+    },
     ...(eq !== null ? { equilibriumConversion: eq } : {}),
     feedVolumetricFlow: basis.v0,
     objective: cm.kind,
-    cautions: [...CAUTIONS, ...(cm.sizes && !spec.train.equalVolume ? [SIZED_CAUTION] : []), ...(withRecycle ? [RECYCLE_CAUTION] : [])],
+    cautions: [...CAUTIONS, ...(cm.sizes && !spec.train.equalVolume ? [SIZED_CAUTION] : []), ...(withRecycle ? [RECYCLE_CAUTION] : []), ...(basis.choice ? [TEMPERATURE_CAUTION] : [])],
   };
 }

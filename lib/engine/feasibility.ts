@@ -68,6 +68,10 @@ export function checkTarget(basis: SizingBasis, target: number, rateRange: reado
     T,
   );
   ensure(target <= rateRange[1], `the target conversion ${fmt(target)} is outside the rate table's range [${fmt(rateRange[0])}, ${fmt(rateRange[1])}]`, T);
+  if (basis.choice) {
+    checkChosenTarget(basis, target, ratePath, feedMayBeIdle);
+    return;
+  }
   const shared = sharedPath(basis);
   if (shared) {
     const tOut = basis.t0 + basis.rise * target;
@@ -92,5 +96,47 @@ export function checkTarget(basis: SizingBasis, target: number, rateRange: reado
       const err = rateProblem(basis, x, target, true, ratePath);
       if (err.code === "equilibrium") throw err;
     }
+  }
+}
+
+/** Lowest and highest temperatures any stage may run at when inlet temperatures are chosen. */
+function chosenSpan(basis: SizingBasis): [number, number] {
+  const c = basis.choice;
+  const firstLow = c?.first?.[0] ?? basis.t0;
+  const laterLow = c?.later?.[0] ?? basis.interstage ?? firstLow;
+  const lowest = Math.min(firstLow, laterLow);
+  const top = Math.max(c?.first?.[1] ?? basis.t0, c?.later?.[1] ?? basis.interstage ?? basis.t0);
+  const highest = Number.isFinite(basis.maxTemperature) ? basis.maxTemperature : Math.max(top, top + basis.rise);
+  return [lowest, Math.max(lowest, highest)];
+}
+
+/**
+ * With chosen inlet temperatures: a positive rate just past the feed at the first stage's lowest inlet, and
+ * a target below the highest equilibrium conversion over the temperatures a stage can take (each stage
+ * stops at the equilibrium of its own temperature; an isothermal equilibrium at 9 temperatures across the span).
+ */
+function checkChosenTarget(basis: SizingBasis, target: number, ratePath: string, feedMayBeIdle: boolean): void {
+  const t1 = basis.choice?.first?.[0] ?? basis.t0;
+  const f = (x: number): number => basis.rate(x, t1);
+  const from = feedMayBeIdle && f(0) === 0 ? 1e-9 * target : 0;
+  const bad = firstNonPositive(f, from, Math.min(target, 1e-9));
+  if (bad !== null) {
+    const r = f(bad);
+    throw new EngineError("infeasible", `the rate is ${Number.isNaN(r) ? "not a number" : "zero or negative"} at conversion ${fmt(bad)}, before the target ${fmt(target)}`, ratePath);
+  }
+  if (!basis.reversible) return;
+  const [lo, hi] = chosenSpan(basis);
+  let best = 0;
+  for (let i = 0; i < 9; i++) {
+    const t = hi > lo ? lo + ((hi - lo) * i) / 8 : lo;
+    const eq = firstNonPositive((x) => basis.rate(x, t), 0, basis.upper * (1 - 1e-12), 4 * SCAN);
+    best = Math.max(best, eq ?? 1);
+  }
+  if (target >= best) {
+    throw new EngineError(
+      "equilibrium",
+      `the target conversion ${fmt(target)} is at or beyond the highest equilibrium conversion ${fmt(best)} within the temperatures allowed; no train can pass it`,
+      "target.conversion",
+    );
   }
 }

@@ -3,6 +3,7 @@ import { sharedPath, type SizingBasis } from "./sizing-basis";
 import { recycleInletConversion } from "./recycle";
 import { levenspielHeight, temperatureFeasible } from "./stages";
 import type { TrainStageType } from "./types";
+import { buildChosenTemperatureTables } from "./grid-tables-chosen";
 
 /**
  * Objective of every stage between two points of a conversion grid, computed once and shared by all
@@ -21,7 +22,7 @@ export interface RecycleGrid {
   readonly ratio: number | null;
 }
 
-function uniformGrid(target: number, m: number): Float64Array {
+export function uniformGrid(target: number, m: number): Float64Array {
   const x = new Float64Array(m);
   for (let j = 0; j < m; j++) x[j] = (target * j) / (m - 1);
   x[m - 1] = target;
@@ -29,7 +30,7 @@ function uniformGrid(target: number, m: number): Float64Array {
 }
 
 /** Heights FA0/(-rA) and cumulative PFR volumes along the path of a stage that starts at x[i]. */
-function pathFrom(basis: SizingBasis, first: boolean, x: Float64Array, i: number) {
+export function pathFrom(basis: SizingBasis, first: boolean, x: Float64Array, i: number) {
   const m = x.length;
   const a = x[i];
   const height = new Float64Array(m).fill(Infinity);
@@ -52,7 +53,7 @@ function pathFrom(basis: SizingBasis, first: boolean, x: Float64Array, i: number
   return { height, cumulative, segment };
 }
 
-function fillRow(
+export function fillRow(
   out: Record<"CSTR" | "PFR", Float64Array>,
   offset: number,
   x: Float64Array,
@@ -76,7 +77,7 @@ function fillRow(
   }
 }
 
-type Path = ReturnType<typeof pathFrom>;
+export type Path = ReturnType<typeof pathFrom>;
 
 /**
  * Tubes with a chosen recycle ratio from x_i to every x_j: (x_j - x_i) times the least mean height over
@@ -84,7 +85,7 @@ type Path = ReturnType<typeof pathFrom>;
  * stirred-tank limit of a large ratio). With row "all" the path does not depend on x_i (a shared path),
  * so one backward pass per j fills every row (O(m^2)); else only the given row, from its own path.
  */
-function fillRecycleChosen(out: Float64Array, offset: number, x: Float64Array, path: Path, row: number | "all", cm: CostModel): void {
+export function fillRecycleChosen(out: Float64Array, offset: number, x: Float64Array, path: Path, row: number | "all", cm: CostModel): void {
   const m = x.length;
   const lowest = row === "all" ? 0 : row;
   const at = (i: number, j: number): number => (row === "all" ? i * m + j : offset + j);
@@ -103,7 +104,7 @@ function fillRecycleChosen(out: Float64Array, offset: number, x: Float64Array, p
 }
 
 /** Tubes with a fixed recycle ratio from x_i (row i of `out`) to every x_j, on the path that starts at x_i. */
-function fillRecycleFixed(
+export function fillRecycleFixed(
   basis: SizingBasis,
   first: boolean,
   out: Float64Array,
@@ -159,6 +160,7 @@ function fillRecycle(basis: SizingBasis, recycle: RecycleGrid, x: Float64Array, 
 
 /** Builds the grid tables (m points from 0 to the target); the tube with recycle's only when used. */
 export function buildGridTables(basis: SizingBasis, cm: CostModel, target: number, m: number, recycle: RecycleGrid = { used: false, ratio: null }): GridTables {
+  if (basis.choice) return buildChosenTemperatureTables(basis, cm, target, m, recycle);
   const x = uniformGrid(target, m);
   const first = { CSTR: new Float64Array(m), PFR: new Float64Array(m) };
   const later = { CSTR: new Float64Array(m * m), PFR: new Float64Array(m * m) };

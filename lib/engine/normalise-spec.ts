@@ -1,4 +1,4 @@
-import type { AdiabaticSpec, FeedSpec, Quantity, RateLawSpec, ReactionSpec, RatingSpec } from "./types";
+import type { AdiabaticSpec, FeedSpec, Quantity, RateLawSpec, ReactionSpec, RatingSpec, TemperatureRange } from "./types";
 import { anyToSI, DIM, rateConstantDimension, toSI, toTemperatureDifference } from "./units";
 
 const P = "reaction.rate";
@@ -59,13 +59,20 @@ function normaliseThermal(th: AdiabaticSpec): AdiabaticSpec {
     ...th,
     adiabaticRise: toTemperatureDifference(th.adiabaticRise, `${T}.adiabaticRise`),
     maxTemperature: opt(th.maxTemperature, (q) => toSI(q, DIM.temperature, `${T}.maxTemperature`)),
-    interstageTemperature: opt(th.interstageTemperature, (q) => toSI(q, DIM.temperature, `${T}.interstageTemperature`)),
+    interstageTemperature:
+      typeof th.interstageTemperature === "object" ? range(th.interstageTemperature, `${T}.interstageTemperature`) : opt(th.interstageTemperature, (q) => toSI(q, DIM.temperature, `${T}.interstageTemperature`)),
+    ...(th.feedTemperature ? { feedTemperature: range(th.feedTemperature, `${T}.feedTemperature`) } : {}),
   };
+}
+
+function range(r: TemperatureRange, path: string): TemperatureRange {
+  return { min: toSI(r.min, DIM.temperature, `${path}.min`), max: toSI(r.max, DIM.temperature, `${path}.max`) };
 }
 
 function normaliseReaction(reaction: ReactionSpec): ReactionSpec {
   const out: ReactionSpec = { ...reaction, rate: normaliseRate(reaction.rate) };
   if (reaction.thermal?.mode === "adiabatic") out.thermal = normaliseThermal(reaction.thermal);
+  if (reaction.thermal?.mode === "stageTemperature") out.thermal = { mode: "stageTemperature", ...range(reaction.thermal, "reaction.thermal") };
   return out;
 }
 

@@ -1,7 +1,7 @@
 import { ensure } from "./errors";
 import { stageTemperature, type SizingBasis } from "./sizing-basis";
 import { integrate } from "./quadrature";
-import { resolveSizingBasis } from "./resolve-sizing-basis";
+import { ensureFixedTemperatures, resolveSizingBasis } from "./resolve-sizing-basis";
 import { brentRoot } from "./root-finding";
 import { recycleSteadyStates } from "./rating";
 import { stageRatio } from "./rate-train";
@@ -185,6 +185,7 @@ function scannedReachLimit(basis: SizingBasis, first: boolean, a: number): numbe
  */
 export function rateTrainOutlet(spec: RatingSpec): number {
   const { basis } = resolveSizingBasis(spec.feed, spec.reaction);
+  ensureFixedTemperatures(basis, spec.reaction);
   ensure(spec.stages.length >= 1 && spec.stages.length <= 8, "give 1..8 stages", "stages");
   const monotone = monotoneIsothermal(spec.reaction);
   let a = 0;

@@ -58,6 +58,12 @@ export function kronrod15(f: (x: number) => number, a: number, b: number): numbe
   return single[0];
 }
 
+/** One fixed 15-point Kronrod panel over [a, b]: [value, QUADPACK's error estimate]. */
+export function kronrod15WithError(f: (x: number) => number, a: number, b: number): [number, number] {
+  panel(f, a, b, single, 0);
+  return [single[0], single[1]];
+}
+
 /** Result of an adaptive integration. */
 export interface Integral {
   readonly value: number;

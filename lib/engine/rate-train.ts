@@ -3,7 +3,7 @@ import { ensure } from "./errors";
 import { checkRateMagnitude, MAX_RATED_VESSEL } from "./magnitude";
 import { inletTemperature } from "./sizing-basis";
 import { cstrSteadyStates, pfrOutlet, recycleSteadyStates } from "./rating";
-import { resolveSizingBasis } from "./resolve-sizing-basis";
+import { ensureFixedTemperatures, resolveSizingBasis } from "./resolve-sizing-basis";
 import { stageTemperature } from "./sizing-basis";
 import type { RatedStage, RatingResult, RatingSpec } from "./types";
 import { DIM, toSI } from "./units";
@@ -31,6 +31,7 @@ export function stageRatio(s: RatingSpec["stages"][number], k: number): number |
  */
 export function rateTrain(spec: RatingSpec): RatingResult {
   const { basis } = resolveSizingBasis(spec.feed, spec.reaction);
+  ensureFixedTemperatures(basis, spec.reaction);
   ensure(spec.stages.length >= 1 && spec.stages.length <= 8, "give 1..8 stages", "stages");
   checkRateMagnitude(basis, basis.upper * (1 - 1e-9), spec.reaction.rate.law === "expression" ? "reaction.rate.expression" : "reaction.rate");
   let a = 0;

@@ -1,7 +1,7 @@
 import { kronrod15 } from "./quadrature";
 import { brentRoot } from "./root-finding";
 import type { SizingBasis } from "./sizing-basis";
-import { inletShiftIntegral, levenspielHeight, pathVolume, temperatureFeasible } from "./stages";
+import { inletShiftIntegral, levenspielHeight, pathVolume, temperatureFeasible, type Precision } from "./stages";
 
 /*
  * A tube with part of its outlet recycled to its inlet (Levenspiel, Chemical Reaction Engineering, 3rd
@@ -47,7 +47,7 @@ export function recycleVolume(basis: SizingBasis, first: boolean, a: number, b: 
  * the optimised volume (the envelope theorem: dV/dR = 0 there, or R sits on a bound that moves with a, b
  * only through X_1, which these already follow).
  */
-export function recycleVolumeGradient(basis: SizingBasis, first: boolean, a: number, b: number, ratio: number, precise = true): [number, number] {
+export function recycleVolumeGradient(basis: SizingBasis, first: boolean, a: number, b: number, ratio: number, precise: Precision = true): [number, number] {
   const x1 = recycleInletConversion(a, b, ratio);
   const h1 = levenspielHeight(basis, first, a, x1);
   const hb = levenspielHeight(basis, first, a, b);

@@ -10,6 +10,18 @@ export interface ChainObjective {
   gradient(k: number, a: number, b: number): [number, number];
   /** A cheaper gradient, smooth in (a, b), used only for the finite-difference Hessian. @default gradient */
   roughGradient?(k: number, a: number, b: number): [number, number];
+  /**
+   * Stage k's own second derivatives [d2/da2, d2/da db, d2/db2] (only those of free ends are used), when the
+   * stage's contribution is an inner minimum that differencing its gradient would find anew at each point.
+   * @default central differences of roughGradient
+   */
+  stageHessian?(k: number, a: number, b: number, needA: boolean, needB: boolean): [number, number, number];
+  /**
+   * Newton stops once a step moves no boundary by more than this. An objective that is itself an inner
+   * minimum carries that minimum's round-off in its gradient, so its steps stall near 1e-12 rather than
+   * shrinking further. @default 1e-13
+   */
+  readonly stepTolerance?: number;
 }
 
 interface Reduced {
@@ -31,6 +43,11 @@ function gradientOf(obj: ChainObjective, r: Reduced, y: readonly number[]): numb
 /** Tridiagonal Hessian of the reduced problem by central differences of the analytic stage gradients. */
 function hessianOf(obj: ChainObjective, r: Reduced, y: readonly number[]): { diag: number[]; off: number[] } {
   const n = r.active.length - 1;
+  if (obj.stageHessian) {
+    const stage = obj.stageHessian.bind(obj);
+    const hs = r.active.map((k, m) => stage(k, y[m], y[m + 1], m > 0, m < n));
+    return { diag: Array.from({ length: n }, (_, i) => hs[i][2] + hs[i + 1][0]), off: Array.from({ length: n - 1 }, (_, i) => hs[i + 1][1]) };
+  }
   const diag = new Array<number>(n).fill(0);
   const cross = new Array<number>(r.active.length).fill(0);
   const count = new Array<number>(r.active.length).fill(0);
@@ -113,7 +130,7 @@ function newton(obj: ChainObjective, r: Reduced, maxIterations: number): number 
         j = v;
         accepted = true;
         if (alpha === limit && closing >= 0) return closing;
-        if (step < 1e-13) return -1;
+        if (step < (obj.stepTolerance ?? 1e-13)) return -1;
         break;
       }
       alpha *= 0.5;

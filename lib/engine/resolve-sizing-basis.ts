@@ -1,8 +1,8 @@
 import { stoichiometricLimit } from "./concentrations";
-import { ensure } from "./errors";
-import type { SizingBasis } from "./sizing-basis";
+import { EngineError, ensure } from "./errors";
+import type { SizingBasis, TemperatureBounds, TemperatureChoice } from "./sizing-basis";
 import { resolveRate } from "./rate-law";
-import type { FeedSpec, ReactionSpec } from "./types";
+import type { FeedSpec, Quantity, ReactionSpec, TemperatureRange } from "./types";
 import { DIM, toSI, toTemperatureDifference } from "./units";
 
 /** The resolved basis and facts the feasibility checks use. */
@@ -18,16 +18,57 @@ function positiveSI(value: FeedSpec["flowA"], dim: string, path: string, what: s
   return v;
 }
 
-function resolveThermal(reaction: ReactionSpec, t0: number) {
+function temperatureOf(value: Quantity, path: string, what: string): number {
+  return positiveSI(value, DIM.temperature, path, what);
+}
+
+/** A range {min, max} of temperatures in K, checked: both above 0 K, min <= max. */
+function rangeOf(range: TemperatureRange, path: string, what: string): TemperatureBounds {
+  const lo = temperatureOf(range.min, `${path}.min`, `the lowest ${what}`);
+  const hi = temperatureOf(range.max, `${path}.max`, `the highest ${what}`);
+  ensure(lo <= hi, `the lowest ${what} ${lo} K is above the highest ${hi} K`, `${path}.min`);
+  return [lo, hi];
+}
+
+function isRange(v: Quantity | TemperatureRange | undefined): v is TemperatureRange {
+  return typeof v === "object" && v !== null;
+}
+
+interface ResolvedThermal {
+  readonly rise: number;
+  readonly interstage: number | null;
+  readonly maxTemperature: number;
+  readonly choice?: TemperatureChoice;
+}
+
+function resolveThermal(reaction: ReactionSpec, t0: number): ResolvedThermal {
   const th = reaction.thermal ?? { mode: "isothermal" as const };
-  if (th.mode === "isothermal") return { rise: 0, interstage: null, maxTemperature: Infinity };
   const P = "reaction.thermal";
+  if (th.mode === "isothermal") return { rise: 0, interstage: null, maxTemperature: Infinity };
+  if (th.mode === "stageTemperature") {
+    // Every stage isothermal at its own temperature: no rise, each stage's temperature chosen in the range.
+    const range = rangeOf({ min: th.min, max: th.max }, P, "stage temperature");
+    return { rise: 0, interstage: null, maxTemperature: range[1], choice: { first: range, later: range } };
+  }
   const rise = toTemperatureDifference(th.adiabaticRise, `${P}.adiabaticRise`);
   const maxTemperature = th.maxTemperature === undefined ? Infinity : positiveSI(th.maxTemperature, DIM.temperature, `${P}.maxTemperature`, "maximum temperature");
-  const interstage = th.interstageTemperature === undefined ? null : positiveSI(th.interstageTemperature, DIM.temperature, `${P}.interstageTemperature`, "interstage temperature");
-  ensure(t0 <= maxTemperature, `the feed temperature ${t0} K is above the maximum temperature ${maxTemperature} K, so no stage can keep it`, `${P}.maxTemperature`);
-  ensure(interstage === null || interstage <= maxTemperature, `the interstage temperature ${interstage} K is above the maximum temperature ${maxTemperature} K`, `${P}.interstageTemperature`);
-  return { rise, interstage, maxTemperature };
+  const given = th.interstageTemperature;
+  const later = isRange(given) ? rangeOf(given, `${P}.interstageTemperature`, "interstage temperature") : null;
+  const interstage = given === undefined ? null : later ? later[0] : temperatureOf(given as Quantity, `${P}.interstageTemperature`, "interstage temperature");
+  const first = th.feedTemperature === undefined ? null : rangeOf(th.feedTemperature, `${P}.feedTemperature`, "feed temperature");
+  // A chosen feed temperature with later stages carrying the previous outlet would tie every stage to that
+  // one choice (a shared path), which the stage-by-stage search cannot split.
+  ensure(
+    first === null || given !== undefined,
+    "a feed temperature range needs the interstage temperature (each later stage's inlet) given or given as a range",
+    `${P}.feedTemperature`,
+  );
+  if (first === null) ensure(t0 <= maxTemperature, `the feed temperature ${t0} K is above the maximum temperature ${maxTemperature} K, so no stage can keep it`, `${P}.maxTemperature`);
+  else ensure(first[0] <= maxTemperature, `the lowest feed temperature ${first[0]} K is above the maximum temperature ${maxTemperature} K`, `${P}.feedTemperature.min`);
+  const at = later ? `${P}.interstageTemperature.min` : `${P}.interstageTemperature`;
+  ensure(interstage === null || interstage <= maxTemperature, `the ${later ? "lowest " : ""}interstage temperature ${interstage} K is above the maximum temperature ${maxTemperature} K`, at);
+  const choice = first || later ? { choice: { first, later } } : {};
+  return { rise, interstage, maxTemperature, ...choice };
 }
 
 /** Resolves units, defaults and ranges of the feed and reaction into a SizingBasis. */
@@ -50,4 +91,16 @@ export function resolveSizingBasis(feed: FeedSpec, reaction: ReactionSpec): Reso
     upper: Math.min(stoichiometricLimit(resolved.basis.species), resolved.range[1]),
   };
   return { basis, rateRange: resolved.range };
+}
+
+/**
+ * Refuses temperatures given as ranges where a train is rated rather than designed: rating takes each
+ * stage's temperatures as given.
+ * @throws EngineError at the thermal field holding a range.
+ */
+export function ensureFixedTemperatures(basis: SizingBasis, reaction: ReactionSpec): void {
+  if (!basis.choice) return;
+  const th = reaction.thermal;
+  const path = th?.mode === "stageTemperature" ? "reaction.thermal.mode" : th?.mode === "adiabatic" && th.feedTemperature ? "reaction.thermal.feedTemperature" : "reaction.thermal.interstageTemperature";
+  throw new EngineError("invalid-spec", "rating a train needs fixed temperatures: give the temperature as one value, not a range to choose from", path);
 }

@@ -30,6 +30,31 @@ export interface SizingBasis {
   readonly maxConversion: number;
   /** Largest conversion where the rate is defined: maxConversion, or a rate table's last point. */
   readonly upper: number;
+  /** Stage inlet temperatures the design chooses within ranges (see TemperatureChoice); absent when all are given. */
+  readonly choice?: TemperatureChoice;
+  /**
+   * Set on a basis made for one stage at one inlet temperature (stage-temperature.ts): its path belongs to that
+   * stage alone, so no per-basis table of the feed path is built for it.
+   */
+  readonly ownPath?: boolean;
+}
+
+/** Lowest and highest inlet temperature a stage may be given, K. */
+export type TemperatureBounds = readonly [number, number];
+
+/**
+ * Inlet temperatures chosen by the design: the first stage's range (null: the feed temperature) and every
+ * later stage's (null: the interstage temperature, or the previous outlet).
+ */
+export interface TemperatureChoice {
+  readonly first: TemperatureBounds | null;
+  readonly later: TemperatureBounds | null;
+}
+
+/** The range a stage's inlet temperature is chosen in, or null when it is given. */
+export function chosenRange(basis: SizingBasis, first: boolean): TemperatureBounds | null {
+  if (!basis.choice) return null;
+  return first ? basis.choice.first : basis.choice.later;
 }
 
 /** Inlet temperature of a stage starting at conversion a. */
@@ -46,5 +71,6 @@ export function stageTemperature(basis: SizingBasis, first: boolean, a: number, 
 
 /** True when a stage's temperature path does not depend on where it starts (no interstage reset). */
 export function sharedPath(basis: SizingBasis): boolean {
+  if (basis.choice || basis.ownPath) return false;
   return basis.interstage === null || basis.rise === 0 && basis.interstage === basis.t0;
 }

@@ -1,5 +1,6 @@
 import { stagePlot } from "./levenspiel";
 import { resolveSizingBasis } from "./resolve-sizing-basis";
+import { stageBasisAt } from "./stage-temperature";
 import type { FeedSpec, ReactionSpec, StagePlot, TrainStageType } from "./types";
 
 /**
@@ -10,9 +11,14 @@ import type { FeedSpec, ReactionSpec, StagePlot, TrainStageType } from "./types"
  */
 export function stagePlots(
   chemistry: { feed: FeedSpec; reaction: ReactionSpec },
-  stages: readonly { type: TrainStageType; conversionIn: number; conversionOut: number; recycleRatio?: number }[],
+  stages: readonly { type: TrainStageType; conversionIn: number; conversionOut: number; recycleRatio?: number; temperatureIn?: number; temperatureChosen?: boolean }[],
 ): StagePlot[] {
   if (stages.length === 0) return [];
   const { basis } = resolveSizingBasis(chemistry.feed, chemistry.reaction);
-  return stages.map((s, k) => stagePlot(basis, s.type, k === 0, s.conversionIn, s.conversionOut, s.recycleRatio));
+  return stages.map((s, k) =>
+    // A stage whose inlet temperature the design chose is drawn on its own path from that temperature.
+    s.temperatureChosen && s.temperatureIn !== undefined
+      ? stagePlot(stageBasisAt(basis, s.temperatureIn), s.type, false, s.conversionIn, s.conversionOut, s.recycleRatio)
+      : stagePlot(basis, s.type, k === 0, s.conversionIn, s.conversionOut, s.recycleRatio),
+  );
 }

@@ -102,6 +102,12 @@ export interface IsothermalSpec {
   mode: "isothermal";
 }
 
+/** A range of temperatures, K (min <= max; min = max fixes the temperature). */
+export interface TemperatureRange {
+  min: Quantity;
+  max: Quantity;
+}
+
 /** Adiabatic operation: T = T_in + adiabaticRise (X - X_in) within a stage. */
 export interface AdiabaticSpec {
   mode: "adiabatic";
@@ -109,12 +115,33 @@ export interface AdiabaticSpec {
   adiabaticRise: Quantity;
   /** Highest temperature a stage may reach, K; a stage that exceeds it is infeasible. @default no limit */
   maxTemperature?: Quantity;
-  /** Inlet temperature of every stage after the first (interstage cooling or heating), K. @default previous outlet */
-  interstageTemperature?: Quantity;
+  /**
+   * Inlet temperature of every stage after the first (interstage cooling or heating), K; a range lets the
+   * design choose each later stage's inlet temperature within it. @default previous outlet
+   */
+  interstageTemperature?: Quantity | TemperatureRange;
+  /**
+   * First stage's inlet temperature chosen within this range (the feed heated or cooled before the first
+   * stage); needs interstageTemperature. feed.temperature stays the temperature the feed is supplied at.
+   * @default the feed temperature
+   */
+  feedTemperature?: TemperatureRange;
+}
+
+/**
+ * Every stage held at its own temperature, chosen by the design within [min, max] (heat exchanged inside
+ * the stage so its temperature does not change); min = max runs every stage at one temperature.
+ */
+export interface StageTemperatureSpec {
+  mode: "stageTemperature";
+  /** Lowest stage temperature, K. */
+  min: Quantity;
+  /** Highest stage temperature, K (the maximum temperature). */
+  max: Quantity;
 }
 
 /** Thermal mode. */
-export type ThermalSpec = IsothermalSpec | AdiabaticSpec;
+export type ThermalSpec = IsothermalSpec | AdiabaticSpec | StageTemperatureSpec;
 
 /** The reaction, its phase, rate law and thermal mode. */
 export interface ReactionSpec {
@@ -274,6 +301,8 @@ export interface StageResult {
   levenspiel: StagePlot;
   /** Recycle ratio R of a tube with recycle (recycled flow over the flow leaving the stage); absent for other types. */
   recycleRatio?: number;
+  /** True when the design chose this stage's inlet temperature (temperatureIn) within a given range. */
+  temperatureChosen?: boolean;
 }
 
 /** One ranked sequence. */
@@ -301,12 +330,46 @@ export interface CandidateResult {
   emptyStages?: number;
   /** Stages; empty when infeasible. */
   stages: StageResult[];
+  /**
+   * Total volume over the best temperature path's volume (>= 1), when the result has that reference;
+   * null when infeasible or without one.
+   */
+  volumeOverBestPath?: number | null;
+}
+
+/** One point of the best temperature path. */
+export interface BestPathPoint {
+  /** Conversion of A. */
+  conversion: number;
+  /** Temperature of the highest rate at this conversion within the allowed range, K. */
+  temperature: number;
+  /** Equilibrium temperature at this conversion (net rate zero), K; absent where there is none. */
+  equilibriumTemperature?: number;
+}
+
+/**
+ * The best temperature path: a tube whose temperature at every conversion is the one of the highest rate
+ * (within the lowest and highest temperatures allowed). Its volume is the least any train can have.
+ */
+export interface BestTemperaturePath {
+  /** FA0 * integral from 0 to the target of dX/(-rA(X, T_best(X))), m3. */
+  volume: number;
+  /** Lowest and highest temperatures the path may take, K. */
+  lowestTemperature: number;
+  highestTemperature: number;
+  /** Points from X = 0 to the target, for a conversion–temperature chart with the equilibrium line. */
+  points: BestPathPoint[];
 }
 
 /** Single-stage references from feed to target, m3 (null when a single stage cannot do it). */
 export interface ReferenceResult {
   singleCSTR: number | null;
   singlePFR: number | null;
+  /**
+   * The best temperature path, for a reversible exothermic power law with Arrhenius terms and a highest
+   * temperature (maxTemperature or the top of a stage temperature range); null otherwise. Absent in older results.
+   */
+  bestTemperaturePath?: BestTemperaturePath | null;
 }
 
 /** The engine's answer to a design request. */

@@ -33,14 +33,18 @@ const rate = z.discriminatedUnion("law", [
   z.strictObject({ law: z.literal("table"), conversion: z.array(z.number()), rate: z.array(z.number()) }),
 ]);
 
+const temperatureRange = z.strictObject({ min: quantity, max: quantity });
+
 const thermal = z.discriminatedUnion("mode", [
   z.strictObject({ mode: z.literal("isothermal") }),
   z.strictObject({
     mode: z.literal("adiabatic"),
     adiabaticRise: quantity,
     maxTemperature: quantity.optional(),
-    interstageTemperature: quantity.optional(),
+    interstageTemperature: z.union([quantity, temperatureRange]).optional(),
+    feedTemperature: temperatureRange.optional(),
   }),
+  z.strictObject({ mode: z.literal("stageTemperature"), min: quantity, max: quantity }),
 ]);
 
 const feed = z.strictObject({ flowA: quantity, concA: quantity, temperature: quantity.optional(), ratios: ratioMap.optional() });
