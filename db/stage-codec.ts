@@ -16,7 +16,7 @@ import { deflateRawSync, inflateRawSync } from "node:zlib";
  *            then per stage: [type] [volume] [conversionOut] [conversionIn unless CHAINED]
  *            [temperatureIn temperatureOut unless ONE_TEMPERATURE] [residenceTime unless TAU_FROM_FLOW]
  *            [count sizeEach unless ONE_VESSEL_EACH] [cost (NaN for none) unless NO_COST]
- *            [recycleRatio, a tube with recycle only]
+ *            [recycleRatio, a tube with recycle only] [chosen-temperature mark if MARKS_CHOSEN: 0 none, 1 true, 2 false]
  */
 
 const FORM_JSON = 0;
@@ -28,6 +28,7 @@ const ONE_TEMPERATURE = 2;
 const TAU_FROM_FLOW = 4;
 const ONE_VESSEL_EACH = 8;
 const NO_COST = 16;
+const MARKS_CHOSEN = 32;
 
 /** Stage types by their code; a tube with recycle (code 2) also keeps its recycle ratio. */
 const TYPES = ["CSTR", "PFR", "PFR-recycle"] as const;
@@ -50,6 +51,8 @@ interface CompactStage {
   sizeEach: number;
   cost: number | null;
   recycleRatio: number | null;
+  /** The stage's `temperatureChosen` mark, when it has one. */
+  chosen: boolean | null;
 }
 
 /** The stored bytes of a stage list. */
@@ -93,7 +96,9 @@ function compactStages(stages: readonly Stage[]): CompactStage[] | null {
     const type = TYPES.indexOf(s.type as (typeof TYPES)[number]);
     if (type < 0) return null;
     const recycle = type === RECYCLE;
-    if (Object.keys(s).length !== STAGE_KEYS.length + (recycle ? 1 : 0) || !STAGE_KEYS.every((k) => k in s)) return null;
+    const marked = "temperatureChosen" in s;
+    if (marked && typeof s.temperatureChosen !== "boolean") return null;
+    if (Object.keys(s).length !== STAGE_KEYS.length + (recycle ? 1 : 0) + (marked ? 1 : 0) || !STAGE_KEYS.every((k) => k in s)) return null;
     if (recycle && !isFinite(s.recycleRatio)) return null;
     const nums = [s.conversionIn, s.conversionOut, s.temperatureIn, s.temperatureOut, s.volume, s.residenceTime];
     if (!nums.every(isFinite)) return null;
@@ -113,6 +118,7 @@ function compactStages(stages: readonly Stage[]): CompactStage[] | null {
       sizeEach: plain(v.sizeEach as number),
       cost: s.cost === null ? null : plain(s.cost as number),
       recycleRatio: recycle ? plain(s.recycleRatio as number) : null,
+      chosen: marked ? (s.temperatureChosen as boolean) : null,
     });
   }
   return out;
@@ -134,11 +140,12 @@ function writeCompact(stages: CompactStage[]): Buffer {
   const v0 = flowOf(stages);
   const oneVesselEach = stages.every((s) => s.count === 1 && s.sizeEach === s.volume);
   const noCost = stages.every((s) => s.cost === null);
-  const flags = (chained ? CHAINED : 0) | (oneTemperature ? ONE_TEMPERATURE : 0) | (v0 !== null ? TAU_FROM_FLOW : 0) | (oneVesselEach ? ONE_VESSEL_EACH : 0) | (noCost ? NO_COST : 0);
+  const marksChosen = stages.some((s) => s.chosen !== null);
+  const flags = (marksChosen ? MARKS_CHOSEN : 0) | (chained ? CHAINED : 0) | (oneTemperature ? ONE_TEMPERATURE : 0) | (v0 !== null ? TAU_FROM_FLOW : 0) | (oneVesselEach ? ONE_VESSEL_EACH : 0) | (noCost ? NO_COST : 0);
 
   const perStage = 17 + (chained ? 0 : 8) + (oneTemperature ? 0 : 16) + (v0 !== null ? 0 : 8) + (oneVesselEach ? 0 : 12) + (noCost ? 0 : 8);
   const recycles = stages.filter((s) => s.type === RECYCLE).length;
-  const buf = Buffer.alloc(3 + (oneTemperature ? 8 : 0) + (v0 !== null ? 8 : 0) + perStage * stages.length + 8 * recycles);
+  const buf = Buffer.alloc(3 + (oneTemperature ? 8 : 0) + (v0 !== null ? 8 : 0) + perStage * stages.length + 8 * recycles + (marksChosen ? stages.length : 0));
   buf[0] = FORM_COMPACT;
   buf[1] = stages.length;
   buf[2] = flags;
@@ -166,6 +173,7 @@ function writeCompact(stages: CompactStage[]): Buffer {
     }
     if (!noCost) f64(s.cost ?? NaN);
     if (s.type === RECYCLE) f64(s.recycleRatio as number);
+    if (marksChosen) buf[at++] = s.chosen === null ? 0 : s.chosen ? 1 : 2;
   }
   return buf;
 }
@@ -201,6 +209,10 @@ function readCompact(buf: Buffer): Stage[] {
     const c = flags & NO_COST ? NaN : f64();
     const stage: Stage = { type, conversionIn, conversionOut, temperatureIn, temperatureOut, volume, residenceTime, vessels, cost: Number.isNaN(c) ? null : c };
     if (type === "PFR-recycle") stage.recycleRatio = f64();
+    if (flags & MARKS_CHOSEN) {
+      const mark = buf[at++];
+      if (mark) stage.temperatureChosen = mark === 1;
+    }
     stages.push(stage);
     previousOut = conversionOut;
   }

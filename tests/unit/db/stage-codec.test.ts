@@ -54,6 +54,19 @@ describe("stored stages", () => {
     }
   });
 
+  it("keep stages whose inlet temperature the design chose compact, with their mark", () => {
+    const spec = oneReaction.find((s) => s.name === "adiabatic-reversible-cooling.json")!.spec as unknown as DesignSpec;
+    const thermal = { ...(spec.reaction.thermal as object), interstageTemperature: { min: 300, max: 400 } };
+    const result = designTrains({ ...spec, reaction: { ...spec.reaction, thermal }, train: { maxStages: 3, types: ["CSTR", "PFR"] } } as DesignSpec);
+    const rows = candidateRows("s", "c", result).filter((r) => r.stages.some((st) => "temperatureChosen" in st));
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) {
+      const bytes = encodeStages(row.stages);
+      expect(bytes[0]).toBe(1);
+      expect(decodeStages(bytes)).toEqual(viaJson(row.stages));
+    }
+  });
+
   it("keep several reactions' stages as deflated JSON that reads back the same", () => {
     const spec = specs.find((s) => s.name === "network-three-reactions.json")!.spec as unknown as NetworkDesignSpec;
     const rows = networkCandidateRows("sweep", "scenario", designNetwork({ ...spec, train: { maxStages: 2, types: ["CSTR", "PFR"] } }));
@@ -88,7 +101,7 @@ describe("stored stages", () => {
     residenceTime: num,
     vessels: fc.record({ count: fc.oneof(fc.nat(), fc.constant(1)), sizeEach: num }),
     cost: fc.option(num, { nil: null }),
-  }).chain((st) => (st.type === "PFR-recycle" ? fc.option(num, { nil: undefined }).map((r) => (r === undefined ? st : { ...st, recycleRatio: r })) : fc.constant(st)));
+  }).chain((st) => fc.constantFrom<boolean | undefined>(undefined, true, false).map((chosen) => (chosen === undefined ? st : { ...st, temperatureChosen: chosen }))).chain((st) => (st.type === "PFR-recycle" ? fc.option(num, { nil: undefined }).map((r) => (r === undefined ? st : { ...st, recycleRatio: r })) : fc.constant(st)));
   /** Trains as the engine shapes them: chained conversions, one temperature, tau = V / v0, one vessel each. */
   const designed = fc.tuple(fc.array(fc.tuple(fc.constantFrom("CSTR", "PFR"), fc.double({ min: 1e-9, max: 1e6, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })), { minLength: 1, maxLength: 8 }), fc.double({ min: 1e-9, max: 1e3, noNaN: true }), fc.double({ min: 200, max: 900, noNaN: true })).map(([parts, v0, t]) => {
     let x = 0;
