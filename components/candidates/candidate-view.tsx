@@ -62,7 +62,12 @@ export function CandidateView({ candidateId, canPin, typedUnits, initial }: { ca
   const ref = c.scenario.reference;
   const singleSpec = sweepQ.data?.kind === "single" ? sweepQ.data.spec : undefined;
   const thermal = singleSpec?.reaction?.thermal;
-  const adiabatic = thermal?.mode === "adiabatic" || c.stages.some((s) => Math.abs(s.temperatureOut - s.temperatureIn) > 1e-6);
+  const bestPath = ref?.bestTemperaturePath ?? null;
+  // Shown when temperatures change along the train or a best temperature path is there to compare with.
+  const adiabatic =
+    thermal?.mode === "adiabatic" || bestPath !== null || c.stages.some((s, i) => Math.abs(s.temperatureOut - s.temperatureIn) > 1e-6 || (i > 0 && s.temperatureIn !== c.stages[i - 1]!.temperatureOut));
+  // The path's highest temperature is the limit it keeps to (kelvin, as stored).
+  const maxTemperature = bestPath?.highestTemperature ?? null;
   const warnings = thermalWarnings({ thermal, stageTemperatures: c.stages.map((s) => s.temperatureOut) });
   const target = singleSpec?.target?.conversion;
   const empty = c.stages.filter((s) => s.volume === 0).map((s) => c.stages.indexOf(s) + 1);
@@ -77,6 +82,9 @@ export function CandidateView({ candidateId, canPin, typedUnits, initial }: { ca
           ["Total cost", formatNumber(c.totalCost, 4, TABLE_NUMBERS)],
           ["Ratio to single PFR", c.ratioToPfr === null ? "—" : `${formatNumber(c.ratioToPfr, 4, TABLE_NUMBERS)}×`],
           ["Single CSTR / PFR", `${formatVolume(ref?.singleCSTR, unit)} / ${formatVolume(ref?.singlePFR, unit)}`],
+          ...(bestPath && c.totalVolume !== null
+            ? ([["Over the best temperature path", `${formatNumber(c.totalVolume / bestPath.volume, 4, TABLE_NUMBERS)}× (path ${formatVolume(bestPath.volume, unit, 4)})`]] as [string, string][])
+            : []),
         ]}
       />
 
@@ -101,8 +109,13 @@ export function CandidateView({ candidateId, canPin, typedUnits, initial }: { ca
             <PinSection c={c} canPin={canPin} />
             {adiabatic ? (
               <section className="card p-4" aria-labelledby="temp-title">
-                <h2 id="temp-title">Temperature profile</h2>
-                <TemperatureProfile stages={c.stages} />
+                <h2 id="temp-title">{bestPath ? "Conversion and temperature" : "Temperature profile"}</h2>
+                {bestPath ? (
+                  <p className="mb-2 text-xs text-ink-soft">
+                    The best temperature path runs at the temperature of the highest rate at each conversion, within the temperatures allowed; a tube that follows it has the least volume any train can have.
+                  </p>
+                ) : null}
+                <TemperatureProfile stages={c.stages} bestPath={bestPath} maxTemperature={maxTemperature} />
               </section>
             ) : null}
           </div>

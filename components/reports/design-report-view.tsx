@@ -66,9 +66,13 @@ export function DesignReportView({ report: r, preference = "si" }: { report: Des
             <StageTable columns={STAGE_COLUMNS} stages={r.stages} />
           </Section>
 
-          {r.thermal.mode === "adiabatic" && r.stages.length ? (
-            <Section id="report-temperature-title" title="Temperature profile (adiabatic)">
-              <TemperatureProfile stages={r.stages as unknown as StoredStage[]} />
+          {(r.thermal.mode === "adiabatic" || r.references.bestTemperaturePath) && r.stages.length ? (
+            <Section id="report-temperature-title" title={r.references.bestTemperaturePath ? "Conversion and temperature" : "Temperature profile (adiabatic)"}>
+              <TemperatureProfile
+                stages={r.stages as unknown as StoredStage[]}
+                bestPath={r.references.bestTemperaturePath}
+                maxTemperature={r.references.bestTemperaturePath?.highestTemperature ?? r.thermal.maxTemperature}
+              />
             </Section>
           ) : null}
 

@@ -91,12 +91,16 @@ export function conversionTemperatureSummary(input: TemperatureChartInput, forma
   return `Conversion against temperature: ${parts.join("; ")}.`;
 }
 
-/** The temperature axis: the lines' span with a margin (never from zero, unlike a volume axis). */
+/**
+ * The temperature axis: the lines' span with a margin (never from zero, unlike a volume axis). The
+ * equilibrium line does not widen it: near zero conversion its temperature climbs far above anything a
+ * stage reaches, and the chart clips it at the top instead.
+ */
 export function temperatureAxisRange(series: readonly TemperatureSeries[]): [number, number] {
-  const ys = series.flatMap((s) => s.points.map((p) => p.y)).filter(Number.isFinite);
+  const ys = series.filter((s) => s.tone !== "equilibrium").flatMap((s) => s.points.map((p) => p.y)).filter(Number.isFinite);
   if (!ys.length) return [0, 1];
   const lo = Math.min(...ys);
   const hi = Math.max(...ys);
   const pad = Math.max((hi - lo) * 0.06, 1);
-  return [lo - pad, hi + pad];
+  return [lo - pad, hi + 2 * pad];
 }

@@ -10,7 +10,7 @@ import { typedUnits, type WithShownUnits } from "@/lib/units/typed-units";
 import { resolveDisplayUnits, type DisplayPreference } from "@/lib/units/display-preference";
 import type { UnitKind } from "@/lib/units/display";
 import { describeFeed, describeObjective, describeRate, describeReaction, type WordLine } from "./kinetics-words";
-import type { TrainStageType } from "@/lib/engine";
+import type { BestTemperaturePath, TrainStageType } from "@/lib/engine";
 import { stageTypeCautions, stageTypeName, TRAIN_STAGE_TYPES } from "@/lib/stage-types";
 import { isPinnedNetworkCandidate, type NetworkCurves, type NetworkReport } from "./network-report";
 import { networkDesignReport } from "./network-design-report";
@@ -98,7 +98,7 @@ export interface DesignReport {
   train: { sequence: TrainStageType[]; label: string; totalVolume: number | null; totalCost: number | null; ratioToPfr: number | null };
   stages: ReportStage[];
   equilibriumConversion: number | null;
-  references: { singleCSTR: number | null; singlePFR: number | null; feedVolumetricFlow: number | null };
+  references: { singleCSTR: number | null; singlePFR: number | null; feedVolumetricFlow: number | null; bestTemperaturePath: BestTemperaturePath | null };
   thermal: { mode: "isothermal" | "adiabatic"; adiabaticRise: number | null; maxTemperature: number | null };
   costs: {
     settings: { recorded: false } | { recorded: true; currency: string | null; basisYear: number | null; correlations: { type: string; a: number | null; b: number | null; n: number | null; source: string }[]; other: WordLine[]; updatedAt: string };
@@ -221,7 +221,12 @@ export function buildDesignReport(input: ReportInputs): DesignReport {
     train: { sequence, label: sequence.map(stageTypeName).join(" → "), totalVolume: num(c.totalVolume), totalCost: num(c.totalCost), ratioToPfr: num(c.ratioToPfr) },
     stages,
     equilibriumConversion: equilibrium,
-    references: { singleCSTR: num(reference.singleCSTR), singlePFR: num(reference.singlePFR), feedVolumetricFlow: num(reference.feedVolumetricFlow) },
+    references: {
+      singleCSTR: num(reference.singleCSTR),
+      singlePFR: num(reference.singlePFR),
+      feedVolumetricFlow: num(reference.feedVolumetricFlow),
+      bestTemperaturePath: bestPathOf(reference.bestTemperaturePath),
+    },
     thermal: { mode: adiabatic ? "adiabatic" : "isothermal", adiabaticRise: num(thermal.adiabaticRise), maxTemperature: num(thermal.maxTemperature) },
     costs: costsSection(input, num(c.totalCost)),
     robustness: robustnessSection(input),
@@ -267,4 +272,21 @@ export function reportCosting(pin: PinnedDesign, candidate: { installedCost: num
 export function plannedVesselIds(costing: ReportInputs["candidate"]): string[] {
   const plan = obj(costing?.inventoryPlan);
   return (Array.isArray(plan.assignments) ? plan.assignments : []).map((a) => str(obj(a).vesselId)).filter((id): id is string => !!id);
+}
+
+/** A stored best temperature path, when the scenario has a whole one (older scenarios have none). */
+function bestPathOf(v: unknown): BestTemperaturePath | null {
+  const p = obj(v);
+  const volume = num(p.volume);
+  const lowest = num(p.lowestTemperature);
+  const highest = num(p.highestTemperature);
+  if (volume === null || lowest === null || highest === null || !Array.isArray(p.points)) return null;
+  const points = p.points.map(obj).flatMap((q) => {
+    const conversion = num(q.conversion);
+    const temperature = num(q.temperature);
+    const equilibriumTemperature = num(q.equilibriumTemperature);
+    if (conversion === null || temperature === null) return [];
+    return [equilibriumTemperature === null ? { conversion, temperature } : { conversion, temperature, equilibriumTemperature }];
+  });
+  return { volume, lowestTemperature: lowest, highestTemperature: highest, points };
 }

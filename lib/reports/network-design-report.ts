@@ -60,7 +60,7 @@ export function networkDesignReport(input: ReportInputs): DesignReport {
     train: { sequence, label: sequence.join(" → "), totalVolume: candidate.totalVolume, totalCost: null, ratioToPfr: null },
     stages: [],
     equilibriumConversion: null,
-    references: { singleCSTR: candidate.scenario.reference?.singleCSTR?.volume ?? null, singlePFR: candidate.scenario.reference?.singlePFR?.volume ?? null, feedVolumetricFlow: candidate.scenario.reference?.feedVolumetricFlow ?? null },
+    references: { singleCSTR: candidate.scenario.reference?.singleCSTR?.volume ?? null, singlePFR: candidate.scenario.reference?.singlePFR?.volume ?? null, feedVolumetricFlow: candidate.scenario.reference?.feedVolumetricFlow ?? null, bestTemperaturePath: null },
     thermal: { mode: "isothermal", adiabaticRise: null, maxTemperature: null },
     costs: costsSection(input, null),
     robustness: robustnessSection(input),

@@ -55,7 +55,7 @@ export function renderReportPdf(report: DesignReport, units?: DisplayUnits): Pro
     summary(doc, report, units);
     levenspiel(doc, report);
     stageTable(doc, report, units);
-    if (report.thermal.mode === "adiabatic" && report.stages.length) temperatureProfile(doc, report, units);
+    if ((report.thermal.mode === "adiabatic" || report.references.bestTemperaturePath) && report.stages.length) temperatureProfile(doc, report, units);
   }
   sections(doc, report, units);
   footers(doc, report);
@@ -185,9 +185,12 @@ function stageTable(doc: Doc, r: DesignReport, units?: DisplayUnits) {
 }
 
 function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {
-  heading(doc, "Temperature profile (adiabatic)");
+  const path = r.references.bestTemperaturePath;
+  heading(doc, path ? "Conversion and temperature" : "Temperature profile (adiabatic)");
   const temps = r.stages.flatMap((s) => [s.temperatureIn, s.temperatureOut]).filter(Number.isFinite);
   if (r.thermal.maxTemperature !== null) temps.push(r.thermal.maxTemperature);
+  // The path widens the axis; the equilibrium line does not (it climbs far above near zero conversion).
+  if (path) temps.push(...path.points.map((p) => p.temperature));
   const lo = Math.floor(Math.min(...temps) - 2);
   const hi = Math.ceil(Math.max(...temps) + 2);
   const h = 150;
@@ -195,6 +198,22 @@ function temperatureProfile(doc: Doc, r: DesignReport, units?: DisplayUnits) {
   const box = { x: MARGIN + 64, y: doc.y + 6, w: width(doc) - 76, h };
   const xMax = Math.min(1, Math.max(...r.stages.map((s) => s.conversionOut)) * 1.05 || 1);
   const { sx, sy } = axes(doc, box, xMax, lo, hi, "Conversion X", `Temperature, ${units ? unitLabel("temperature", units.temperature) : "K"}`, (v) => formatNumber(units ? fromSI("temperature", v, units.temperature) : v, 4, RECORD_NUMBERS));
+  if (path) {
+    const line = (pts: { x: number; y: number }[], colour: string, dash: boolean) => {
+      const inside = pts.filter((p) => p.y >= lo && p.y <= hi && p.x <= xMax);
+      if (inside.length < 2) return;
+      doc.save();
+      doc.moveTo(sx(inside[0]!.x), sy(inside[0]!.y));
+      for (const p of inside.slice(1)) doc.lineTo(sx(p.x), sy(p.y));
+      if (dash) doc.dash(4, { space: 3 });
+      doc.lineWidth(1).strokeColor(colour).stroke().undash();
+      doc.restore();
+    };
+    line(path.points.flatMap((p) => (p.equilibriumTemperature === undefined ? [] : [{ x: p.conversion, y: p.equilibriumTemperature }])), "#b45309", false);
+    line(path.points.map((p) => ({ x: p.conversion, y: p.temperature })), INK, true);
+    doc.font("body").fontSize(7.5).fillColor(INK).text("- - best temperature path", box.x + box.w - 130, box.y + 2, { width: 128, align: "right" });
+    doc.fillColor("#b45309").text("equilibrium line", box.x + box.w - 130, box.y + 12, { width: 128, align: "right" });
+  }
   for (const s of r.stages) {
     const style = stageStyle(s.index - 1);
     doc.moveTo(sx(s.conversionIn), sy(s.temperatureIn)).lineTo(sx(s.conversionOut), sy(s.temperatureOut)).lineWidth(1.6).strokeColor(style.stroke).stroke();

@@ -42,19 +42,21 @@ describe("conversion–temperature chart", () => {
     const series = conversionTemperatureSeries(
       {
         stages: train.stages,
-        bestPath: { points: [{ conversion: 0, temperature: 420 }, { conversion: 0.5, temperature: 400, equilibriumTemperature: 430 }, { conversion: 0.9, temperature: 350, equilibriumTemperature: 370 }] },
+        bestPath: { points: [{ conversion: 0, temperature: 420 }, { conversion: 0.5, temperature: 400, equilibriumTemperature: 600 }, { conversion: 0.9, temperature: 350, equilibriumTemperature: 370 }] },
         maxTemperature: 420,
       },
       toCelsius,
     );
-    expect(series.find((s) => s.id === "equilibrium")!.points).toEqual([{ x: 0.5, y: 430 - 273.15 }, { x: 0.9, y: 370 - 273.15 }]);
+    expect(series.find((s) => s.id === "equilibrium")!.points).toEqual([{ x: 0.5, y: 600 - 273.15 }, { x: 0.9, y: 370 - 273.15 }]);
     expect(series.find((s) => s.id === "best-path")!.points.map((p) => p.y)).toEqual([420, 400, 350].map(toCelsius));
     const limit = series.find((s) => s.id === "max-temperature")!;
     expect(limit.points.map((p) => p.y)).toEqual([420 - 273.15, 420 - 273.15]);
     expect(limit.points[0]!.x).toBe(0);
     const [lo, hi] = temperatureAxisRange(series);
     expect(lo).toBeLessThan(330 - 273.15);
-    expect(hi).toBeGreaterThan(430 - 273.15);
+    // The equilibrium line (up to 600 K here) does not widen the axis; the limit and the stages do.
+    expect(hi).toBeGreaterThan(420 - 273.15);
+    expect(hi).toBeLessThan(450 - 273.15);
     expect(lo).toBeGreaterThan(0);
   });
 
