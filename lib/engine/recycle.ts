@@ -2,6 +2,7 @@ import { kronrod15 } from "./quadrature";
 import { brentRoot } from "./root-finding";
 import type { SizingBasis } from "./sizing-basis";
 import { inletShiftIntegral, levenspielHeight, pathVolume, temperatureFeasible, type Precision } from "./stages";
+import { basisMemo } from "./basis-memo";
 
 /*
  * A tube with part of its outlet recycled to its inlet (Levenspiel, Chemical Reaction Engineering, 3rd
@@ -63,7 +64,7 @@ export interface RecycleDesign {
 
 /** Samples of the tube's inlet conversion before the local search; see optimalRecycle. */
 const SCAN = 16;
-const memo = new WeakMap<SizingBasis, Map<string, RecycleDesign>>();
+const remembered = basisMemo<RecycleDesign>(50_000);
 
 /**
  * The recycle ratio that minimises the volume of a tube with recycle from a to b, within
@@ -80,19 +81,7 @@ const memo = new WeakMap<SizingBasis, Map<string, RecycleDesign>>();
  */
 export function optimalRecycle(basis: SizingBasis, first: boolean, a: number, b: number): RecycleDesign {
   if (b <= a) return { ratio: 0, volume: 0 };
-  let cache = memo.get(basis);
-  if (!cache) {
-    cache = new Map();
-    memo.set(basis, cache);
-  }
-  const key = `${first ? 1 : 0}:${a}:${b}`;
-  const hit = cache.get(key);
-  if (hit) return hit;
-  const design = searchRecycle(basis, first, a, b);
-  // Within one request the refinement asks for the same stage's value and gradient in turn.
-  if (cache.size > 50_000) cache.clear();
-  cache.set(key, design);
-  return design;
+  return remembered(basis, `${first ? 1 : 0}:${a}:${b}`, () => searchRecycle(basis, first, a, b));
 }
 
 function searchRecycle(basis: SizingBasis, first: boolean, a: number, b: number): RecycleDesign {

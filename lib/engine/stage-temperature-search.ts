@@ -3,8 +3,9 @@ import { brentRoot } from "./root-finding";
 import { chosenRange, type SizingBasis } from "./sizing-basis";
 import type { StagePlace } from "./stages";
 import { inletBounds, slopeBreakpoints, stageBasisAt, TEMPERATURE_SCAN, temperatureSlope, volumeAtTemperature, type StageTemperatureDesign } from "./stage-temperature";
+import { basisMemo } from "./basis-memo";
 
-const memo = new WeakMap<SizingBasis, Map<string, StageTemperatureDesign>>();
+const remembered = basisMemo<StageTemperatureDesign>(100_000);
 
 /**
  * The inlet temperature of least volume for a stage from a to b, within its range and cap. A scan of
@@ -18,18 +19,7 @@ const memo = new WeakMap<SizingBasis, Map<string, StageTemperatureDesign>>();
  * and Hessian at the same conversions in turn.
  */
 export function bestStageTemperature(basis: SizingBasis, place: StagePlace, a: number, b: number): StageTemperatureDesign {
-  let cache = memo.get(basis);
-  if (!cache) {
-    cache = new Map();
-    memo.set(basis, cache);
-  }
-  const key = `${place.type}:${place.first ? 1 : 0}:${place.recycleRatio ?? ""}:${a}:${b}`;
-  const hit = cache.get(key);
-  if (hit) return hit;
-  const design = searchTemperature(basis, place, a, b);
-  if (cache.size > 100_000) cache.clear();
-  cache.set(key, design);
-  return design;
+  return remembered(basis, `${place.type}:${place.first ? 1 : 0}:${place.recycleRatio ?? ""}:${a}:${b}`, () => searchTemperature(basis, place, a, b));
 }
 
 function searchTemperature(basis: SizingBasis, place: StagePlace, a: number, b: number): StageTemperatureDesign {
