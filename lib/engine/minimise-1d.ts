@@ -108,3 +108,40 @@ export function minimiseOnRange(f: (x: number) => number, lo: number, hi: number
   const m = brentMinimum(f, xs[Math.max(0, best - 1)], xs[Math.min(samples - 1, best + 1)], relTol);
   return m.value < fs[best] ? m : { x: xs[best], value: fs[best] };
 }
+
+/**
+ * Golden-section search for the minimum of f on [lo, hi] (f unimodal there), until the interval is at
+ * most `width(a, b)` or `maxIter` steps; `stop` ends it early at a point that is already good enough.
+ */
+export function goldenSection(
+  f: (x: number) => number,
+  lo: number,
+  hi: number,
+  opts: { maxIter: number; width: (a: number, b: number) => number; stop?: (fx: number) => boolean },
+): number {
+  const r = (Math.sqrt(5) - 1) / 2;
+  let a = lo;
+  let b = hi;
+  let c = b - r * (b - a);
+  let d = a + r * (b - a);
+  let fc = f(c);
+  let fd = f(d);
+  for (let k = 0; k < opts.maxIter && b - a > opts.width(a, b); k++) {
+    if (opts.stop?.(fc)) return c;
+    if (opts.stop?.(fd)) return d;
+    if (fc <= fd) {
+      b = d;
+      d = c;
+      fd = fc;
+      c = b - r * (b - a);
+      fc = f(c);
+    } else {
+      a = c;
+      c = d;
+      fc = fd;
+      d = a + r * (b - a);
+      fd = f(d);
+    }
+  }
+  return fc <= fd ? c : d;
+}

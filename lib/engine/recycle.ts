@@ -3,6 +3,7 @@ import { brentRoot } from "./root-finding";
 import type { SizingBasis } from "./sizing-basis";
 import { inletShiftIntegral, levenspielHeight, pathVolume, temperatureFeasible, type Precision } from "./stages";
 import { basisMemo } from "./basis-memo";
+import { goldenSection } from "./minimise-1d";
 
 /*
  * A tube with part of its outlet recycled to its inlet (Levenspiel, Chemical Reaction Engineering, 3rd
@@ -151,27 +152,5 @@ function localMinimum(g: (u: number) => number, m: (u: number) => number, lo: nu
   const fl = gLo ?? g(lo);
   const fh = gHi ?? g(hi);
   if (fl > 0 && fh < 0) return brentRoot(g, lo, hi, 1e-15 * Math.max(1, Math.abs(hi)));
-  let x0 = lo;
-  let x3 = hi;
-  const phi = (Math.sqrt(5) - 1) / 2;
-  let x1 = x3 - phi * (x3 - x0);
-  let x2 = x0 + phi * (x3 - x0);
-  let m1 = m(x1);
-  let m2 = m(x2);
-  for (let i = 0; i < 80 && x3 - x0 > 1e-14; i++) {
-    if (m1 <= m2) {
-      x3 = x2;
-      x2 = x1;
-      m2 = m1;
-      x1 = x3 - phi * (x3 - x0);
-      m1 = m(x1);
-    } else {
-      x0 = x1;
-      x1 = x2;
-      m1 = m2;
-      x2 = x0 + phi * (x3 - x0);
-      m2 = m(x2);
-    }
-  }
-  return m1 <= m2 ? x1 : x2;
+  return goldenSection(m, lo, hi, { maxIter: 80, width: () => 1e-14 });
 }

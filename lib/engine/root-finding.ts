@@ -1,3 +1,5 @@
+import { goldenSection } from "./minimise-1d";
+
 /**
  * Brent's method for a root of f in [a, b] where f(a) and f(b) differ in sign
  * (Brent, Algorithms for Minimization without Derivatives, 1973, ch. 4).
@@ -104,30 +106,6 @@ export function allRoots(f: (x: number) => number, a: number, b: number, n: numb
 
 /** The minimum of g on [lo, hi] by golden-section search to round-off of the interval (g unimodal there). */
 function goldenMinimum(g: (x: number) => number, lo: number, hi: number): number {
-  const r = (Math.sqrt(5) - 1) / 2;
-  let a = lo;
-  let b = hi;
-  let c = b - r * (b - a);
-  let d = a + r * (b - a);
-  let gc = g(c);
-  let gd = g(d);
-  for (let k = 0; k < 200 && b - a > 4 * Number.EPSILON * Math.max(Math.abs(a), Math.abs(b), 1e-300); k++) {
-    // Stop early once the minimum is below zero: two roots are then bracketed.
-    if (gc < 0) return c;
-    if (gd < 0) return d;
-    if (gc <= gd) {
-      b = d;
-      d = c;
-      gd = gc;
-      c = b - r * (b - a);
-      gc = g(c);
-    } else {
-      a = c;
-      c = d;
-      gc = gd;
-      d = a + r * (b - a);
-      gd = g(d);
-    }
-  }
-  return gc <= gd ? c : d;
+  // Stop early once the minimum is below zero: two roots are then bracketed.
+  return goldenSection(g, lo, hi, { maxIter: 200, width: (a, b) => 4 * Number.EPSILON * Math.max(Math.abs(a), Math.abs(b), 1e-300), stop: (v) => v < 0 });
 }
